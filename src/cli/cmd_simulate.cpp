@@ -1,0 +1,12 @@
+// `cuspmap simulate`: not built yet; refuses with exit 2 until its issue lands.
+#include "cli/command.h"
+#include "core/input_error.h"
+
+namespace cuspmap {
+
+void setup_simulate(CLI::App& sub) {
+  sub.allow_extras();
+  sub.callback([] { throw InputError("'simulate' is not built yet in this version of cuspmap"); });
+}
+
+}  // namespace cuspmap

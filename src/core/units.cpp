@@ -1,0 +1,100 @@
+// Unit-suffix parsing for lengths (-> mm) and angles (-> deg), locale-independent.
+// Inputs: strings from flags and job files; outputs: finite doubles in core units.
+// Method: std::from_chars (no strtod/locale), exact inch factor 25.4 mm.
+#include "core/units.h"
+
+#include <array>
+#include <charconv>
+#include <cmath>
+#include <cstdio>
+#include <utility>
+
+#include "core/input_error.h"
+
+namespace cuspmap {
+namespace {
+
+std::string_view trim(std::string_view s) {
+  while (!s.empty() && (s.front() == ' ' || s.front() == '\t')) s.remove_prefix(1);
+  while (!s.empty() && (s.back() == ' ' || s.back() == '\t')) s.remove_suffix(1);
+  return s;
+}
+
+// Splits "12.5mm" into the number 12.5 and the suffix "mm"; throws on a malformed number.
+std::pair<double, std::string_view> split_number(std::string_view text, std::string_view what) {
+  const std::string_view s = trim(text);
+  if (s.empty()) {
+    throw InputError(std::string(what) + " is empty: expected a number");
+  }
+  const char* first = s.data();
+  if (*first == '+') ++first;  // from_chars rejects a leading '+', people type it
+  double value = 0.0;
+  const auto [ptr, ec] = std::from_chars(first, s.data() + s.size(), value);
+  if (ec != std::errc() || ptr == first) {
+    throw InputError(std::string(what) + " '" + std::string(text) + "': not a number");
+  }
+  if (!std::isfinite(value)) {
+    throw InputError(std::string(what) + " '" + std::string(text) + "': must be a finite number");
+  }
+  return {value, trim(std::string_view(ptr, static_cast<size_t>(s.data() + s.size() - ptr)))};
+}
+
+}  // namespace
+
+LengthUnit parse_length_unit(std::string_view text, std::string_view what) {
+  const std::string_view s = trim(text);
+  if (s == "mm") return LengthUnit::Millimetre;
+  if (s == "in" || s == "inch") return LengthUnit::Inch;
+  throw InputError(std::string(what) + " '" + std::string(text) + "': allowed units are mm, in");
+}
+
+double parse_length_mm(std::string_view text, LengthUnit bare_unit, std::string_view what) {
+  const auto [value, suffix] = split_number(text, what);
+  struct Factor {
+    std::string_view suffix;
+    double mm_per_unit;
+  };
+  static constexpr std::array<Factor, 7> kFactors = {{
+      {"mm", 1.0},
+      {"um", 1e-3},
+      {"µm", 1e-3},
+      {"in", kMmPerInch},
+      {"thou", kMmPerInch * 1e-3},
+      {"mil", kMmPerInch * 1e-3},
+      {"uin", kMmPerInch * 1e-6},
+  }};
+  if (suffix.empty()) {
+    return bare_unit == LengthUnit::Inch ? value * kMmPerInch : value;
+  }
+  for (const Factor& f : kFactors) {
+    if (suffix == f.suffix) return value * f.mm_per_unit;
+  }
+  throw InputError(std::string(what) + " '" + std::string(text) +
+                   "': unknown unit; allowed suffixes are mm, um, in, thou, uin");
+}
+
+double parse_angle_deg(std::string_view text, std::string_view what) {
+  const auto [value, suffix] = split_number(text, what);
+  if (suffix.empty() || suffix == "deg" || suffix == "°") return value;
+  throw InputError(std::string(what) + " '" + std::string(text) +
+                   "': unknown angle unit; allowed suffix is deg");
+}
+
+double parse_number(std::string_view text, std::string_view what) {
+  const auto [value, suffix] = split_number(text, what);
+  if (!suffix.empty()) {
+    throw InputError(std::string(what) + " '" + std::string(text) + "': expected a plain number");
+  }
+  return value;
+}
+
+std::string format_number(double value) {
+  std::array<char, 64> buf{};
+  // std::to_chars with general format and precision 6: locale-independent, like %.6g.
+  const auto [ptr, ec] =
+      std::to_chars(buf.data(), buf.data() + buf.size(), value, std::chars_format::general, 6);
+  if (ec != std::errc()) return "?";
+  return std::string(buf.data(), ptr);
+}
+
+}  // namespace cuspmap

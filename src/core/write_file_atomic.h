@@ -1,0 +1,23 @@
+// Writes a whole file atomically: bytes go to a temporary name in the same folder, are flushed,
+// then renamed over the target, so a reader never sees a half-written file. The one place that
+// writes output files. Temp names are registered so a SIGINT/SIGTERM handler can remove them.
+// Method: POSIX rename(2) atomicity within one file system (ninja's build log does the same).
+#pragma once
+
+#include <string>
+#include <string_view>
+
+namespace cuspmap {
+
+/// Writes `bytes` to `path` via "<path>.tmp-<pid>-<n>" + fsync + rename.
+/// @param[in] path   destination file; its folder must exist
+/// @param[in] bytes  complete file contents
+/// @throws std::runtime_error (an internal error, exit 1) when the disk refuses; the temp file
+///         is removed first.
+void write_file_atomic(const std::string& path, std::string_view bytes);
+
+/// Installs SIGINT/SIGTERM handlers that unlink every temp file still being written, then
+/// re-raise the signal. Call once from main.
+void install_temp_cleanup_handlers();
+
+}  // namespace cuspmap

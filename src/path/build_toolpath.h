@@ -1,0 +1,30 @@
+// Builds the Toolpath a PathSpec asks for: dispatches to the strategy (raster, offset, spiral,
+// trochoidal) or reads the user's G-code program. Lengths mm.
+#pragma once
+
+#include "core/heightfield.h"
+#include "path/move.h"
+#include "path/path_spec.h"
+#include "tool/cutter.h"
+
+namespace cuspmap {
+
+/// Warnings gathered while building a path (e.g. a rapid that reaches the floor), for the report.
+struct PathWarning {
+  int line = 0;          ///< G-code line number, 0 for built-in strategies
+  std::string message;   ///< one line, no trailing newline
+};
+
+/// The built path and what the builder noticed.
+struct BuiltPath {
+  Toolpath path;                       ///< moves in execution order
+  std::vector<PathWarning> warnings;   ///< non-fatal findings, in order
+  SpindleDirection spindle = SpindleDirection::Cw;  ///< spindle direction in force (M3/M4 for G-code)
+};
+
+/// @param[in] spec, cut, patch, cutter  validated job parts (mm, deg, mm/min)
+/// @throws InputError for an unreadable or malformed G-code file (file:line, the word, why).
+BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
+                         const Cutter& cutter);
+
+}  // namespace cuspmap
