@@ -1,0 +1,51 @@
+#!/usr/bin/env bash
+# Builds the libFuzzer targets (clang, build-fuzz/) and runs each for a given time, one at a time,
+# then prints the executions each reached. Any crash, leak, timeout, out-of-memory or finding
+# (tests/fuzz/fuzz_check.h) stops the script with exit 1 and leaves the input in
+# build-fuzz/findings/.
+# Usage: tools/fuzz.sh [SECONDS_PER_TARGET=60] [TARGET ...]   (targets default to all built)
+#   FUZZ_BUILD_DIR (default build-fuzz) and FUZZ_JOBS (build parallelism, default 2) may be set.
+set -euo pipefail
+cd "$(dirname "$0")/.."
+seconds="${1:-60}"
+shift || true
+build="${FUZZ_BUILD_DIR:-build-fuzz}"
+
+if [ ! -f "$build/CMakeCache.txt" ]; then
+  CXX=clang++ cmake -S . -B "$build" -DCUSPMAP_FUZZ=ON -DCUSPMAP_TESTS=OFF \
+    -DCMAKE_BUILD_TYPE=RelWithDebInfo >/dev/null
+fi
+mapfile -t built < <(cmake --build "$build" -j"${FUZZ_JOBS:-2}" >/dev/null && grep -v '^$' "$build/tests/fuzz/targets.txt")
+targets=("$@")
+[ "${#targets[@]}" -gt 0 ] || targets=("${built[@]}")
+
+mkdir -p "$build/findings"
+total_execs=0
+for t in "${targets[@]}"; do
+  bin="$build/tests/fuzz/$t"
+  [ -x "$bin" ] || { echo "fuzz.sh: no target $t in $build (built: ${built[*]})" >&2; exit 2; }
+  seeds="tests/fuzz/corpus/$t"
+  work="$build/fuzz-work/$t"   # grows across local runs; seeds stay untouched in git
+  mkdir -p "$work"
+  opts=(-max_total_time="$seconds" -timeout=10 -rss_limit_mb=2048 -max_len=8192
+        -print_final_stats=1 -artifact_prefix="$build/findings/$t-")
+  [ -f "tests/fuzz/$t.dict" ] && opts+=(-dict="tests/fuzz/$t.dict")
+  # Saved reproducers of past findings must stay fixed: replay them first.
+  if compgen -G "tests/fuzz/regressions/$t/*" >/dev/null; then
+    if ! "$bin" -timeout=10 -rss_limit_mb=2048 tests/fuzz/regressions/"$t"/* >"$build/findings/$t-replay.log" 2>&1; then
+      echo "$t: a saved regression input fails again; see $build/findings/$t-replay.log" >&2
+      exit 1
+    fi
+  fi
+  log="$build/findings/$t.log"
+  if ! nice "$bin" "${opts[@]}" "$work" "$seeds" >"$log" 2>&1; then
+    echo "$t: FINDING (see $log and $build/findings/$t-*)" >&2
+    grep -E 'ERROR|finding|SUMMARY|Test unit written' "$log" | head -5 >&2 || true
+    exit 1
+  fi
+  execs=$(sed -n 's/^stat::number_of_executed_units: *//p' "$log" | tail -1)
+  corpus=$(find "$work" -type f | wc -l)
+  echo "$t: ${execs:-?} executions in ${seconds} s, corpus ${corpus} inputs, no finding"
+  total_execs=$((total_execs + ${execs:-0}))
+done
+echo "fuzz.sh: ${#targets[@]} targets, ${total_execs} executions, no finding"
