@@ -229,6 +229,14 @@ void check_path_geometry(const toml::table& t, const TomlFields& f, const Job& j
            format_number(p.stepover_mm) + " mm: must be at least patch.cell " +
                format_number(job.patch.cell_mm) + " mm; the grid cannot resolve finer passes");
   }
+  // Trochoidal loops advancing by less than a cell add moves (a 10 mm lane at 1 nm per loop would
+  // be 1e7 loops) without any detail the grid can show.
+  if (p.kind == PathKind::Trochoidal && p.advance_mm > 0 && !job.patch_from_program &&
+      p.advance_mm < job.patch.cell_mm) {
+    f.fail(*t.get("advance"), "path", "advance",
+           format_number(p.advance_mm) + " mm: must be 0 (automatic) or at least patch.cell " +
+               format_number(job.patch.cell_mm) + " mm");
+  }
   if (!p.boundary_mm.empty()) {
     double twice_area = 0.0;  // shoelace formula
     for (size_t k = 0; k < p.boundary_mm.size(); ++k) {

@@ -85,3 +85,11 @@ TEST_CASE("parse_job: an offset boundary on one line encloses no area", "[job]")
         "job.toml:14:12: path.boundary encloses no area: needs at least 3 points that are not on "
         "one line");
 }
+
+TEST_CASE("parse_job: trochoidal advance finer than a cell is refused", "[job]") {
+  std::string text = job_text("", "advance = 0.000001\n", "mm", "3");
+  text.replace(text.find("\"raster\""), 8, "\"trochoidal\"");
+  CHECK(error_of(text) ==
+        "job.toml:14:11: path.advance 1e-06 mm: must be 0 (automatic) or at least patch.cell "
+        "0.01 mm");
+}
