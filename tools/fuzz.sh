@@ -11,11 +11,16 @@ seconds="${1:-60}"
 shift || true
 build="${FUZZ_BUILD_DIR:-build-fuzz}"
 
-if [ ! -f "$build/CMakeCache.txt" ]; then
-  CXX=clang++ cmake -S . -B "$build" -DCUSPMAP_FUZZ=ON -DCUSPMAP_TESTS=OFF \
-    -DCMAKE_BUILD_TYPE=RelWithDebInfo >/dev/null
-fi
-mapfile -t built < <(cmake --build "$build" -j"${FUZZ_JOBS:-2}" >/dev/null && grep -v '^$' "$build/tests/fuzz/targets.txt")
+# Configure every time (cheap): a parser that just landed adds its target to targets.txt.
+mkdir -p "$build"
+CXX=clang++ cmake -S . -B "$build" -DCUSPMAP_FUZZ=ON -DCUSPMAP_TESTS=OFF \
+  -DCMAKE_BUILD_TYPE=RelWithDebInfo >"$build/configure.log" 2>&1 ||
+  { cat "$build/configure.log" >&2; exit 1; }
+# targets.txt (written at configure time) lists the targets whose parsers are in this tree; only
+# they are built, not the cuspmap binary.
+mapfile -t built < <(grep -v '^$' "$build/tests/fuzz/targets.txt")
+cmake --build "$build" -j"${FUZZ_JOBS:-2}" --target "${built[@]}" >"$build/fuzz-build.log" 2>&1 ||
+  { tail -30 "$build/fuzz-build.log" >&2; exit 1; }
 targets=("$@")
 [ "${#targets[@]}" -gt 0 ] || targets=("${built[@]}")
 
