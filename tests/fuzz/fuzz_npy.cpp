@@ -1,0 +1,26 @@
+// libFuzzer target: the NumPy .npy heightmap reader, through io/read_heightmap as the CLI uses it.
+// Input: file bytes, written to a scratch file "fuzz.npy". Accepted files must give a usable
+// heightfield (fuzz_check.h). Findings: an exception but InputError, an infinite height, an
+// empty or inconsistent grid, a crash, a leak, UB or memory beyond libFuzzer's limit.
+// fuzz-requires: src/io/read_heightmap.h
+// fuzz-requires: src/io/read_heightmap.cpp
+#include <cstddef>
+#include <cstdint>
+#include <string_view>
+
+#include "fuzz_check.h"
+#include "io/read_heightmap.h"
+
+using namespace cuspmap;
+
+// Cell size given as --cell would be (a 10 um grid, the examples' usual cell).
+constexpr double kFuzzCellMm = 0.01;
+
+extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
+  const std::string path =
+      fuzz::scratch_file("fuzz.npy", std::string_view(reinterpret_cast<const char*>(data), size));
+  HeightmapReadOptions options;
+  options.cell_mm = kFuzzCellMm;  // the file does not state its cell
+  fuzz::run_one([&] { fuzz::require_heightfield(read_heightmap(path, options).field, true); });
+  return 0;
+}

@@ -1,0 +1,23 @@
+// libFuzzer target: the ASCII SDF (ISO 25178-71) heightmap reader, through io/read_heightmap as the CLI uses it.
+// Input: file bytes, written to a scratch file "fuzz.sdf". Accepted files must give a usable
+// heightfield (fuzz_check.h). Findings: an exception but InputError, an infinite height, an
+// empty or inconsistent grid, a crash, a leak, UB or memory beyond libFuzzer's limit.
+// fuzz-requires: src/io/read_heightmap.h
+// fuzz-requires: src/io/read_heightmap.cpp
+#include <cstddef>
+#include <cstdint>
+#include <string_view>
+
+#include "fuzz_check.h"
+#include "io/read_heightmap.h"
+
+using namespace cuspmap;
+
+extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
+  const std::string path =
+      fuzz::scratch_file("fuzz.sdf", std::string_view(reinterpret_cast<const char*>(data), size));
+  HeightmapReadOptions options;
+  // No --cell: the format states its own cell size.
+  fuzz::run_one([&] { fuzz::require_heightfield(read_heightmap(path, options).field, true); });
+  return 0;
+}
