@@ -9,12 +9,13 @@
 
 #include "core/input_error.h"
 #include "io/legend.h"
+#include "io/nice_ticks.h"
 
 namespace cuspmap {
 namespace {
 
-constexpr int kFlatLevel = 127;    // a range of zero width: one mid gray, neither "low" nor "high"
-constexpr int kMarginPx = 8;       // white margin around the framed map when a legend is drawn
+constexpr int kFlatLevel = 127;  // a range of zero width: one mid gray, neither "low" nor "high"
+constexpr int kMarginPx = 8;     // white margin around the framed map when a legend is drawn
 constexpr int kMinLegendBarPx = 120;  // a ramp shorter than this cannot hold three labels
 
 }  // namespace
@@ -87,13 +88,37 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
   const int legend_x = out.map_x_px + out.map_width_px + kMarginPx;
   const int legend_y = out.map_y_px - legend_ramp_top_px(spec);
   const int width = legend_x + legend.width;
-  const int height = std::max(out.map_y_px + out.map_height_px + kMarginPx, legend_y + legend.height);
+  const int height =
+      std::max(out.map_y_px + out.map_height_px + kMarginPx, legend_y + legend.height);
   out.image = make_image(width, height, 1, kWhite);
   draw_rect(out.image, out.map_x_px - 1, out.map_y_px - 1, out.map_width_px + 2,
             out.map_height_px + 2, kBlack);
   blit(map, out.image, out.map_x_px, out.map_y_px);
   blit(legend, out.image, legend_x, legend_y);
   return out;
+}
+
+std::string height_image_caption(const HeightImage& image, LengthUnit units) {
+  const std::string u = height_unit_label(units);
+  const double lo = height_in_display_unit(image.lo_um, units);
+  const double hi = height_in_display_unit(image.hi_um, units);
+  const double step = height_in_display_unit(image.um_per_level, units);
+  // Decimals of a 1-2-5 step near 1/25 of the range (~10 gray levels): ends read to that step.
+  const int decimals = decimals_for_step(nice_step(std::max(hi - lo, 1e-12), kTopHeightLevel / 10));
+  const double px = units == LengthUnit::Inch ? image.mm_per_px / kMmPerInch : image.mm_per_px;
+  const std::string k = std::to_string(image.cells_per_pixel);
+  // Built by appending: GCC 12 misreports chained std::string operator+ (-Wrestrict, PR 105651).
+  std::string text = "Height seen from above, +Y up: black = ";
+  text.append(format_fixed(lo, decimals)).append(" ").append(u);
+  text.append(", light gray = ").append(format_fixed(hi, decimals)).append(" ").append(u);
+  text.append(" (").append(format_significant(step, 3)).append(" ").append(u);
+  text.append(" per gray level); white = not reached; 1 pixel = ")
+      .append(k)
+      .append(" x ")
+      .append(k);
+  text.append(" cells (").append(format_significant(px, 3));
+  text.append(units == LengthUnit::Inch ? " in)." : " mm).");
+  return text;
 }
 
 }  // namespace cuspmap

@@ -107,6 +107,16 @@ void figure(std::string& out, const HtmlImage& image) {
   out += "</figure>\n";
 }
 
+// Appends <section id=..><h2>heading</h2>, the body, </section>; nothing when items is empty.
+template <class T, class Body>
+void section(std::string& out, const char* id, const char* heading, const std::vector<T>& items,
+             Body body) {
+  if (items.empty()) return;
+  out += std::string("<section id=\"") + id + "\">\n<h2>" + heading + "</h2>\n";
+  body();
+  out += "</section>\n";
+}
+
 BestIs best_rule(const HtmlTable& t, std::size_t column) {
   return column < t.best.size() ? t.best[column] : BestIs::None;
 }
@@ -169,12 +179,23 @@ std::string html_escape(std::string_view text) {
   out.reserve(text.size());
   for (char c : text) {
     switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      case '\'': out += "&#39;"; break;
-      default: out += c;
+      case '&':
+        out += "&amp;";
+        break;
+      case '<':
+        out += "&lt;";
+        break;
+      case '>':
+        out += "&gt;";
+        break;
+      case '"':
+        out += "&quot;";
+        break;
+      case '\'':
+        out += "&#39;";
+        break;
+      default:
+        out += c;
     }
   }
   return out;
@@ -212,31 +233,17 @@ std::string render_html_report(const HtmlReport& r) {
     }
     out += "</tbody>\n</table>\n</section>\n";
   }
-  if (!r.tables.empty()) {
-    out += "<section id=\"results\">\n<h2>Results</h2>\n";
+  section(out, "results", "Results", r.tables, [&] {
     for (const HtmlTable& t : r.tables) table(out, t);
-    out += "</section>\n";
-  }
-  if (!r.images.empty()) {
-    out += "<section id=\"pictures\">\n<h2>Pictures</h2>\n";
+  });
+  section(out, "pictures", "Pictures", r.images, [&] {
     for (const HtmlImage& image : r.images) figure(out, image);
-    out += "</section>\n";
-  }
-  if (!r.profile_plots.empty()) {
-    out += "<section id=\"profiles\">\n<h2>Profiles</h2>\n";
+  });
+  section(out, "profiles", "Profiles", r.profile_plots, [&] {
     for (const HtmlImage& image : r.profile_plots) figure(out, image);
-    out += "</section>\n";
-  }
-  if (!r.filters.empty()) {
-    out += "<section id=\"filters\">\n<h2>Cut-off and filters used</h2>\n";
-    list(out, r.filters);
-    out += "</section>\n";
-  }
-  if (!r.notes.empty()) {
-    out += "<section id=\"notes\">\n<h2>Notes</h2>\n";
-    list(out, r.notes);
-    out += "</section>\n";
-  }
+  });
+  section(out, "filters", "Cut-off and filters used", r.filters, [&] { list(out, r.filters); });
+  section(out, "notes", "Notes", r.notes, [&] { list(out, r.notes); });
   out += "<section id=\"how-to-read\">\n<h2>How to read this report</h2>\n";
   out += kHowToRead;
   out += "</section>\n<section id=\"cautions\">\n<h2>Safety</h2>\n";

@@ -1,8 +1,7 @@
-// The HTML report: one self-contained page (pictures embedded as base64 data: URIs, no external
-// files or network) with title, inputs, results tables (best value per column marked by a class
-// and a symbol), pictures with captions, profile plots, filters used, how to read it, and the
-// safety cautions; printable on A4 and Letter. Generic: simulate, compare and plan fill it.
-// Method: HTML5 (WHATWG Living Standard) with CSS paged-media print rules; RFC 4648 base64.
+// The HTML report: one self-contained printable page (pictures as base64 data: URIs) with
+// inputs, results tables (best per column marked by class and symbol), pictures, profiles,
+// filters, a reading guide and the safety cautions. Filled by simulate, compare and plan.
+// Method: HTML5 (WHATWG) + CSS paged-media print rules; RFC 4648 base64.
 #pragma once
 
 #include <limits>
@@ -33,9 +32,9 @@ struct HtmlCell {
 
 /// A results table.
 struct HtmlTable {
-  std::string caption;                      ///< e.g. "Strategies compared"
-  std::vector<std::string> columns;         ///< header texts
-  std::vector<BestIs> best;                 ///< per column; shorter than columns = None for the rest
+  std::string caption;               ///< e.g. "Strategies compared"
+  std::vector<std::string> columns;  ///< header texts
+  std::vector<BestIs> best;          ///< per column; shorter than columns = None for the rest
   std::vector<std::vector<HtmlCell>> rows;  ///< each row has <= columns.size() cells
 };
 
@@ -49,15 +48,15 @@ struct HtmlImage {
 /// Everything a report page holds; empty parts are left out (the reading guide and the safety
 /// cautions are always there).
 struct HtmlReport {
-  std::string title;                        ///< page and h1 title
-  std::string subtitle;                     ///< e.g. "cuspmap 0.1.0 - simulate pump_cover.toml"
-  std::vector<HtmlKeyValue> inputs;         ///< tool, path, patch, cut ...
-  std::vector<HtmlTable> tables;            ///< results
-  std::vector<HtmlImage> images;            ///< height, shaded, montage pictures
-  std::vector<HtmlImage> profile_plots;     ///< profile pictures
-  std::vector<std::string> filters;         ///< cut-off and filters used, one item each
-  std::vector<std::string> notes;           ///< further remarks (ignored keys, warnings)
-  std::vector<std::string> cautions;        ///< added after the standard safety cautions
+  std::string title;                     ///< page and h1 title
+  std::string subtitle;                  ///< e.g. "cuspmap 0.1.0 - simulate pump_cover.toml"
+  std::vector<HtmlKeyValue> inputs;      ///< tool, path, patch, cut ...
+  std::vector<HtmlTable> tables;         ///< results
+  std::vector<HtmlImage> images;         ///< height, shaded, montage pictures
+  std::vector<HtmlImage> profile_plots;  ///< profile pictures
+  std::vector<std::string> filters;      ///< cut-off and filters used, one item each
+  std::vector<std::string> notes;        ///< further remarks (ignored keys, warnings)
+  std::vector<std::string> cautions;     ///< added after the standard safety cautions
 };
 
 /// Escapes text for HTML content and attribute values: & < > " ' become entities; other bytes

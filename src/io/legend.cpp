@@ -13,19 +13,19 @@
 namespace cuspmap {
 namespace {
 
-constexpr int kPadPx = 8;          // margin around the legend
-constexpr int kRampWidthPx = 18;   // wide enough to read a gray level at a glance
-constexpr int kTickPx = 5;         // tick mark length right of the ramp
-constexpr int kLabelGapPx = 4;     // gap between tick and label
-constexpr int kSwatchPx = 16;      // side of the "not reached" swatch
-constexpr int kMaxLegendTicks = 6; // at most this many intervals between labelled ticks
-constexpr int kFlatLevel = 127;    // gray of a degenerate (hi == lo) range
+constexpr int kPadPx = 8;           // margin around the legend
+constexpr int kRampWidthPx = 18;    // wide enough to read a gray level at a glance
+constexpr int kTickPx = 5;          // tick mark length right of the ramp
+constexpr int kLabelGapPx = 4;      // gap between tick and label
+constexpr int kSwatchPx = 16;       // side of the "not reached" swatch
+constexpr int kMaxLegendTicks = 6;  // at most this many intervals between labelled ticks
+constexpr int kFlatLevel = 127;     // gray of a degenerate (hi == lo) range
 
 // Capitals occupy font rows 0..6: their visual centre is 3.5 units below the text top.
 int text_centre_offset(int scale) { return (7 * scale) / 2; }
 
 struct Label {
-  int row;            // ramp row, 0 = top
+  int row;  // ramp row, 0 = top
   std::string text;
 };
 
@@ -50,9 +50,7 @@ std::vector<Label> legend_labels(const HeightLegendSpec& spec) {
 
 }  // namespace
 
-std::string height_unit_label(LengthUnit units) {
-  return units == LengthUnit::Inch ? "uin" : "um";
-}
+std::string height_unit_label(LengthUnit units) { return units == LengthUnit::Inch ? "uin" : "um"; }
 
 double height_in_display_unit(double height_um, LengthUnit units) {
   return units == LengthUnit::Inch ? height_um * kUinPerUm : height_um;
@@ -72,7 +70,8 @@ Image render_height_legend(const HeightLegendSpec& spec) {
   const int scale = std::max(spec.text_scale, 1);
   const std::vector<Label> labels = legend_labels(spec);
   int label_width = 0;
-  for (const Label& l : labels) label_width = std::max(label_width, measure_text(l.text, scale).width_px);
+  for (const Label& l : labels)
+    label_width = std::max(label_width, measure_text(l.text, scale).width_px);
   const std::string title = "height\n" + height_unit_label(spec.units);
   const std::string swatch_text = "not\nreached";
   const TextSize title_size = measure_text(title, scale);
@@ -91,8 +90,9 @@ Image render_height_legend(const HeightLegendSpec& spec) {
   draw_text(img, kPadPx, kPadPx, title, {scale, kBlack});
   const double lo = spec.lo_um, hi = spec.hi_um;
   for (int r = 0; r < bar; ++r) {
-    const int level = hi > lo ? static_cast<int>(std::lround(kTopHeightLevel * (1.0 - double(r) / (bar - 1))))
-                              : kFlatLevel;
+    const int level =
+        hi > lo ? static_cast<int>(std::lround(kTopHeightLevel * (1.0 - double(r) / (bar - 1))))
+                : kFlatLevel;
     fill_rect(img, kPadPx, ramp_top + r, kRampWidthPx, 1, gray(static_cast<std::uint8_t>(level)));
   }
   // The frame sits outside the ramp so every ramp pixel keeps its level.
@@ -117,8 +117,8 @@ ScaleBar choose_scale_bar(double mm_per_px, int max_px, LengthUnit units) {
   bar.length_mm = length * unit_mm;
   bar.length_px = static_cast<int>(std::lround(bar.length_mm / mm_per_px));
   if (length <= 0.0 || bar.length_px < 1) return {};
-  bar.label = format_fixed(length, decimals_for_step(length)) +
-              (units == LengthUnit::Inch ? " in" : " mm");
+  bar.label =
+      format_fixed(length, decimals_for_step(length)) + (units == LengthUnit::Inch ? " in" : " mm");
   return bar;
 }
 

@@ -23,12 +23,12 @@ double height_in_display_unit(double height_um, LengthUnit units);
 
 /// What the height legend shows.
 struct HeightLegendSpec {
-  double lo_um = 0.0;       ///< height drawn as gray 0 (black), um
-  double hi_um = 0.0;       ///< height drawn as gray 254, um; hi == lo draws one gray 127 value
+  double lo_um = 0.0;  ///< height drawn as gray 0 (black), um
+  double hi_um = 0.0;  ///< height drawn as gray 254, um; hi == lo draws one gray 127 value
   LengthUnit units = LengthUnit::Millimetre;  ///< labels in um (Millimetre) or uin (Inch)
-  int bar_height_px = 200;  ///< length of the gray ramp, >= 2
-  bool show_unreached = true;  ///< add the white "not reached" swatch below the ramp
-  int text_scale = 2;       ///< text size (pixels per font unit)
+  int bar_height_px = 200;                    ///< length of the gray ramp, >= 2
+  bool show_unreached = true;                 ///< add the white "not reached" swatch below the ramp
+  int text_scale = 2;                         ///< text size (pixels per font unit)
 };
 
 /// Renders the legend as its own gray image (white background) to blit beside a height map:

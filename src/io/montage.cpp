@@ -45,7 +45,8 @@ Image shrink_image(const Image& image, double factor) {
     const int y1 = std::clamp(static_cast<int>(std::ceil((oy + 1) * factor)), y0 + 1, image.height);
     for (int ox = 0; ox < w; ++ox) {
       const int x0 = std::min(static_cast<int>(ox * factor), image.width - 1);
-      const int x1 = std::clamp(static_cast<int>(std::ceil((ox + 1) * factor)), x0 + 1, image.width);
+      const int x1 =
+          std::clamp(static_cast<int>(std::ceil((ox + 1) * factor)), x0 + 1, image.width);
       for (int c = 0; c < image.channels; ++c) {
         long sum = 0;
         for (int y = y0; y < y1; ++y) {
@@ -72,22 +73,28 @@ MontageLayout montage_layout(const std::vector<MontageTile>& tiles, const Montag
   }
   for (const MontageTile& t : tiles) {
     const double f = shrink_factor(t, layout.mm_per_px);
-    const int w = f > 1.0 ? std::max(1, static_cast<int>(std::lround(t.image.width / f))) : t.image.width;
-    const int h = f > 1.0 ? std::max(1, static_cast<int>(std::lround(t.image.height / f))) : t.image.height;
+    const int w =
+        f > 1.0 ? std::max(1, static_cast<int>(std::lround(t.image.width / f))) : t.image.width;
+    const int h =
+        f > 1.0 ? std::max(1, static_cast<int>(std::lround(t.image.height / f))) : t.image.height;
     layout.cell_width_px = std::max(layout.cell_width_px, w);
     layout.cell_height_px = std::max(layout.cell_height_px, h);
   }
   const int s = std::max(options.text_scale, 1);
   const int lines = static_cast<int>(max_label_lines(tiles));
   // 2 px keep the tile's frame clear of the labels; then the lines (9 units deep for the last).
-  layout.label_height_px = 2 + (lines > 0 ? kLabelTopPx + (lines - 1) * kFontLinePitchPx * s + 9 * s : 0);
+  layout.label_height_px =
+      2 + (lines > 0 ? kLabelTopPx + (lines - 1) * kFontLinePitchPx * s + 9 * s : 0);
   layout.gap_px = kGapPx;
   layout.grid_left_px = kMarginPx;
-  layout.grid_top_px = kMarginPx + (options.title.empty() ? 0 : measure_text(options.title, s).height_px + kMarginPx);
+  layout.grid_top_px =
+      kMarginPx +
+      (options.title.empty() ? 0 : measure_text(options.title, s).height_px + kMarginPx);
   const int columns = std::min<int>(options.columns, static_cast<int>(tiles.size()));
   const int rows = (static_cast<int>(tiles.size()) + columns - 1) / columns;
   layout.scale_bar_x_px = kMarginPx;
-  layout.scale_bar_y_px = layout.grid_top_px + rows * (layout.cell_height_px + layout.label_height_px) +
+  layout.scale_bar_y_px = layout.grid_top_px +
+                          rows * (layout.cell_height_px + layout.label_height_px) +
                           (rows - 1) * kGapPx + kGapPx;
   return layout;
 }
@@ -100,12 +107,15 @@ Image render_montage(const std::vector<MontageTile>& tiles, const MontageOptions
   for (const MontageTile& t : tiles) rgb = rgb || t.image.channels == 3;
 
   const ScaleBar bar = choose_scale_bar(
-      layout.mm_per_px, static_cast<int>(kScaleBarCellFraction * layout.cell_width_px), options.units);
+      layout.mm_per_px, static_cast<int>(kScaleBarCellFraction * layout.cell_width_px),
+      options.units);
   const std::string note = "all pictures at one scale";
-  const int bar_block_h = kScaleBarTickPx + kScaleBarThicknessPx + 4 + measure_text("0", s).height_px;
-  const int width = std::max(2 * kMarginPx + columns * layout.cell_width_px + (columns - 1) * kGapPx,
-                             layout.scale_bar_x_px + std::max(bar.length_px, 1) + 3 * kGapPx +
-                                 measure_text(note, s).width_px + kMarginPx);
+  const int bar_block_h =
+      kScaleBarTickPx + kScaleBarThicknessPx + 4 + measure_text("0", s).height_px;
+  const int width =
+      std::max(2 * kMarginPx + columns * layout.cell_width_px + (columns - 1) * kGapPx,
+               layout.scale_bar_x_px + std::max(bar.length_px, 1) + 3 * kGapPx +
+                   measure_text(note, s).width_px + kMarginPx);
   const int height = layout.scale_bar_y_px + bar_block_h + kMarginPx;
   Image out = make_image(width, height, rgb ? 3 : 1, kWhite);
   if (!options.title.empty()) draw_text(out, kMarginPx, kMarginPx, options.title, {s, kBlack});
@@ -123,13 +133,14 @@ Image render_montage(const std::vector<MontageTile>& tiles, const MontageOptions
       text += (line > 0 ? "\n" : "") + t.label_lines[line];
     }
     // Labels are drawn into a cell-wide strip, so a long line is cut at the cell edge.
-    Image strip = make_image(layout.cell_width_px, layout.label_height_px - 2, out.channels, kWhite);
+    Image strip =
+        make_image(layout.cell_width_px, layout.label_height_px - 2, out.channels, kWhite);
     draw_text(strip, 0, kLabelTopPx, text, {s, kBlack});
     blit(strip, out, x, y + layout.cell_height_px + 2);
   }
   draw_scale_bar(out, layout.scale_bar_x_px, layout.scale_bar_y_px, bar, s);
-  draw_text(out, layout.scale_bar_x_px + bar.length_px + 3 * kGapPx, layout.scale_bar_y_px + kScaleBarTickPx,
-            note, {s, kBlack});
+  draw_text(out, layout.scale_bar_x_px + bar.length_px + 3 * kGapPx,
+            layout.scale_bar_y_px + kScaleBarTickPx, note, {s, kBlack});
   return out;
 }
 

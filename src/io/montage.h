@@ -1,8 +1,7 @@
-// montage.png: pictures of several simulations side by side on one shared scale, in a grid of
-// up to `columns` per row, each labelled with a few given lines (strategy, tool, stepover, feed),
-// with one scale bar (a 1-2-5 length in mm or inches). Cost: O(output pixels + input pixels).
-// Method: box-filter resampling to the coarsest tile scale (Gonzalez & Woods, Digital Image
-// Processing, 3rd ed. 2008, sec. 2.4); 1-2-5 scale bar (Heckbert, Graphics Gems I, 1990).
+// montage.png: pictures side by side on one shared scale, up to `columns` per row, each with a
+// few label lines, and one 1-2-5 scale bar in mm or in. Cost: O(input + output pixels).
+// Method: box-filter shrink to the coarsest tile scale (Gonzalez & Woods, 3rd ed., 2.4);
+// Heckbert, Graphics Gems I, 1990 (1-2-5 lengths).
 #pragma once
 
 #include <string>
@@ -15,9 +14,9 @@ namespace cuspmap {
 
 /// One picture of the montage.
 struct MontageTile {
-  Image image;                          ///< gray or RGB, e.g. ShadedImage::image
-  double mm_per_px = 0.0;               ///< its scale, > 0 (ShadedImage::mm_per_px)
-  std::vector<std::string> label_lines; ///< shown under the picture, ~3 lines, ASCII
+  Image image;                           ///< gray or RGB, e.g. ShadedImage::image
+  double mm_per_px = 0.0;                ///< its scale, > 0 (ShadedImage::mm_per_px)
+  std::vector<std::string> label_lines;  ///< shown under the picture, ~3 lines, ASCII
 };
 
 /// Layout of the montage.
@@ -30,17 +29,19 @@ struct MontageOptions {
 
 /// Geometry of the montage, for callers and tests that locate its parts.
 struct MontageLayout {
-  double mm_per_px = 0.0;  ///< the shared scale: the coarsest of the tiles
-  int cell_width_px = 0;   ///< width of a grid cell (widest resampled tile)
-  int cell_height_px = 0;  ///< height of a grid cell's picture part (tallest resampled tile)
-  int label_height_px = 0; ///< height of the label band under each picture
-  int grid_left_px = 0;    ///< left edge of the first cell's picture
-  int grid_top_px = 0;     ///< top edge of the first row's pictures
-  int gap_px = 0;          ///< space between cells
-  int scale_bar_x_px = 0;  ///< where the scale bar's ticks start (top-left)
+  double mm_per_px = 0.0;   ///< the shared scale: the coarsest of the tiles
+  int cell_width_px = 0;    ///< width of a grid cell (widest resampled tile)
+  int cell_height_px = 0;   ///< height of a grid cell's picture part (tallest resampled tile)
+  int label_height_px = 0;  ///< height of the label band under each picture
+  int grid_left_px = 0;     ///< left edge of the first cell's picture
+  int grid_top_px = 0;      ///< top edge of the first row's pictures
+  int gap_px = 0;           ///< space between cells
+  int scale_bar_x_px = 0;   ///< where the scale bar's ticks start (top-left)
   int scale_bar_y_px = 0;
   /// Top-left pixel of tile k's picture.
-  int tile_x(int k, int columns) const { return grid_left_px + (k % columns) * (cell_width_px + gap_px); }
+  int tile_x(int k, int columns) const {
+    return grid_left_px + (k % columns) * (cell_width_px + gap_px);
+  }
   int tile_y(int k, int columns) const {
     return grid_top_px + (k / columns) * (cell_height_px + label_height_px + gap_px);
   }

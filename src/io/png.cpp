@@ -28,13 +28,15 @@ std::string encode_png(const Image& image) {
   if (image.channels != 1 && image.channels != 3) {
     throw std::invalid_argument("encode_png: channels must be 1 or 3");
   }
-  if (image.pixels.size() != static_cast<std::size_t>(image.width) * image.height * image.channels) {
-    throw std::invalid_argument("encode_png: pixel buffer does not match width x height x channels");
+  if (image.pixels.size() !=
+      static_cast<std::size_t>(image.width) * image.height * image.channels) {
+    throw std::invalid_argument(
+        "encode_png: pixel buffer does not match width x height x channels");
   }
   std::string bytes;
-  const int ok = stbi_write_png_to_func(append_bytes, &bytes, image.width, image.height,
-                                        image.channels, image.pixels.data(),
-                                        image.width * image.channels);
+  const int ok =
+      stbi_write_png_to_func(append_bytes, &bytes, image.width, image.height, image.channels,
+                             image.pixels.data(), image.width * image.channels);
   if (ok == 0) throw std::runtime_error("encode_png: the PNG encoder failed (out of memory?)");
   return bytes;
 }

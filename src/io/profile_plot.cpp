@@ -16,8 +16,8 @@ namespace cuspmap {
 namespace {
 
 constexpr int kMaxProfiles = 2;
-constexpr int kMinWidthPx = 400;         // below this the key and the Rz zone leave no plot area
-constexpr int kMinPanelHeightPx = 200;   // ditto for the text rows above and below the plot
+constexpr int kMinWidthPx = 400;        // below this the key and the Rz zone leave no plot area
+constexpr int kMinPanelHeightPx = 200;  // ditto for the text rows above and below the plot
 constexpr int kPadPx = 10;
 constexpr int kTickPx = 6;
 constexpr int kRzZonePx = 110;      // room right of the plot for the Rz bar and its label
@@ -47,7 +47,8 @@ void polyline(Image& img, const PlotFrame& f, const std::vector<double>& x,
     const double x1 = f.px_of_x(x[k]), y1 = f.py_of_z(z[k] + z_offset);
     seg.dash_phase_px = static_cast<int>(std::lround(run_px));
     draw_line(img, x0, y0, x1, y1, seg);
-    if (std::isfinite(y0) && std::isfinite(y1)) run_px += std::max(std::abs(x1 - x0), std::abs(y1 - y0));
+    if (std::isfinite(y0) && std::isfinite(y1))
+      run_px += std::max(std::abs(x1 - x0), std::abs(y1 - y0));
   }
 }
 
@@ -60,7 +61,8 @@ void draw_panel(Image& img, int top, const ProfilePlotData& p, const ProfilePlot
   std::vector<double> x(p.x_mm.size()), z(p.z_um.size()), m(p.mean_line_um.size());
   for (std::size_t k = 0; k < x.size(); ++k) x[k] = p.x_mm[k] * x_unit;
   for (std::size_t k = 0; k < z.size(); ++k) z[k] = height_in_display_unit(p.z_um[k], o.units);
-  for (std::size_t k = 0; k < m.size(); ++k) m[k] = height_in_display_unit(p.mean_line_um[k], o.units);
+  for (std::size_t k = 0; k < m.size(); ++k)
+    m[k] = height_in_display_unit(p.mean_line_um[k], o.units);
   const double ra = height_in_display_unit(p.ra_um, o.units);
   const double rz = height_in_display_unit(p.rz_um, o.units);
 
@@ -97,13 +99,15 @@ void draw_panel(Image& img, int top, const ProfilePlotData& p, const ProfilePlot
   const std::vector<double> z_ticks = nice_ticks(f.z_lo, f.z_hi, kMaxZIntervals);
   const int z_dec = decimals_for_step(nice_step(f.z_hi - f.z_lo, kMaxZIntervals));
   int z_label_w = 0;
-  for (double t : z_ticks) z_label_w = std::max(z_label_w, measure_text(format_fixed(t, z_dec), s).width_px);
+  for (double t : z_ticks)
+    z_label_w = std::max(z_label_w, measure_text(format_fixed(t, z_dec), s).width_px);
 
   // Text rows: title with the numbers, the key, the z unit; then the plot; then x ticks + unit.
   std::string stats = "Ra " + format_significant(ra, kSignificantDigits) + " " + zu + "   Rz " +
                       format_significant(rz, kSignificantDigits) + " " + zu;
   if (p.cutoff_mm > 0.0) {
-    stats += "   cut-off " + format_significant(p.cutoff_mm * x_unit, kSignificantDigits) + " " + xu;
+    stats +=
+        "   cut-off " + format_significant(p.cutoff_mm * x_unit, kSignificantDigits) + " " + xu;
   }
   const int title_y = top + kPadPx;
   const TextSize title_size = draw_text(img, kPadPx, title_y, p.title, {s, kBlack});
@@ -174,7 +178,7 @@ void draw_panel(Image& img, int top, const ProfilePlotData& p, const ProfilePlot
   draw_text(img, f.rz_bar_x_px + 12, static_cast<int>(0.5 * (y_top + y_bot)) - 7 * s / 2, "Rz",
             {s, kBlack});
 
-  fill_rect(img, f.left_px - 1, f.top_px, 1, f.height_px + 1, kBlack);  // z axis
+  fill_rect(img, f.left_px - 1, f.top_px, 1, f.height_px + 1, kBlack);   // z axis
   fill_rect(img, f.left_px - 1, axis_y + 1, f.width_px + 1, 1, kBlack);  // x axis
 }
 
@@ -195,7 +199,8 @@ ProfilePlot render_profile_plot(const std::vector<ProfilePlotData>& profiles,
   plot.panels.resize(profiles.size());
   for (int k = 0; k < panels; ++k) {
     draw_panel(plot.image, k * options.panel_height_px, profiles[k], options, plot.panels[k]);
-    if (k > 0) fill_rect(plot.image, 0, k * options.panel_height_px, options.width_px, 1, kGridColor);
+    if (k > 0)
+      fill_rect(plot.image, 0, k * options.panel_height_px, options.width_px, 1, kGridColor);
   }
   return plot;
 }

@@ -18,8 +18,8 @@ std::uint8_t luma(Color c) {
 
 // Clips the parametric segment p0 + t (p1 - p0), t in [0, 1], to [lo, hi] on both axes.
 // Returns false when nothing is left; t0/t1 narrow to the visible part.
-bool clip_segment(double x0, double y0, double x1, double y1, double lo_x, double hi_x,
-                  double lo_y, double hi_y, double& t0, double& t1) {
+bool clip_segment(double x0, double y0, double x1, double y1, double lo_x, double hi_x, double lo_y,
+                  double hi_y, double& t0, double& t1) {
   const double dx = x1 - x0, dy = y1 - y0;
   const double p[4] = {-dx, dx, -dy, dy};
   const double q[4] = {x0 - lo_x, hi_x - x0, y0 - lo_y, hi_y - y0};
@@ -112,8 +112,8 @@ void draw_line(Image& image, double x0, double y0, double x1, double y1, const L
   // Clip to the image grown by the brush size, so a thick line just outside still shows its edge.
   const double pad = thickness;
   double t0 = 0.0, t1 = 1.0;
-  if (!clip_segment(x0, y0, x1, y1, -pad, image.width - 1 + pad, -pad, image.height - 1 + pad,
-                    t0, t1)) {
+  if (!clip_segment(x0, y0, x1, y1, -pad, image.width - 1 + pad, -pad, image.height - 1 + pad, t0,
+                    t1)) {
     return;
   }
   const double cx0 = x0 + t0 * (x1 - x0), cy0 = y0 + t0 * (y1 - y0);
@@ -131,7 +131,8 @@ void draw_line(Image& image, double x0, double y0, double x1, double y1, const L
   for (;;) {
     if (style.dash_px <= 0 || (step / style.dash_px) % 2 == 0) {
       for (int by = lo; by < lo + thickness; ++by) {
-        for (int bx = lo; bx < lo + thickness; ++bx) set_pixel(image, ix + bx, iy + by, style.color);
+        for (int bx = lo; bx < lo + thickness; ++bx)
+          set_pixel(image, ix + bx, iy + by, style.color);
       }
     }
     if (ix == ex && iy == ey) break;

@@ -1,8 +1,7 @@
-// Image: an 8-bit raster (gray or RGB, top row first) and the drawing primitives the pictures are
-// built from: pixel access, rectangle fill, blit, straight lines; everything clips to the image.
-// Cost: fill/blit O(pixels touched), line O(length in pixels x thickness^2).
-// Method: Bresenham, "Algorithm for computer control of a digital plotter", IBM Systems Journal
-// 4(1), 1965; Liang & Barsky, "A new concept and method for line clipping", ACM TOG 3(1), 1984.
+// Image: an 8-bit gray or RGB raster (top row first) and the primitives pictures are drawn with:
+// pixel access, rectangle fill, blit, clipped straight lines. Cost: O(pixels touched).
+// Method: Bresenham, IBM Systems Journal 4(1), 1965 (lines); Liang & Barsky, ACM TOG 3(1), 1984
+// (clipping).
 #pragma once
 
 #include <cstdint>
@@ -35,7 +34,9 @@ struct Image {
   /// True when (x, y) lies inside the image.
   bool contains(int x, int y) const { return x >= 0 && y >= 0 && x < width && y < height; }
   /// First channel of pixel (x, y) (the gray level of a gray image); (x, y) must be inside.
-  std::uint8_t& at(int x, int y) { return pixels[(static_cast<std::size_t>(y) * width + x) * channels]; }
+  std::uint8_t& at(int x, int y) {
+    return pixels[(static_cast<std::size_t>(y) * width + x) * channels];
+  }
   const std::uint8_t& at(int x, int y) const {
     return pixels[(static_cast<std::size_t>(y) * width + x) * channels];
   }

@@ -1,8 +1,7 @@
-// Block reduction of a float grid for pictures of large heightfields: each output value covers
-// k x k input cells (partial blocks at the high-index edges), taking their mean or minimum and
-// ignoring NaN cells. Cost: O(cells).
-// Method: box-filter decimation (area averaging), e.g. Gonzalez & Woods, Digital Image
-// Processing, 3rd ed. 2008, sec. 2.4 (image shrinking).
+// Block reduction of a float grid for pictures of large heightfields: each output value is the
+// mean or minimum of k x k input cells (partial blocks at the high-index edges), NaN ignored.
+// Cost: O(cells).
+// Method: box-filter decimation (Gonzalez & Woods, Digital Image Processing, 3rd ed., 2.4).
 #pragma once
 
 #include "core/heightfield.h"

@@ -11,6 +11,7 @@
 #include "core/input_error.h"
 #include "core/units.h"
 #include "io/legend.h"
+#include "io/nice_ticks.h"
 #include "io/reduce_blocks.h"
 
 namespace cuspmap {
@@ -52,7 +53,8 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
     throw InputError("light elevation " + format_number(options.light_elevation_deg) +
                      " deg: must be in (0, 90] deg");
   }
-  if (options.exaggeration && !(*options.exaggeration > 0.0 && std::isfinite(*options.exaggeration))) {
+  if (options.exaggeration &&
+      !(*options.exaggeration > 0.0 && std::isfinite(*options.exaggeration))) {
     throw InputError("exaggeration " + format_number(*options.exaggeration) +
                      ": must be a finite number > 0");
   }
@@ -120,6 +122,14 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
     }
   }
   return out;
+}
+
+std::string shaded_image_caption(const ShadedImage& image) {
+  return "Shaded relief seen from above, +Y up: light from azimuth " +
+         format_significant(image.light_azimuth_deg, 3) + " deg (counter-clockwise from +X) at " +
+         format_significant(image.light_elevation_deg, 3) +
+         " deg elevation; heights exaggerated x " + format_significant(image.exaggeration, 3) +
+         "; white = not reached.";
 }
 
 }  // namespace cuspmap

@@ -1,13 +1,11 @@
-// shaded.png: the heightfield as lit relief, seen from above (+Y up), so the lay, rim arcs and
-// scallop lines show as a shop light shows them even when they are a fraction of a um deep.
-// Gray = round(254 max(0, n . l)) with n the unit normal of the vertically exaggerated surface;
-// 255 (white) = not reached. Cost: O(cells) plus a percentile over <= 2^20 sampled slopes.
-// Method: Lambertian reflectance, brightness ~ cos(angle to the light) (Lambert, Photometria,
-// 1760; Foley, van Dam et al., Computer Graphics: Principles and Practice, 2nd ed., sec. 16.1);
-// normals from central differences.
+// shaded.png: Lambert-lit relief of a heightfield seen from above (+Y up), vertically exaggerated
+// so marks a fraction of a um deep show as a shop light shows them; gray = round(254 n.l), 255 =
+// not reached. Cost: O(cells) + a percentile over <= 2^20 sampled slopes.
+// Method: Lambert, Photometria, 1760 (cosine law); Foley, van Dam et al., Computer Graphics, 16.1.
 #pragma once
 
 #include <optional>
+#include <string>
 
 #include "core/heightfield.h"
 #include "io/raster_image.h"
@@ -28,13 +26,13 @@ struct ShadedImageOptions {
 
 /// The picture and the numbers the report states about it.
 struct ShadedImage {
-  Image image;                      ///< gray, ceil(nx / k) x ceil(ny / k), no margins
-  double exaggeration = 1.0;        ///< vertical exaggeration used
-  double light_azimuth_deg = 0.0;   ///< as used (from options)
-  double light_elevation_deg = 0.0; ///< as used (from options)
-  double slope_p95 = 0.0;           ///< 95th percentile of the true |grad z| (dimensionless)
-  int cells_per_pixel = 1;          ///< k: each pixel averages the shading of k x k cells
-  double mm_per_px = 0.0;           ///< k x cell size
+  Image image;                       ///< gray, ceil(nx / k) x ceil(ny / k), no margins
+  double exaggeration = 1.0;         ///< vertical exaggeration used
+  double light_azimuth_deg = 0.0;    ///< as used (from options)
+  double light_elevation_deg = 0.0;  ///< as used (from options)
+  double slope_p95 = 0.0;            ///< 95th percentile of the true |grad z| (dimensionless)
+  int cells_per_pixel = 1;           ///< k: each pixel averages the shading of k x k cells
+  double mm_per_px = 0.0;            ///< k x cell size
 };
 
 /// Auto exaggeration aims the 95th-percentile slope at this angle: with the default 45 deg light
@@ -58,5 +56,10 @@ double lambert_brightness(double gx, double gy, double light_azimuth_deg,
 /// @return picture, exaggeration used (auto: tan(30 deg) / slope_p95; 1 when the floor is flat)
 /// @throws InputError when the elevation is outside (0, 90] deg or a given exaggeration <= 0
 ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions& options);
+
+/// One-line caption for reports, e.g. "Shaded relief seen from above, +Y up: light from
+/// azimuth 135 deg (counter-clockwise from +X) at 45 deg elevation; heights exaggerated x 276;
+/// white = not reached."
+std::string shaded_image_caption(const ShadedImage& image);
 
 }  // namespace cuspmap

@@ -3,11 +3,11 @@
 // Method: stb_easy_font v1.1 glyph segments (public domain), filled as rectangles.
 #include "io/text_render.h"
 
+#include <stb_easy_font.h>
+
 #include <algorithm>
 #include <string>
 #include <vector>
-
-#include <stb_easy_font.h>
 
 namespace cuspmap {
 namespace {
@@ -47,7 +47,8 @@ TextSize draw_text(Image& image, int x, int y, std::string_view text, const Text
   const int scale = std::max(style.scale, 1);
   std::vector<float> vertices(s.size() * kMaxQuadsPerChar * 4 * kFloatsPerVertex);
   const int buffer_bytes = static_cast<int>(vertices.size() * sizeof(float));
-  const int quads = stb_easy_font_print(0.0f, 0.0f, s.data(), nullptr, vertices.data(), buffer_bytes);
+  const int quads =
+      stb_easy_font_print(0.0f, 0.0f, s.data(), nullptr, vertices.data(), buffer_bytes);
   for (int q = 0; q < quads; ++q) {
     // Vertices 0 and 2 of a quad are opposite corners (x0, y0) and (x1, y1); units are pixels.
     const float* v0 = &vertices[static_cast<std::size_t>(q) * 4 * kFloatsPerVertex];

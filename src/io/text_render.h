@@ -15,8 +15,8 @@ inline constexpr int kFontLinePitchPx = 12;
 
 /// How text is drawn.
 struct TextStyle {
-  int scale = 2;          ///< pixels per font unit, >= 1 (2 gives ~14 px capitals, readable)
-  Color color = kBlack;   ///< ink colour
+  int scale = 2;         ///< pixels per font unit, >= 1 (2 gives ~14 px capitals, readable)
+  Color color = kBlack;  ///< ink colour
 };
 
 /// Size of a block of text in pixels.

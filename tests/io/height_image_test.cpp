@@ -82,8 +82,7 @@ TEST_CASE("render_height_image: unreached cells are pure white, heights stay wit
   REQUIRE(none.hi_um == 0.0);
 }
 
-TEST_CASE("render_height_image: a fixed range clamps heights outside it and counts them",
-          "[io]") {
+TEST_CASE("render_height_image: a fixed range clamps heights outside it and counts them", "[io]") {
   // Heights 0..30 um across X, fixed range 10..20 um: cells below 10 -> 0, above 20 -> 254.
   const Heightfield hf = field(31, 2, [](int i, int) { return double(i); });
   HeightImageOptions o = no_legend();
@@ -120,7 +119,7 @@ TEST_CASE("render_height_image: large grids are block-reduced by mean or minimum
   REQUIRE(mean.image.at(3, 0) == height_gray_level(909.0, 0.0, 1016.0));
   o.downsample = BlockReduce::Min;
   const HeightImage low = render_height_image(hf, o);
-  REQUIRE(low.image.at(0, 3) == 0);                                       // min z = 0
+  REQUIRE(low.image.at(0, 3) == 0);                                      // min z = 0
   REQUIRE(low.image.at(1, 2) == height_gray_level(303.0, 0.0, 1016.0));  // rows 3..5, cols 3..5
 }
 
@@ -158,4 +157,15 @@ TEST_CASE("render_height_image: the legend sits right of the framed map and show
   REQUIRE(has_top);
   REQUIRE(has_bottom);
   REQUIRE(ink > 200);
+}
+
+TEST_CASE("height_image_caption: states the range, the gray step and the pixel size", "[io]") {
+  const Heightfield hf = field(5, 255, [](int, int j) { return 0.5 * j; });
+  const HeightImage img = render_height_image(hf, no_legend());
+  REQUIRE(height_image_caption(img, LengthUnit::Millimetre) ==
+          "Height seen from above, +Y up: black = 0 um, light gray = 127 um (0.500 um per gray "
+          "level); white = not reached; 1 pixel = 1 x 1 cells (0.0100 mm).");
+  // 127 um = 5000 uin (1 um = 39.37 uin).
+  REQUIRE(height_image_caption(img, LengthUnit::Inch).find("light gray = 5000 uin") !=
+          std::string::npos);
 }

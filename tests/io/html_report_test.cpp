@@ -13,8 +13,7 @@ namespace {
 
 // Independent decoder (test-only) for the round trip: RFC 4648 sec. 4 read backwards.
 std::string base64_decode(const std::string& text) {
-  const std::string alphabet =
-      "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/";
+  const std::string alphabet = "ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/";
   std::string out;
   unsigned buffer = 0;
   int bits = 0;
@@ -34,7 +33,8 @@ std::string base64_decode(const std::string& text) {
 
 std::size_t count(const std::string& hay, const std::string& needle) {
   std::size_t n = 0;
-  for (std::size_t at = hay.find(needle); at != std::string::npos; at = hay.find(needle, at + 1)) ++n;
+  for (std::size_t at = hay.find(needle); at != std::string::npos; at = hay.find(needle, at + 1))
+    ++n;
   return n;
 }
 
@@ -62,7 +62,8 @@ HtmlReport sample() {
 }  // namespace
 
 TEST_CASE("html_escape: the five HTML special characters become entities", "[io]") {
-  REQUIRE(html_escape("<a href=\"x\">&'</a>") == "&lt;a href=&quot;x&quot;&gt;&amp;&#39;&lt;/a&gt;");
+  REQUIRE(html_escape("<a href=\"x\">&'</a>") ==
+          "&lt;a href=&quot;x&quot;&gt;&amp;&#39;&lt;/a&gt;");
   REQUIRE(html_escape("\xC2\xB5m 3") == "\xC2\xB5m 3");  // UTF-8 passes unchanged
 }
 
@@ -100,8 +101,9 @@ TEST_CASE("render_html_report: every section present, text escaped, pictures emb
     CAPTURE(id);
     REQUIRE(html.find(std::string("<section id=\"") + id + "\">") != std::string::npos);
   }
-  REQUIRE(html.find("src=\"data:image/png;base64," + base64_encode(std::string("\x89PNG\r\n\x1a\n", 8)) +
-                    "\"") != std::string::npos);
+  REQUIRE(html.find("src=\"data:image/png;base64," +
+                    base64_encode(std::string("\x89PNG\r\n\x1a\n", 8)) + "\"") !=
+          std::string::npos);
   REQUIRE(html.find("src=\"data:image/png;base64,UExPVA==\"") != std::string::npos);  // "PLOT"
   REQUIRE(html.find("<figcaption>height, 0..2 um</figcaption>") != std::string::npos);
   REQUIRE(html.find("<li>Gaussian filter ISO 16610-21, cut-off 0.8 mm</li>") != std::string::npos);
@@ -118,14 +120,16 @@ TEST_CASE("render_html_report: best value per column marked by class and symbol,
   REQUIRE(count(html, "<span class=\"sr\">best: </span>0.29</td>") == 2);
   REQUIRE(count(html, "<span class=\"sr\">best: </span>1200</td>") == 1);
   REQUIRE(count(html, "\u2605</span>") == 3);
-  REQUIRE(html.find("lowest is best for Ra um; highest is best for path length mm") != std::string::npos);
+  REQUIRE(html.find("lowest is best for Ra um; highest is best for path length mm") !=
+          std::string::npos);
 }
 
 TEST_CASE("render_html_report: safety cautions and the reading guide are always there", "[io]") {
   HtmlReport bare;
   bare.title = "t";
   const std::string html = render_html_report(bare);
-  for (const std::string& c : standard_cautions()) REQUIRE(html.find(html_escape(c)) != std::string::npos);
+  for (const std::string& c : standard_cautions())
+    REQUIRE(html.find(html_escape(c)) != std::string::npos);
   REQUIRE(html.find("combustible") != std::string::npos);
   REQUIRE(html.find("harmful to breathe") != std::string::npos);
   REQUIRE(html.find("workholding") != std::string::npos);

@@ -29,7 +29,8 @@ TEST_CASE("render_height_legend: labels differ with the range and the unit", "[i
   b.hi_um = 2.0;
   HeightLegendSpec c = a;
   c.units = LengthUnit::Inch;
-  const Image ia = render_height_legend(a), ib = render_height_legend(b), ic = render_height_legend(c);
+  const Image ia = render_height_legend(a), ib = render_height_legend(b),
+              ic = render_height_legend(c);
   REQUIRE(ia.pixels != ib.pixels);
   REQUIRE(ia.pixels != ic.pixels);
   REQUIRE(height_unit_label(LengthUnit::Inch) == "uin");

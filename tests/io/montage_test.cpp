@@ -8,7 +8,8 @@ using namespace cuspmap;
 
 namespace {
 
-MontageTile tile(int w, int h, double mm_per_px, std::uint8_t level, std::vector<std::string> lines) {
+MontageTile tile(int w, int h, double mm_per_px, std::uint8_t level,
+                 std::vector<std::string> lines) {
   MontageTile t;
   t.image = make_image(w, h, 1, gray(level));
   t.mm_per_px = mm_per_px;
@@ -55,7 +56,8 @@ TEST_CASE("render_montage: tiles at their cells, labels in the band under each",
 }
 
 TEST_CASE("render_montage: scale bar length in pixels = length / mm per pixel", "[io]") {
-  std::vector<MontageTile> tiles = {tile(120, 50, 0.02, 128, {"a"}), tile(120, 50, 0.02, 128, {"b"})};
+  std::vector<MontageTile> tiles = {tile(120, 50, 0.02, 128, {"a"}),
+                                    tile(120, 50, 0.02, 128, {"b"})};
   MontageOptions o;
   const MontageLayout layout = montage_layout(tiles, o);
   const Image img = render_montage(tiles, o);

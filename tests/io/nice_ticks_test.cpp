@@ -7,12 +7,12 @@ using namespace cuspmap;
 
 TEST_CASE("nice_step: smallest 1-2-5 step giving at most the wanted intervals", "[io]") {
   // span / max = raw; step is the next 1-2-5 value >= raw (Heckbert 1990).
-  REQUIRE_NEAR(nice_step(10.0, 10), 1.0, 1e-12);   // raw 1
-  REQUIRE_NEAR(nice_step(10.0, 6), 2.0, 1e-12);    // raw 1.67
-  REQUIRE_NEAR(nice_step(10.0, 4), 5.0, 1e-12);    // raw 2.5
-  REQUIRE_NEAR(nice_step(0.37, 6), 0.1, 1e-12);    // raw 0.0617
-  REQUIRE_NEAR(nice_step(7.0, 1), 10.0, 1e-12);    // raw 7
-  REQUIRE_NEAR(nice_step(0.0, 5), 1.0, 1e-12);     // degenerate
+  REQUIRE_NEAR(nice_step(10.0, 10), 1.0, 1e-12);  // raw 1
+  REQUIRE_NEAR(nice_step(10.0, 6), 2.0, 1e-12);   // raw 1.67
+  REQUIRE_NEAR(nice_step(10.0, 4), 5.0, 1e-12);   // raw 2.5
+  REQUIRE_NEAR(nice_step(0.37, 6), 0.1, 1e-12);   // raw 0.0617
+  REQUIRE_NEAR(nice_step(7.0, 1), 10.0, 1e-12);   // raw 7
+  REQUIRE_NEAR(nice_step(0.0, 5), 1.0, 1e-12);    // degenerate
 }
 
 TEST_CASE("nice_ticks: multiples of the step inside the range", "[io]") {

@@ -36,7 +36,8 @@ Image decode(const std::string& png, int expected_channels) {
 TEST_CASE("encode_png: gray image round-trips through a PNG decoder", "[io]") {
   Image img = make_image(37, 11, 1, kWhite);
   for (int y = 0; y < img.height; ++y) {
-    for (int x = 0; x < img.width; ++x) img.at(x, y) = static_cast<std::uint8_t>((x * 7 + y * 31) % 256);
+    for (int x = 0; x < img.width; ++x)
+      img.at(x, y) = static_cast<std::uint8_t>((x * 7 + y * 31) % 256);
   }
   const std::string png = encode_png(img);
   // PNG signature, ISO/IEC 15948 sec. 5.2.
@@ -51,7 +52,8 @@ TEST_CASE("encode_png: RGB image round-trips with channel order kept", "[io]") {
   Image img = make_image(5, 4, 3, kBlack);
   for (int y = 0; y < 4; ++y) {
     for (int x = 0; x < 5; ++x) {
-      set_pixel(img, x, y, Color{static_cast<std::uint8_t>(50 * x), static_cast<std::uint8_t>(60 * y), 200});
+      set_pixel(img, x, y,
+                Color{static_cast<std::uint8_t>(50 * x), static_cast<std::uint8_t>(60 * y), 200});
     }
   }
   const Image back = decode(encode_png(img), 3);

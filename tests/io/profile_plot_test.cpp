@@ -50,9 +50,11 @@ TEST_CASE("render_profile_plot: two stacked panels of the requested size with ax
     REQUIRE(f.width_px > 500);
     REQUIRE(f.height_px > 150);
     // Axes: a black column left of the plot area and a black row under it, unbroken.
-    for (int y = f.top_px; y < f.top_px + f.height_px; ++y) REQUIRE(pixel(plot.image, f.left_px - 1, y) == kBlack);
+    for (int y = f.top_px; y < f.top_px + f.height_px; ++y)
+      REQUIRE(pixel(plot.image, f.left_px - 1, y) == kBlack);
     const int axis_y = f.top_px + f.height_px;
-    for (int x = f.left_px; x < f.left_px + f.width_px; ++x) REQUIRE(pixel(plot.image, x, axis_y) == kBlack);
+    for (int x = f.left_px; x < f.left_px + f.width_px; ++x)
+      REQUIRE(pixel(plot.image, x, axis_y) == kBlack);
     // x spans the data; z spans the data, the Ra band and the Rz bar.
     REQUIRE_NEAR(f.x_lo, 0.0, 1e-12);
     REQUIRE_NEAR(f.x_hi, 0.8, 1e-12);
@@ -95,6 +97,7 @@ TEST_CASE("render_profile_plot: inches change the axis scale; bad input throws",
   bad.z_um.pop_back();
   REQUIRE_THROWS_AS(render_profile_plot({bad}, ProfilePlotOptions{}), std::invalid_argument);
   REQUIRE_THROWS_AS(render_profile_plot({}, ProfilePlotOptions{}), std::invalid_argument);
-  REQUIRE_THROWS_AS(render_profile_plot({sample(true), sample(true), sample(true)}, ProfilePlotOptions{}),
-                    std::invalid_argument);
+  REQUIRE_THROWS_AS(
+      render_profile_plot({sample(true), sample(true), sample(true)}, ProfilePlotOptions{}),
+      std::invalid_argument);
 }

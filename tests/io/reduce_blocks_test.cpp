@@ -26,9 +26,9 @@ TEST_CASE("reduce_blocks: mean and minimum of 2 x 2 blocks with a partial edge",
   REQUIRE(mean.cols() == 3);
   REQUIRE_NEAR(mean(0, 0), 2.5, 1e-6);
   REQUIRE_NEAR(mean(0, 1), 13.0 / 3.0, 1e-6);  // NaN left out: (3 + 4 + 6) / 3
-  REQUIRE_NEAR(mean(0, 2), 6.0, 1e-6);          // partial block: (5 + 7) / 2
+  REQUIRE_NEAR(mean(0, 2), 6.0, 1e-6);         // partial block: (5 + 7) / 2
   REQUIRE_NEAR(mean(1, 0), 8.5, 1e-6);
-  REQUIRE(std::isnan(mean(1, 1)));              // no finite cell
+  REQUIRE(std::isnan(mean(1, 1)));  // no finite cell
   REQUIRE_NEAR(mean(1, 2), 1.0, 1e-6);
   const HeightGrid low = reduce_blocks(z, 2, BlockReduce::Min);
   REQUIRE_NEAR(low(0, 0), 1.0, 0.0);

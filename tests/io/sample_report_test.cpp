@@ -1,8 +1,7 @@
-// A hidden test that writes a complete sample report (all pictures embedded) for the headless
-// browser test (tests/io/html_browser_test.sh) and for looking at the pictures by eye.
-// Run: CUSPMAP_SAMPLE_REPORT=/tmp/r.html [CUSPMAP_SAMPLE_PNG_DIR=/tmp] cuspmap_tests "[io_sample]"
-// The floor is a ball cutter's: the lower envelope of spheres of radius R at every feed step of
-// every pass (the standard cusp geometry, DESIGN.md "Closed forms").
+// Hidden test [io_sample]: writes a full sample report (all pictures embedded) for
+// tests/io/html_browser_test.sh and for looking at the pictures by eye; floors are the lower
+// envelope of ball imprints (DESIGN.md "Closed forms"). Run: CUSPMAP_SAMPLE_REPORT=/tmp/r.html
+// [CUSPMAP_SAMPLE_PNG_DIR=/tmp] cuspmap_tests "[io_sample]".
 #include <cstdlib>
 #include <numbers>
 
@@ -22,8 +21,8 @@ namespace {
 
 // Floor left by a ball of radius r_mm, passes along X every stepover_mm, one imprint every
 // feed_mm along each pass (a simple stand-in for tooth marks), on a size_x x size_y patch.
-Heightfield ball_floor(double r_mm, double stepover_mm, double feed_mm, double size_x, double size_y,
-                       double cell_mm) {
+Heightfield ball_floor(double r_mm, double stepover_mm, double feed_mm, double size_x,
+                       double size_y, double cell_mm) {
   Heightfield hf;
   hf.cell_mm = cell_mm;
   hf.nx = static_cast<int>(std::ceil(size_x / cell_mm));
@@ -101,31 +100,29 @@ TEST_CASE("sample report: writes a full HTML report for the browser test", "[.][
     so.exaggeration = shaded.exaggeration;  // same relief for a fair comparison
     const ShadedImage tile = render_shaded_image(floors[k], so);
     const std::string s = format_fixed(stepovers[k], 2);
-    tiles.push_back({tile.image, tile.mm_per_px, {"raster one-way", "ball 6 mm", "stepover " + s + " mm"}});
+    tiles.push_back(
+        {tile.image, tile.mm_per_px, {"raster one-way", "ball 6 mm", "stepover " + s + " mm"}});
     const double sa = mean_abs_deviation(floors[k]);
     const double top = floors[k].z_um.maxCoeff();
     table.rows.push_back({{s}, {format_significant(sa, 3), sa}, {format_significant(top, 3), top}});
   }
   const Image montage = render_montage(tiles, MontageOptions{});
-  const ProfilePlot plot = render_profile_plot(
-      {profile(floors[1], false, "cross-feed (along Y)"), profile(floors[1], true, "along feed (X)")},
-      ProfilePlotOptions{});
+  const ProfilePlot plot = render_profile_plot({profile(floors[1], false, "cross-feed (along Y)"),
+                                                profile(floors[1], true, "along feed (X)")},
+                                               ProfilePlotOptions{});
 
   HtmlReport r;
   r.title = "Pump cover floor - finishing pass (sample)";
   r.subtitle = "Sample report built by the test suite from a synthetic ball-cutter floor";
-  r.inputs = {{"tool", "ball, 6 mm"}, {"path", "raster one-way along X"},
-              {"stepover", "0.45 mm"}, {"patch", "4 x 3 mm, cell 0.005 mm"}};
+  r.inputs = {{"tool", "ball, 6 mm"},
+              {"path", "raster one-way along X"},
+              {"stepover", "0.45 mm"},
+              {"patch", "4 x 3 mm, cell 0.005 mm"}};
   r.tables = {table};
   const std::string height_png = encode_png(height.image), shaded_png = encode_png(shaded.image);
   const std::string montage_png = encode_png(montage), plot_png = encode_png(plot.image);
-  r.images = {{height_png, "height picture",
-               "Height, black " + format_fixed(height.lo_um, 2) + " um to light gray " +
-                   format_fixed(height.hi_um, 2) + " um (" + format_fixed(height.um_per_level * 1000, 1) +
-                   " nm per gray level)"},
-              {shaded_png, "shaded picture",
-               "Shaded relief, light from azimuth 135 deg at 45 deg elevation, heights x" +
-                   format_significant(shaded.exaggeration, 3)},
+  r.images = {{height_png, "height picture", height_image_caption(height, LengthUnit::Millimetre)},
+              {shaded_png, "shaded picture", shaded_image_caption(shaded)},
               {montage_png, "montage", "Three stepovers side by side at one scale"}};
   r.profile_plots = {{plot_png, "profile plot", "Cross-feed and along-feed profiles"}};
   r.filters = {"Sample data: mean line = arithmetic mean of the trace (no filter applied)"};

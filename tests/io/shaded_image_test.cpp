@@ -76,7 +76,8 @@ TEST_CASE("render_shaded_image: a plane tilted towards the light is brighter tha
   from_above.light_azimuth_deg = 90.0;
   REQUIRE(render_shaded_image(up, from_below).image.at(2, 4) >
           render_shaded_image(up, from_above).image.at(2, 4));
-  REQUIRE_NEAR(lambert_brightness(0.2, 0.0, 180.0, 45.0), lambert_cos(0.2, 0.0, 180.0, 45.0), 1e-15);
+  REQUIRE_NEAR(lambert_brightness(0.2, 0.0, 180.0, 45.0), lambert_cos(0.2, 0.0, 180.0, 45.0),
+               1e-15);
 }
 
 TEST_CASE("render_shaded_image: auto exaggeration aims the 95th-percentile slope at 30 deg",
@@ -144,4 +145,13 @@ TEST_CASE("render_shaded_image: forced cells per pixel and bad options", "[io]")
   o.exaggeration = -2.0;
   REQUIRE_THROWS_MATCHES(render_shaded_image(hf, o), InputError,
                          Catch::Message("exaggeration -2: must be a finite number > 0"));
+}
+
+TEST_CASE("shaded_image_caption: states the light and the exaggeration", "[io]") {
+  const Heightfield hf = field(9, 5, 0.01, [](int i, int) { return 2.0 * i; });
+  ShadedImageOptions o;
+  o.exaggeration = 12.5;
+  REQUIRE(shaded_image_caption(render_shaded_image(hf, o)) ==
+          "Shaded relief seen from above, +Y up: light from azimuth 135 deg (counter-clockwise "
+          "from +X) at 45.0 deg elevation; heights exaggerated x 12.5; white = not reached.");
 }
