@@ -55,12 +55,12 @@ void add_text(pugi::xml_node parent, const char* name, const std::string& value)
 }
 
 void add_axis(pugi::xml_node axes, const char* name, const char* type, const char* data_type,
-              const std::string& increment) {
+              const std::string& increment, const std::string& offset) {
   pugi::xml_node a = axes.append_child(name);
   add_text(a, "AxisType", type);
   add_text(a, "DataType", data_type);
   add_text(a, "Increment", increment);
-  add_text(a, "Offset", "0");
+  add_text(a, "Offset", offset);
 }
 
 std::string read_entry(zip_t* za, const char* entry, const std::string& name) {
@@ -111,9 +111,10 @@ std::string encode_x3p(const Heightfield& hf) {
   add_text(r1, "FeatureType", "SUR");
   pugi::xml_node axes = r1.append_child("Axes");
   const std::string inc = format_coordinate(hf.cell_mm * kMetresPerMm);
-  add_axis(axes, "CX", "I", "D", inc);
-  add_axis(axes, "CY", "I", "D", inc);
-  add_axis(axes, "CZ", "A", "D", "1");
+  // Offsets are the first point's position: the centre of cell 0.
+  add_axis(axes, "CX", "I", "D", inc, format_coordinate(hf.x_mm(0) * kMetresPerMm));
+  add_axis(axes, "CY", "I", "D", inc, format_coordinate(hf.y_mm(0) * kMetresPerMm));
+  add_axis(axes, "CZ", "A", "D", "1", "0");
   pugi::xml_node r2 = root.append_child("Record2");
   add_text(r2, "Date", "2000-01-01T00:00:00.0+00:00");
   add_text(r2, "Creator", "cuspmap");
@@ -246,8 +247,8 @@ Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
   hf.nx = static_cast<int>(nx);
   hf.ny = static_cast<int>(ny);
   hf.cell_mm = inc_x / kMetresPerMm;
-  hf.origin_x_mm = off_x / kMetresPerMm;
-  hf.origin_y_mm = off_y / kMetresPerMm;
+  hf.origin_x_mm = off_x / kMetresPerMm - 0.5 * hf.cell_mm;  // offset = first cell's centre
+  hf.origin_y_mm = off_y / kMetresPerMm - 0.5 * hf.cell_mm;
   hf.z_um.resize(hf.ny, hf.nx);
   for (long k = 0; k < nx * ny; ++k) {
     const unsigned char* p = reinterpret_cast<const unsigned char*>(data.data()) + static_cast<size_t>(k) * item;

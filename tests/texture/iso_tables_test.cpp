@@ -68,7 +68,8 @@ TEST_CASE("iso1302_grade: grade numbers and measured values", "[texture]") {
     const int n = static_cast<int>(row["n"].value<int64_t>().value());
     CAPTURE(n, row["source"].value<std::string>().value());
     REQUIRE_NEAR(iso1302_grade_ra_um(n), num(row, "ra_um"), 1e-12);
-    REQUIRE(iso1302_grade(num(row, "ra_um")) == "N" + std::to_string(n));
+    const std::string expected = std::string("N").append(std::to_string(n));
+    REQUIRE(iso1302_grade(num(row, "ra_um")) == expected);
   }
   for (const toml::node& node : *doc["measured"].as_array()) {
     const toml::table& row = *node.as_table();
