@@ -67,7 +67,9 @@ struct Acf {
 
 Acf areal_acf(const Heightfield& hf, bool& has_nan) {
   const int nx = hf.nx, ny = hf.ny;
-  const int px = fft_size(2 * nx - 1), py = fft_size(2 * ny - 1);
+  // Lags up to half the field are used; padding to n + n/2 + 1 keeps them free of wrap-around
+  // (a circular lag t mixes in t - p, beyond the data when p >= n + |t|), at half the cost of 2n.
+  const int px = fft_size(nx + nx / 2 + 1), py = fft_size(ny + ny / 2 + 1);
   const size_t total = static_cast<size_t>(px) * static_cast<size_t>(py);
   RealBuf z(static_cast<double*>(fftw_malloc(sizeof(double) * total)));
   std::fill(z.get(), z.get() + total, 0.0);
@@ -105,8 +107,10 @@ Acf areal_acf(const Heightfield& hf, bool& has_nan) {
   };
   const double r0 = mean_product(0, 0);
   if (!(r0 > 0.0)) return acf;
-  for (int ty = -(ny - 1); ty <= ny - 1; ++ty) {
-    for (int tx = -(nx - 1); tx <= nx - 1; ++tx) {
+  // Only lags free of wrap-around are filled (the decay search reaches half the field + 1 cell).
+  const int lim_x = std::min(nx - 1, px - nx), lim_y = std::min(ny - 1, py - ny);
+  for (int ty = -lim_y; ty <= lim_y; ++ty) {
+    for (int tx = -lim_x; tx <= lim_x; ++tx) {
       acf.v[static_cast<size_t>(ty + ny - 1) * (2 * nx - 1) + static_cast<size_t>(tx + nx - 1)] =
           mean_product(tx, ty) / r0;
     }
