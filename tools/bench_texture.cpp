@@ -20,7 +20,8 @@ cuspmap::Heightfield cusp_floor(int n) {
   for (int j = 0; j < n; ++j) {
     const double y = hf.y_mm(j), d = y - 0.5 * std::round(y / 0.5), u = 2 * d / 0.5;
     for (int i = 0; i < n; ++i) {
-      hf.z_um(j, i) = static_cast<float>(10.0 * u * u + 0.3 * std::sin(2 * 3.14159265 * hf.x_mm(i) / 0.08));
+      hf.z_um(j, i) =
+          static_cast<float>(10.0 * u * u + 0.3 * std::sin(2 * 3.14159265 * hf.x_mm(i) / 0.08));
     }
   }
   return hf;

@@ -20,15 +20,15 @@ namespace {
 struct TextureCliOptions {
   CommonOptions common;
   std::string file;
-  std::string cell;                 ///< cell size for npy/csv (length with optional suffix)
-  std::string cutoff = "auto";      ///< auto (ISO 4288) or a length
-  std::string lambda_s = "auto";    ///< auto (ISO 3274 pairing), 0 (none) or a length
-  std::string direction = "across"; ///< across | along | angle in deg
-  std::string lay;                  ///< known lay direction, deg (else detected)
-  std::string z_units;              ///< um | nm | mm | m for npy/csv/xyz
-  std::string s_filter;             ///< areal S-filter nesting index (length)
-  std::string l_filter;             ///< areal L-filter nesting index (length)
-  std::string export_path;          ///< re-save the heightmap in the format of this extension
+  std::string cell;                  ///< cell size for npy/csv (length with optional suffix)
+  std::string cutoff = "auto";       ///< auto (ISO 4288) or a length
+  std::string lambda_s = "auto";     ///< auto (ISO 3274 pairing), 0 (none) or a length
+  std::string direction = "across";  ///< across | along | angle in deg
+  std::string lay;                   ///< known lay direction, deg (else detected)
+  std::string z_units;               ///< um | nm | mm | m for npy/csv/xyz
+  std::string s_filter;              ///< areal S-filter nesting index (length)
+  std::string l_filter;              ///< areal L-filter nesting index (length)
+  std::string export_path;           ///< re-save the heightmap in the format of this extension
 };
 
 double positive_length(const std::string& text, LengthUnit unit, const char* flag) {
@@ -48,14 +48,16 @@ TextureOptions texture_options(const TextureCliOptions& o, LengthUnit unit) {
     try {
       t.direction_deg = parse_angle_deg(o.direction, "--direction");
     } catch (const InputError&) {
-      throw InputError("--direction '" + o.direction + "': allowed are across, along or an angle in deg");
+      throw InputError("--direction '" + o.direction +
+                       "': allowed are across, along or an angle in deg");
     }
   }
   if (!o.lay.empty()) t.lay_deg = parse_angle_deg(o.lay, "--lay");
   if (o.cutoff != "auto") t.cutoff_mm = positive_length(o.cutoff, unit, "--cutoff");
   if (o.lambda_s != "auto") {
     const double mm = parse_length_mm(o.lambda_s, unit, "--lambda-s");
-    if (mm < 0.0) throw InputError("--lambda-s " + o.lambda_s + ": must be >= 0 (0 = no short-wave filter)");
+    if (mm < 0.0)
+      throw InputError("--lambda-s " + o.lambda_s + ": must be >= 0 (0 = no short-wave filter)");
     t.lambda_s_um = mm * kUmPerMm;
   }
   if (!o.s_filter.empty()) t.s_filter_mm = positive_length(o.s_filter, unit, "--s-filter");
@@ -82,7 +84,8 @@ void print_table(const HeightmapFile& file, const TextureReport& r, const std::s
               file.format.c_str(), file.field.nx, file.field.ny, format_number(r.cell_mm).c_str(),
               format_number(r.size_x_mm).c_str(), format_number(r.size_y_mm).c_str(),
               file.cell_source.c_str());
-  std::printf("\nProfile (ISO 4287), %s the lay at %s deg, mean of %d traces\n", p.direction == "angle" ? "at an angle to" : p.direction.c_str(),
+  std::printf("\nProfile (ISO 4287), %s the lay at %s deg, mean of %d traces\n",
+              p.direction == "angle" ? "at an angle to" : p.direction.c_str(),
               format_number(p.direction_deg).c_str(), p.traces);
   std::printf("  cut-off %s mm (%s), lambda-s %s um, evaluation length %s mm = %d x %s mm\n",
               format_number(p.cutoff_mm).c_str(), p.cutoff_rule.c_str(),
@@ -101,9 +104,10 @@ void print_table(const HeightmapFile& file, const TextureReport& r, const std::s
               format_number(p.waviness.a_um).c_str(), format_number(p.waviness.t_um).c_str());
   const ArealReport& a = r.areal;
   const ArealParameters& s = a.parameters;
-  std::printf("\nAreal (ISO 25178-2), least-squares plane removed%s%s\n",
-              a.s_filter_mm > 0 ? (", S-filter " + format_number(a.s_filter_mm) + " mm").c_str() : "",
-              a.l_filter_mm > 0 ? (", L-filter " + format_number(a.l_filter_mm) + " mm").c_str() : "");
+  std::printf(
+      "\nAreal (ISO 25178-2), least-squares plane removed%s%s\n",
+      a.s_filter_mm > 0 ? (", S-filter " + format_number(a.s_filter_mm) + " mm").c_str() : "",
+      a.l_filter_mm > 0 ? (", L-filter " + format_number(a.l_filter_mm) + " mm").c_str() : "");
   height_row("Sa", s.sa_um);
   height_row("Sq", s.sq_um);
   height_row("Sz", s.sz_um);
@@ -149,23 +153,35 @@ void run_texture(const TextureCliOptions& o) {
 
 void setup_texture(CLI::App& sub) {
   auto opts = std::make_shared<TextureCliOptions>();
-  sub.add_option("file", opts->file, "Heightmap: .npy (um), .csv grid (um), .xyz X Y Z list (mm, mm, um), .sdf or .x3p (metres)")
+  sub.add_option("file", opts->file,
+                 "Heightmap: .npy (um), .csv grid (um), .xyz X Y Z list (mm, mm, um), .sdf or .x3p "
+                 "(metres)")
       ->required();
-  sub.add_option("--cell", opts->cell, "Cell size for .npy/.csv (else report.json beside the file gives cell_mm)");
-  sub.add_option("--cutoff", opts->cutoff, "Profile cut-off lambda-c: auto (ISO 4288 rules) or a length")
+  sub.add_option("--cell", opts->cell,
+                 "Cell size for .npy/.csv (else report.json beside the file gives cell_mm)");
+  sub.add_option("--cutoff", opts->cutoff,
+                 "Profile cut-off lambda-c: auto (ISO 4288 rules) or a length")
       ->capture_default_str();
   // Reason for the flag: instruments are often set to a lambda-s other than ISO 3274's pairing.
-  sub.add_option("--lambda-s", opts->lambda_s, "Short-wave cut-off: auto (ISO 3274 pairing), 0 (none) or a length")
+  sub.add_option("--lambda-s", opts->lambda_s,
+                 "Short-wave cut-off: auto (ISO 3274 pairing), 0 (none) or a length")
       ->capture_default_str();
-  sub.add_option("--direction", opts->direction, "Profile direction: across (the lay), along, or an angle in deg from +X")
+  sub.add_option("--direction", opts->direction,
+                 "Profile direction: across (the lay), along, or an angle in deg from +X")
       ->capture_default_str();
-  // Reason for the flag: the lay is known from the toolpath when the surface is too isotropic to detect it.
-  sub.add_option("--lay", opts->lay, "Lay direction in deg from +X when known (default: detected from the spectrum)");
-  sub.add_option("--z-units", opts->z_units, "Height unit of .npy/.csv/.xyz values: um (default), nm, mm, m");
-  sub.add_option("--s-filter", opts->s_filter, "Areal S-filter nesting index (Gaussian, ISO 16610-61); default none");
-  sub.add_option("--l-filter", opts->l_filter, "Areal L-filter nesting index (Gaussian); default none (plane removal only)");
+  // Reason for the flag: the lay is known from the toolpath when the surface is too isotropic to
+  // detect it.
+  sub.add_option("--lay", opts->lay,
+                 "Lay direction in deg from +X when known (default: detected from the spectrum)");
+  sub.add_option("--z-units", opts->z_units,
+                 "Height unit of .npy/.csv/.xyz values: um (default), nm, mm, m");
+  sub.add_option("--s-filter", opts->s_filter,
+                 "Areal S-filter nesting index (Gaussian, ISO 16610-61); default none");
+  sub.add_option("--l-filter", opts->l_filter,
+                 "Areal L-filter nesting index (Gaussian); default none (plane removal only)");
   // Reason for the flag: measurement labs exchange X3P/SDF; this converts a simulated height.npy.
-  sub.add_option("--export", opts->export_path, "Also save the heightmap as .npy, .csv, .xyz, .sdf or .x3p");
+  sub.add_option("--export", opts->export_path,
+                 "Also save the heightmap as .npy, .csv, .xyz, .sdf or .x3p");
   add_common_flags(sub, opts->common);
   sub.callback([opts] { run_texture(*opts); });
 }

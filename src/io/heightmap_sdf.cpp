@@ -99,7 +99,8 @@ Heightfield decode_sdf(std::string_view text, const std::string& name) {
   };
   const double points = need("NumPoints"), profiles = need("NumProfiles");
   const double xscale = need("Xscale"), yscale = need("Yscale"), zscale = need("Zscale");
-  if (points < 1 || profiles < 1 || points != std::floor(points) || profiles != std::floor(profiles)) {
+  if (points < 1 || profiles < 1 || points != std::floor(points) ||
+      profiles != std::floor(profiles)) {
     throw InputError(name + ": NumPoints and NumProfiles must be whole numbers >= 1");
   }
   if (keys.count("Compression") && keys["Compression"].first != 0.0) {
@@ -130,15 +131,16 @@ Heightfield decode_sdf(std::string_view text, const std::string& name) {
                          "' is not a number");
       }
       if (static_cast<long>(values.size()) == nx * ny) {
-        throw InputError(name + ":" + std::to_string(l + 1) + ": more data values than NumPoints x NumProfiles = " +
-                         std::to_string(nx * ny));
+        throw InputError(
+            name + ":" + std::to_string(l + 1) +
+            ": more data values than NumPoints x NumProfiles = " + std::to_string(nx * ny));
       }
       values.push_back(static_cast<float>(v * to_um));
     }
   }
   if (static_cast<long>(values.size()) != nx * ny) {
-    throw InputError(name + ": " + std::to_string(values.size()) + " data values, NumPoints x NumProfiles = " +
-                     std::to_string(nx * ny));
+    throw InputError(name + ": " + std::to_string(values.size()) +
+                     " data values, NumPoints x NumProfiles = " + std::to_string(nx * ny));
   }
   Heightfield hf;
   hf.nx = static_cast<int>(nx);

@@ -81,7 +81,8 @@ std::string read_entry(zip_t* za, const char* entry, const std::string& name) {
   return out;
 }
 
-double number_or(const std::string& text, double fallback, const std::string& name, const char* what) {
+double number_or(const std::string& text, double fallback, const std::string& name,
+                 const char* what) {
   const std::string t = trimmed(text);
   if (t.empty()) return fallback;
   double v = 0.0;
@@ -98,7 +99,9 @@ std::string encode_x3p(const Heightfield& hf) {
   for (std::int64_t k = 0; k < hf.cells(); ++k) {
     const double metres = static_cast<double>(hf.z_um.data()[k]) / kUmPerMetre;
     const std::uint64_t bits = std::bit_cast<std::uint64_t>(metres);
-    for (int b = 0; b < 8; ++b) data[static_cast<size_t>(k) * 8 + static_cast<size_t>(b)] = static_cast<char>((bits >> (8 * b)) & 0xff);
+    for (int b = 0; b < 8; ++b)
+      data[static_cast<size_t>(k) * 8 + static_cast<size_t>(b)] =
+          static_cast<char>((bits >> (8 * b)) & 0xff);
   }
   pugi::xml_document doc;
   pugi::xml_node decl = doc.append_child(pugi::node_declaration);
@@ -203,45 +206,65 @@ Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
     throw InputError(name + ": main.xml " + what);
   };
   const char* rn = std::strrchr(root.name(), ':');
-  if (std::strcmp(rn ? rn + 1 : root.name(), "ISO5436_2") != 0) fail("root element is not ISO5436_2");
+  if (std::strcmp(rn ? rn + 1 : root.name(), "ISO5436_2") != 0)
+    fail("root element is not ISO5436_2");
   const std::string feature = trimmed(text_at(root, {"Record1", "FeatureType"}));
   if (feature != "SUR") fail("FeatureType '" + feature + "' is not SUR (an areal surface)");
-  if (child(child(root, "Record3"), "DataList")) fail("holds an inline <DataList>; only binary data links are read");
+  if (child(child(root, "Record3"), "DataList"))
+    fail("holds an inline <DataList>; only binary data links are read");
   const std::string link = trimmed(text_at(root, {"Record3", "DataLink", "PointDataLink"}));
   if (link.empty()) fail("has no Record3/DataLink/PointDataLink");
-  const double sx = number_or(text_at(root, {"Record3", "MatrixDimension", "SizeX"}), -1, name, "SizeX");
-  const double sy = number_or(text_at(root, {"Record3", "MatrixDimension", "SizeY"}), -1, name, "SizeY");
-  const double sz = number_or(text_at(root, {"Record3", "MatrixDimension", "SizeZ"}), 1, name, "SizeZ");
-  if (sx < 1 || sy < 1 || sx != std::floor(sx) || sy != std::floor(sy)) fail("SizeX and SizeY must be whole numbers >= 1");
+  const double sx =
+      number_or(text_at(root, {"Record3", "MatrixDimension", "SizeX"}), -1, name, "SizeX");
+  const double sy =
+      number_or(text_at(root, {"Record3", "MatrixDimension", "SizeY"}), -1, name, "SizeY");
+  const double sz =
+      number_or(text_at(root, {"Record3", "MatrixDimension", "SizeZ"}), 1, name, "SizeZ");
+  if (sx < 1 || sy < 1 || sx != std::floor(sx) || sy != std::floor(sy))
+    fail("SizeX and SizeY must be whole numbers >= 1");
   if (sz != 1) fail("SizeZ " + format_number(sz) + " is not 1 (layered data is not read)");
-  const double inc_x = number_or(text_at(root, {"Record1", "Axes", "CX", "Increment"}), -1, name, "CX Increment");
-  const double inc_y = number_or(text_at(root, {"Record1", "Axes", "CY", "Increment"}), inc_x, name, "CY Increment");
+  const double inc_x =
+      number_or(text_at(root, {"Record1", "Axes", "CX", "Increment"}), -1, name, "CX Increment");
+  const double inc_y =
+      number_or(text_at(root, {"Record1", "Axes", "CY", "Increment"}), inc_x, name, "CY Increment");
   if (!(inc_x > 0.0)) fail("CX Increment must be > 0 m");
   if (sy > 1 && std::abs(inc_y - inc_x) > kSquareCellRel * inc_x) {
-    fail("CX Increment " + format_number(inc_x) + " m differs from CY Increment " + format_number(inc_y) + " m; cuspmap needs square cells");
+    fail("CX Increment " + format_number(inc_x) + " m differs from CY Increment " +
+         format_number(inc_y) + " m; cuspmap needs square cells");
   }
-  const double off_x = number_or(text_at(root, {"Record1", "Axes", "CX", "Offset"}), 0, name, "CX Offset");
-  const double off_y = number_or(text_at(root, {"Record1", "Axes", "CY", "Offset"}), 0, name, "CY Offset");
+  const double off_x =
+      number_or(text_at(root, {"Record1", "Axes", "CX", "Offset"}), 0, name, "CX Offset");
+  const double off_y =
+      number_or(text_at(root, {"Record1", "Axes", "CY", "Offset"}), 0, name, "CY Offset");
   const std::string type = trimmed(text_at(root, {"Record1", "Axes", "CZ", "DataType"}));
-  const double inc_z = number_or(text_at(root, {"Record1", "Axes", "CZ", "Increment"}), 1, name, "CZ Increment");
-  const double off_z = number_or(text_at(root, {"Record1", "Axes", "CZ", "Offset"}), 0, name, "CZ Offset");
+  const double inc_z =
+      number_or(text_at(root, {"Record1", "Axes", "CZ", "Increment"}), 1, name, "CZ Increment");
+  const double off_z =
+      number_or(text_at(root, {"Record1", "Axes", "CZ", "Offset"}), 0, name, "CZ Offset");
   size_t item = 0;
-  if (type == "I") item = 2;
-  else if (type == "L" || type == "F") item = 4;
-  else if (type == "D") item = 8;
-  else fail("CZ DataType '" + type + "' is not I, L, F or D");
-  const std::string expected_md5 = trimmed(text_at(root, {"Record3", "DataLink", "MD5ChecksumPointData"}));
+  if (type == "I")
+    item = 2;
+  else if (type == "L" || type == "F")
+    item = 4;
+  else if (type == "D")
+    item = 8;
+  else
+    fail("CZ DataType '" + type + "' is not I, L, F or D");
+  const std::string expected_md5 =
+      trimmed(text_at(root, {"Record3", "DataLink", "MD5ChecksumPointData"}));
   const std::string data = read_entry(za, link.c_str(), name);
   zip_discard(za);
   const long nx = static_cast<long>(sx), ny = static_cast<long>(sy);
   if (data.size() != static_cast<size_t>(nx * ny) * item) {
-    throw InputError(name + ": " + link + " holds " + std::to_string(data.size()) + " bytes, SizeX x SizeY of type " + type + " needs " +
+    throw InputError(name + ": " + link + " holds " + std::to_string(data.size()) +
+                     " bytes, SizeX x SizeY of type " + type + " needs " +
                      std::to_string(static_cast<size_t>(nx * ny) * item));
   }
   if (!expected_md5.empty()) {
     std::string want = expected_md5;
     for (char& c : want) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
-    if (md5_hex(data) != want) throw InputError(name + ": MD5 of " + link + " does not match main.xml (damaged file)");
+    if (md5_hex(data) != want)
+      throw InputError(name + ": MD5 of " + link + " does not match main.xml (damaged file)");
   }
   Heightfield hf;
   hf.nx = static_cast<int>(nx);
@@ -251,14 +274,19 @@ Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
   hf.origin_y_mm = off_y / kMetresPerMm - 0.5 * hf.cell_mm;
   hf.z_um.resize(hf.ny, hf.nx);
   for (long k = 0; k < nx * ny; ++k) {
-    const unsigned char* p = reinterpret_cast<const unsigned char*>(data.data()) + static_cast<size_t>(k) * item;
+    const unsigned char* p =
+        reinterpret_cast<const unsigned char*>(data.data()) + static_cast<size_t>(k) * item;
     std::uint64_t bits = 0;
     for (size_t b = 0; b < item; ++b) bits |= static_cast<std::uint64_t>(p[b]) << (8 * b);
     double v = 0.0;
-    if (type == "I") v = static_cast<std::int16_t>(bits);
-    else if (type == "L") v = static_cast<std::int32_t>(bits);
-    else if (type == "F") v = std::bit_cast<float>(static_cast<std::uint32_t>(bits));
-    else v = std::bit_cast<double>(bits);
+    if (type == "I")
+      v = static_cast<std::int16_t>(bits);
+    else if (type == "L")
+      v = static_cast<std::int32_t>(bits);
+    else if (type == "F")
+      v = std::bit_cast<float>(static_cast<std::uint32_t>(bits));
+    else
+      v = std::bit_cast<double>(bits);
     hf.z_um.data()[k] = static_cast<float>((v * inc_z + off_z) * kUmPerMetre);
   }
   return hf;

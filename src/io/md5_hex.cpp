@@ -11,9 +11,9 @@ namespace cuspmap {
 namespace {
 
 constexpr std::array<std::uint32_t, 64> kShift = {
-    7, 12, 17, 22, 7, 12, 17, 22, 7, 12, 17, 22, 7, 12, 17, 22, 5, 9,  14, 20, 5, 9,
-    14, 20, 5, 9,  14, 20, 5, 9,  14, 20, 4, 11, 16, 23, 4, 11, 16, 23, 4, 11, 16, 23,
-    4, 11, 16, 23, 6, 10, 15, 21, 6, 10, 15, 21, 6, 10, 15, 21, 6, 10, 15, 21};
+    7,  12, 17, 22, 7,  12, 17, 22, 7,  12, 17, 22, 7,  12, 17, 22, 5,  9,  14, 20, 5,  9,
+    14, 20, 5,  9,  14, 20, 5,  9,  14, 20, 4,  11, 16, 23, 4,  11, 16, 23, 4,  11, 16, 23,
+    4,  11, 16, 23, 6,  10, 15, 21, 6,  10, 15, 21, 6,  10, 15, 21, 6,  10, 15, 21};
 
 // T[i] = floor(2^32 |sin(i + 1)|), RFC 1321 §3.4.
 std::array<std::uint32_t, 64> sine_table() {
@@ -79,7 +79,8 @@ std::string md5_hex(std::string_view bytes) {
   tail[rest] = 0x80;
   const size_t tail_len = rest < 56 ? 64 : 128;
   const std::uint64_t bits = static_cast<std::uint64_t>(n) * 8u;
-  for (int i = 0; i < 8; ++i) tail[tail_len - 8 + static_cast<size_t>(i)] = static_cast<unsigned char>(bits >> (8 * i));
+  for (int i = 0; i < 8; ++i)
+    tail[tail_len - 8 + static_cast<size_t>(i)] = static_cast<unsigned char>(bits >> (8 * i));
   block(tail, h, t);
   if (tail_len == 128) block(tail + 64, h, t);
   static constexpr char kHex[] = "0123456789abcdef";

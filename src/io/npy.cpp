@@ -34,7 +34,8 @@ T load_le(const char* p, bool big_endian) {
 }
 
 // Value text after 'key': in the header dict, up to the next ',' at depth 0 or '}'.
-std::string_view dict_value(std::string_view header, std::string_view key, const std::string& name) {
+std::string_view dict_value(std::string_view header, std::string_view key,
+                            const std::string& name) {
   // Built by appending: GCC 12 warns falsely (-Wrestrict) on "'" + std::string(...).
   std::string quoted1(1, '\''), quoted2(1, '"');
   quoted1.append(key).push_back('\'');
@@ -45,7 +46,8 @@ std::string_view dict_value(std::string_view header, std::string_view key, const
     throw InputError(name + ": npy header has no '" + std::string(key) + "' entry");
   }
   size_t p = header.find(':', at);
-  if (p == std::string_view::npos) throw InputError(name + ": npy header is malformed near '" + std::string(key) + "'");
+  if (p == std::string_view::npos)
+    throw InputError(name + ": npy header is malformed near '" + std::string(key) + "'");
   ++p;
   int depth = 0;
   size_t end = p;
@@ -84,8 +86,8 @@ std::vector<long> parse_shape(std::string_view v, const std::string& name) {
 }  // namespace
 
 std::string encode_npy(const Heightfield& hf) {
-  std::string header = "{'descr': '<f4', 'fortran_order': False, 'shape': (" + std::to_string(hf.ny) +
-                       ", " + std::to_string(hf.nx) + "), }";
+  std::string header = "{'descr': '<f4', 'fortran_order': False, 'shape': (" +
+                       std::to_string(hf.ny) + ", " + std::to_string(hf.nx) + "), }";
   const size_t preamble = kMagicLen + 2 + 2;
   const size_t total = preamble + header.size() + 1;
   header.append((kHeaderAlign - total % kHeaderAlign) % kHeaderAlign, ' ');
@@ -100,29 +102,38 @@ std::string encode_npy(const Heightfield& hf) {
   out.resize(start + static_cast<size_t>(hf.cells()) * 4);
   for (std::int64_t k = 0; k < hf.cells(); ++k) {
     std::uint32_t bits = std::bit_cast<std::uint32_t>(hf.z_um.data()[k]);
-    for (int b = 0; b < 4; ++b) out[start + static_cast<size_t>(k) * 4 + static_cast<size_t>(b)] = static_cast<char>((bits >> (8 * b)) & 0xff);
+    for (int b = 0; b < 4; ++b)
+      out[start + static_cast<size_t>(k) * 4 + static_cast<size_t>(b)] =
+          static_cast<char>((bits >> (8 * b)) & 0xff);
   }
   return out;
 }
 
 HeightGrid decode_npy(std::string_view bytes, const std::string& name) {
-  if (bytes.size() < kMagicLen + 4 || bytes.substr(0, kMagicLen) != std::string_view(kMagic, kMagicLen)) {
+  if (bytes.size() < kMagicLen + 4 ||
+      bytes.substr(0, kMagicLen) != std::string_view(kMagic, kMagicLen)) {
     throw InputError(name + ": not a .npy file (it does not start with \\x93NUMPY)");
   }
   const int major = static_cast<unsigned char>(bytes[kMagicLen]);
   size_t header_len = 0, header_start = 0;
   if (major == 1) {
-    header_len = static_cast<unsigned char>(bytes[8]) | (static_cast<size_t>(static_cast<unsigned char>(bytes[9])) << 8);
+    header_len = static_cast<unsigned char>(bytes[8]) |
+                 (static_cast<size_t>(static_cast<unsigned char>(bytes[9])) << 8);
     header_start = 10;
   } else if (major == 2 || major == 3) {
     if (bytes.size() < 12) throw InputError(name + ": npy header is truncated");
     header_len = 0;
-    for (int b = 0; b < 4; ++b) header_len |= static_cast<size_t>(static_cast<unsigned char>(bytes[8 + static_cast<size_t>(b)])) << (8 * b);
+    for (int b = 0; b < 4; ++b)
+      header_len |=
+          static_cast<size_t>(static_cast<unsigned char>(bytes[8 + static_cast<size_t>(b)]))
+          << (8 * b);
     header_start = 12;
   } else {
-    throw InputError(name + ": npy format version " + std::to_string(major) + " is not supported (1, 2 or 3)");
+    throw InputError(name + ": npy format version " + std::to_string(major) +
+                     " is not supported (1, 2 or 3)");
   }
-  if (bytes.size() < header_start + header_len) throw InputError(name + ": npy header is truncated");
+  if (bytes.size() < header_start + header_len)
+    throw InputError(name + ": npy header is truncated");
   const std::string_view header = bytes.substr(header_start, header_len);
   const std::string_view descr = dict_value(header, "descr", name);
   const std::string_view order = dict_value(header, "fortran_order", name);
@@ -130,18 +141,27 @@ HeightGrid decode_npy(std::string_view bytes, const std::string& name) {
   size_t item = 0;
   bool big = false;
   const std::string d(descr);
-  if (d == "'<f4'" || d == "'=f4'" || d == "\"<f4\"") item = 4;
-  else if (d == "'<f8'" || d == "'=f8'" || d == "\"<f8\"") item = 8;
-  else if (d == "'>f4'" || d == "\">f4\"") { item = 4; big = true; }
-  else if (d == "'>f8'" || d == "\">f8\"") { item = 8; big = true; }
-  else {
-    throw InputError(name + ": npy dtype " + d + " is not supported; expected float32 or float64 ('<f4', '<f8')");
+  if (d == "'<f4'" || d == "'=f4'" || d == "\"<f4\"")
+    item = 4;
+  else if (d == "'<f8'" || d == "'=f8'" || d == "\"<f8\"")
+    item = 8;
+  else if (d == "'>f4'" || d == "\">f4\"") {
+    item = 4;
+    big = true;
+  } else if (d == "'>f8'" || d == "\">f8\"") {
+    item = 8;
+    big = true;
+  } else {
+    throw InputError(name + ": npy dtype " + d +
+                     " is not supported; expected float32 or float64 ('<f4', '<f8')");
   }
   if (order != "False") {
-    throw InputError(name + ": npy fortran_order " + std::string(order) + " is not supported; save the array in C order");
+    throw InputError(name + ": npy fortran_order " + std::string(order) +
+                     " is not supported; save the array in C order");
   }
   if (dims.empty() || dims.size() > 2) {
-    throw InputError(name + ": npy array has " + std::to_string(dims.size()) + " dimensions; expected 1 (a profile) or 2 (rows along Y)");
+    throw InputError(name + ": npy array has " + std::to_string(dims.size()) +
+                     " dimensions; expected 1 (a profile) or 2 (rows along Y)");
   }
   const long ny = dims.size() == 2 ? dims[0] : 1, nx = dims.back();
   if (nx < 1 || ny < 1) throw InputError(name + ": npy array is empty");

@@ -34,7 +34,8 @@ std::string read_all(const std::string& path) {
 
 std::string lower_extension(const std::string& path) {
   std::string ext = std::filesystem::path(path).extension().string();
-  std::transform(ext.begin(), ext.end(), ext.begin(), [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
+  std::transform(ext.begin(), ext.end(), ext.begin(),
+                 [](unsigned char c) { return static_cast<char>(std::tolower(c)); });
   return ext;
 }
 
@@ -61,7 +62,8 @@ std::optional<double> sidecar_cell(const std::string& path) {
   if (!std::filesystem::is_regular_file(side, ec)) return std::nullopt;
   const std::string text = read_all(side.string());
   const nlohmann::json doc = nlohmann::json::parse(text, nullptr, false);
-  if (doc.is_discarded() || !doc.is_object() || !doc.contains("cell_mm") || !doc["cell_mm"].is_number()) {
+  if (doc.is_discarded() || !doc.is_object() || !doc.contains("cell_mm") ||
+      !doc["cell_mm"].is_number()) {
     throw InputError(side.string() + ": no numeric cell_mm in it; pass --cell instead");
   }
   const double cell = doc["cell_mm"].get<double>();

@@ -15,7 +15,7 @@ namespace cuspmap {
 
 /// What to assume where the file is silent.
 struct HeightmapReadOptions {
-  std::optional<double> cell_mm;     ///< cell size for .npy and .csv (else report.json beside it)
+  std::optional<double> cell_mm;       ///< cell size for .npy and .csv (else report.json beside it)
   std::optional<std::string> z_units;  ///< unit of heights in .npy/.csv/.xyz: um (default), nm,
                                        ///< mm or m; SDF and X3P carry their own scale
 };

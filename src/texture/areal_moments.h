@@ -41,13 +41,13 @@ struct ArealMoments {
 
 /// Amplitude parameters about the reference z = 0 (ISO 25178-2 S-names, ISO 4287 R/P/W-names).
 struct AmplitudeParameters {
-  double mean_abs_um = 0.0;  ///< Sa / Ra: arithmetic mean of |z|
-  double rms_um = 0.0;       ///< Sq / Rq: root mean square of z
-  double peak_um = 0.0;      ///< Sp / Rp: highest z (>= 0 about a mean reference)
-  double valley_um = 0.0;    ///< Sv / Rv: depth of the lowest z, as a positive number
-  double total_um = 0.0;     ///< Sz / Rt: peak + valley
-  double skewness = 0.0;     ///< Ssk / Rsk: mean z^3 / rms^3 (0 when rms = 0, see shape_defined)
-  double kurtosis = 0.0;     ///< Sku / Rku: mean z^4 / rms^4 (0 when rms = 0, see shape_defined)
+  double mean_abs_um = 0.0;    ///< Sa / Ra: arithmetic mean of |z|
+  double rms_um = 0.0;         ///< Sq / Rq: root mean square of z
+  double peak_um = 0.0;        ///< Sp / Rp: highest z (>= 0 about a mean reference)
+  double valley_um = 0.0;      ///< Sv / Rv: depth of the lowest z, as a positive number
+  double total_um = 0.0;       ///< Sz / Rt: peak + valley
+  double skewness = 0.0;       ///< Ssk / Rsk: mean z^3 / rms^3 (0 when rms = 0, see shape_defined)
+  double kurtosis = 0.0;       ///< Sku / Rku: mean z^4 / rms^4 (0 when rms = 0, see shape_defined)
   bool shape_defined = false;  ///< false when rms = 0 (flat): skewness and kurtosis are undefined
 };
 

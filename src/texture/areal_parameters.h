@@ -13,14 +13,14 @@ namespace cuspmap {
 
 /// Areal height and hybrid parameters.
 struct ArealParameters {
-  double sa_um = 0.0;   ///< Sa: arithmetic mean height |z|
-  double sq_um = 0.0;   ///< Sq: root mean square height
-  double sp_um = 0.0;   ///< Sp: maximum peak height
-  double sv_um = 0.0;   ///< Sv: maximum pit depth (positive)
-  double sz_um = 0.0;   ///< Sz: Sp + Sv
-  double ssk = 0.0;     ///< Ssk: skewness (0 when flat, see shape_defined)
-  double sku = 0.0;     ///< Sku: kurtosis (0 when flat)
-  double sdr = 0.0;     ///< Sdr: developed area / projected area - 1, a ratio (x100 for %)
+  double sa_um = 0.0;          ///< Sa: arithmetic mean height |z|
+  double sq_um = 0.0;          ///< Sq: root mean square height
+  double sp_um = 0.0;          ///< Sp: maximum peak height
+  double sv_um = 0.0;          ///< Sv: maximum pit depth (positive)
+  double sz_um = 0.0;          ///< Sz: Sp + Sv
+  double ssk = 0.0;            ///< Ssk: skewness (0 when flat, see shape_defined)
+  double sku = 0.0;            ///< Sku: kurtosis (0 when flat)
+  double sdr = 0.0;            ///< Sdr: developed area / projected area - 1, a ratio (x100 for %)
   bool shape_defined = false;  ///< Sq > 0
   std::int64_t cells = 0;      ///< finite cells used
   std::int64_t squares = 0;    ///< squares of four finite cells used for Sdr

@@ -23,7 +23,7 @@ struct ProfileEvaluation {
   double lambda_s_um = 0.0;     ///< lambda-s used
   int sampling_lengths = 0;     ///< sampling lengths per trace (1..5)
   double evaluation_length_mm = 0.0;  ///< sampling_lengths * cutoff
-  int traces = 0;               ///< traces evaluated (those long enough)
+  int traces = 0;                     ///< traces evaluated (those long enough)
 };
 
 /// Evaluates the traces. The number of sampling lengths n is the most (up to 5) that the longest

@@ -15,9 +15,9 @@ namespace {
 constexpr double kSnapCells = 1e-7;
 
 struct Frame {
-  double cx, cy;    // centre of the cell-centre rectangle, mm
-  double dx, dy;    // unit direction
-  double nx, ny;    // unit normal (direction turned +90 deg)
+  double cx, cy;          // centre of the cell-centre rectangle, mm
+  double dx, dy;          // unit direction
+  double nx, ny;          // unit normal (direction turned +90 deg)
   double x0, x1, y0, y1;  // cell-centre rectangle, mm
 };
 
@@ -71,8 +71,10 @@ bool clip(const Frame& f, double ox, double oy, double eps, double& t0, double& 
 // Bilinear height at (x, y); NaN when a cell with non-zero weight is NaN.
 double sample(const Heightfield& hf, const Frame& f, double x, double y) {
   const double fx = (x - f.x0) / hf.cell_mm, fy = (y - f.y0) / hf.cell_mm;
-  const int i0 = std::clamp(static_cast<int>(std::floor(fx + kSnapCells)), 0, std::max(0, hf.nx - 2));
-  const int j0 = std::clamp(static_cast<int>(std::floor(fy + kSnapCells)), 0, std::max(0, hf.ny - 2));
+  const int i0 =
+      std::clamp(static_cast<int>(std::floor(fx + kSnapCells)), 0, std::max(0, hf.nx - 2));
+  const int j0 =
+      std::clamp(static_cast<int>(std::floor(fy + kSnapCells)), 0, std::max(0, hf.ny - 2));
   double tx = std::clamp(fx - i0, 0.0, 1.0), ty = std::clamp(fy - j0, 0.0, 1.0);
   if (tx < kSnapCells || hf.nx == 1) tx = 0.0;
   if (ty < kSnapCells || hf.ny == 1) ty = 0.0;

@@ -1,7 +1,8 @@
 // Least-squares mean plane of a heightfield (the F-operator of ISO 25178-2 for a nominally flat
 // floor) and its removal. Inputs: Heightfield (um over mm cells), NaN cells skipped.
 // Cost O(cells), streamable over tiles through PlaneSums::merge.
-// Method: ordinary least squares, normal equations in centred coordinates (ISO 25178-2:2012 §3.1.8).
+// Method: ordinary least squares, normal equations in centred coordinates (ISO 25178-2:2012
+// §3.1.8).
 #pragma once
 
 #include "core/heightfield.h"
@@ -10,11 +11,11 @@ namespace cuspmap {
 
 /// A plane z = z0 + gx (x - x0) + gy (y - y0), heights in um, positions in mm.
 struct Plane {
-  double x0_mm = 0.0;               ///< centre X the slopes are taken about
-  double y0_mm = 0.0;               ///< centre Y
-  double z0_um = 0.0;               ///< height at (x0, y0)
-  double gx_um_per_mm = 0.0;        ///< slope along X
-  double gy_um_per_mm = 0.0;        ///< slope along Y
+  double x0_mm = 0.0;         ///< centre X the slopes are taken about
+  double y0_mm = 0.0;         ///< centre Y
+  double z0_um = 0.0;         ///< height at (x0, y0)
+  double gx_um_per_mm = 0.0;  ///< slope along X
+  double gy_um_per_mm = 0.0;  ///< slope along Y
   /// Height of the plane at (x, y) mm, um.
   double at(double x_mm, double y_mm) const {
     return z0_um + gx_um_per_mm * (x_mm - x0_mm) + gy_um_per_mm * (y_mm - y0_mm);

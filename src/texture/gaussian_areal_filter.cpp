@@ -23,7 +23,8 @@ void convolve(const std::vector<double>& in, std::vector<double>& out, int n_lin
       double acc = 0.0;
       const int lo = std::max(0, a - half), hi = std::min(n_along - 1, a + half);
       for (int b = lo; b <= hi; ++b) {
-        acc += kernel[static_cast<size_t>(std::abs(b - a))] * in[base + static_cast<size_t>(b) * stride_along];
+        acc += kernel[static_cast<size_t>(std::abs(b - a))] *
+               in[base + static_cast<size_t>(b) * stride_along];
       }
       out[base + static_cast<size_t>(a) * stride_along] = acc;
     }
@@ -34,11 +35,12 @@ void convolve(const std::vector<double>& in, std::vector<double>& out, int n_lin
 
 Heightfield gaussian_areal_filter(const Heightfield& hf, double nesting_index_mm) {
   Heightfield out = hf;
-  const int half = static_cast<int>(
-      std::lround(kGaussianTruncationCutoffs * nesting_index_mm / hf.cell_mm));
+  const int half =
+      static_cast<int>(std::lround(kGaussianTruncationCutoffs * nesting_index_mm / hf.cell_mm));
   if (half < 1) return out;
   std::vector<double> kernel(static_cast<size_t>(half) + 1);
-  for (int k = 0; k <= half; ++k) kernel[static_cast<size_t>(k)] = gaussian_weight(k * hf.cell_mm, nesting_index_mm);
+  for (int k = 0; k <= half; ++k)
+    kernel[static_cast<size_t>(k)] = gaussian_weight(k * hf.cell_mm, nesting_index_mm);
   const size_t n = static_cast<size_t>(hf.cells());
   std::vector<double> zm(n), m(n), tmp(n);
   for (size_t k = 0; k < n; ++k) {

@@ -26,13 +26,14 @@ std::vector<double> gaussian_profile_filter(std::span<const double> z_um, double
                                             double cutoff_mm) {
   assert(spacing_mm > 0.0 && cutoff_mm > 0.0 && "filter needs positive spacing and cut-off");
   const std::ptrdiff_t n = static_cast<std::ptrdiff_t>(z_um.size());
-  const std::ptrdiff_t half = static_cast<std::ptrdiff_t>(
-      std::lround(kGaussianTruncationCutoffs * cutoff_mm / spacing_mm));
+  const std::ptrdiff_t half =
+      static_cast<std::ptrdiff_t>(std::lround(kGaussianTruncationCutoffs * cutoff_mm / spacing_mm));
   std::vector<double> out(z_um.begin(), z_um.end());
   if (half < 1 || n == 0) return out;
   std::vector<double> kernel(static_cast<size_t>(half) + 1);
   for (std::ptrdiff_t k = 0; k <= half; ++k) {
-    kernel[static_cast<size_t>(k)] = gaussian_weight(static_cast<double>(k) * spacing_mm, cutoff_mm);
+    kernel[static_cast<size_t>(k)] =
+        gaussian_weight(static_cast<double>(k) * spacing_mm, cutoff_mm);
   }
   // Sum of the whole kernel: interior points divide by it, end points by the part that exists.
   double full = kernel[0];
@@ -45,7 +46,8 @@ std::vector<double> gaussian_profile_filter(std::span<const double> z_um, double
     double wsum = kernel[0];
     const bool interior = (i - half >= 0) && (i + half < n);
     if (interior) {
-      for (std::ptrdiff_t k = 1; k <= half; ++k) acc += kernel[static_cast<size_t>(k)] * (z[i - k] + z[i + k]);
+      for (std::ptrdiff_t k = 1; k <= half; ++k)
+        acc += kernel[static_cast<size_t>(k)] * (z[i - k] + z[i + k]);
       wsum = full;
     } else {
       for (std::ptrdiff_t j = lo; j <= hi; ++j) {

@@ -9,7 +9,7 @@
 namespace cuspmap {
 namespace {
 
-constexpr std::array<double, 12> kGradeRaUm = {0.025, 0.05, 0.1, 0.2, 0.4, 0.8,
+constexpr std::array<double, 12> kGradeRaUm = {0.025, 0.05, 0.1, 0.2,  0.4,  0.8,
                                                1.6,   3.2,  6.3, 12.5, 25.0, 50.0};
 // Ra values printed to 3-4 significant digits sit on a grade's boundary within this fraction;
 // 1.6001 um still meets N7.

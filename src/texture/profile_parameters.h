@@ -12,15 +12,15 @@ namespace cuspmap {
 
 /// Parameters of one profile. Letters: R for roughness, P for primary, W for waviness.
 struct ProfileParameters {
-  double a_um = 0.0;   ///< Ra: mean |z| over the evaluation length
-  double q_um = 0.0;   ///< Rq: rms of z over the evaluation length
-  double p_um = 0.0;   ///< Rp: highest peak per sampling length, mean over sampling lengths
-  double v_um = 0.0;   ///< Rv: deepest valley per sampling length (positive), mean
-  double z_um = 0.0;   ///< Rz: Rp + Rv per sampling length, mean over sampling lengths
-  double t_um = 0.0;   ///< Rt: highest peak minus deepest valley over the evaluation length
-  double sk = 0.0;     ///< Rsk: skewness (0 when the profile is flat, see shape_defined)
-  double ku = 0.0;     ///< Rku: kurtosis (0 when flat)
-  double sm_mm = 0.0;  ///< RSm: mean element width (0 when no element, see sm_defined)
+  double a_um = 0.0;           ///< Ra: mean |z| over the evaluation length
+  double q_um = 0.0;           ///< Rq: rms of z over the evaluation length
+  double p_um = 0.0;           ///< Rp: highest peak per sampling length, mean over sampling lengths
+  double v_um = 0.0;           ///< Rv: deepest valley per sampling length (positive), mean
+  double z_um = 0.0;           ///< Rz: Rp + Rv per sampling length, mean over sampling lengths
+  double t_um = 0.0;           ///< Rt: highest peak minus deepest valley over the evaluation length
+  double sk = 0.0;             ///< Rsk: skewness (0 when the profile is flat, see shape_defined)
+  double ku = 0.0;             ///< Rku: kurtosis (0 when flat)
+  double sm_mm = 0.0;          ///< RSm: mean element width (0 when no element, see sm_defined)
   bool shape_defined = false;  ///< Rq > 0, so Rsk and Rku exist
   bool sm_defined = false;     ///< at least one complete profile element was found
 };

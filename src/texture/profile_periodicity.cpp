@@ -4,12 +4,9 @@
 // the overlap count.
 #include "texture/profile_periodicity.h"
 
-#include <fftw3.h>
-
 #include <algorithm>
-#include <complex>
-#include <memory>
 
+#include "texture/fft_autocorrelation.h"
 #include "texture/remove_least_squares_line.h"
 
 namespace cuspmap {
@@ -20,32 +17,13 @@ constexpr size_t kMinSamples = 8;
 // no source: noise moves the multiples' peaks by a few per cent).
 constexpr double kPeriodPeakFraction = 0.9;
 
-struct FftwFree {
-  void operator()(void* p) const { fftw_free(p); }
-};
-
-// Unbiased normalised ACF of z for lags 0..n/2.
+// Unbiased normalised ACF of z for lags 0..n/2 (zero-padded to 2n: no wrap-around).
 std::vector<double> autocorrelation(std::vector<double> z) {
   const size_t n = z.size();
   remove_least_squares_line(z);
-  const size_t padded = 2 * n;
-  const size_t bins = padded / 2 + 1;
-  std::unique_ptr<double, FftwFree> buf(static_cast<double*>(fftw_malloc(sizeof(double) * padded)));
-  std::unique_ptr<fftw_complex, FftwFree> spec(
-      static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * bins)));
-  fftw_plan fwd = fftw_plan_dft_r2c_1d(static_cast<int>(padded), buf.get(), spec.get(), FFTW_ESTIMATE);
-  fftw_plan inv = fftw_plan_dft_c2r_1d(static_cast<int>(padded), spec.get(), buf.get(), FFTW_ESTIMATE);
-  std::fill(buf.get(), buf.get() + padded, 0.0);
+  FftwRealBuffer buf = fftw_real_buffer(2 * n);
   std::copy(z.begin(), z.end(), buf.get());
-  fftw_execute(fwd);
-  for (size_t k = 0; k < bins; ++k) {
-    const double re = spec.get()[k][0], im = spec.get()[k][1];
-    spec.get()[k][0] = re * re + im * im;
-    spec.get()[k][1] = 0.0;
-  }
-  fftw_execute(inv);
-  fftw_destroy_plan(fwd);
-  fftw_destroy_plan(inv);
+  fft_autocorrelate(buf.get(), 1, static_cast<int>(2 * n));
   std::vector<double> acf(n / 2 + 1, 0.0);
   const double r0 = buf.get()[0] / static_cast<double>(n);
   if (!(r0 > 0.0)) return acf;

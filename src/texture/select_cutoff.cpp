@@ -99,9 +99,9 @@ CutoffSelection select_cutoff(const std::vector<ProfileTrace>& traces, double fi
   auto fitted = [&](double wanted) {
     const double fit = fitting_cutoff(wanted, longest, spacing_mm);
     if (fit < wanted) {
-      warn("ISO 4288 asks for cut-off " + format_number(wanted) + " mm but the longest profile is " +
-           format_number(longest_mm) + " mm; used " + format_number(fit) +
-           " mm, which may filter out part of the texture");
+      warn("ISO 4288 asks for cut-off " + format_number(wanted) +
+           " mm but the longest profile is " + format_number(longest_mm) + " mm; used " +
+           format_number(fit) + " mm, which may filter out part of the texture");
     }
     return fit;
   };

@@ -19,10 +19,10 @@ inline constexpr int kMaxCutoffIterations = 6;
 
 /// The chosen cut-off, how it was chosen, and the evaluation at it.
 struct CutoffSelection {
-  ProfileEvaluation evaluation;  ///< parameters at the chosen cut-off
-  Periodicity periodicity;       ///< the autocorrelation test's verdict
-  std::string rule;              ///< "RSm (periodic)", "Ra (non-periodic)" or "fixed"
-  int measurements = 0;          ///< evaluations made
+  ProfileEvaluation evaluation;       ///< parameters at the chosen cut-off
+  Periodicity periodicity;            ///< the autocorrelation test's verdict
+  std::string rule;                   ///< "RSm (periodic)", "Ra (non-periodic)" or "fixed"
+  int measurements = 0;               ///< evaluations made
   std::vector<std::string> warnings;  ///< one line each: out-of-table values, short traces ...
 };
 

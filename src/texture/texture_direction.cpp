@@ -4,21 +4,17 @@
 // Method: ISO 25178-2:2012 §4.2; Wiener-Khinchin theorem; FFTW3 real transforms.
 #include "texture/texture_direction.h"
 
-#include <fftw3.h>
-
 #include <algorithm>
 #include <cmath>
 #include <memory>
 #include <numbers>
 #include <vector>
 
+#include "texture/fft_autocorrelation.h"
+
 namespace cuspmap {
 namespace {
 
-struct FftwFree {
-  void operator()(void* p) const { fftw_free(p); }
-};
-using RealBuf = std::unique_ptr<double, FftwFree>;
 using ComplexBuf = std::unique_ptr<fftw_complex, FftwFree>;
 
 // Smallest size >= n with no prime factor above 7 (FFTW is fastest on those).
@@ -30,23 +26,6 @@ int fft_size(int n) {
     }
     if (r == 1) return m;
   }
-}
-
-// Circular autocorrelation of a py x px real array (in place), via |FFT|^2.
-void autocorrelate(double* data, int py, int px) {
-  const int bins = px / 2 + 1;
-  ComplexBuf spec(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * py * bins)));
-  fftw_plan fwd = fftw_plan_dft_r2c_2d(py, px, data, spec.get(), FFTW_ESTIMATE);
-  fftw_plan inv = fftw_plan_dft_c2r_2d(py, px, spec.get(), data, FFTW_ESTIMATE);
-  fftw_execute(fwd);
-  for (long k = 0; k < static_cast<long>(py) * bins; ++k) {
-    const double re = spec.get()[k][0], im = spec.get()[k][1];
-    spec.get()[k][0] = re * re + im * im;
-    spec.get()[k][1] = 0.0;
-  }
-  fftw_execute(inv);
-  fftw_destroy_plan(fwd);
-  fftw_destroy_plan(inv);
 }
 
 // Normalised ACF on lags |tx| < nx, |ty| < ny, stored as a (2ny-1) x (2nx-1) grid centred on 0.
@@ -71,8 +50,7 @@ Acf areal_acf(const Heightfield& hf, bool& has_nan) {
   // (a circular lag t mixes in t - p, beyond the data when p >= n + |t|), at half the cost of 2n.
   const int px = fft_size(nx + nx / 2 + 1), py = fft_size(ny + ny / 2 + 1);
   const size_t total = static_cast<size_t>(px) * static_cast<size_t>(py);
-  RealBuf z(static_cast<double*>(fftw_malloc(sizeof(double) * total)));
-  std::fill(z.get(), z.get() + total, 0.0);
+  FftwRealBuffer z = fftw_real_buffer(total);
   has_nan = false;
   for (int j = 0; j < ny; ++j) {
     for (int i = 0; i < nx; ++i) {
@@ -81,17 +59,16 @@ Acf areal_acf(const Heightfield& hf, bool& has_nan) {
       z.get()[static_cast<size_t>(j) * px + i] = std::isnan(v) ? 0.0 : v;
     }
   }
-  autocorrelate(z.get(), py, px);
-  RealBuf m;
+  fft_autocorrelate(z.get(), py, px);
+  FftwRealBuffer m;
   if (has_nan) {
-    m.reset(static_cast<double*>(fftw_malloc(sizeof(double) * total)));
-    std::fill(m.get(), m.get() + total, 0.0);
+    m = fftw_real_buffer(total);
     for (int j = 0; j < ny; ++j) {
       for (int i = 0; i < nx; ++i) {
         m.get()[static_cast<size_t>(j) * px + i] = std::isnan(hf.z_um(j, i)) ? 0.0 : 1.0;
       }
     }
-    autocorrelate(m.get(), py, px);
+    fft_autocorrelate(m.get(), py, px);
   }
   Acf acf;
   acf.nx = nx;
@@ -100,9 +77,10 @@ Acf areal_acf(const Heightfield& hf, bool& has_nan) {
   // Pair counts below one half are round-off of an empty overlap (counts are integers).
   constexpr double kMinPairs = 0.5;
   auto mean_product = [&](int tx, int ty) {
-    const size_t idx = static_cast<size_t>((ty + py) % py) * px + static_cast<size_t>((tx + px) % px);
-    const double pairs = has_nan ? m.get()[idx]
-                                 : static_cast<double>(nx - std::abs(tx)) * (ny - std::abs(ty));
+    const size_t idx =
+        static_cast<size_t>((ty + py) % py) * px + static_cast<size_t>((tx + px) % px);
+    const double pairs =
+        has_nan ? m.get()[idx] : static_cast<double>(nx - std::abs(tx)) * (ny - std::abs(ty));
     return pairs >= kMinPairs ? z.get()[idx] / pairs : 0.0;
   };
   const double r0 = mean_product(0, 0);
@@ -122,7 +100,7 @@ Acf areal_acf(const Heightfield& hf, bool& has_nan) {
 // directions weighted by power is perpendicular to the grooves.
 void lay_from_spectrum(const Heightfield& hf, TextureDirection& out) {
   const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
-  RealBuf z(static_cast<double*>(fftw_malloc(sizeof(double) * nx * ny)));
+  FftwRealBuffer z = fftw_real_buffer(static_cast<size_t>(nx) * static_cast<size_t>(ny));
   ComplexBuf spec(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * ny * bins)));
   const double two_pi = 2.0 * std::numbers::pi;
   for (int j = 0; j < ny; ++j) {
@@ -174,7 +152,8 @@ TextureDirection texture_direction(const Heightfield& residual) {
   const double reach_x = 0.5 * (residual.nx - 1), reach_y = 0.5 * (residual.ny - 1);
   double shortest = 1e300, longest = 0.0;
   for (double a = 0.0; a < 180.0; a += kAcfAngleStepDeg) {
-    const double c = std::cos(a * std::numbers::pi / 180.0), s = std::sin(a * std::numbers::pi / 180.0);
+    const double c = std::cos(a * std::numbers::pi / 180.0),
+                 s = std::sin(a * std::numbers::pi / 180.0);
     const double rx = std::abs(c) > 1e-12 ? reach_x / std::abs(c) : 1e300;
     const double ry = std::abs(s) > 1e-12 ? reach_y / std::abs(s) : 1e300;
     const double reach = std::min(rx, ry);

@@ -20,13 +20,13 @@ inline constexpr double kAcfAngleStepDeg = 0.5;
 
 /// Spatial parameters and lay.
 struct TextureDirection {
-  double sal_mm = 0.0;     ///< Sal: shortest distance at which the ACF decays to s
-  double str = 0.0;        ///< Str: Sal / longest decay distance, 0..1 (1 = isotropic)
+  double sal_mm = 0.0;           ///< Sal: shortest distance at which the ACF decays to s
+  double str = 0.0;              ///< Str: Sal / longest decay distance, 0..1 (1 = isotropic)
   bool str_upper_bound = false;  ///< some direction never decayed within half the field: Str is
                                  ///< at most the value given (computed with that half size)
-  bool sal_found = false;  ///< the ACF decayed to s in at least one direction
-  double lay_deg = 0.0;    ///< direction of the lay (the grooves), deg from +X, [0, 180)
-  double lay_strength = 0.0;  ///< 0 (no preferred direction) .. 1 (one direction only)
+  bool sal_found = false;        ///< the ACF decayed to s in at least one direction
+  double lay_deg = 0.0;          ///< direction of the lay (the grooves), deg from +X, [0, 180)
+  double lay_strength = 0.0;     ///< 0 (no preferred direction) .. 1 (one direction only)
 };
 
 /// Computes Sal, Str and the lay of a residual surface.

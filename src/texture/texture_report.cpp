@@ -27,7 +27,8 @@ double wrap_180(double deg) {
   return a > 180.0 - kWrapSlackDeg ? 0.0 : a;
 }
 
-ArealReport areal_side(const Heightfield& hf, const TextureOptions& o, std::vector<std::string>& warnings) {
+ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
+                       std::vector<std::string>& warnings) {
   ArealReport a;
   a.plane = fit_plane(hf);
   Heightfield residual = remove_plane(hf, a.plane);
@@ -46,11 +47,13 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o, std::vect
   a.spatial = texture_direction(residual);
   if (!a.parameters.shape_defined) warnings.push_back("surface is flat: Ssk and Sku reported as 0");
   if (!a.spatial.sal_found) {
-    warnings.push_back("the autocorrelation never fell to 0.2 within half the field: Sal and Str "
-                       "reported as 0");
+    warnings.push_back(
+        "the autocorrelation never fell to 0.2 within half the field: Sal and Str "
+        "reported as 0");
   } else if (a.spatial.str_upper_bound) {
-    warnings.push_back("the autocorrelation did not fall to 0.2 in some directions within half "
-                       "the field: Str is an upper bound");
+    warnings.push_back(
+        "the autocorrelation did not fall to 0.2 in some directions within half "
+        "the field: Str is an upper bound");
   }
   return a;
 }
@@ -80,7 +83,8 @@ void note_undefined(const char* name, const ProfileParameters& p, std::vector<st
     w.push_back(std::string(name) + " profile is flat: its skewness and kurtosis reported as 0");
   }
   if (!p.sm_defined) {
-    w.push_back(std::string(name) + " profile has no complete element: its mean width reported "
+    w.push_back(std::string(name) +
+                " profile has no complete element: its mean width reported "
                 "as 0");
   }
 }
@@ -106,7 +110,8 @@ TextureReport texture_report(const Heightfield& hf, const TextureOptions& option
 
   ProfileReport& p = report.profile;
   p.direction_deg = trace_direction(options, report.areal, p.direction, report.warnings);
-  const double shortest_cutoff = options.cutoff_mm > 0.0 ? options.cutoff_mm : kStandardCutoffsMm.front();
+  const double shortest_cutoff =
+      options.cutoff_mm > 0.0 ? options.cutoff_mm : kStandardCutoffsMm.front();
   const std::vector<ProfileTrace> traces =
       extract_profiles(hf, p.direction_deg, options.max_traces, 2.0 * shortest_cutoff);
   if (traces.empty()) {
@@ -131,11 +136,11 @@ TextureReport texture_report(const Heightfield& hf, const TextureOptions& option
   p.acf_peak = sel.periodicity.acf_peak;
   p.iso1302_grade = iso1302_grade(p.roughness.a_um);
   if (e.sampling_lengths < kDefaultSamplingLengths) {
-    report.warnings.push_back(
-        "evaluation length " + format_number(e.evaluation_length_mm) + " mm holds " +
-        std::to_string(e.sampling_lengths) + " sampling length(s) of " +
-        format_number(e.cutoff_mm) + " mm, fewer than the 5 ISO 4288 asks for: the surface is "
-        "shorter than 6 cut-offs along the trace");
+    report.warnings.push_back("evaluation length " + format_number(e.evaluation_length_mm) +
+                              " mm holds " + std::to_string(e.sampling_lengths) +
+                              " sampling length(s) of " + format_number(e.cutoff_mm) +
+                              " mm, fewer than the 5 ISO 4288 asks for: the surface is "
+                              "shorter than 6 cut-offs along the trace");
   }
   note_undefined("roughness", p.roughness, report.warnings);
   note_undefined("primary", p.primary, report.warnings);

@@ -37,32 +37,32 @@ enum class ProfileDirection {
 /// What to compute and how.
 struct TextureOptions {
   ProfileDirection direction = ProfileDirection::Across;  ///< trace direction rule
-  double direction_deg = 0.0;    ///< trace direction for Angle, deg from +X counter-clockwise
+  double direction_deg = 0.0;     ///< trace direction for Angle, deg from +X counter-clockwise
   std::optional<double> lay_deg;  ///< the lay when known (e.g. the path's pass direction); else
                                   ///< it is detected from the power spectrum
-  double cutoff_mm = 0.0;        ///< lambda-c; 0 = chosen by the ISO 4288 rules
-  double lambda_s_um = -1.0;     ///< lambda-s; < 0 = paired with lc by ISO 3274; 0 = none
-  double s_filter_mm = 0.0;      ///< areal S-filter nesting index; 0 = none
-  double l_filter_mm = 0.0;      ///< areal L-filter nesting index; 0 = none (plane removal only)
+  double cutoff_mm = 0.0;         ///< lambda-c; 0 = chosen by the ISO 4288 rules
+  double lambda_s_um = -1.0;      ///< lambda-s; < 0 = paired with lc by ISO 3274; 0 = none
+  double s_filter_mm = 0.0;       ///< areal S-filter nesting index; 0 = none
+  double l_filter_mm = 0.0;       ///< areal L-filter nesting index; 0 = none (plane removal only)
   int max_traces = kDefaultMaxTraces;  ///< parallel traces averaged
 };
 
 /// Profile side of the report.
 struct ProfileReport {
-  ProfileParameters roughness;   ///< R parameters (Ra ... RSm), means over traces
-  ProfileParameters primary;     ///< P parameters
-  ProfileParameters waviness;    ///< W parameters
-  double cutoff_mm = 0.0;        ///< lambda-c used
-  double lambda_s_um = 0.0;      ///< lambda-s used
+  ProfileParameters roughness;        ///< R parameters (Ra ... RSm), means over traces
+  ProfileParameters primary;          ///< P parameters
+  ProfileParameters waviness;         ///< W parameters
+  double cutoff_mm = 0.0;             ///< lambda-c used
+  double lambda_s_um = 0.0;           ///< lambda-s used
   double evaluation_length_mm = 0.0;  ///< sampling_lengths * cutoff
-  int sampling_lengths = 0;      ///< sampling lengths per trace (5 unless the surface is short)
-  int traces = 0;                ///< traces averaged
-  std::string direction;         ///< "across", "along" or "angle"
-  double direction_deg = 0.0;    ///< trace direction used, deg from +X, [0, 180)
-  std::string cutoff_rule;       ///< "RSm (periodic)", "Ra (non-periodic)" or "fixed"
-  bool periodic = false;         ///< the autocorrelation test's verdict
-  double acf_peak = 0.0;         ///< its score (>= 0.5 periodic)
-  std::string iso1302_grade;     ///< grade of Ra, e.g. "N7"
+  int sampling_lengths = 0;    ///< sampling lengths per trace (5 unless the surface is short)
+  int traces = 0;              ///< traces averaged
+  std::string direction;       ///< "across", "along" or "angle"
+  double direction_deg = 0.0;  ///< trace direction used, deg from +X, [0, 180)
+  std::string cutoff_rule;     ///< "RSm (periodic)", "Ra (non-periodic)" or "fixed"
+  bool periodic = false;       ///< the autocorrelation test's verdict
+  double acf_peak = 0.0;       ///< its score (>= 0.5 periodic)
+  std::string iso1302_grade;   ///< grade of Ra, e.g. "N7"
 };
 
 /// Areal side of the report.
@@ -76,13 +76,13 @@ struct ArealReport {
 
 /// Everything `texture` prints and `simulate` embeds.
 struct TextureReport {
-  ProfileReport profile;   ///< ISO 4287 side
-  ArealReport areal;       ///< ISO 25178-2 side
-  double cell_mm = 0.0;    ///< grid spacing
-  double size_x_mm = 0.0;  ///< nx * cell
-  double size_y_mm = 0.0;  ///< ny * cell
-  std::int64_t cells = 0;          ///< nx * ny
-  std::int64_t reached_cells = 0;  ///< finite cells
+  ProfileReport profile;              ///< ISO 4287 side
+  ArealReport areal;                  ///< ISO 25178-2 side
+  double cell_mm = 0.0;               ///< grid spacing
+  double size_x_mm = 0.0;             ///< nx * cell
+  double size_y_mm = 0.0;             ///< ny * cell
+  std::int64_t cells = 0;             ///< nx * ny
+  std::int64_t reached_cells = 0;     ///< finite cells
   std::vector<std::string> warnings;  ///< one line each, for people; also what was set to 0
 };
 

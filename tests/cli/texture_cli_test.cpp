@@ -34,13 +34,14 @@ TEST_CASE("texture: --json prints the contract keys", "[cli]") {
   INFO(r.err);
   REQUIRE(r.exit_code == 0);
   const nlohmann::json j = nlohmann::json::parse(r.out);
-  for (const char* key : {"Ra_um", "Rq_um", "Rp_um", "Rv_um", "Rz_um", "Rt_um", "Rsk", "Rku", "RSm_mm",
-                          "cutoff_mm", "direction", "lambda_s_um", "evaluation_length_mm",
+  for (const char* key : {"Ra_um", "Rq_um", "Rp_um", "Rv_um", "Rz_um", "Rt_um", "Rsk", "Rku",
+                          "RSm_mm", "cutoff_mm", "direction", "lambda_s_um", "evaluation_length_mm",
                           "sampling_lengths", "iso1302_grade", "primary", "waviness"}) {
     CAPTURE(key);
     REQUIRE(j["profile"].contains(key));
   }
-  for (const char* key : {"Sa_um", "Sq_um", "Sp_um", "Sv_um", "Sz_um", "Ssk", "Sku", "Sdr", "Str", "lay_deg"}) {
+  for (const char* key :
+       {"Sa_um", "Sq_um", "Sp_um", "Sv_um", "Sz_um", "Ssk", "Sku", "Sdr", "Str", "lay_deg"}) {
     CAPTURE(key);
     REQUIRE(j["areal"].contains(key));
   }
@@ -83,7 +84,8 @@ TEST_CASE("texture: --export x3p reads back to the same parameters", "[cli]") {
   const auto b = run_cuspmap({"texture", dir.file("floor.x3p"), "--json"});
   INFO(b.err);
   REQUIRE(b.exit_code == 0);
-  const double sa = nlohmann::json::parse(a.out)["areal"]["Sa_um"], sb = nlohmann::json::parse(b.out)["areal"]["Sa_um"];
+  const double sa = nlohmann::json::parse(a.out)["areal"]["Sa_um"],
+               sb = nlohmann::json::parse(b.out)["areal"]["Sa_um"];
   REQUIRE_NEAR(sb, sa, 1e-5 * sa);
 }
 
@@ -99,14 +101,23 @@ TEST_CASE("texture: malformed input exits 2 with one line and no output", "[cli]
     std::string err;
   };
   const std::vector<Case> cases = {
-      {{"texture", dir.file("bad.csv"), "--cell", "0.01"}, dir.file("bad.csv") + ":2: 2 values, expected 3 as on line 1"},
-      {{"texture", dir.file("bad.xyz")}, dir.file("bad.xyz") + ":3: point (0.25, 0) is off the regular grid of cell 0.1 mm starting at (0, 0)"},
+      {{"texture", dir.file("bad.csv"), "--cell", "0.01"},
+       dir.file("bad.csv") + ":2: 2 values, expected 3 as on line 1"},
+      {{"texture", dir.file("bad.xyz")},
+       dir.file("bad.xyz") +
+           ":3: point (0.25, 0) is off the regular grid of cell 0.1 mm starting at (0, 0)"},
       {{"texture", dir.file("bad.sdf")}, dir.file("bad.sdf") + ": header lacks NumProfiles"},
-      {{"texture", dir.file("bad.x3p")}, dir.file("bad.x3p") + ": not an X3P file (not a zip archive)"},
-      {{"texture", dir.file("floor.npy")}, dir.file("floor.npy") + ": --cell is required for .npy files (no report.json with cell_mm beside it)"},
-      {{"texture", dir.file("missing.npy"), "--cell", "0.01"}, dir.file("missing.npy") + ": cannot open the file"},
-      {{"texture", dir.file("floor.npy"), "--cell", "0.005", "--direction", "sideways"}, "--direction 'sideways': allowed are across, along or an angle in deg"},
-      {{"texture", dir.file("floor.npy"), "--cell", "0.005", "--z-units", "ft"}, "--z-units 'ft': allowed units are um, nm, mm, m"},
+      {{"texture", dir.file("bad.x3p")},
+       dir.file("bad.x3p") + ": not an X3P file (not a zip archive)"},
+      {{"texture", dir.file("floor.npy")},
+       dir.file("floor.npy") +
+           ": --cell is required for .npy files (no report.json with cell_mm beside it)"},
+      {{"texture", dir.file("missing.npy"), "--cell", "0.01"},
+       dir.file("missing.npy") + ": cannot open the file"},
+      {{"texture", dir.file("floor.npy"), "--cell", "0.005", "--direction", "sideways"},
+       "--direction 'sideways': allowed are across, along or an angle in deg"},
+      {{"texture", dir.file("floor.npy"), "--cell", "0.005", "--z-units", "ft"},
+       "--z-units 'ft': allowed units are um, nm, mm, m"},
       {{"texture", dir.file("floor.npy"), "--cell", "-1"}, "--cell -1: must be > 0"},
   };
   for (const Case& c : cases) {

@@ -98,9 +98,12 @@ TEST_CASE("decode_csv_grid: comments, blanks, semicolons and empty fields", "[io
 }
 
 TEST_CASE("decode_csv_grid: malformed rows name file and line", "[io]") {
-  REQUIRE_THROWS_WITH(decode_csv_grid("1,2,3\n4,5\n", "g.csv"), "g.csv:2: 2 values, expected 3 as on line 1");
-  REQUIRE_THROWS_WITH(decode_csv_grid("1,2,3\n4,x5,6\n", "g.csv"), "g.csv:2: value 2 'x5' is not a number");
-  REQUIRE_THROWS_WITH(decode_csv_grid("# nothing\n", "g.csv"), "g.csv: no data rows (empty CSV grid)");
+  REQUIRE_THROWS_WITH(decode_csv_grid("1,2,3\n4,5\n", "g.csv"),
+                      "g.csv:2: 2 values, expected 3 as on line 1");
+  REQUIRE_THROWS_WITH(decode_csv_grid("1,2,3\n4,x5,6\n", "g.csv"),
+                      "g.csv:2: value 2 'x5' is not a number");
+  REQUIRE_THROWS_WITH(decode_csv_grid("# nothing\n", "g.csv"),
+                      "g.csv: no data rows (empty CSV grid)");
 }
 
 TEST_CASE("decode_xyz: round trip infers cell and origin", "[io]") {
@@ -115,12 +118,16 @@ TEST_CASE("decode_xyz: round trip infers cell and origin", "[io]") {
 }
 
 TEST_CASE("decode_xyz: irregular points are rejected", "[io]") {
-  REQUIRE_THROWS_WITH(decode_xyz("0 0 1\n0.1 0 2\n0.25 0 3\n0 0.1 4\n", "p.xyz"),
-                      "p.xyz:3: point (0.25, 0) is off the regular grid of cell 0.1 mm starting at (0, 0)");
-  REQUIRE_THROWS_WITH(decode_xyz("0 0 1\n0.1 0 2\n0 0.2 4\n", "p.xyz"),
-                      "p.xyz: X spacing 0.1 mm differs from Y spacing 0.2 mm; cuspmap needs square cells");
-  REQUIRE_THROWS_WITH(decode_xyz("0 0 1\n0.1 0\n", "p.xyz"), "p.xyz:2: 2 values, expected 3 (X Y Z)");
-  REQUIRE_THROWS_WITH(decode_xyz("0 0 1\n0.1 0 2\n0 0 3\n", "p.xyz"), "p.xyz:3: point (0, 0) appears twice");
+  REQUIRE_THROWS_WITH(
+      decode_xyz("0 0 1\n0.1 0 2\n0.25 0 3\n0 0.1 4\n", "p.xyz"),
+      "p.xyz:3: point (0.25, 0) is off the regular grid of cell 0.1 mm starting at (0, 0)");
+  REQUIRE_THROWS_WITH(
+      decode_xyz("0 0 1\n0.1 0 2\n0 0.2 4\n", "p.xyz"),
+      "p.xyz: X spacing 0.1 mm differs from Y spacing 0.2 mm; cuspmap needs square cells");
+  REQUIRE_THROWS_WITH(decode_xyz("0 0 1\n0.1 0\n", "p.xyz"),
+                      "p.xyz:2: 2 values, expected 3 (X Y Z)");
+  REQUIRE_THROWS_WITH(decode_xyz("0 0 1\n0.1 0 2\n0 0 3\n", "p.xyz"),
+                      "p.xyz:3: point (0, 0) appears twice");
 }
 
 TEST_CASE("decode_sdf: round trip (ISO 25178-71 ASCII, BAD for unreached)", "[io]") {
@@ -135,17 +142,27 @@ TEST_CASE("decode_sdf: round trip (ISO 25178-71 ASCII, BAD for unreached)", "[io
 }
 
 TEST_CASE("decode_sdf: aISO magic, metres scale and malformed headers", "[io]") {
-  const std::string ok = "aISO-1.0\nNumPoints = 2\nNumProfiles = 1\nXscale = 1e-5\nYscale = 0\nZscale = 1e-9\n*\n1000 -2000\n*\n*\n";
+  const std::string ok =
+      "aISO-1.0\nNumPoints = 2\nNumProfiles = 1\nXscale = 1e-5\nYscale = 0\nZscale = 1e-9\n*\n1000 "
+      "-2000\n*\n*\n";
   const Heightfield hf = decode_sdf(ok, "n.sdf");
   REQUIRE_NEAR(hf.z_um(0, 0), 1.0, 1e-6);  // 1000 x 1e-9 m = 1 um
   REQUIRE_NEAR(hf.cell_mm, 0.01, 1e-12);
-  REQUIRE_THROWS_WITH(decode_sdf("hello\n", "n.sdf"), "n.sdf:1: not an ASCII SDF file (expected aBCR-1.0 or aISO-1.0)");
-  REQUIRE_THROWS_WITH(decode_sdf("aBCR-1.0\nNumPoints = 2\nXscale = 1e-5\nYscale = 1e-5\nZscale = 1\n*\n1 2\n*\n", "n.sdf"),
-                      "n.sdf: header lacks NumProfiles");
-  REQUIRE_THROWS_WITH(decode_sdf("aBCR-1.0\nNumPoints = 2\nNumProfiles = 1\nXscale = 1e-5\nYscale = 0\nZscale = 1\n*\n1 2 3\n*\n", "n.sdf"),
+  REQUIRE_THROWS_WITH(decode_sdf("hello\n", "n.sdf"),
+                      "n.sdf:1: not an ASCII SDF file (expected aBCR-1.0 or aISO-1.0)");
+  REQUIRE_THROWS_WITH(
+      decode_sdf("aBCR-1.0\nNumPoints = 2\nXscale = 1e-5\nYscale = 1e-5\nZscale = 1\n*\n1 2\n*\n",
+                 "n.sdf"),
+      "n.sdf: header lacks NumProfiles");
+  REQUIRE_THROWS_WITH(decode_sdf("aBCR-1.0\nNumPoints = 2\nNumProfiles = 1\nXscale = 1e-5\nYscale "
+                                 "= 0\nZscale = 1\n*\n1 2 3\n*\n",
+                                 "n.sdf"),
                       "n.sdf:8: more data values than NumPoints x NumProfiles = 2");
-  REQUIRE_THROWS_WITH(decode_sdf("aBCR-1.0\nNumPoints = two\n", "n.sdf"), "n.sdf:2: NumPoints 'two' is not a number");
-  REQUIRE_THROWS_WITH(decode_sdf("bBCR-1.0\n", "n.sdf"), "n.sdf:1: binary SDF (bBCR-1.0) is not read; save it as ASCII SDF (aBCR-1.0)");
+  REQUIRE_THROWS_WITH(decode_sdf("aBCR-1.0\nNumPoints = two\n", "n.sdf"),
+                      "n.sdf:2: NumPoints 'two' is not a number");
+  REQUIRE_THROWS_WITH(
+      decode_sdf("bBCR-1.0\n", "n.sdf"),
+      "n.sdf:1: binary SDF (bBCR-1.0) is not read; save it as ASCII SDF (aBCR-1.0)");
 }
 
 TEST_CASE("decode_x3p: round trip (ISO 25178-72, NaN for unreached)", "[io]") {
@@ -160,11 +177,13 @@ TEST_CASE("decode_x3p: round trip (ISO 25178-72, NaN for unreached)", "[io]") {
 }
 
 TEST_CASE("decode_x3p: malformed archives give one-line errors", "[io]") {
-  REQUIRE_THROWS_WITH(decode_x3p("not a zip", "b.x3p"), "b.x3p: not an X3P file (not a zip archive)");
+  REQUIRE_THROWS_WITH(decode_x3p("not a zip", "b.x3p"),
+                      "b.x3p: not an X3P file (not a zip archive)");
   const std::string good = encode_x3p(field());
   const std::string xml = read_zip_entry(good, "main.xml");
   // A point-data checksum that does not match data.bin (ISO 25178-72 MD5ChecksumPointData).
-  const size_t at = xml.find("<MD5ChecksumPointData>") + std::string("<MD5ChecksumPointData>").size();
+  const size_t at =
+      xml.find("<MD5ChecksumPointData>") + std::string("<MD5ChecksumPointData>").size();
   std::string bad_md5 = xml;
   bad_md5.replace(at, 32, std::string(32, '0'));
   REQUIRE_THROWS_WITH(decode_x3p(replace_zip_entry(good, "main.xml", bad_md5), "b.x3p"),

@@ -3,12 +3,13 @@
 // Sources: Todhunter et al. (2020), Surf. Topogr.: Metrol. Prop. 8 015010 (sinusoidal surface:
 // Sa = 2A/pi, Sq = A/sqrt 2, Sku = 1.5); ISO 25178-2:2012 §4.3.2 Sdr definition (a plane of
 // slope g develops sqrt(1 + g^2) - 1).
+#include "texture/areal_parameters.h"
+
 #include <cmath>
 #include <numbers>
 
 #include "test_support.h"
 #include "texture/areal_moments.h"
-#include "texture/areal_parameters.h"
 #include "texture/fit_plane.h"
 
 using namespace cuspmap;
@@ -70,7 +71,8 @@ TEST_CASE("developed_area_ratio: a plane of slope g gives sqrt(1 + g^2) - 1", "[
   Heightfield hf = grid(50, 40, 0.01);
   const double gx = 0.3, gy = -0.4;  // mm/mm; heights in um are 1000 x slope x position
   for (int j = 0; j < hf.ny; ++j) {
-    for (int i = 0; i < hf.nx; ++i) hf.z_um(j, i) = static_cast<float>(1000.0 * (gx * hf.x_mm(i) + gy * hf.y_mm(j)));
+    for (int i = 0; i < hf.nx; ++i)
+      hf.z_um(j, i) = static_cast<float>(1000.0 * (gx * hf.x_mm(i) + gy * hf.y_mm(j)));
   }
   std::int64_t squares = 0;
   REQUIRE_NEAR(developed_area_ratio(hf, squares), std::sqrt(1.0 + gx * gx + gy * gy) - 1.0, 1e-6);
@@ -93,7 +95,8 @@ TEST_CASE("fit_plane: recovers an exact plane, NaN cells skipped", "[texture]") 
   Heightfield hf = grid(30, 20, 0.05);
   hf.origin_x_mm = 3.0;
   for (int j = 0; j < hf.ny; ++j) {
-    for (int i = 0; i < hf.nx; ++i) hf.z_um(j, i) = static_cast<float>(4.0 + 2.0 * hf.x_mm(i) - 3.0 * hf.y_mm(j));
+    for (int i = 0; i < hf.nx; ++i)
+      hf.z_um(j, i) = static_cast<float>(4.0 + 2.0 * hf.x_mm(i) - 3.0 * hf.y_mm(j));
   }
   hf.z_um(5, 5) = kUnreached;
   const Plane p = fit_plane(hf);

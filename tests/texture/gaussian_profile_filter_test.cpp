@@ -2,12 +2,13 @@
 // unit area of the weighting function, end handling.
 // Source: ISO 16610-21:2011 §4.2 (s(x) = exp(-pi (x/(alpha lc))^2)/(alpha lc), alpha =
 // sqrt(ln 2/pi), amplitude transmission of the mean line exp(-pi (alpha lc/lambda)^2)).
+#include "texture/gaussian_profile_filter.h"
+
 #include <cmath>
 #include <numbers>
 #include <vector>
 
 #include "test_support.h"
-#include "texture/gaussian_profile_filter.h"
 
 using namespace cuspmap;
 
@@ -19,7 +20,8 @@ constexpr double kPi = std::numbers::pi;
 double mean_line_amplitude(double wavelength_mm, double cutoff_mm, double spacing_mm) {
   const size_t n = static_cast<size_t>(std::lround(20.0 * cutoff_mm / spacing_mm));
   std::vector<double> z(n);
-  for (size_t i = 0; i < n; ++i) z[i] = std::sin(2 * kPi * static_cast<double>(i) * spacing_mm / wavelength_mm);
+  for (size_t i = 0; i < n; ++i)
+    z[i] = std::sin(2 * kPi * static_cast<double>(i) * spacing_mm / wavelength_mm);
   const std::vector<double> w = gaussian_profile_filter(z, spacing_mm, cutoff_mm);
   double amp = 0.0;
   for (size_t i = n / 3; i < 2 * n / 3; ++i) amp = std::max(amp, std::abs(w[i]));
@@ -64,7 +66,8 @@ TEST_CASE("gaussian_profile_filter: ends renormalised, straight lines kept", "[t
   for (size_t i = 80; i < 420; ++i) REQUIRE_NEAR(wl[i], line[i], 1e-12);
 }
 
-TEST_CASE("gaussian_profile_filter: a cut-off below half a spacing leaves the profile", "[texture]") {
+TEST_CASE("gaussian_profile_filter: a cut-off below half a spacing leaves the profile",
+          "[texture]") {
   const std::vector<double> z = {1.0, -2.0, 3.0};
   REQUIRE(gaussian_profile_filter(z, 0.01, 0.0025) == z);
 }

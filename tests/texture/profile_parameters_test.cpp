@@ -3,13 +3,14 @@
 // mathematical reference values for software (sine: Ra = 2A/pi, Rq = A/sqrt 2, Rku = 1.5;
 // triangle: Ra = A/2, Rq = A/sqrt 3, Rku = 1.8); ideal cusp (parabolic arcs, DESIGN.md closed
 // forms): Ra = 4h/(9 sqrt 3), Rq = 2h/(3 sqrt 5), Rz = h.
+#include "texture/profile_parameters.h"
+
 #include <cmath>
 #include <numbers>
 #include <vector>
 
 #include "test_support.h"
 #include "texture/mean_element_width.h"
-#include "texture/profile_parameters.h"
 #include "texture/remove_least_squares_line.h"
 
 using namespace cuspmap;
@@ -30,7 +31,7 @@ std::vector<double> periodic(int periods, double (*shape)(double)) {
 }
 
 double sine(double u) { return 2.0 * std::sin(2.0 * kPi * u); }  // A = 2 um
-double triangle(double u) {  // A = 2 um, zero mean
+double triangle(double u) {                                      // A = 2 um, zero mean
   const double f = u - std::floor(u);
   return 2.0 * (f < 0.5 ? 4.0 * f - 1.0 : 3.0 - 4.0 * f);
 }
@@ -56,12 +57,13 @@ TEST_CASE("profile_parameters: sine reference values (Todhunter et al. 2020)", "
   REQUIRE_NEAR(p.sm_mm, 0.1, kFiveFigures * 0.1);  // RSm = wavelength
 }
 
-TEST_CASE("profile_parameters: triangle wave reference values (Todhunter et al. 2020)", "[texture]") {
+TEST_CASE("profile_parameters: triangle wave reference values (Todhunter et al. 2020)",
+          "[texture]") {
   const auto z = periodic(10, triangle);
   const ProfileParameters p = profile_parameters(z, 0.1 / kPerPeriod, 5, 0.2);
-  REQUIRE_NEAR(p.a_um, 1.0, kFiveFigures);             // A/2
+  REQUIRE_NEAR(p.a_um, 1.0, kFiveFigures);                   // A/2
   REQUIRE_NEAR(p.q_um, 2.0 / std::sqrt(3.0), kFiveFigures);  // A/sqrt 3
-  REQUIRE_NEAR(p.ku, 1.8, kFiveFigures * 1.8);          // 9/5 for a uniform distribution
+  REQUIRE_NEAR(p.ku, 1.8, kFiveFigures * 1.8);               // 9/5 for a uniform distribution
   REQUIRE_NEAR(p.sm_mm, 0.1, kFiveFigures * 0.1);
 }
 
@@ -79,7 +81,8 @@ TEST_CASE("profile_parameters: ideal cusp profile Ra = 4h/(9 sqrt 3)", "[texture
   REQUIRE_NEAR(p.sm_mm, 0.1, kFiveFigures * 0.1);  // RSm = stepover
 }
 
-TEST_CASE("profile_parameters: Rp, Rv, Rz are means over sampling lengths (ISO 4288 §5)", "[texture]") {
+TEST_CASE("profile_parameters: Rp, Rv, Rz are means over sampling lengths (ISO 4288 §5)",
+          "[texture]") {
   // Sampling length k holds one spike of k + 1 um up and one of k + 1 um down.
   //   k:   0      1      2
   //       +1/-1  +2/-2  +3/-3   -> Rp = Rv = 2, Rz = 4, Rt = 6

@@ -2,13 +2,14 @@
 // Sources: a sine grating z = A sin(2 pi (x cos phi + y sin phi) / lambda) has grooves (lay) at
 // phi + 90 deg (geometry); ISO 25178-2:2012 §4.2.2 Str: near 0 for a strongly directional
 // surface, near 1 for an isotropic one.
+#include "texture/texture_direction.h"
+
 #include <cmath>
 #include <numbers>
 #include <random>
 
 #include "test_support.h"
 #include "texture/fit_plane.h"
-#include "texture/texture_direction.h"
 
 using namespace cuspmap;
 
@@ -25,7 +26,8 @@ Heightfield grating(double phi_deg, double wavelength_mm) {
   const double c = std::cos(phi_deg * kPi / 180), s = std::sin(phi_deg * kPi / 180);
   for (int j = 0; j < hf.ny; ++j) {
     for (int i = 0; i < hf.nx; ++i) {
-      hf.z_um(j, i) = static_cast<float>(2.0 * std::sin(2 * kPi * (hf.x_mm(i) * c + hf.y_mm(j) * s) / wavelength_mm));
+      hf.z_um(j, i) = static_cast<float>(
+          2.0 * std::sin(2 * kPi * (hf.x_mm(i) * c + hf.y_mm(j) * s) / wavelength_mm));
     }
   }
   return remove_plane(hf, fit_plane(hf));

@@ -2,6 +2,8 @@
 // direction across the lay, Ra of the ideal cusp, warnings for short surfaces, errors.
 // Sources: DESIGN.md ideal periodic cusp profile Ra = 4h/(9 sqrt 3), RSm = stepover;
 // ISO 4288:1996 Table 3 (RSm 0.5 mm -> lc 2.5 mm; RSm 0.3 mm -> lc 0.8 mm, from memory).
+#include "texture/texture_report.h"
+
 #include <algorithm>
 #include <cmath>
 #include <random>
@@ -9,7 +11,6 @@
 
 #include "core/input_error.h"
 #include "test_support.h"
-#include "texture/texture_report.h"
 
 using namespace cuspmap;
 
@@ -44,11 +45,11 @@ TEST_CASE("texture_report: ideal cusp floor, cut-off by RSm, Ra = 4h/(9 sqrt 3)"
   const ProfileReport& p = r.profile;
   REQUIRE(p.periodic);
   REQUIRE(p.cutoff_rule == "RSm (periodic)");
-  REQUIRE_NEAR(p.cutoff_mm, 2.5, 1e-12);        // ISO 4288 Table 3: 0.4 < RSm <= 1.3
-  REQUIRE_NEAR(p.lambda_s_um, 8.0, 1e-12);      // ISO 3274 pair of 2.5 mm
+  REQUIRE_NEAR(p.cutoff_mm, 2.5, 1e-12);    // ISO 4288 Table 3: 0.4 < RSm <= 1.3
+  REQUIRE_NEAR(p.lambda_s_um, 8.0, 1e-12);  // ISO 3274 pair of 2.5 mm
   REQUIRE(p.sampling_lengths == 5);
   REQUIRE_NEAR(p.evaluation_length_mm, 12.5, 1e-9);
-  REQUIRE_NEAR(p.direction_deg, 90.0, 1e-9);    // across passes that run along X
+  REQUIRE_NEAR(p.direction_deg, 90.0, 1e-9);  // across passes that run along X
   REQUIRE(p.direction == "across");
   // Discretisation (100 samples per stepover) and the 8 um lambda-s filter: < 0.1 %.
   REQUIRE_NEAR(p.roughness.a_um, 4 * h / (9 * std::sqrt(3.0)), 1e-3 * p.roughness.a_um);
@@ -71,14 +72,17 @@ TEST_CASE("texture_report: a short surface uses fewer sampling lengths and says 
   const TextureReport r = texture_report(cusp_floor(0.5, 10.0, 20, 1200, 0.005), TextureOptions{});
   REQUIRE_NEAR(r.profile.cutoff_mm, 2.5, 1e-12);
   REQUIRE(r.profile.sampling_lengths == 1);
-  REQUIRE(has_warning(r, "holds 1 sampling length(s) of 2.5 mm, fewer than the 5 ISO 4288 asks for"));
+  REQUIRE(
+      has_warning(r, "holds 1 sampling length(s) of 2.5 mm, fewer than the 5 ISO 4288 asks for"));
 }
 
-TEST_CASE("texture_report: a surface shorter than two rule cut-offs falls back with a warning", "[texture]") {
+TEST_CASE("texture_report: a surface shorter than two rule cut-offs falls back with a warning",
+          "[texture]") {
   // 4 mm across the passes: 2.5 mm needs 5 mm, so the 0.8 mm cut-off is used (and named).
   const TextureReport r = texture_report(cusp_floor(0.5, 10.0, 20, 800, 0.005), TextureOptions{});
   REQUIRE_NEAR(r.profile.cutoff_mm, 0.8, 1e-12);
-  REQUIRE(has_warning(r, "ISO 4288 asks for cut-off 2.5 mm but the longest profile is 3.995 mm; used 0.8 mm"));
+  REQUIRE(has_warning(
+      r, "ISO 4288 asks for cut-off 2.5 mm but the longest profile is 3.995 mm; used 0.8 mm"));
 }
 
 TEST_CASE("texture_report: along the lay and fixed cut-off", "[texture]") {
