@@ -21,5 +21,6 @@ UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
   ctest --test-dir build-asan --output-on-failure
 stage_done "sanitizer tests"
 
-FUZZ_JOBS="$jobs" tools/fuzz.sh "${CUSPMAP_FUZZ_SECONDS:-30}"
+# Two targets at a time on two cores: 8 targets x 30 s take 2 minutes.
+FUZZ_JOBS="$jobs" FUZZ_PARALLEL="$jobs" tools/fuzz.sh "${CUSPMAP_FUZZ_SECONDS:-30}"
 stage_done "fuzzing"

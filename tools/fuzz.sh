@@ -4,7 +4,8 @@
 # (tests/fuzz/fuzz_check.h) stops the script with exit 1 and leaves the input in
 # build-fuzz/findings/.
 # Usage: tools/fuzz.sh [SECONDS_PER_TARGET=60] [TARGET ...]   (targets default to all built)
-#   FUZZ_BUILD_DIR (default build-fuzz) and FUZZ_JOBS (build parallelism, default 2) may be set.
+#   FUZZ_BUILD_DIR (default build-fuzz), FUZZ_JOBS (build parallelism, default 2) and
+#   FUZZ_PARALLEL (targets fuzzed at once, default 1) may be set.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 seconds="${1:-60}"
@@ -25,41 +26,65 @@ targets=("$@")
 [ "${#targets[@]}" -gt 0 ] || targets=("${built[@]}")
 
 mkdir -p "$build/findings"
-total_execs=0
-for t in "${targets[@]}"; do
-  bin="$build/tests/fuzz/$t"
-  [ -x "$bin" ] || { echo "fuzz.sh: no target $t in $build (built: ${built[*]})" >&2; exit 2; }
-  seeds="tests/fuzz/corpus/$t"
-  work="$build/fuzz-work/$t"   # grows across local runs; seeds stay untouched in git
+# One target: replay its saved regressions, fuzz it, print one result line. Returns 1 on a finding.
+run_target() {
+  local t="$1" bin="$build/tests/fuzz/$1"
+  [ -x "$bin" ] || { echo "fuzz.sh: no target $t in $build (built: ${built[*]})" >&2; return 2; }
+  local seeds="tests/fuzz/corpus/$t"
+  local work="$build/fuzz-work/$t"   # grows across local runs; seeds stay untouched in git
   mkdir -p "$work"
-  opts=(-max_total_time="$seconds" -timeout=10 -rss_limit_mb=2048 -max_len=8192
-        -print_final_stats=1 -artifact_prefix="$build/findings/$t-")
+  local opts=(-max_total_time="$seconds" -timeout=10 -rss_limit_mb=2048 -max_len=8192
+              -print_final_stats=1 -artifact_prefix="$build/findings/$t-")
   [ -f "tests/fuzz/$t.dict" ] && opts+=(-dict="tests/fuzz/$t.dict")
   # Saved reproducers of past findings must stay fixed: replay each first. One listed in
   # tests/fuzz/regressions/open.txt is a reported finding whose fix has not landed yet: it is
   # replayed and reported, but does not fail the run (fuzzing the target will likely find it).
+  local r rel
   for r in tests/fuzz/regressions/"$t"/*; do
     [ -f "$r" ] || continue
     rel="${r#tests/fuzz/regressions/}"
     if "$bin" -timeout=10 -rss_limit_mb=2048 "$r" >"$build/findings/$t-replay.log" 2>&1; then
-      grep -q "^$rel\b" tests/fuzz/regressions/open.txt 2>/dev/null &&
+      grep -q "^$rel\\b" tests/fuzz/regressions/open.txt 2>/dev/null &&
         echo "$t: open finding $rel passes now: remove it from tests/fuzz/regressions/open.txt"
-    elif grep -q "^$rel\b" tests/fuzz/regressions/open.txt 2>/dev/null; then
+    elif grep -q "^$rel\\b" tests/fuzz/regressions/open.txt 2>/dev/null; then
       echo "$t: open finding $rel still reproduces (listed in tests/fuzz/regressions/open.txt)"
     else
       echo "$t: saved regression $r fails again; see $build/findings/$t-replay.log" >&2
-      exit 1
+      return 1
     fi
   done
-  log="$build/findings/$t.log"
+  local log="$build/findings/$t.log"
   if ! nice "$bin" "${opts[@]}" "$work" "$seeds" >"$log" 2>&1; then
-    echo "$t: FINDING (see $log and $build/findings/$t-*)" >&2
-    grep -E 'ERROR|finding|SUMMARY|Test unit written' "$log" | head -5 >&2 || true
-    exit 1
+    { echo "$t: FINDING (see $log and $build/findings/$t-*)"
+      grep -E 'ERROR|finding|SUMMARY|Test unit written' "$log" | head -5 || true; } >&2
+    return 1
   fi
+  local execs corpus
   execs=$(sed -n 's/^stat::number_of_executed_units: *//p' "$log" | tail -1)
   corpus=$(find "$work" -type f | wc -l)
   echo "$t: ${execs:-?} executions in ${seconds} s, corpus ${corpus} inputs, no finding"
-  total_execs=$((total_execs + ${execs:-0}))
+  echo "${execs:-0}" >"$build/findings/$t.execs"
+}
+
+# FUZZ_PARALLEL targets at a time (default 1: the machine is shared; CI uses its cores).
+parallel="${FUZZ_PARALLEL:-1}"
+failed=0
+running=0
+for t in "${targets[@]}"; do
+  run_target "$t" &
+  running=$((running + 1))
+  if [ "$running" -ge "$parallel" ]; then
+    wait -n || failed=1
+    running=$((running - 1))
+  fi
+done
+while [ "$running" -gt 0 ]; do
+  wait -n || failed=1
+  running=$((running - 1))
+done
+[ "$failed" -eq 0 ] || { echo "fuzz.sh: FAILED (findings above)" >&2; exit 1; }
+total_execs=0
+for t in "${targets[@]}"; do
+  total_execs=$((total_execs + $(cat "$build/findings/$t.execs" 2>/dev/null || echo 0)))
 done
 echo "fuzz.sh: ${#targets[@]} targets, ${total_execs} executions, no finding"
