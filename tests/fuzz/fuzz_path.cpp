@@ -4,6 +4,7 @@
 // Findings: an exception but InputError, an invalid move (fuzz_path_check.h), a crash, a leak,
 // UB, a timeout or memory beyond libFuzzer's limit.
 // fuzz-requires: src/path/build_toolpath.cpp
+// fuzz-requires: src/path/raster.cpp
 #include <cstddef>
 #include <cstdint>
 #include <string_view>
