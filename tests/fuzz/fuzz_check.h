@@ -6,6 +6,8 @@
 #include <unistd.h>
 
 #include <cmath>
+#include <cstddef>
+#include <cstdint>
 #include <cstdio>
 #include <cstdlib>
 #include <exception>
@@ -87,6 +89,18 @@ inline std::string scratch_file(const std::string& name, std::string_view bytes)
   }
   std::fclose(f);
   return path;
+}
+
+/// One heightmap-reader execution: writes the input to <scratch>/<file_name> and reads it with
+/// `read` (the reader under test, called with the path), which must return a usable
+/// Heightfield (require_heightfield) or refuse with InputError.
+template <class Read>
+int fuzz_heightmap_file(const std::uint8_t* data, std::size_t size, const std::string& file_name,
+                        Read&& read) {
+  const std::string path =
+      scratch_file(file_name, std::string_view(reinterpret_cast<const char*>(data), size));
+  run_one([&] { require_heightfield(read(path), true); });
+  return 0;
 }
 
 }  // namespace cuspmap::fuzz

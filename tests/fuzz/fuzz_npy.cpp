@@ -6,21 +6,17 @@
 // fuzz-requires: src/io/read_heightmap.cpp
 #include <cstddef>
 #include <cstdint>
-#include <string_view>
+#include <string>
 
 #include "fuzz_check.h"
 #include "io/read_heightmap.h"
 
 using namespace cuspmap;
 
-// Cell size given as --cell would be (a 10 um grid, the examples' usual cell).
-constexpr double kFuzzCellMm = 0.01;
-
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
-  const std::string path =
-      fuzz::scratch_file("fuzz.npy", std::string_view(reinterpret_cast<const char*>(data), size));
   HeightmapReadOptions options;
-  options.cell_mm = kFuzzCellMm;  // the file does not state its cell
-  fuzz::run_one([&] { fuzz::require_heightfield(read_heightmap(path, options).field, true); });
-  return 0;
+  options.cell_mm = 0.01;  // as --cell would give it (the examples' 10 um cell): the file has none
+  return fuzz::fuzz_heightmap_file(data, size, "fuzz.npy", [&](const std::string& path) {
+    return read_heightmap(path, options).field;
+  });
 }

@@ -6,7 +6,7 @@
 // fuzz-requires: src/io/read_heightmap.cpp
 #include <cstddef>
 #include <cstdint>
-#include <string_view>
+#include <string>
 
 #include "fuzz_check.h"
 #include "io/read_heightmap.h"
@@ -14,10 +14,8 @@
 using namespace cuspmap;
 
 extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size) {
-  const std::string path =
-      fuzz::scratch_file("fuzz.sdf", std::string_view(reinterpret_cast<const char*>(data), size));
-  HeightmapReadOptions options;
   // No --cell: the format states its own cell size.
-  fuzz::run_one([&] { fuzz::require_heightfield(read_heightmap(path, options).field, true); });
-  return 0;
+  return fuzz::fuzz_heightmap_file(data, size, "fuzz.sdf", [](const std::string& path) {
+    return read_heightmap(path, HeightmapReadOptions{}).field;
+  });
 }
