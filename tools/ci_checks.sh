@@ -22,5 +22,6 @@ UBSAN_OPTIONS=print_stacktrace=1:halt_on_error=1 \
 stage_done "sanitizer tests"
 
 # Two targets at a time on two cores: 8 targets x 30 s take 2 minutes.
-FUZZ_JOBS="$jobs" FUZZ_PARALLEL="$jobs" tools/fuzz.sh "${CUSPMAP_FUZZ_SECONDS:-30}"
+# A target with an open finding (tests/fuzz/regressions/open.txt) is replayed, not fuzzed.
+FUZZ_JOBS="$jobs" FUZZ_PARALLEL="$jobs" FUZZ_SKIP_OPEN=1 tools/fuzz.sh "${CUSPMAP_FUZZ_SECONDS:-30}"
 stage_done "fuzzing"

@@ -5,7 +5,8 @@
 # build-fuzz/findings/.
 # Usage: tools/fuzz.sh [SECONDS_PER_TARGET=60] [TARGET ...]   (targets default to all built)
 #   FUZZ_BUILD_DIR (default build-fuzz), FUZZ_JOBS (build parallelism, default 2) and
-#   FUZZ_PARALLEL (targets fuzzed at once, default 1) may be set.
+#   FUZZ_PARALLEL (targets fuzzed at once, default 1) and FUZZ_SKIP_OPEN=1 (CI: do not fuzz a
+#   target with an open finding in tests/fuzz/regressions/open.txt) may be set.
 set -euo pipefail
 cd "$(dirname "$0")/.."
 seconds="${1:-60}"
@@ -53,6 +54,14 @@ run_target() {
       return 1
     fi
   done
+  # CI quarantines a target with an open finding (FUZZ_SKIP_OPEN=1): fuzzing it would only find
+  # that known defect again. Its reproducers were replayed above; the line in open.txt keeps it
+  # visible, and fuzzing resumes once the fix lands and the line is deleted.
+  if [ "${FUZZ_SKIP_OPEN:-0}" = 1 ] && grep -q "^$t/" tests/fuzz/regressions/open.txt 2>/dev/null; then
+    echo "$t: not fuzzed: open finding listed in tests/fuzz/regressions/open.txt"
+    echo 0 >"$build/findings/$t.execs"
+    return 0
+  fi
   local log="$build/findings/$t.log"
   if ! nice "$bin" "${opts[@]}" "$work" "$seeds" >"$log" 2>&1; then
     { echo "$t: FINDING (see $log and $build/findings/$t-*)"
