@@ -78,11 +78,11 @@ struct Crossings {
         pos = x;
       }
       const double slope = bearing_slope(f, x);
-      const double lo = std::min(neg, pos), hi = std::max(neg, pos);
-      double xn = slope != 0.0 ? x - g / slope : 0.5 * (lo + hi);
-      if (std::abs(xn - x) < kRootTolMm) return std::clamp(xn, lo, hi);
-      if (!(xn > lo && xn < hi)) xn = 0.5 * (lo + hi);
-      if (hi - lo < kRootTolMm) return xn;
+      const double b_lo = std::min(neg, pos), b_hi = std::max(neg, pos);
+      double xn = slope != 0.0 ? x - g / slope : 0.5 * (b_lo + b_hi);
+      if (std::abs(xn - x) < kRootTolMm) return std::clamp(xn, b_lo, b_hi);
+      if (!(xn > b_lo && xn < b_hi)) xn = 0.5 * (b_lo + b_hi);
+      if (b_hi - b_lo < kRootTolMm) return xn;
       x = xn;
     }
     return x;
@@ -172,9 +172,12 @@ double teeth_line_mm(const SweepSetup& setup, const PreparedMove& move, double u
       f.e_cos = setup.runout_mm * std::cos(beta);
       f.axial_mm = setup.axial_mm[t];
     }
-    for (int i = 0; i < minima.count; ++i) {
+    for (int i = 0; i < std::max(1, minima.count); ++i) {
+      // The global minimum always qualifies (local_minima_only never empties a finite result
+      // in exact arithmetic; this guards against rounding).
+      const double x0 = minima.count > 0 ? minima.candidates[i].x_mm : minima.x_mm;
       for (double dir : {-1.0, 1.0}) {
-        const double x = cr.walk(f, minima.candidates[i].x_mm, dir);
+        const double x = cr.walk(f, x0, dir);
         if (x == x) best = std::min(best, cr.height(f, x));
       }
     }

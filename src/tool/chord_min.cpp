@@ -18,8 +18,10 @@ constexpr int kNewtonMaxIter = 60;
 // Golden-section iterations on the rare non-convex circle branch (the inside of a runout
 // envelope, narrower than the runout): 0.618^40 of a width under 0.1 mm is below 1e-9 mm.
 constexpr int kGoldenIter = 40;
-// Step for the numeric local-minimum test (mm): well above rounding of f, well below any piece.
+// Step for the numeric local-minimum test (mm): well above rounding of f, well below any piece;
+// a neighbour must be lower by more than rounding (1e-12 mm) to disqualify a candidate.
 constexpr double kLocalMinProbeMm = 1e-7;
+constexpr double kLocalMinSlackMm = 1e-12;
 
 struct Chord {
   const RevolvedProfile& q;
@@ -161,8 +163,8 @@ ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_
     }
     if (local_minima_only) {
       const double left = cand.x_mm - kLocalMinProbeMm, right = cand.x_mm + kLocalMinProbeMm;
-      if ((left >= xa && c.f(left) < cand.value_mm) ||
-          (right <= xb && c.f(right) < cand.value_mm)) {
+      const double lower = cand.value_mm - kLocalMinSlackMm;
+      if ((left >= xa && c.f(left) < lower) || (right <= xb && c.f(right) < lower)) {
         continue;
       }
     }

@@ -16,6 +16,8 @@ namespace {
 constexpr double kInf = std::numeric_limits<double>::infinity();
 // Breakpoints closer than this (mm) are one breakpoint: far below any cell or feed scale.
 constexpr double kBreakpointMergeMm = 1e-12;
+// Rounding allowance at the rim (mm): a few ulps of mm-sized radii, far below a nanometre.
+constexpr double kReachSlackMm = 1e-12;
 
 // The profile of the cutter itself (e = 0) in its own pieces.
 struct OwnProfile {
@@ -55,12 +57,14 @@ int RevolvedProfile::piece_at(double r_mm) const {
 }
 
 double RevolvedProfile::height_mm(double r_mm) const {
-  if (r_mm > reach_mm) return kInf;
+  // Radii computed as sqrt(w^2 + x^2) at x = sqrt(reach^2 - w^2) may round just past the reach;
+  // kReachSlackMm keeps that rim point on the cutter.
+  if (r_mm > reach_mm + kReachSlackMm) return kInf;
   return pieces[piece_at(r_mm)].height_mm(r_mm);
 }
 
 double RevolvedProfile::min_over_mm(double lo_mm, double hi_mm) const {
-  if (lo_mm > reach_mm) return kInf;
+  if (lo_mm > reach_mm + kReachSlackMm) return kInf;
   const double hi = std::min(hi_mm, reach_mm);
   const double lo = std::max(lo_mm, 0.0);
   // q falls to argmin and rises after it, so the interval's lowest point is the clamped argmin.

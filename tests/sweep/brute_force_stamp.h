@@ -122,4 +122,76 @@ inline double dense_min_along_move_um(const Cutter& cutter, const Move& move, do
   return best_h;
 }
 
+/// Lowest tooth-edge height over one point from a whole path, by time stepping: every tooth's
+/// edge (a radial line from the runout-offset centre, DESIGN.md "Tooth-resolved") is followed
+/// in steps of 1/steps_per_tooth of the tooth period; a change of side of the point with the
+/// edge in front of the centre is a crossing, its time linearly interpolated.
+/// @param[in] rpm, cw      spindle speed and direction (cw = M3, negative angular speed)
+/// @param[in] steps_per_tooth  time steps per tooth period (>= 8)
+/// @return um above floor_z, +infinity when no tooth passes the point
+inline double time_stepped_teeth_um(const Cutter& cutter, const Toolpath& path, double floor_z_mm,
+                                    const Eigen::Vector2d& p_mm, double rpm, bool cw,
+                                    int steps_per_tooth) {
+  const double two_pi = 2.0 * std::numbers::pi, deg = std::numbers::pi / 180.0;
+  const double omega = (cw ? -1.0 : 1.0) * two_pi * rpm / 60.0;
+  const int z = std::max(1, cutter.teeth);
+  const double tan_tilt = std::tan(cutter.tilt_deg * deg);
+  const Eigen::Vector2d n(std::cos(cutter.tilt_toward_deg * deg),
+                          std::sin(cutter.tilt_toward_deg * deg));
+  const double dt = two_pi / std::abs(omega) / z / steps_per_tooth;
+  double best = std::numeric_limits<double>::infinity();
+  double clock = 0.0;
+  for (const Move& m : path.moves) {
+    const double duration = move_length_mm(m) / m.feed_mm_per_min * 60.0;
+    if (!(duration > 0.0)) continue;
+    const int steps = static_cast<int>(std::ceil(duration / dt));
+    // Side of the point w.r.t. tooth k's edge line, and its distance along the edge.
+    auto state = [&](double t_local, int k, double& side, double& along, Eigen::Vector2d& v) {
+      const Eigen::Vector3d c = move_point_mm(m, t_local / duration);
+      const double theta = omega * (clock + t_local);
+      const Eigen::Vector2d centre =
+          c.head<2>() + cutter.runout_mm * Eigen::Vector2d(std::cos(theta + cutter.runout_phase_deg * deg),
+                                                           std::sin(theta + cutter.runout_phase_deg * deg));
+      const double a = theta + two_pi * k / z;
+      const Eigen::Vector2d u(std::cos(a), std::sin(a));
+      const Eigen::Vector2d q = p_mm - centre;
+      side = u.x() * q.y() - u.y() * q.x();
+      along = u.dot(q);
+      v = p_mm - c.head<2>();
+    };
+    for (int k = 0; k < z; ++k) {
+      const double axial = k < static_cast<int>(cutter.axial_offsets_um.size())
+                               ? cutter.axial_offsets_um[k] / 1000.0 : 0.0;
+      double side0 = 0.0, along0 = 0.0;
+      Eigen::Vector2d v0;
+      state(0.0, k, side0, along0, v0);
+      double t0 = 0.0;
+      for (int i = 1; i <= steps; ++i) {
+        const double t1 = std::min(duration, i * dt);
+        double side1 = 0.0, along1 = 0.0;
+        Eigen::Vector2d v1;
+        state(t1, k, side1, along1, v1);
+        if ((side0 < 0.0) != (side1 < 0.0) && along0 + along1 > 0.0) {
+          const double f = side0 / (side0 - side1);
+          const double tc = t0 + f * (t1 - t0);
+          double sc = 0.0, r = 0.0;
+          Eigen::Vector2d vc;
+          state(tc, k, sc, r, vc);
+          if (r >= 0.0 && r <= cutter.radius_mm()) {
+            const double zc = move_point_mm(m, tc / duration).z();
+            const double h = zc - floor_z_mm + profile_height_mm(cutter, r) + axial -
+                             tan_tilt * vc.dot(n);
+            best = std::min(best, h * 1000.0);
+          }
+        }
+        side0 = side1;
+        along0 = along1;
+        t0 = t1;
+      }
+    }
+    clock += duration;
+  }
+  return best;
+}
+
 }  // namespace cuspmap::test
