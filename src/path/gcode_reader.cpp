@@ -310,7 +310,9 @@ class GcodeInterpreter {
                    " moves: split the program or simulate a smaller patch");
     }
     out_.path.moves.push_back(m);
-    if (m.rapid && move_reaches_floor(m, patch_, cutter_)) {
+    // A rapid straight up leaves the floor where the last move left it: nothing new is cut.
+    const bool straight_up = m.start_mm.head<2>() == m.end_mm.head<2>() && m.end_mm.z() >= m.start_mm.z();
+    if (m.rapid && !straight_up && move_reaches_floor(m, patch_, cutter_)) {
       if (++rapid_warnings_ <= kMaxRapidWarnings) {
         warn("rapid (G0) comes within the cutter's reach (" +
              format_number(cutter_reach_mm(cutter_)) + " mm) of the floor over the patch "

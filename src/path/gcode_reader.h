@@ -47,7 +47,8 @@ inline constexpr int kMaxRapidWarnings = 20;
 /// Spindle: the M3/M4 in force at the first feed move sets BuiltPath::spindle (cw = M3); with
 /// no M3/M4 before it, cut.spindle is used and a warning says so; a change of direction between
 /// feed moves is an error (one direction per simulated program); feed moves under M5 warn once.
-/// Warnings: each rapid that reaches the floor (path/floor_reach.h), with its line number.
+/// Warnings: each rapid that reaches the floor (path/floor_reach.h), with its line number, except
+/// a rapid straight up (a retract), which only leaves the floor as the previous move left it.
 /// Limits: kMaxGcodeLineChars per line, kMaxGcodeLines lines, kMaxPathMoves moves.
 ///
 /// @param[in] path    G-code file; its name as given starts every message

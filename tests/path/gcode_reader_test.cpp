@@ -165,9 +165,12 @@ TEST_CASE("read_gcode_text: warnings for a rapid that reaches the floor, with it
       "G0 Z2.5\n"      // outside the patch (x = 20 > 10 + R): clear
       "G0 X-20\n"      // crosses the patch at 2.5 mm < 3 mm: warning
       "G0 X-20 Y20\n"  // at x = -20, beyond R of the patch: clear
-      "G1 Z0 F100\n");
-  REQUIRE(b.warnings.size() == 1);
+      "G0 X5 Y5 Z0.5\n"  // descends into reach over the patch: warning
+      "G1 Z0 F100\n"
+      "G0 Z5\n");       // straight up from the floor: a retract, no warning
+  REQUIRE(b.warnings.size() == 2);
   CHECK(b.warnings[0].line == 5);
+  CHECK(b.warnings[1].line == 7);
   CHECK(b.warnings[0].message ==
         "rapid (G0) comes within the cutter's reach (3 mm) of the floor over the patch (tip down "
         "to Z=2.5 mm): it is swept like a cut");
