@@ -10,9 +10,11 @@
 
 #include "core/input_error.h"
 #include "core/units.h"
+#include "path/check_length.h"
 #include "path/offset_rings.h"
 #include "path/path_builder.h"
 #include "path/path_limits.h"
+#include "path/point_in_polygon.h"
 
 namespace cuspmap {
 namespace {
@@ -20,24 +22,6 @@ namespace {
 using Polygon = std::vector<Eigen::Vector2d>;
 
 double cross(const Eigen::Vector2d& a, const Eigen::Vector2d& b) { return a.x() * b.y() - a.y() * b.x(); }
-
-double signed_area(const Polygon& p) {
-  double twice = 0.0;
-  for (std::size_t i = 0; i < p.size(); ++i) twice += cross(p[i], p[(i + 1) % p.size()]);
-  return 0.5 * twice;
-}
-
-// Crossing-number test (W. R. Franklin's PNPOLY).
-bool inside(const Eigen::Vector2d& q, const Polygon& p) {
-  bool in = false;
-  for (std::size_t i = 0, j = p.size() - 1; i < p.size(); j = i++) {
-    if ((p[i].y() > q.y()) != (p[j].y() > q.y()) &&
-        q.x() < (p[j].x() - p[i].x()) * (q.y() - p[i].y()) / (p[j].y() - p[i].y()) + p[i].x()) {
-      in = !in;
-    }
-  }
-  return in;
-}
 
 // True when segments ab and cd cross at a point interior to both.
 bool crosses(const Eigen::Vector2d& a, const Eigen::Vector2d& b, const Eigen::Vector2d& c,
@@ -56,7 +40,7 @@ bool link_inside(const Eigen::Vector2d& a, const Eigen::Vector2d& b, const std::
     for (std::size_t i = 0; i < p.size(); ++i) {
       if (crosses(a, b, p[i], p[(i + 1) % p.size()])) return false;
     }
-    mid_inside = mid_inside || inside(mid, p);
+    mid_inside = mid_inside || point_in_polygon(mid, p);
   }
   return mid_inside;
 }
@@ -65,7 +49,7 @@ bool link_inside(const Eigen::Vector2d& a, const Eigen::Vector2d& b, const std::
 // start nearest to `here`.
 std::vector<LoopElement> arranged(const OffsetLoop& loop, bool want_cw, const Eigen::Vector2d& here) {
   std::vector<LoopElement> e = loop.elements;
-  if ((signed_area(loop.polygon_mm) < 0.0) != want_cw) {
+  if ((polygon_signed_area_mm2(loop.polygon_mm) < 0.0) != want_cw) {
     std::reverse(e.begin(), e.end());
     for (LoopElement& x : e) {
       std::swap(x.start_mm, x.end_mm);
@@ -101,7 +85,7 @@ class RingWalker {
         for (std::size_t j = 0; j < loops.size(); ++j) {
           const int lj = loops[j].level;
           const bool candidate = loops[i].level > 0 ? lj == loops[i].level - 1 : lj > parent_level;
-          if (candidate && inside(loops[i].polygon_mm.front(), loops[j].polygon_mm)) {
+          if (candidate && point_in_polygon(loops[i].polygon_mm.front(), loops[j].polygon_mm)) {
             parent = j;
             parent_level = lj;
             if (loops[i].level > 0) break;
@@ -163,10 +147,8 @@ class RingWalker {
 
 Toolpath offset_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
                      const Cutter& cutter) {
+  check_length_mm(spec.stepover_mm, "path.stepover", false);
   const double s = spec.stepover_mm;
-  if (!(s > 0.0) || !std::isfinite(s)) {
-    throw InputError("path.stepover " + format_number(s) + ": must be > 0 mm");
-  }
   Polygon boundary = spec.boundary_mm;
   if (boundary.empty()) {
     const double x0 = patch.origin_x_mm, y0 = patch.origin_y_mm;
@@ -176,7 +158,7 @@ Toolpath offset_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
     for (const Eigen::Vector2d& p : boundary) {
       if (!p.allFinite()) throw InputError("path.boundary: every point must be a finite [x, y] in mm");
     }
-    if (boundary.size() < 3 || std::abs(signed_area(boundary)) == 0.0) {
+    if (boundary.size() < 3 || std::abs(polygon_signed_area_mm2(boundary)) == 0.0) {
       throw InputError("path.boundary: needs at least 3 points [x, y] enclosing an area");
     }
   }

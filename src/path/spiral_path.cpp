@@ -10,6 +10,7 @@
 
 #include "core/input_error.h"
 #include "core/units.h"
+#include "path/check_length.h"
 #include "path/path_builder.h"
 
 namespace cuspmap {
@@ -23,10 +24,8 @@ struct HalfTurn {
 
 Toolpath spiral_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
                      const Cutter& cutter) {
+  check_length_mm(spec.stepover_mm, "path.stepover", false);
   const double s = spec.stepover_mm;
-  if (!(s > 0.0) || !std::isfinite(s)) {
-    throw InputError("path.stepover " + format_number(s) + ": must be > 0 mm");
-  }
   const double angle = spec.angle_deg * std::numbers::pi / 180.0;
   const Eigen::Vector2d u(std::cos(angle), std::sin(angle));
   const Eigen::Vector2d mid(patch.origin_x_mm + 0.5 * patch.size_x_mm,

@@ -10,6 +10,7 @@
 
 #include "core/input_error.h"
 #include "core/units.h"
+#include "path/check_length.h"
 #include "path/path_builder.h"
 
 namespace cuspmap {
@@ -19,20 +20,13 @@ namespace {
 constexpr double kDefaultLoopDiameterPerD = 0.5;
 constexpr double kDefaultAdvancePerD = 0.1;
 
-void require_positive(double value, const char* key, bool zero_ok) {
-  if (!std::isfinite(value) || value < 0.0 || (!zero_ok && value == 0.0)) {
-    throw InputError(std::string(key) + " " + format_number(value) + ": must be > 0 mm" +
-                     (zero_ok ? " (or 0 for the default)" : ""));
-  }
-}
-
 }  // namespace
 
 Toolpath trochoidal_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
                          const Cutter& cutter) {
-  require_positive(spec.stepover_mm, "path.stepover", false);
-  require_positive(spec.loop_diameter_mm, "path.loop_diameter", true);
-  require_positive(spec.advance_mm, "path.advance", true);
+  check_length_mm(spec.stepover_mm, "path.stepover", false);
+  check_length_mm(spec.loop_diameter_mm, "path.loop_diameter", true);
+  check_length_mm(spec.advance_mm, "path.advance", true);
   const double d = cutter.diameter_mm, r_tool = cutter.radius_mm();
   const double rho = 0.5 * (spec.loop_diameter_mm > 0.0 ? spec.loop_diameter_mm
                                                          : kDefaultLoopDiameterPerD * d);

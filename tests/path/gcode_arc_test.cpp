@@ -25,12 +25,8 @@ Move one_arc(const std::string& text) {
 }
 
 std::string error_of(const std::string& text) {
-  try {
-    read_gcode_text(text, "part.nc", CutSpec{}, test::test_patch(), test::test_ball());
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "(no error)";
+  return test::input_error_of(
+      [&] { read_gcode_text(text, "part.nc", CutSpec{}, test::test_patch(), test::test_ball()); });
 }
 
 void require_centre(const Move& m, double x, double y) {

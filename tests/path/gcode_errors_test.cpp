@@ -15,21 +15,13 @@ namespace cuspmap {
 namespace {
 
 std::string text_error(const std::string& text) {
-  try {
-    read_gcode_text(text, "part.nc", CutSpec{}, test::test_patch(), test::test_ball());
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "(no error)";
+  return test::input_error_of(
+      [&] { read_gcode_text(text, "part.nc", CutSpec{}, test::test_patch(), test::test_ball()); });
 }
 
 std::string file_error(const std::string& path) {
-  try {
-    read_gcode_file(path, CutSpec{}, test::test_patch(), test::test_ball());
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "(no error)";
+  return test::input_error_of(
+      [&] { read_gcode_file(path, CutSpec{}, test::test_patch(), test::test_ball()); });
 }
 
 }  // namespace

@@ -17,12 +17,7 @@ BuiltPath read(const std::string& text, CutSpec cut = CutSpec{}) {
 }
 
 std::string error_of(const std::string& text) {
-  try {
-    read(text);
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "(no error)";
+  return test::input_error_of([&] { read(text); });
 }
 
 void require_point(const Eigen::Vector3d& p, double x, double y, double z) {

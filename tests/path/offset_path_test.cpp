@@ -8,6 +8,7 @@
 
 #include "core/input_error.h"
 #include "path/offset_rings.h"
+#include "path/point_in_polygon.h"
 #include "path/path_test_geometry.h"
 #include "test_support.h"
 
@@ -15,18 +16,6 @@ namespace cuspmap {
 namespace {
 
 using Polygon = std::vector<Eigen::Vector2d>;
-
-// Crossing-number point-in-polygon test (W. R. Franklin's PNPOLY).
-bool inside(const Eigen::Vector2d& q, const Polygon& p) {
-  bool in = false;
-  for (std::size_t i = 0, j = p.size() - 1; i < p.size(); j = i++) {
-    if ((p[i].y() > q.y()) != (p[j].y() > q.y()) &&
-        q.x() < (p[j].x() - p[i].x()) * (q.y() - p[i].y()) / (p[j].y() - p[i].y()) + p[i].x()) {
-      in = !in;
-    }
-  }
-  return in;
-}
 
 double distance_to_boundary(const Eigen::Vector2d& q, const Polygon& p) {
   double best = 1e300;
@@ -39,15 +28,12 @@ double distance_to_boundary(const Eigen::Vector2d& q, const Polygon& p) {
 // A round cutter cannot reach into a convex corner of interior angle t: the points it misses
 // lie within R / tan(t/2) of the vertex (the tangent points of the corner's fillet circle).
 bool in_corner_zone(const Eigen::Vector2d& q, const Polygon& p, double r) {
-  double twice_area = 0.0;
-  for (std::size_t i = 0; i < p.size(); ++i) {
-    twice_area += p[i].x() * p[(i + 1) % p.size()].y() - p[(i + 1) % p.size()].x() * p[i].y();
-  }
+  const double area = polygon_signed_area_mm2(p);
   for (std::size_t i = 0; i < p.size(); ++i) {
     const Eigen::Vector2d a = p[(i + p.size() - 1) % p.size()], v = p[i], b = p[(i + 1) % p.size()];
     const Eigen::Vector2d e0 = v - a, e1 = b - v;
     const double turn = e0.x() * e1.y() - e0.y() * e1.x();
-    if (turn * twice_area <= 0.0) continue;  // reflex (or straight): no corner zone
+    if (turn * area <= 0.0) continue;  // reflex (or straight): no corner zone
     const double interior = std::acos(std::clamp((a - v).normalized().dot((b - v).normalized()), -1.0, 1.0));
     if ((q - v).norm() < r / std::tan(0.5 * interior) + 1e-9) return true;
   }
@@ -68,7 +54,7 @@ void require_coverage(const Toolpath& path, const Polygon& boundary, double r, d
   for (double y = lo_y + 0.013; y < hi_y; y += 0.07) {
     for (double x = lo_x + 0.011; x < hi_x; x += 0.07) {
       const Eigen::Vector2d q(x, y);
-      if (!inside(q, boundary)) continue;
+      if (!point_in_polygon(q, boundary)) continue;
       const double d = test::distance_to_cuts(q, path, 0.0);
       if (!in_corner_zone(q, boundary, r)) worst_cut = std::max(worst_cut, d);
       if (distance_to_boundary(q, boundary) >= r) {
@@ -130,7 +116,7 @@ TEST_CASE("offset_rings: each ring lies inside a ring of the level before (neste
       for (const OffsetLoop& outer : rings.loops) {
         if (outer.level != loop.level - 1) continue;
         bool all = true;
-        for (const Eigen::Vector2d& v : loop.polygon_mm) all = all && inside(v, outer.polygon_mm);
+        for (const Eigen::Vector2d& v : loop.polygon_mm) all = all && point_in_polygon(v, outer.polygon_mm);
         nested = nested || all;
       }
       CAPTURE(loop.level);

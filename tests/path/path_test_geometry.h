@@ -1,5 +1,6 @@
 // Test helpers for toolpath geometry: XY distance from a point to the cutting moves of a path
-// (lines and arcs), tangent directions at move ends, and a default job (patch, cutter, cut).
+// (lines and arcs), tangent directions at move ends, a default patch and cutter, and the
+// message of an expected InputError.
 // Method: point-to-segment and point-to-arc distance (plane geometry).
 #pragma once
 
@@ -8,8 +9,10 @@
 #include <cmath>
 #include <limits>
 #include <numbers>
+#include <string>
 
 #include "core/heightfield.h"
+#include "core/input_error.h"
 #include "path/move.h"
 #include "path/path_spec.h"
 #include "tool/cutter.h"
@@ -62,6 +65,17 @@ inline Eigen::Vector2d tangent_xy(const Move& m, bool at_end) {
   const Eigen::Vector2d p = (at_end ? m.end_mm : m.start_mm).head<2>() - m.centre_mm;
   const Eigen::Vector2d t = m.ccw ? Eigen::Vector2d(-p.y(), p.x()) : Eigen::Vector2d(p.y(), -p.x());
   return t.normalized();
+}
+
+/// The message of the InputError that f() throws, or "(no error)".
+template <class F>
+std::string input_error_of(F f) {
+  try {
+    f();
+  } catch (const InputError& e) {
+    return e.what();
+  }
+  return "(no error)";
 }
 
 /// A 10 x 10 mm patch at the origin, floor at Z 0, 0.05 mm cells.

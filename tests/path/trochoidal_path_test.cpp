@@ -34,12 +34,8 @@ std::vector<Move> loops_of(const Toolpath& path) {
 }
 
 std::string error_of(const PathSpec& spec) {
-  try {
-    trochoidal_path(spec, CutSpec{}, test::test_patch(), test::test_ball());
-  } catch (const InputError& e) {
-    return e.what();
-  }
-  return "(no error)";
+  return test::input_error_of(
+      [&] { trochoidal_path(spec, CutSpec{}, test::test_patch(), test::test_ball()); });
 }
 
 }  // namespace
