@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <optional>
 
 #include "sweep/envelope_arc.h"
 #include "sweep/envelope_line.h"
@@ -28,8 +29,9 @@ float tile_max(const float* grid, int nx, const TileRect& t) {
   return top;
 }
 
-void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, double y, int i_lo,
-               int i_hi, float* row) {
+// One row run of one move. `line_teeth` is set for straight moves in tooth mode.
+void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, LineTeeth* line_teeth,
+               double y, int i_lo, int i_hi, float* row) {
   if (mode == SweepMode::Envelope && m.kind == MoveKind::Line) {
     envelope_line_row(s, m, y, i_lo, i_hi, row);
     return;
@@ -41,9 +43,9 @@ void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, doubl
       h = envelope_arc_mm(s, m, p) + s.axial_min_mm;
     } else {
       const double bound = row[i] / kUmPerMm;  // +inf stays +inf
-      if (m.kind == MoveKind::Line && !m.vertical()) {
+      if (line_teeth) {
         const Eigen::Vector2d rel = p - m.a_mm;
-        h = teeth_line_mm(s, m, rel.dot(m.dir), rel.dot(m.perp), bound);
+        h = line_teeth->height_mm(rel.dot(m.dir), rel.dot(m.perp), bound);
       } else {
         h = teeth_generic_mm(s, m, p, bound);
       }
@@ -98,13 +100,18 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
       if (r.bound_um >= top_um) break;  // sorted: no later move can lower any cell either
     }
     const PreparedMove& m = moves[r.move];
+    std::optional<LineTeeth> line_teeth;
+    if (mode == SweepMode::Teeth && m.kind == MoveKind::Line && !m.vertical()) {
+      line_teeth.emplace(setup, m);
+    }
     for (int j = tile.j0; j < tile.j1; ++j) {
       int i_lo = 0, i_hi = -1;
       const double y = (j + 0.5) * cell;
       if (!row_span(m, y, setup.envelope.reach_mm, cell, tile.i0, tile.i1 - 1, i_lo, i_hi)) {
         continue;
       }
-      sweep_row(setup, m, mode, y, i_lo, i_hi, grid + static_cast<std::int64_t>(j) * nx);
+      sweep_row(setup, m, mode, line_teeth ? &*line_teeth : nullptr, y, i_lo, i_hi,
+                grid + static_cast<std::int64_t>(j) * nx);
       visits += i_hi - i_lo + 1;
     }
   }

@@ -117,6 +117,37 @@ ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_
   if (!(xa <= xb)) return out;
   const Chord c{q, w_mm, w2, k};
 
+  if (q.pieces.size() == 1) {
+    // Single-piece profiles (flat or dished flat end, ball, all without runout): no breakpoints.
+    const ProfilePiece& p = q.pieces[0];
+    if (p.kind == PieceKind::Line && p.b < 0.0) {
+      // One concave cone: lowest at an end; an end is a local minimum when f rises from it
+      // into the chord (f' = b x / r - k decreases along the chord).
+      auto slope = [&](double x) {
+        const double r = std::sqrt(w2 + x * x);
+        return (r > 0.0 ? p.b * x / r : 0.0) - k;
+      };
+      const double fa = c.f(xa), fb = c.f(xb);
+      out.value_mm = std::min(fa, fb);
+      out.x_mm = fa <= fb ? xa : xb;
+      if (!local_minima_only || slope(xa) >= 0.0) out.candidates[out.count++] = {xa, fa};
+      if (xb > xa && (!local_minima_only || slope(xb) <= 0.0)) {
+        out.candidates[out.count++] = {xb, fb};
+      }
+      if (out.count == 0) out.candidates[out.count++] = {out.x_mm, out.value_mm};
+      return out;
+    }
+    if (p.kind == PieceKind::Line || p.a == 0.0) {
+      // One convex piece (flat end, or a ball): one minimum.
+      const double x = p.kind == PieceKind::Line ? convex_line_argmin(p.b, w_mm, k, xa, xb)
+                                                 : convex_circle_argmin(p, w_mm, k, xa, xb);
+      out.x_mm = x;
+      out.value_mm = c.f(x);
+      out.candidates[out.count++] = {x, out.value_mm};
+      return out;
+    }
+  }
+
   // Chord breakpoints: x = 0 (r turns), piece ends and circle centres, mapped to +-x.
   std::array<double, 2 * kMaxChordCandidates + 4> cuts{};
   int n = 0;
