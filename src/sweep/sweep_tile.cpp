@@ -20,11 +20,14 @@ namespace {
 constexpr float kUnset = std::numeric_limits<float>::infinity();
 constexpr double kUmPerMm = 1000.0;
 
+// Highest cell of the tile (+inf while any is unreached). Eigen's maxCoeff runs in SIMD lanes;
+// the grid holds no NaN during the sweep, so lane order cannot change the result.
 float tile_max(const float* grid, int nx, const TileRect& t) {
   float top = -kUnset;
   for (int j = t.j0; j < t.j1; ++j) {
-    const float* row = grid + static_cast<std::int64_t>(j) * nx;
-    for (int i = t.i0; i < t.i1; ++i) top = std::max(top, row[i]);
+    const Eigen::Map<const Eigen::ArrayXf> row(grid + static_cast<std::int64_t>(j) * nx + t.i0,
+                                               t.i1 - t.i0);
+    top = std::max(top, row.maxCoeff());
   }
   return top;
 }
@@ -116,10 +119,14 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
     }
   }
 
-  for (int j = tile.j0; j < tile.j1; ++j) {
-    float* row = grid + static_cast<std::int64_t>(j) * nx;
-    for (int i = tile.i0; i < tile.i1; ++i) {
-      if (row[i] == kUnset) row[i] = kUnreached;
+  // Cells still at +inf were never reached: NaN, as Heightfield wants. Once the tile's highest
+  // cell was finite, every cell is, and there is nothing to do.
+  if (!std::isfinite(top_um)) {
+    for (int j = tile.j0; j < tile.j1; ++j) {
+      float* row = grid + static_cast<std::int64_t>(j) * nx;
+      for (int i = tile.i0; i < tile.i1; ++i) {
+        if (row[i] == kUnset) row[i] = kUnreached;
+      }
     }
   }
   return visits;

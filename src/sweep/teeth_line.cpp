@@ -44,8 +44,8 @@ struct Settled {
 struct Family {
   double target = 0.0;  // F(x) = target (mod period) at a crossing, rad
   double period = kTwoPi;
-  double e_sin = 0.0;   // runout across the tooth (mm): bearing offset asin(e_sin / d)
-  double e_cos = 0.0;   // runout along the tooth (mm): the edge radius is d cos(offset) - e_cos
+  double e_sin = 0.0;  // runout across the tooth (mm): bearing offset asin(e_sin / d)
+  double e_cos = 0.0;  // runout along the tooth (mm): the edge radius is d cos(offset) - e_cos
   double axial_mm = 0.0;
 };
 
@@ -74,8 +74,10 @@ struct Crossings {
     const double z2 = z * z;
     // atan z = z - z^3/3 + z^5/5 - ... ; |z| <= 0.1 leaves < 1e-15 after the z^13 term.
     return angle_ref +
-           z * (1.0 + z2 * (-1.0 / 3 + z2 * (1.0 / 5 + z2 * (-1.0 / 7 + z2 * (1.0 / 9 +
-                z2 * (-1.0 / 11 + z2 * (1.0 / 13)))))));
+           z * (1.0 +
+                z2 * (-1.0 / 3 +
+                      z2 * (1.0 / 5 + z2 * (-1.0 / 7 +
+                                            z2 * (1.0 / 9 + z2 * (-1.0 / 11 + z2 * (1.0 / 13)))))));
   }
   double bearing_slope(const Family& f, double x) const {
     const double d2 = w2 + x * x;
@@ -204,7 +206,7 @@ LineTeeth::LineTeeth(const SweepSetup& setup, const PreparedMove& move)
   slope_ = rise_ + setup.tilt.dot(move.dir);
   tilt_across_ = setup.tilt.dot(move.perp);
   const double speed = length / move.duration_s;  // XY mm/s
-  kappa_ = setup.omega_rad_per_s / speed;          // tooth angle per mm of travel
+  kappa_ = setup.omega_rad_per_s / speed;         // tooth angle per mm of travel
   phase0_ = move.spindle_phase_rad - std::atan2(move.dir.y(), move.dir.x());
 }
 

@@ -44,8 +44,8 @@ class LineTeeth {
   double phase0_ = 0.0;       // tooth 0's angle at the start less the move's direction, rad
   bool cached_ = false;       // minima_ and angles_ hold the chord below
   double cache_w_ = 0.0, cache_lo_ = 0.0, cache_hi_ = 0.0;
-  ChordMin minima_;                                      // local minima of the envelope
-  std::array<double, kMaxChordCandidates> angles_{};     // atan2(w, x) at each minimum
+  ChordMin minima_;                                   // local minima of the envelope
+  std::array<double, kMaxChordCandidates> angles_{};  // atan2(w, x) at each minimum
 };
 
 }  // namespace cuspmap

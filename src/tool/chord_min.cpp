@@ -8,6 +8,8 @@
 #include <cmath>
 #include <limits>
 
+#include "tool/golden_section_min.h"
+
 namespace cuspmap {
 namespace {
 
@@ -80,21 +82,6 @@ double convex_circle_argmin(const ProfilePiece& p, double w, double k, double xa
   return x;
 }
 
-double golden_argmin(const Chord& c, double xa, double xb) {
-  constexpr double kInvPhi = 0.6180339887498949;
-  double a = xa, b = xb;
-  double x1 = b - kInvPhi * (b - a), x2 = a + kInvPhi * (b - a);
-  double f1 = c.f(x1), f2 = c.f(x2);
-  for (int it = 0; it < kGoldenIter; ++it) {
-    if (f1 <= f2) {
-      b = x2; x2 = x1; f2 = f1; x1 = b - kInvPhi * (b - a); f1 = c.f(x1);
-    } else {
-      a = x1; x1 = x2; f1 = f2; x2 = a + kInvPhi * (b - a); f2 = c.f(x2);
-    }
-  }
-  return f1 <= f2 ? x1 : x2;
-}
-
 void add_candidate(ChordMin& out, const Chord& c, double x) {
   for (int i = 0; i < out.count; ++i) {
     if (std::abs(out.candidates[i].x_mm - x) < kNewtonTolMm) return;
@@ -105,8 +92,8 @@ void add_candidate(ChordMin& out, const Chord& c, double x) {
 
 }  // namespace
 
-ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_mm,
-                   double x_hi_mm, bool local_minima_only) {
+ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_mm, double x_hi_mm,
+                   bool local_minima_only) {
   ChordMin out;
   out.value_mm = kInf;
   const double w2 = w_mm * w_mm;
@@ -181,7 +168,9 @@ ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_
     } else {
       add_candidate(out, c, a);
       add_candidate(out, c, b);
-      add_candidate(out, c, golden_argmin(c, a, b));
+      double lowest = 0.0;
+      add_candidate(out, c, golden_section_min([&c](double x) { return c.f(x); }, a, b,
+                                               kGoldenIter, lowest));
     }
   }
 

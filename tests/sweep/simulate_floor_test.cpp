@@ -1,6 +1,8 @@
 // Tests of simulate_floor on raster floors: handbook cusp heights, no feed-direction
 // pseudo-cusps, rotation invariance, the dished flat's flat floor and the marks tram error leaves
 // (derived geometry), thread-count determinism, skipping, memory limit.
+#include "sweep/simulate_floor.h"
+
 #include <algorithm>
 #include <cmath>
 #include <cstring>
@@ -10,7 +12,6 @@
 #include "core/input_error.h"
 #include "path/raster.h"
 #include "sweep/brute_force_stamp.h"
-#include "sweep/simulate_floor.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -80,8 +81,8 @@ TEST_CASE("simulate_floor: ball raster cusp equals the handbook scallop height",
   for (double step : {0.3, 0.5, 1.0}) {
     for (double cell : {0.01, 0.005}) {
       CAPTURE(step, cell);
-      const Heightfield hf = raster_floor(ball, step, 0.0, RasterDirection::OneWay,
-                                          square_patch(2.0, cell));
+      const Heightfield hf =
+          raster_floor(ball, step, 0.0, RasterDirection::OneWay, square_patch(2.0, cell));
       // Machinery's Handbook (scallop height of a ball end mill): h = R - sqrt(R^2 - (s/2)^2).
       const double h_um = (r - std::sqrt(r * r - 0.25 * step * step)) * 1000.0;
       // Grid quantum: the height change across one cell at the cusp, where the profile's slope
@@ -103,8 +104,8 @@ TEST_CASE("simulate_floor: bull-nose raster cusp equals the corner-radius scallo
   for (double step : {2.3, 2.6, 2.9}) {
     for (double cell : {0.02, 0.01}) {
       CAPTURE(step, cell);
-      const Heightfield hf = raster_floor(bull, step, 0.0, RasterDirection::Zigzag,
-                                          square_patch(6.0, cell));
+      const Heightfield hf =
+          raster_floor(bull, step, 0.0, RasterDirection::Zigzag, square_patch(6.0, cell));
       // Bull-nose scallop (DESIGN.md closed forms; torus corner of radius rc beyond the flat of
       // radius R - rc): h = rc - sqrt(rc^2 - (s/2 - (R - rc))^2) for s > 2 (R - rc).
       const double u = 0.5 * step - (r - rc);
@@ -115,8 +116,8 @@ TEST_CASE("simulate_floor: bull-nose raster cusp equals the corner-radius scallo
     }
   }
   // Below the flat width 2 (R - rc) the flat bottoms overlap: no cusp at all (same source).
-  const Heightfield flat_floor = raster_floor(bull, 1.9, 0.0, RasterDirection::OneWay,
-                                              square_patch(4.0, 0.02));
+  const Heightfield flat_floor =
+      raster_floor(bull, 1.9, 0.0, RasterDirection::OneWay, square_patch(4.0, 0.02));
   REQUIRE(interior_stats(flat_floor, 0.0).range() <= 1e-4);
 }
 
@@ -124,14 +125,14 @@ TEST_CASE("simulate_floor: no feed-direction pseudo-cusps along a pass", "[sweep
   // The envelope is exact along the feed: at angle 0 every row is one height (float precision).
   Cutter ball;
   ball.diameter_mm = 6.0;
-  const Heightfield hf = raster_floor(ball, 0.4, 0.0, RasterDirection::Zigzag,
-                                      square_patch(3.0, 0.01));
+  const Heightfield hf =
+      raster_floor(ball, 0.4, 0.0, RasterDirection::Zigzag, square_patch(3.0, 0.01));
   for (int j = 0; j < hf.ny; ++j) {
     const auto row = hf.z_um.row(j);
     CAPTURE(j);
     const float top = row.maxCoeff();
-    REQUIRE(row.maxCoeff() - row.minCoeff() <= 4.0f * std::numeric_limits<float>::epsilon() *
-                                                    std::max(1.0f, top));
+    REQUIRE(row.maxCoeff() - row.minCoeff() <=
+            4.0f * std::numeric_limits<float>::epsilon() * std::max(1.0f, top));
   }
   // The brute-force stamp of the same path does show pseudo-cusps along the feed at its sampling
   // step (ball sagitta of the step, derived): this is what the exact envelope avoids.
@@ -155,8 +156,10 @@ TEST_CASE("simulate_floor: raster statistics do not change when the angle turns 
   const Patch patch = square_patch(3.0, 0.01);
   // At 0 and 90 deg the pattern maps onto the grid exactly (square patch turned about its
   // centre): equal up to float rounding of the fast path.
-  const Stats a = interior_stats(raster_floor(ball, 0.35, 0.0, RasterDirection::OneWay, patch), 0.1);
-  const Stats b = interior_stats(raster_floor(ball, 0.35, 90.0, RasterDirection::OneWay, patch), 0.1);
+  const Stats a =
+      interior_stats(raster_floor(ball, 0.35, 0.0, RasterDirection::OneWay, patch), 0.1);
+  const Stats b =
+      interior_stats(raster_floor(ball, 0.35, 90.0, RasterDirection::OneWay, patch), 0.1);
   REQUIRE_NEAR(a.mean, b.mean, 1e-3);
   REQUIRE_NEAR(a.stddev, b.stddev, 1e-3);
   REQUIRE_NEAR(a.range(), b.range(), 1e-3);
@@ -181,8 +184,8 @@ TEST_CASE("simulate_floor: a dished flat end mill leaves a flat floor in envelop
   flat.shape = CutterShape::Flat;
   flat.diameter_mm = 6.0;
   flat.dish_deg = 1.0;
-  const Heightfield hf = raster_floor(flat, 2.0, 0.0, RasterDirection::OneWay,
-                                      square_patch(6.0, 0.01));
+  const Heightfield hf =
+      raster_floor(flat, 2.0, 0.0, RasterDirection::OneWay, square_patch(6.0, 0.01));
   REQUIRE(interior_stats(hf, 0.0).range() < 0.05);
 }
 
@@ -201,8 +204,8 @@ TEST_CASE("simulate_floor: tram error along the feed leaves tan(tau) times the b
     for (double step : {1.0, 2.0}) {
       CAPTURE(tau, step);
       flat.tilt_deg = tau;
-      const Heightfield hf = raster_floor(flat, step, 0.0, RasterDirection::Zigzag,
-                                          square_patch(6.0, 0.01));
+      const Heightfield hf =
+          raster_floor(flat, step, 0.0, RasterDirection::Zigzag, square_patch(6.0, 0.01));
       const double t = std::abs(std::tan(tau * kDeg));
       const double h_um = t * (r - std::sqrt(r * r - 0.25 * step * step)) * 1000.0;
       // Quantum: slope of -tan(tau) sqrt(R^2 - w^2) at w = s/2, times one cell.
@@ -263,7 +266,8 @@ TEST_CASE("simulate_floor: heights do not depend on the thread count", "[sweep]"
   for (bool teeth : {false, true}) {
     CAPTURE(teeth);
     const Heightfield one = raster_floor(flat, 0.6, 30.0, RasterDirection::Zigzag, patch, teeth, 1);
-    const Heightfield three = raster_floor(flat, 0.6, 30.0, RasterDirection::Zigzag, patch, teeth, 3);
+    const Heightfield three =
+        raster_floor(flat, 0.6, 30.0, RasterDirection::Zigzag, patch, teeth, 3);
     REQUIRE(std::memcmp(one.z_um.data(), three.z_um.data(), sizeof(float) * one.cells()) == 0);
   }
 }

@@ -126,10 +126,10 @@ TEST_CASE("simulate_floor: ramps, tilt and arcs equal the per-cell minimum along
   cases.push_back({"tilted ball ramp", tilted_ball, line(-0.5, 0.6, 1.3, 3.5, 1.5, 1.0)});
   cases.push_back({"ball level arc", ball, arc(2.5, 1.25, 0.5, 1.25, 1.5, 1.25, true, 1.0, 1.0)});
   cases.push_back({"bull-nose helix", bull, arc(2.3, 0.5, 0.7, 2.0, 1.5, 1.25, false, 1.1, 0.95)});
-  cases.push_back({"tilted flat arc", tilted_flat,
-                   arc(0.5, 0.2, 2.6, 0.9, 1.4, 1.9, true, 1.0, 1.0)});
-  cases.push_back({"dished flat full circle", flat,
-                   arc(2.1, 1.25, 2.1, 1.25, 1.5, 1.25, true, 1.0, 1.0)});
+  cases.push_back(
+      {"tilted flat arc", tilted_flat, arc(0.5, 0.2, 2.6, 0.9, 1.4, 1.9, true, 1.0, 1.0)});
+  cases.push_back(
+      {"dished flat full circle", flat, arc(2.1, 1.25, 2.1, 1.25, 1.5, 1.25, true, 1.0, 1.0)});
   cases.push_back({"ball plunge", ball, line(1.5, 1.2, 1.5, 1.5, 1.2, 0.98)});
   for (const Case& c : cases) {
     CAPTURE(c.name);
@@ -228,8 +228,8 @@ TEST_CASE("simulate_floor: envelope agrees with brute-force stamping within its 
     // The lowest point is on the rim, where the height along the path changes by at most
     // tan(dish) + tan(tilt) per mm: the nearest sample inside the cutter is within ds, so the
     // miss is <= (tan(dish) + tan(tilt)) ds, for chords longer than 2 ds (|w| < sqrt(R^2 - ds^2)).
-    const double slope = std::tan(1.0 * std::numbers::pi / 180.0) +
-                         std::tan(0.5 * std::numbers::pi / 180.0);
+    const double slope =
+        std::tan(1.0 * std::numbers::pi / 180.0) + std::tan(0.5 * std::numbers::pi / 180.0);
     compare(flat, path, [&](double, double y) {
       const double w = std::abs(y - 1.0);
       if (w * w > r * r - kDsMm * kDsMm) return -1.0;

@@ -1,44 +1,20 @@
-// Tests of chord_min against a dense scan with golden-section refinement (independent of the
-// piece-by-piece method), and of its local-minimum candidates.
+// Tests of chord_min against a dense scan with golden-section refinement (test oracle
+// tests/tool/dense_scan_min.h, independent of the piece-by-piece method), and of its
+// local-minimum candidates.
+#include "tool/chord_min.h"
+
 #include <algorithm>
 #include <cmath>
 #include <random>
 
 #include "test_support.h"
-#include "tool/chord_min.h"
+#include "tool/dense_scan_min.h"
 
 namespace cuspmap {
 namespace {
 
 double f(const RevolvedProfile& q, double w, double k, double x) {
   return q.height_mm(std::sqrt(w * w + x * x)) - k * x;
-}
-
-// Global minimum of f on [a, b] by a 20001-point scan and golden refinement of the best sample.
-double scanned_min(const RevolvedProfile& q, double w, double k, double a, double b) {
-  constexpr int kSamples = 20000;
-  int best = 0;
-  double best_v = std::numeric_limits<double>::infinity();
-  for (int i = 0; i <= kSamples; ++i) {
-    const double v = f(q, w, k, a + (b - a) * i / kSamples);
-    if (v < best_v) {
-      best_v = v;
-      best = i;
-    }
-  }
-  double lo = a + (b - a) * std::max(0, best - 1) / kSamples;
-  double hi = a + (b - a) * std::min(kSamples, best + 1) / kSamples;
-  for (int it = 0; it < 100; ++it) {
-    const double x1 = hi - 0.618034 * (hi - lo), x2 = lo + 0.618034 * (hi - lo);
-    const double v1 = f(q, w, k, x1), v2 = f(q, w, k, x2);
-    best_v = std::min({best_v, v1, v2});
-    if (v1 <= v2) {
-      hi = x2;
-    } else {
-      lo = x1;
-    }
-  }
-  return best_v;
 }
 
 }  // namespace
@@ -84,7 +60,8 @@ TEST_CASE("chord_min: equals a dense scan for every profile kind, ramps and tilt
         REQUIRE(std::isinf(m.value_mm));
         continue;
       }
-      const double ref = scanned_min(q, w, k, lo, hi);
+      const double ref =
+          test::dense_scan_min([&](double x) { return f(q, w, k, x); }, lo, hi, 20000);
       REQUIRE_NEAR(m.value_mm, ref, kTolMm);
       REQUIRE_NEAR(f(q, w, k, m.x_mm), m.value_mm, 1e-12);
       // Local minima: each candidate is no higher than its neighbours (up to 1e-9 mm: the

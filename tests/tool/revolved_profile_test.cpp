@@ -1,12 +1,14 @@
 // Tests of revolved_profile: without runout it is p(r) itself (DESIGN.md "Geometry"); with
 // runout it is the envelope of the turning offset body, checked against its definition.
+#include "tool/revolved_profile.h"
+
 #include <algorithm>
 #include <cmath>
 #include <numbers>
 #include <vector>
 
 #include "test_support.h"
-#include "tool/revolved_profile.h"
+#include "tool/dense_scan_min.h"
 
 namespace cuspmap {
 namespace {
@@ -37,31 +39,12 @@ std::vector<Cutter> sample_cutters() {
 // body radii |r u - e v| for all directions v: min of p over angles, sampled and then refined by
 // golden section around the best sample (p is unimodal in the angle there).
 double turning_body_min(const Cutter& c, double e, double r) {
-  auto at = [&](double phi) {
-    return profile_height_mm(c, std::hypot(r - e * std::cos(phi), e * std::sin(phi)));
-  };
-  constexpr int kAngles = 2000;
-  const double step = std::numbers::pi / kAngles;  // half a turn suffices (symmetry)
-  int best_i = 0;
-  double best = std::numeric_limits<double>::infinity();
-  for (int a = 0; a <= kAngles; ++a) {
-    if (at(a * step) < best) {
-      best = at(a * step);
-      best_i = a;
-    }
-  }
-  double lo = std::max(0, best_i - 1) * step, hi = std::min(kAngles, best_i + 1) * step;
-  for (int it = 0; it < 100; ++it) {
-    const double x1 = hi - 0.618034 * (hi - lo), x2 = lo + 0.618034 * (hi - lo);
-    const double v1 = at(x1), v2 = at(x2);
-    best = std::min({best, v1, v2});
-    if (v1 <= v2) {
-      hi = x2;
-    } else {
-      lo = x1;
-    }
-  }
-  return best;
+  // Half a turn suffices (the body radius is symmetric in the angle).
+  return test::dense_scan_min(
+      [&](double phi) {
+        return profile_height_mm(c, std::hypot(r - e * std::cos(phi), e * std::sin(phi)));
+      },
+      0.0, std::numbers::pi, 2000);
 }
 
 }  // namespace
@@ -86,8 +69,7 @@ TEST_CASE("revolved_profile: without runout it is the cutter profile p(r)", "[to
   }
 }
 
-TEST_CASE("revolved_profile: with runout it is the envelope of the turning offset body",
-          "[tool]") {
+TEST_CASE("revolved_profile: with runout it is the envelope of the turning offset body", "[tool]") {
   // Tolerance: the refined angle search converges far below 1e-9 mm; rounding of mm values.
   constexpr double kTolMm = 1e-9;
   for (const Cutter& c : sample_cutters()) {
