@@ -17,6 +17,10 @@ constexpr double kInf = std::numeric_limits<double>::infinity();
 constexpr float kUmPerMm = 1000.0f;
 // Cells per SIMD block of the ball kernel: a few cache lines, a multiple of any vector width.
 constexpr int kBallBlock = 64;
+// Smallest radicand of the ball kernel (mm^2): Eigen's SSE sqrt goes through 1/sqrt, which a
+// zero turns into 0 x inf (an invalid operation that debug builds trap); sqrt(1e-20) = 1e-10 mm
+// changes no height.
+constexpr float kSqrtFloorMm2 = 1e-20f;
 
 // Slope k of the linear term along the move (tip rise per mm plus the tilt drop along dir) and
 // the tilt's cross-move part, see envelope_line_mm.
@@ -49,7 +53,7 @@ void ball_row(float r, float c_um, float u0, float du, float w0, float dw, float
     const Block w = w0 + index * dw;
     const Block t = (-u).max(u - length).max(0.0f);
     const Block d2 = w.square() + t.square();
-    const Block h = c_um + kUmPerMm * (r - (r2 - d2).max(0.0f).sqrt());
+    const Block h = c_um + kUmPerMm * (r - (r2 - d2).max(kSqrtFloorMm2).sqrt());
     Eigen::Map<Eigen::ArrayXf> cells(out + first, n);
     cells = cells.min(h.head(n));
   }
