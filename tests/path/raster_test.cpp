@@ -1,5 +1,6 @@
 // Tests of raster_path against DESIGN.md's raster contract: pass count and positions, lead-in
 // and lead-out, one-way links (rapids) and zigzag links (feed, outside the patch), any angle.
+// Method: DESIGN.md raster contract; coverage checked point by point on a 0.1 mm lattice.
 #include "path/raster.h"
 
 #include <algorithm>

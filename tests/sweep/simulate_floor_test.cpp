@@ -1,6 +1,7 @@
 // Tests of simulate_floor on raster floors: handbook cusp heights, no feed-direction
 // pseudo-cusps, rotation invariance, the dished flat's flat floor and the marks tram error leaves
 // (derived geometry), thread-count determinism, skipping, memory limit.
+// Method: handbook scallop formulas (Machinery's Handbook), derived tilt geometry (in each test).
 #include "sweep/simulate_floor.h"
 
 #include <algorithm>
@@ -174,6 +175,30 @@ TEST_CASE("simulate_floor: raster statistics do not change when the angle turns 
   REQUIRE_NEAR(c.stddev, d.stddev, 0.01 * h_um);
   REQUIRE_NEAR(c.range(), d.range(), quantum_um);
   REQUIRE_NEAR(c.range(), h_um, quantum_um);
+}
+
+TEST_CASE("simulate_floor: a tilted ball leaves the untilted cusp (contact shift only)",
+          "[sweep]") {
+  // DESIGN.md "Geometry": ball cutters are tilt-invariant apart from the contact shift. In the
+  // first-order model R - sqrt(R^2 - v^2) - tan(tau) v.n has its lowest point R tan(tau) along n,
+  // R (1 - sqrt(1 + tan^2 tau)) ~ R tau^2 / 2 low (derived): the cusp is unchanged to O(tau^2).
+  Cutter ball;
+  ball.diameter_mm = 6.0;
+  const Patch patch = square_patch(2.0, 0.01);
+  const double step = 0.5, r = 3.0;
+  const Stats plain =
+      interior_stats(raster_floor(ball, step, 0.0, RasterDirection::OneWay, patch), 0.0);
+  const double quantum_um = 0.5 * step / std::sqrt(r * r - 0.25 * step * step) * 0.01 * 1000.0;
+  for (double toward : {0.0, 90.0, 45.0}) {
+    CAPTURE(toward);
+    ball.tilt_deg = 1.0;
+    ball.tilt_toward_deg = toward;
+    const Stats tilted =
+        interior_stats(raster_floor(ball, step, 0.0, RasterDirection::OneWay, patch), 0.0);
+    const double t = std::tan(1.0 * kDeg);
+    REQUIRE_NEAR(tilted.range(), plain.range(), std::max(0.01 * plain.range(), quantum_um));
+    REQUIRE_NEAR(tilted.lo, plain.lo + r * (1.0 - std::sqrt(1.0 + t * t)) * 1000.0, quantum_um);
+  }
 }
 
 TEST_CASE("simulate_floor: a dished flat end mill leaves a flat floor in envelope mode",

@@ -1,5 +1,6 @@
 // Tests of the envelope sweep against independent oracles: brute-force stamping (sampling
 // sagitta as tolerance, derived below) and a dense per-cell minimisation along each move.
+// Method: Z-map stamping oracle (Choi & Jerard 1998) and golden-section minimisation (Kiefer 1953).
 #include <algorithm>
 #include <cmath>
 #include <numbers>

@@ -1,5 +1,6 @@
 // Tests of the tooth-resolved sweep: against a time-stepping oracle at sample cells, the ball's
 // feed mark (handbook), and the rim marks a tram error leaves (derived geometry).
+// Method: tooth-trajectory time stepping (Altintas, Manufacturing Automation, ch. 2) as oracle.
 #include <algorithm>
 #include <cmath>
 #include <complex>

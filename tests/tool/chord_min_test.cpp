@@ -1,6 +1,7 @@
 // Tests of chord_min against a dense scan with golden-section refinement (test oracle
 // tests/tool/dense_scan_min.h, independent of the piece-by-piece method), and of its
 // local-minimum candidates.
+// Method: dense scan plus golden section (Kiefer 1953) as the independent reference.
 #include "tool/chord_min.h"
 
 #include <algorithm>

@@ -2,6 +2,7 @@
 // refinement of the best sample's bracket, keeping the lowest value seen (so that a +infinity
 // just past an edge, as at a cutter's rim, cannot lose it). Independent of src/ on purpose.
 // Cost: samples + 1 + 2 x 100 evaluations.
+// Method: golden-section search (Kiefer 1953; Numerical Recipes 3rd ed., §10.2).
 #pragma once
 
 #include <algorithm>

@@ -1,5 +1,6 @@
 // Tests of revolved_profile: without runout it is p(r) itself (DESIGN.md "Geometry"); with
 // runout it is the envelope of the turning offset body, checked against its definition.
+// Method: definition of the envelope of a turning offset body (Kline & DeVor 1983 runout).
 #include "tool/revolved_profile.h"
 
 #include <algorithm>
