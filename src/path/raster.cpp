@@ -81,15 +81,15 @@ Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
                                patch.origin_y_mm + 0.5 * patch.size_y_mm);
   std::array<FramePoint, 4> rect;
   const double hx = 0.5 * patch.size_x_mm, hy = 0.5 * patch.size_y_mm;
-  const std::array<Eigen::Vector2d, 4> corners = {Eigen::Vector2d(-hx, -hy), {hx, -hy},
-                                                  {hx, hy}, {-hx, hy}};
+  const std::array<Eigen::Vector2d, 4> corners = {
+      Eigen::Vector2d(-hx, -hy), {hx, -hy}, {hx, hy}, {-hx, hy}};
   for (int c = 0; c < 4; ++c) rect[c] = {corners[c].dot(d), corners[c].dot(n)};
 
   // At angle 0 pass k lies at y = origin_y + k step, i.e. n-offset k step - size_y / 2 from the
   // centre; the rotated pattern keeps those offsets and covers the patch's extent along n.
   const double offset0 = -hy;
-  const double half_n = 0.5 * (patch.size_x_mm * std::abs(n.x()) +
-                               patch.size_y_mm * std::abs(n.y()));
+  const double half_n =
+      0.5 * (patch.size_x_mm * std::abs(n.x()) + patch.size_y_mm * std::abs(n.y()));
   const long k_first = static_cast<long>(std::floor((-half_n - offset0) / step + kCountSlack));
   const long k_last = static_cast<long>(std::ceil((half_n - offset0) / step - kCountSlack));
 

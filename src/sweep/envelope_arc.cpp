@@ -8,6 +8,8 @@
 #include <limits>
 #include <numbers>
 
+#include "tool/golden_section_min.h"
+
 namespace cuspmap {
 namespace {
 
@@ -39,29 +41,6 @@ struct ArcHeight {
   }
 };
 
-double golden(const ArcHeight& f, double a, double b, double& best) {
-  constexpr double kInvPhi = 0.6180339887498949;
-  double x1 = b - kInvPhi * (b - a), x2 = a + kInvPhi * (b - a);
-  double f1 = f(x1), f2 = f(x2);
-  for (int it = 0; it < kGoldenIter; ++it) {
-    if (f1 <= f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - kInvPhi * (b - a);
-      f1 = f(x1);
-    } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + kInvPhi * (b - a);
-      f2 = f(x2);
-    }
-  }
-  best = std::min(f1, f2);
-  return f1 <= f2 ? x1 : x2;
-}
-
 void add_minimum(MoveMinima& out, double t, double value) {
   if (!(value < kInf)) return;
   out.value_mm = std::min(out.value_mm, value);
@@ -80,12 +59,16 @@ void minimise_stretch(const ArcHeight& f, double ta, double tb, MoveMinima& out)
       // An end sample: the minimum may sit at the end itself or just inside.
       double best = v[i];
       const double a = i == 0 ? ta : tb - h, b = i == 0 ? ta + h : tb;
-      const double t = golden(f, a, b, best);
-      if (best < v[i]) add_minimum(out, t, best); else add_minimum(out, ta + i * h, v[i]);
+      const double t = golden_section_min(f, a, b, kGoldenIter, best);
+      if (best < v[i]) {
+        add_minimum(out, t, best);
+      } else {
+        add_minimum(out, ta + i * h, v[i]);
+      }
       continue;
     }
     double best = v[i];
-    const double t = golden(f, ta + (i - 1) * h, ta + (i + 1) * h, best);
+    const double t = golden_section_min(f, ta + (i - 1) * h, ta + (i + 1) * h, kGoldenIter, best);
     add_minimum(out, best < v[i] ? t : ta + i * h, std::min(best, v[i]));
   }
 }
@@ -101,8 +84,8 @@ MoveMinima arc_minima(const SweepSetup& setup, const RevolvedProfile& q, const P
   const double rho = rel.norm(), ra = move.arc_radius_mm, reach = q.reach_mm;
   // |P - c(phi)|^2 = rho^2 + ra^2 - 2 rho ra cos(phi - psi) <= reach^2  <=>  cos >= kc.
   const double denom = 2.0 * rho * ra;
-  const double kc = denom > 0.0 ? (rho * rho + ra * ra - reach * reach) / denom
-                                : (ra <= reach ? -2.0 : 2.0);
+  const double kc =
+      denom > 0.0 ? (rho * rho + ra * ra - reach * reach) / denom : (ra <= reach ? -2.0 : 2.0);
   if (kc > 1.0) return out;
   if (kc <= -1.0) {
     minimise_stretch(f, 0.0, 1.0, out);
@@ -127,8 +110,8 @@ MoveMinima arc_minima(const SweepSetup& setup, const RevolvedProfile& q, const P
 
 double envelope_arc_mm(const SweepSetup& setup, const PreparedMove& move,
                        const Eigen::Vector2d& p_mm) {
-  const bool level_untilted = move.z0_mm == move.z1_mm && setup.tilt.x() == 0.0 &&
-                              setup.tilt.y() == 0.0;
+  const bool level_untilted =
+      move.z0_mm == move.z1_mm && setup.tilt.x() == 0.0 && setup.tilt.y() == 0.0;
   if (!level_untilted) return arc_minima(setup, setup.envelope, move, p_mm).value_mm;
   const Eigen::Vector2d rel = p_mm - move.centre_mm;
   const double rho = rel.norm(), ra = move.arc_radius_mm;

@@ -30,8 +30,8 @@ double point_segment_distance(const Eigen::Vector2d& p, const Eigen::Vector2d& a
 }
 
 // Liang-Barsky: does the segment a-b meet the box?
-bool segment_meets_box(const Eigen::Vector2d& a, const Eigen::Vector2d& b, double x_lo,
-                       double x_hi, double y_lo, double y_hi) {
+bool segment_meets_box(const Eigen::Vector2d& a, const Eigen::Vector2d& b, double x_lo, double x_hi,
+                       double y_lo, double y_hi) {
   double t0 = 0.0, t1 = 1.0;
   const double d[2] = {b.x() - a.x(), b.y() - a.y()};
   const double lo[2] = {x_lo - a.x(), y_lo - a.y()};

@@ -65,7 +65,8 @@ bool row_span(const PreparedMove& move, double y_mm, double reach_mm, double cel
     if (y_mm < move.y_min_mm - reach_mm || y_mm > move.y_max_mm + reach_mm) return false;
     Span outer;
     add_disc(outer, move.centre_mm, move.arc_radius_mm + reach_mm, y_mm);
-    s.add(std::max(outer.lo, move.x_min_mm - reach_mm), std::min(outer.hi, move.x_max_mm + reach_mm));
+    s.add(std::max(outer.lo, move.x_min_mm - reach_mm),
+          std::min(outer.hi, move.x_max_mm + reach_mm));
   }
   if (!(s.lo <= s.hi)) return false;
   // Cell i's centre is at (i + 0.5) cell.

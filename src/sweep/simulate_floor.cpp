@@ -35,8 +35,8 @@ Heightfield simulate_floor(const Cutter& cutter, const Toolpath& path, const Cut
   Heightfield hf = make_heightfield(patch, sim.max_memory_bytes);
   const SweepSetup setup = sweep_setup(cutter, cut, patch);
   PreparedCounts counts;
-  const std::vector<PreparedMove> moves = prepare_moves(
-      path, cut, patch, setup.envelope.reach_mm, setup.top_mm + kReachMarginMm, counts);
+  const std::vector<PreparedMove> moves = prepare_moves(path, cut, patch, setup.envelope.reach_mm,
+                                                        setup.top_mm + kReachMarginMm, counts);
   const TileGrid tiles = tile_grid(hf.nx, hf.ny);
   const std::vector<std::vector<int>> bins =
       bin_moves(moves, tiles, setup.cell_mm, setup.envelope.reach_mm);

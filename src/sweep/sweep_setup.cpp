@@ -15,8 +15,8 @@ SweepSetup sweep_setup(const Cutter& cutter, const CutSpec& cut, const Patch& pa
   s.envelope = revolved_profile(cutter, cutter.runout_mm);
   s.tooth = revolved_profile(cutter, 0.0);
   const double toward = cutter.tilt_toward_deg * kDegToRad;
-  s.tilt = std::tan(cutter.tilt_deg * kDegToRad) * Eigen::Vector2d(std::cos(toward),
-                                                                    std::sin(toward));
+  s.tilt =
+      std::tan(cutter.tilt_deg * kDegToRad) * Eigen::Vector2d(std::cos(toward), std::sin(toward));
   s.tilt_drop_mm = s.tilt.norm() * s.envelope.reach_mm;
   s.teeth = std::max(1, cutter.teeth);
   s.runout_mm = cutter.runout_mm;

@@ -16,21 +16,21 @@ namespace cuspmap {
 
 /// What the sweep kernels need to know about the cutter, the spindle and the grid.
 struct SweepSetup {
-  RevolvedProfile envelope;        ///< the turning body with runout: envelope heights, bounds
-  RevolvedProfile tooth;           ///< one tooth edge's heights p(r) (no runout), r <= R
-  Eigen::Vector2d tilt{0, 0};      ///< tan(tau) n: the lower surface drops by tilt . v (mm/mm)
-  double tilt_drop_mm = 0.0;       ///< |tilt| (R + e): the most tilt lowers any cutter point
-  int teeth = 1;                   ///< Z
-  double runout_mm = 0.0;          ///< e
-  double runout_phase_rad = 0.0;   ///< angle of the runout offset ahead of tooth 0
-  std::vector<double> axial_mm;    ///< per tooth axial offset (+ = higher), Z entries
-  double axial_min_mm = 0.0;       ///< lowest axial offset: the revolving envelope's tooth
-  double omega_rad_per_s = 0.0;    ///< spindle angular speed, signed (+ = ccw seen from above)
-  bool teeth_alike = true;         ///< no runout and equal offsets: teeth differ only in phase
-  int nx = 0;                      ///< grid columns
-  int ny = 0;                      ///< grid rows
-  double cell_mm = 0.0;            ///< cell size
-  double top_mm = 0.0;             ///< highest any cutter point reaches above its tip
+  RevolvedProfile envelope;       ///< the turning body with runout: envelope heights, bounds
+  RevolvedProfile tooth;          ///< one tooth edge's heights p(r) (no runout), r <= R
+  Eigen::Vector2d tilt{0, 0};     ///< tan(tau) n: the lower surface drops by tilt . v (mm/mm)
+  double tilt_drop_mm = 0.0;      ///< |tilt| (R + e): the most tilt lowers any cutter point
+  int teeth = 1;                  ///< Z
+  double runout_mm = 0.0;         ///< e
+  double runout_phase_rad = 0.0;  ///< angle of the runout offset ahead of tooth 0
+  std::vector<double> axial_mm;   ///< per tooth axial offset (+ = higher), Z entries
+  double axial_min_mm = 0.0;      ///< lowest axial offset: the revolving envelope's tooth
+  double omega_rad_per_s = 0.0;   ///< spindle angular speed, signed (+ = ccw seen from above)
+  bool teeth_alike = true;        ///< no runout and equal offsets: teeth differ only in phase
+  int nx = 0;                     ///< grid columns
+  int ny = 0;                     ///< grid rows
+  double cell_mm = 0.0;           ///< cell size
+  double top_mm = 0.0;            ///< highest any cutter point reaches above its tip
 };
 
 /// Builds the setup for a validated cutter, cutting conditions and patch.

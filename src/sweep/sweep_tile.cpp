@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <optional>
 
 #include "sweep/envelope_arc.h"
 #include "sweep/envelope_line.h"
@@ -19,17 +20,21 @@ namespace {
 constexpr float kUnset = std::numeric_limits<float>::infinity();
 constexpr double kUmPerMm = 1000.0;
 
+// Highest cell of the tile (+inf while any is unreached). Eigen's maxCoeff runs in SIMD lanes;
+// the grid holds no NaN during the sweep, so lane order cannot change the result.
 float tile_max(const float* grid, int nx, const TileRect& t) {
   float top = -kUnset;
   for (int j = t.j0; j < t.j1; ++j) {
-    const float* row = grid + static_cast<std::int64_t>(j) * nx;
-    for (int i = t.i0; i < t.i1; ++i) top = std::max(top, row[i]);
+    const Eigen::Map<const Eigen::ArrayXf> row(grid + static_cast<std::int64_t>(j) * nx + t.i0,
+                                               t.i1 - t.i0);
+    top = std::max(top, row.maxCoeff());
   }
   return top;
 }
 
-void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, double y, int i_lo,
-               int i_hi, float* row) {
+// One row run of one move. `line_teeth` is set for straight moves in tooth mode.
+void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, LineTeeth* line_teeth,
+               double y, int i_lo, int i_hi, float* row) {
   if (mode == SweepMode::Envelope && m.kind == MoveKind::Line) {
     envelope_line_row(s, m, y, i_lo, i_hi, row);
     return;
@@ -41,9 +46,9 @@ void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, doubl
       h = envelope_arc_mm(s, m, p) + s.axial_min_mm;
     } else {
       const double bound = row[i] / kUmPerMm;  // +inf stays +inf
-      if (m.kind == MoveKind::Line && !m.vertical()) {
+      if (line_teeth) {
         const Eigen::Vector2d rel = p - m.a_mm;
-        h = teeth_line_mm(s, m, rel.dot(m.dir), rel.dot(m.perp), bound);
+        h = line_teeth->height_mm(rel.dot(m.dir), rel.dot(m.perp), bound);
       } else {
         h = teeth_generic_mm(s, m, p, bound);
       }
@@ -98,21 +103,30 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
       if (r.bound_um >= top_um) break;  // sorted: no later move can lower any cell either
     }
     const PreparedMove& m = moves[r.move];
+    std::optional<LineTeeth> line_teeth;
+    if (mode == SweepMode::Teeth && m.kind == MoveKind::Line && !m.vertical()) {
+      line_teeth.emplace(setup, m);
+    }
     for (int j = tile.j0; j < tile.j1; ++j) {
       int i_lo = 0, i_hi = -1;
       const double y = (j + 0.5) * cell;
       if (!row_span(m, y, setup.envelope.reach_mm, cell, tile.i0, tile.i1 - 1, i_lo, i_hi)) {
         continue;
       }
-      sweep_row(setup, m, mode, y, i_lo, i_hi, grid + static_cast<std::int64_t>(j) * nx);
+      sweep_row(setup, m, mode, line_teeth ? &*line_teeth : nullptr, y, i_lo, i_hi,
+                grid + static_cast<std::int64_t>(j) * nx);
       visits += i_hi - i_lo + 1;
     }
   }
 
-  for (int j = tile.j0; j < tile.j1; ++j) {
-    float* row = grid + static_cast<std::int64_t>(j) * nx;
-    for (int i = tile.i0; i < tile.i1; ++i) {
-      if (row[i] == kUnset) row[i] = kUnreached;
+  // Cells still at +inf were never reached: NaN, as Heightfield wants. Once the tile's highest
+  // cell was finite, every cell is, and there is nothing to do.
+  if (!std::isfinite(top_um)) {
+    for (int j = tile.j0; j < tile.j1; ++j) {
+      float* row = grid + static_cast<std::int64_t>(j) * nx;
+      for (int i = tile.i0; i < tile.i1; ++i) {
+        if (row[i] == kUnset) row[i] = kUnreached;
+      }
     }
   }
   return visits;

@@ -99,7 +99,10 @@ struct Follow {
           const double mid = 0.5 * (a + b);
           double unused = 0.0;
           const double gm = lattice_value(f, mid, bearing, unused);
-          if ((gm < target) == rising) a = mid; else b = mid;
+          if ((gm < target) == rising)
+            a = mid;
+          else
+            b = mid;
         }
         return 0.5 * (a + b);
       }
@@ -128,8 +131,7 @@ double teeth_generic_mm(const SweepSetup& setup, const PreparedMove& move,
   }
   if (!(minima.value_mm + setup.axial_min_mm < bound_mm)) return kInf;
 
-  const Follow fw{setup, move, p_mm, setup.omega_rad_per_s * move.duration_s,
-                  move.length_xy_mm};
+  const Follow fw{setup, move, p_mm, setup.omega_rad_per_s * move.duration_s, move.length_xy_mm};
   const int families = setup.teeth_alike ? 1 : setup.teeth;
   double best = kInf;
   for (int k = 0; k < families; ++k) {

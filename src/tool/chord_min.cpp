@@ -8,6 +8,8 @@
 #include <cmath>
 #include <limits>
 
+#include "tool/golden_section_min.h"
+
 namespace cuspmap {
 namespace {
 
@@ -80,21 +82,6 @@ double convex_circle_argmin(const ProfilePiece& p, double w, double k, double xa
   return x;
 }
 
-double golden_argmin(const Chord& c, double xa, double xb) {
-  constexpr double kInvPhi = 0.6180339887498949;
-  double a = xa, b = xb;
-  double x1 = b - kInvPhi * (b - a), x2 = a + kInvPhi * (b - a);
-  double f1 = c.f(x1), f2 = c.f(x2);
-  for (int it = 0; it < kGoldenIter; ++it) {
-    if (f1 <= f2) {
-      b = x2; x2 = x1; f2 = f1; x1 = b - kInvPhi * (b - a); f1 = c.f(x1);
-    } else {
-      a = x1; x1 = x2; f1 = f2; x2 = a + kInvPhi * (b - a); f2 = c.f(x2);
-    }
-  }
-  return f1 <= f2 ? x1 : x2;
-}
-
 void add_candidate(ChordMin& out, const Chord& c, double x) {
   for (int i = 0; i < out.count; ++i) {
     if (std::abs(out.candidates[i].x_mm - x) < kNewtonTolMm) return;
@@ -105,8 +92,8 @@ void add_candidate(ChordMin& out, const Chord& c, double x) {
 
 }  // namespace
 
-ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_mm,
-                   double x_hi_mm, bool local_minima_only) {
+ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_mm, double x_hi_mm,
+                   bool local_minima_only) {
   ChordMin out;
   out.value_mm = kInf;
   const double w2 = w_mm * w_mm;
@@ -116,6 +103,37 @@ ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_
   const double xa = std::max(x_lo_mm, -half), xb = std::min(x_hi_mm, half);
   if (!(xa <= xb)) return out;
   const Chord c{q, w_mm, w2, k};
+
+  if (q.pieces.size() == 1) {
+    // Single-piece profiles (flat or dished flat end, ball, all without runout): no breakpoints.
+    const ProfilePiece& p = q.pieces[0];
+    if (p.kind == PieceKind::Line && p.b < 0.0) {
+      // One concave cone: lowest at an end; an end is a local minimum when f rises from it
+      // into the chord (f' = b x / r - k decreases along the chord).
+      auto slope = [&](double x) {
+        const double r = std::sqrt(w2 + x * x);
+        return (r > 0.0 ? p.b * x / r : 0.0) - k;
+      };
+      const double fa = c.f(xa), fb = c.f(xb);
+      out.value_mm = std::min(fa, fb);
+      out.x_mm = fa <= fb ? xa : xb;
+      if (!local_minima_only || slope(xa) >= 0.0) out.candidates[out.count++] = {xa, fa};
+      if (xb > xa && (!local_minima_only || slope(xb) <= 0.0)) {
+        out.candidates[out.count++] = {xb, fb};
+      }
+      if (out.count == 0) out.candidates[out.count++] = {out.x_mm, out.value_mm};
+      return out;
+    }
+    if (p.kind == PieceKind::Line || p.a == 0.0) {
+      // One convex piece (flat end, or a ball): one minimum.
+      const double x = p.kind == PieceKind::Line ? convex_line_argmin(p.b, w_mm, k, xa, xb)
+                                                 : convex_circle_argmin(p, w_mm, k, xa, xb);
+      out.x_mm = x;
+      out.value_mm = c.f(x);
+      out.candidates[out.count++] = {x, out.value_mm};
+      return out;
+    }
+  }
 
   // Chord breakpoints: x = 0 (r turns), piece ends and circle centres, mapped to +-x.
   std::array<double, 2 * kMaxChordCandidates + 4> cuts{};
@@ -150,7 +168,9 @@ ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_
     } else {
       add_candidate(out, c, a);
       add_candidate(out, c, b);
-      add_candidate(out, c, golden_argmin(c, a, b));
+      double lowest = 0.0;
+      add_candidate(out, c, golden_section_min([&c](double x) { return c.f(x); }, a, b,
+                                               kGoldenIter, lowest));
     }
   }
 

@@ -40,7 +40,7 @@ struct ChordMin {
 /// @param[in] x_lo_mm, x_hi_mm  the interval of x; empty or out of reach gives value +infinity
 /// @param[in] local_minima_only  when true, candidates holds only points that are local minima of
 ///            f (what the tooth-resolved sweep searches around); otherwise every piece's minimum
-ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_mm,
-                   double x_hi_mm, bool local_minima_only);
+ChordMin chord_min(const RevolvedProfile& q, double w_mm, double k, double x_lo_mm, double x_hi_mm,
+                   bool local_minima_only);
 
 }  // namespace cuspmap

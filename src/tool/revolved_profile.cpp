@@ -147,8 +147,7 @@ RevolvedProfile revolved_profile(const Cutter& cutter, double runout_mm) {
     // Fold a piece into its predecessor when it continues the same line or circle.
     if (!q.pieces.empty()) {
       ProfilePiece& prev = q.pieces.back();
-      if (prev.kind == piece.kind && prev.a == piece.a && prev.b == piece.b &&
-          prev.c == piece.c) {
+      if (prev.kind == piece.kind && prev.a == piece.a && prev.b == piece.b && prev.c == piece.c) {
         prev.r1_mm = r1;
         continue;
       }

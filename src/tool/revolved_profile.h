@@ -20,12 +20,12 @@ enum class PieceKind {
 
 /// One piece of a profile over [r0_mm, r1_mm].
 struct ProfilePiece {
-  double r0_mm = 0.0;  ///< radius where the piece starts
-  double r1_mm = 0.0;  ///< radius where it ends (>= r0_mm)
+  double r0_mm = 0.0;                ///< radius where the piece starts
+  double r1_mm = 0.0;                ///< radius where it ends (>= r0_mm)
   PieceKind kind = PieceKind::Line;  ///< line or circle
-  double a = 0.0;      ///< Line: height at r = 0 (mm). Circle: centre radius (mm)
-  double b = 0.0;      ///< Line: slope dq/dr. Circle: circle radius (mm)
-  double c = 0.0;      ///< Circle: height of the centre (mm); unused for lines
+  double a = 0.0;                    ///< Line: height at r = 0 (mm). Circle: centre radius (mm)
+  double b = 0.0;                    ///< Line: slope dq/dr. Circle: circle radius (mm)
+  double c = 0.0;                    ///< Circle: height of the centre (mm); unused for lines
 
   /// q at radius r (mm); r is clamped into the piece.
   double height_mm(double r_mm) const;
@@ -35,12 +35,12 @@ struct ProfilePiece {
 
 /// A unimodal profile of revolution, piecewise line/circle, covering [0, reach_mm].
 struct RevolvedProfile {
-  double radius_mm = 0.0;   ///< the cutter's R
-  double runout_mm = 0.0;   ///< radial offset e of the body from the spindle axis
-  double reach_mm = 0.0;    ///< R + e: nothing beyond this radius is touched
-  double argmin_mm = 0.0;   ///< a radius where q is lowest
-  double min_mm = 0.0;      ///< q at argmin_mm
-  double max_mm = 0.0;      ///< largest q over [0, reach]: how high above the tip the cutter reaches
+  double radius_mm = 0.0;  ///< the cutter's R
+  double runout_mm = 0.0;  ///< radial offset e of the body from the spindle axis
+  double reach_mm = 0.0;   ///< R + e: nothing beyond this radius is touched
+  double argmin_mm = 0.0;  ///< a radius where q is lowest
+  double min_mm = 0.0;     ///< q at argmin_mm
+  double max_mm = 0.0;     ///< largest q over [0, reach]: how high above the tip the cutter reaches
   std::vector<ProfilePiece> pieces;  ///< in order of r, contiguous, first r0 = 0, last r1 = reach
 
   /// q(r) in mm; +infinity beyond reach_mm.

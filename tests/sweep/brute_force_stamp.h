@@ -15,6 +15,7 @@
 #include "core/heightfield.h"
 #include "path/move.h"
 #include "tool/cutter.h"
+#include "tool/dense_scan_min.h"
 
 namespace cuspmap::test {
 
@@ -25,8 +26,8 @@ namespace cuspmap::test {
 /// @param[in] step_mm      sample spacing along each move (> 0)
 /// @param[in] body_angles  spindle angles stamped per sample when the cutter has runout (>= 1)
 /// @return heights um above floor_z, NaN where no stamp reached
-inline Heightfield brute_force_stamp(const Cutter& cutter, const Toolpath& path,
-                                     const Patch& patch, double step_mm, int body_angles = 1) {
+inline Heightfield brute_force_stamp(const Cutter& cutter, const Toolpath& path, const Patch& patch,
+                                     double step_mm, int body_angles = 1) {
   Heightfield hf = make_heightfield(patch, 0);
   const double big_r = cutter.radius_mm();
   const double e = cutter.runout_mm;
@@ -51,10 +52,16 @@ inline Heightfield brute_force_stamp(const Cutter& cutter, const Toolpath& path,
     for (int s = 0; s < samples; ++s) {
       const Eigen::Vector3d c = move_point_mm(m, static_cast<double>(s) / (samples - 1));
       const double z_um = (c.z() - patch.floor_z_mm) * 1000.0;
-      const int i0 = std::max(0, static_cast<int>(std::floor((c.x() - reach - patch.origin_x_mm) / patch.cell_mm)));
-      const int i1 = std::min(hf.nx - 1, static_cast<int>(std::ceil((c.x() + reach - patch.origin_x_mm) / patch.cell_mm)));
-      const int j0 = std::max(0, static_cast<int>(std::floor((c.y() - reach - patch.origin_y_mm) / patch.cell_mm)));
-      const int j1 = std::min(hf.ny - 1, static_cast<int>(std::ceil((c.y() + reach - patch.origin_y_mm) / patch.cell_mm)));
+      const int i0 = std::max(
+          0, static_cast<int>(std::floor((c.x() - reach - patch.origin_x_mm) / patch.cell_mm)));
+      const int i1 = std::min(
+          hf.nx - 1,
+          static_cast<int>(std::ceil((c.x() + reach - patch.origin_x_mm) / patch.cell_mm)));
+      const int j0 = std::max(
+          0, static_cast<int>(std::floor((c.y() - reach - patch.origin_y_mm) / patch.cell_mm)));
+      const int j1 = std::min(
+          hf.ny - 1,
+          static_cast<int>(std::ceil((c.y() + reach - patch.origin_y_mm) / patch.cell_mm)));
       for (int a = 0; a < angles; ++a) {
         const double phi = 2.0 * std::numbers::pi * a / angles;
         const double ox = c.x() + e * std::cos(phi), oy = c.y() + e * std::sin(phi);
@@ -65,7 +72,8 @@ inline Heightfield brute_force_stamp(const Cutter& cutter, const Toolpath& path,
             if (r > big_r) continue;
             // Tilt acts on the offset from the spindle axis (DESIGN.md first-order model).
             const double tilt_mm = tan_tilt * ((px - c.x()) * nx_dir + (py - c.y()) * ny_dir);
-            const double h = z_um + (profile_height_mm(cutter, r) - tilt_mm + axial_min_mm) * 1000.0;
+            const double h =
+                z_um + (profile_height_mm(cutter, r) - tilt_mm + axial_min_mm) * 1000.0;
             float& cell = hf.z_um(j, i);
             if (std::isnan(cell) || h < cell) cell = static_cast<float>(h);
           }
@@ -94,32 +102,7 @@ inline double dense_min_along_move_um(const Cutter& cutter, const Move& move, do
     if (r > cutter.radius_mm()) return std::numeric_limits<double>::infinity();
     return (c.z() - floor_z_mm + profile_height_mm(cutter, r) - tan_tilt * v.dot(n)) * 1000.0;
   };
-  int best = 0;
-  double best_h = std::numeric_limits<double>::infinity();
-  for (int i = 0; i < samples; ++i) {
-    const double v = h(static_cast<double>(i) / (samples - 1));
-    if (v < best_h) {
-      best_h = v;
-      best = i;
-    }
-  }
-  if (!(best_h < std::numeric_limits<double>::infinity())) return best_h;
-  double a = static_cast<double>(std::max(0, best - 1)) / (samples - 1);
-  double b = static_cast<double>(std::min(samples - 1, best + 1)) / (samples - 1);
-  constexpr double kInvPhi = 0.6180339887498949;
-  // The lowest value seen is kept: at a rim the height jumps to +infinity, where the bracket
-  // may end up outside the cutter.
-  for (int it = 0; it < 80; ++it) {
-    const double x1 = b - kInvPhi * (b - a), x2 = a + kInvPhi * (b - a);
-    const double h1 = h(x1), h2 = h(x2);
-    best_h = std::min({best_h, h1, h2});
-    if (h1 <= h2) {
-      b = x2;
-    } else {
-      a = x1;
-    }
-  }
-  return best_h;
+  return dense_scan_min(h, 0.0, 1.0, samples - 1);
 }
 
 /// Lowest tooth-edge height over one point from a whole path, by time stepping: every tooth's
@@ -150,8 +133,9 @@ inline double time_stepped_teeth_um(const Cutter& cutter, const Toolpath& path, 
       const Eigen::Vector3d c = move_point_mm(m, t_local / duration);
       const double theta = omega * (clock + t_local);
       const Eigen::Vector2d centre =
-          c.head<2>() + cutter.runout_mm * Eigen::Vector2d(std::cos(theta + cutter.runout_phase_deg * deg),
-                                                           std::sin(theta + cutter.runout_phase_deg * deg));
+          c.head<2>() +
+          cutter.runout_mm * Eigen::Vector2d(std::cos(theta + cutter.runout_phase_deg * deg),
+                                             std::sin(theta + cutter.runout_phase_deg * deg));
       const double a = theta + two_pi * k / z;
       const Eigen::Vector2d u(std::cos(a), std::sin(a));
       const Eigen::Vector2d q = p_mm - centre;
@@ -161,7 +145,8 @@ inline double time_stepped_teeth_um(const Cutter& cutter, const Toolpath& path, 
     };
     for (int k = 0; k < z; ++k) {
       const double axial = k < static_cast<int>(cutter.axial_offsets_um.size())
-                               ? cutter.axial_offsets_um[k] / 1000.0 : 0.0;
+                               ? cutter.axial_offsets_um[k] / 1000.0
+                               : 0.0;
       double side0 = 0.0, along0 = 0.0;
       Eigen::Vector2d v0;
       state(0.0, k, side0, along0, v0);
@@ -179,8 +164,8 @@ inline double time_stepped_teeth_um(const Cutter& cutter, const Toolpath& path, 
           state(tc, k, sc, r, vc);
           if (r >= 0.0 && r <= cutter.radius_mm()) {
             const double zc = move_point_mm(m, tc / duration).z();
-            const double h = zc - floor_z_mm + profile_height_mm(cutter, r) + axial -
-                             tan_tilt * vc.dot(n);
+            const double h =
+                zc - floor_z_mm + profile_height_mm(cutter, r) + axial - tan_tilt * vc.dot(n);
             best = std::min(best, h * 1000.0);
           }
         }

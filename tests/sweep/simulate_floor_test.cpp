@@ -1,6 +1,9 @@
 // Tests of simulate_floor on raster floors: handbook cusp heights, no feed-direction
 // pseudo-cusps, rotation invariance, the dished flat's flat floor and the marks tram error leaves
 // (derived geometry), thread-count determinism, skipping, memory limit.
+// Method: handbook scallop formulas (Machinery's Handbook), derived tilt geometry (in each test).
+#include "sweep/simulate_floor.h"
+
 #include <algorithm>
 #include <cmath>
 #include <cstring>
@@ -10,7 +13,6 @@
 #include "core/input_error.h"
 #include "path/raster.h"
 #include "sweep/brute_force_stamp.h"
-#include "sweep/simulate_floor.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -80,8 +82,8 @@ TEST_CASE("simulate_floor: ball raster cusp equals the handbook scallop height",
   for (double step : {0.3, 0.5, 1.0}) {
     for (double cell : {0.01, 0.005}) {
       CAPTURE(step, cell);
-      const Heightfield hf = raster_floor(ball, step, 0.0, RasterDirection::OneWay,
-                                          square_patch(2.0, cell));
+      const Heightfield hf =
+          raster_floor(ball, step, 0.0, RasterDirection::OneWay, square_patch(2.0, cell));
       // Machinery's Handbook (scallop height of a ball end mill): h = R - sqrt(R^2 - (s/2)^2).
       const double h_um = (r - std::sqrt(r * r - 0.25 * step * step)) * 1000.0;
       // Grid quantum: the height change across one cell at the cusp, where the profile's slope
@@ -103,8 +105,8 @@ TEST_CASE("simulate_floor: bull-nose raster cusp equals the corner-radius scallo
   for (double step : {2.3, 2.6, 2.9}) {
     for (double cell : {0.02, 0.01}) {
       CAPTURE(step, cell);
-      const Heightfield hf = raster_floor(bull, step, 0.0, RasterDirection::Zigzag,
-                                          square_patch(6.0, cell));
+      const Heightfield hf =
+          raster_floor(bull, step, 0.0, RasterDirection::Zigzag, square_patch(6.0, cell));
       // Bull-nose scallop (DESIGN.md closed forms; torus corner of radius rc beyond the flat of
       // radius R - rc): h = rc - sqrt(rc^2 - (s/2 - (R - rc))^2) for s > 2 (R - rc).
       const double u = 0.5 * step - (r - rc);
@@ -115,8 +117,8 @@ TEST_CASE("simulate_floor: bull-nose raster cusp equals the corner-radius scallo
     }
   }
   // Below the flat width 2 (R - rc) the flat bottoms overlap: no cusp at all (same source).
-  const Heightfield flat_floor = raster_floor(bull, 1.9, 0.0, RasterDirection::OneWay,
-                                              square_patch(4.0, 0.02));
+  const Heightfield flat_floor =
+      raster_floor(bull, 1.9, 0.0, RasterDirection::OneWay, square_patch(4.0, 0.02));
   REQUIRE(interior_stats(flat_floor, 0.0).range() <= 1e-4);
 }
 
@@ -124,14 +126,14 @@ TEST_CASE("simulate_floor: no feed-direction pseudo-cusps along a pass", "[sweep
   // The envelope is exact along the feed: at angle 0 every row is one height (float precision).
   Cutter ball;
   ball.diameter_mm = 6.0;
-  const Heightfield hf = raster_floor(ball, 0.4, 0.0, RasterDirection::Zigzag,
-                                      square_patch(3.0, 0.01));
+  const Heightfield hf =
+      raster_floor(ball, 0.4, 0.0, RasterDirection::Zigzag, square_patch(3.0, 0.01));
   for (int j = 0; j < hf.ny; ++j) {
     const auto row = hf.z_um.row(j);
     CAPTURE(j);
     const float top = row.maxCoeff();
-    REQUIRE(row.maxCoeff() - row.minCoeff() <= 4.0f * std::numeric_limits<float>::epsilon() *
-                                                    std::max(1.0f, top));
+    REQUIRE(row.maxCoeff() - row.minCoeff() <=
+            4.0f * std::numeric_limits<float>::epsilon() * std::max(1.0f, top));
   }
   // The brute-force stamp of the same path does show pseudo-cusps along the feed at its sampling
   // step (ball sagitta of the step, derived): this is what the exact envelope avoids.
@@ -155,8 +157,10 @@ TEST_CASE("simulate_floor: raster statistics do not change when the angle turns 
   const Patch patch = square_patch(3.0, 0.01);
   // At 0 and 90 deg the pattern maps onto the grid exactly (square patch turned about its
   // centre): equal up to float rounding of the fast path.
-  const Stats a = interior_stats(raster_floor(ball, 0.35, 0.0, RasterDirection::OneWay, patch), 0.1);
-  const Stats b = interior_stats(raster_floor(ball, 0.35, 90.0, RasterDirection::OneWay, patch), 0.1);
+  const Stats a =
+      interior_stats(raster_floor(ball, 0.35, 0.0, RasterDirection::OneWay, patch), 0.1);
+  const Stats b =
+      interior_stats(raster_floor(ball, 0.35, 90.0, RasterDirection::OneWay, patch), 0.1);
   REQUIRE_NEAR(a.mean, b.mean, 1e-3);
   REQUIRE_NEAR(a.stddev, b.stddev, 1e-3);
   REQUIRE_NEAR(a.range(), b.range(), 1e-3);
@@ -173,6 +177,30 @@ TEST_CASE("simulate_floor: raster statistics do not change when the angle turns 
   REQUIRE_NEAR(c.range(), h_um, quantum_um);
 }
 
+TEST_CASE("simulate_floor: a tilted ball leaves the untilted cusp (contact shift only)",
+          "[sweep]") {
+  // DESIGN.md "Geometry": ball cutters are tilt-invariant apart from the contact shift. In the
+  // first-order model R - sqrt(R^2 - v^2) - tan(tau) v.n has its lowest point R tan(tau) along n,
+  // R (1 - sqrt(1 + tan^2 tau)) ~ R tau^2 / 2 low (derived): the cusp is unchanged to O(tau^2).
+  Cutter ball;
+  ball.diameter_mm = 6.0;
+  const Patch patch = square_patch(2.0, 0.01);
+  const double step = 0.5, r = 3.0;
+  const Stats plain =
+      interior_stats(raster_floor(ball, step, 0.0, RasterDirection::OneWay, patch), 0.0);
+  const double quantum_um = 0.5 * step / std::sqrt(r * r - 0.25 * step * step) * 0.01 * 1000.0;
+  for (double toward : {0.0, 90.0, 45.0}) {
+    CAPTURE(toward);
+    ball.tilt_deg = 1.0;
+    ball.tilt_toward_deg = toward;
+    const Stats tilted =
+        interior_stats(raster_floor(ball, step, 0.0, RasterDirection::OneWay, patch), 0.0);
+    const double t = std::tan(1.0 * kDeg);
+    REQUIRE_NEAR(tilted.range(), plain.range(), std::max(0.01 * plain.range(), quantum_um));
+    REQUIRE_NEAR(tilted.lo, plain.lo + r * (1.0 - std::sqrt(1.0 + t * t)) * 1000.0, quantum_um);
+  }
+}
+
 TEST_CASE("simulate_floor: a dished flat end mill leaves a flat floor in envelope mode",
           "[sweep]") {
   // DESIGN.md "Geometry": the dished face's lowest point is its rim, which passes every cell of
@@ -181,8 +209,8 @@ TEST_CASE("simulate_floor: a dished flat end mill leaves a flat floor in envelop
   flat.shape = CutterShape::Flat;
   flat.diameter_mm = 6.0;
   flat.dish_deg = 1.0;
-  const Heightfield hf = raster_floor(flat, 2.0, 0.0, RasterDirection::OneWay,
-                                      square_patch(6.0, 0.01));
+  const Heightfield hf =
+      raster_floor(flat, 2.0, 0.0, RasterDirection::OneWay, square_patch(6.0, 0.01));
   REQUIRE(interior_stats(hf, 0.0).range() < 0.05);
 }
 
@@ -201,8 +229,8 @@ TEST_CASE("simulate_floor: tram error along the feed leaves tan(tau) times the b
     for (double step : {1.0, 2.0}) {
       CAPTURE(tau, step);
       flat.tilt_deg = tau;
-      const Heightfield hf = raster_floor(flat, step, 0.0, RasterDirection::Zigzag,
-                                          square_patch(6.0, 0.01));
+      const Heightfield hf =
+          raster_floor(flat, step, 0.0, RasterDirection::Zigzag, square_patch(6.0, 0.01));
       const double t = std::abs(std::tan(tau * kDeg));
       const double h_um = t * (r - std::sqrt(r * r - 0.25 * step * step)) * 1000.0;
       // Quantum: slope of -tan(tau) sqrt(R^2 - w^2) at w = s/2, times one cell.
@@ -263,7 +291,8 @@ TEST_CASE("simulate_floor: heights do not depend on the thread count", "[sweep]"
   for (bool teeth : {false, true}) {
     CAPTURE(teeth);
     const Heightfield one = raster_floor(flat, 0.6, 30.0, RasterDirection::Zigzag, patch, teeth, 1);
-    const Heightfield three = raster_floor(flat, 0.6, 30.0, RasterDirection::Zigzag, patch, teeth, 3);
+    const Heightfield three =
+        raster_floor(flat, 0.6, 30.0, RasterDirection::Zigzag, patch, teeth, 3);
     REQUIRE(std::memcmp(one.z_um.data(), three.z_um.data(), sizeof(float) * one.cells()) == 0);
   }
 }

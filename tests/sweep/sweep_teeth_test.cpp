@@ -1,5 +1,6 @@
 // Tests of the tooth-resolved sweep: against a time-stepping oracle at sample cells, the ball's
 // feed mark (handbook), and the rim marks a tram error leaves (derived geometry).
+// Method: tooth-trajectory time stepping (Altintas, Manufacturing Automation, ch. 2) as oracle.
 #include <algorithm>
 #include <cmath>
 #include <complex>
@@ -21,8 +22,8 @@ Move line(double x0, double y0, double z0, double x1, double y1, double z1, doub
   return m;
 }
 
-Heightfield teeth_floor(const Cutter& c, const Toolpath& path, const CutSpec& cut, const Patch& patch,
-                  int threads = 2) {
+Heightfield teeth_floor(const Cutter& c, const Toolpath& path, const CutSpec& cut,
+                        const Patch& patch, int threads = 2) {
   SimSpec sim;
   sim.tooth_marks = true;
   sim.threads = threads;
@@ -99,9 +100,9 @@ TEST_CASE("simulate_floor: tooth crossings equal a time-stepping oracle", "[swee
     int compared = 0;
     for (int j = 0; j < hf.ny; j += 2) {
       for (int i = 0; i < hf.nx; i += 2) {
-        const double ref = test::time_stepped_teeth_um(c.cutter, c.path, patch.floor_z_mm,
-                                                       {hf.x_mm(i), hf.y_mm(j)}, cut.rpm, c.cw,
-                                                       kOracleSteps);
+        const double ref =
+            test::time_stepped_teeth_um(c.cutter, c.path, patch.floor_z_mm,
+                                        {hf.x_mm(i), hf.y_mm(j)}, cut.rpm, c.cw, kOracleSteps);
         CAPTURE(i, j);
         if (!std::isfinite(ref)) {
           REQUIRE(std::isnan(hf.z_um(j, i)));
@@ -115,8 +116,7 @@ TEST_CASE("simulate_floor: tooth crossings equal a time-stepping oracle", "[swee
   }
 }
 
-TEST_CASE("simulate_floor: a ball's tooth marks follow the feed-mark circle geometry",
-          "[sweep]") {
+TEST_CASE("simulate_floor: a ball's tooth marks follow the feed-mark circle geometry", "[sweep]") {
   // Handbook feed mark of a ball end mill: h = R - sqrt(R^2 - (fz/2)^2), the circle of the edge
   // swept fz apart. Derived for the radial-edge model on a row at lateral offset w from a pass:
   // the edge sweeps the row's vertical plane on the section circle of radius rho = sqrt(R^2 -
@@ -235,7 +235,7 @@ TEST_CASE("simulate_floor: zigzag under tram error alternates the lean of the ri
   patch.size_x_mm = 21 * fz;
   patch.size_y_mm = 5.7;  // passes at y = 0, 2.5, 5 (and 7.5)
   patch.cell_mm = cell;
-  const int m = 119;      // rows at y_k +- (m + 0.5) cell, w ~ 0.6 mm inside the +-1.25 mm band
+  const int m = 119;  // rows at y_k +- (m + 0.5) cell, w ~ 0.6 mm inside the +-1.25 mm band
   const double w = (m + 0.5) * cell;
   const double expected = 2.0 * flat.teeth * std::asin(w / r);  // for vx > 0, omega < 0
   for (RasterDirection dir : {RasterDirection::OneWay, RasterDirection::Zigzag}) {
@@ -247,7 +247,8 @@ TEST_CASE("simulate_floor: zigzag under tram error alternates the lean of the ri
     for (int k : {1, 2}) {
       const int j_pass = static_cast<int>(std::lround(k * step / cell));  // y_k on a row edge
       REQUIRE(j_pass + m < hf.ny);
-      const double lean = wrap_pi(row_phase(hf, j_pass + m, fz) - row_phase(hf, j_pass - m - 1, fz));
+      const double lean =
+          wrap_pi(row_phase(hf, j_pass + m, fz) - row_phase(hf, j_pass - m - 1, fz));
       const double sign = (dir == RasterDirection::Zigzag && k % 2 == 1) ? -1.0 : 1.0;
       CAPTURE(static_cast<int>(dir), k, lean, expected);
       // 0.1 rad (a twelfth of the lean): the fundamental's phase also follows the small change
