@@ -80,6 +80,14 @@ TEST_CASE("validate_cutter: each limit, verbatim", "[job]") {
   REQUIRE(cutter_error(c, NameStyle::Flag) ==
           "--runout 3 mm: must be >= 0 and smaller than the tool radius");
 
+  // issue_2: a NaN tilt direction or runout phase used to pass and turn every height into NaN.
+  c = ball6();
+  c.tilt_toward_deg = std::numeric_limits<double>::quiet_NaN();
+  REQUIRE(cutter_error(c, NameStyle::JobKey) == "tool.tilt_toward_deg: must be a finite number");
+  c = ball6();
+  c.runout_phase_deg = std::numeric_limits<double>::infinity();
+  REQUIRE(cutter_error(c, NameStyle::Flag) == "--runout-phase: must be a finite number");
+
   c = ball6();
   c.axial_offsets_um = {1.0, 2.0, 3.0};
   REQUIRE(cutter_error(c, NameStyle::JobKey) ==
