@@ -79,6 +79,32 @@ std::string target_word(FinishTarget t) {
   return t == FinishTarget::Ra ? "Ra" : t == FinishTarget::Rz ? "Rz" : "cusp";
 }
 
+// The parsed value of the --target-* flag `mode`, in um.
+double target_value_um(const StepoverOptions& o, const std::string& mode, LengthUnit unit) {
+  const FinishTarget t = target_kind(mode);
+  const std::string& text = t == FinishTarget::Ra   ? o.target_ra
+                            : t == FinishTarget::Rz ? o.target_rz
+                                                    : o.target_scallop;
+  return positive_height_um(text, unit, mode.c_str());
+}
+
+void record_inverse(FinishTarget t, double target_um, const StepoverSolution& sol,
+                    StepoverReport& rep) {
+  rep.inverse = true;
+  rep.target = t;
+  rep.target_um = target_um;
+  rep.stepover_approx_mm = sol.stepover_approx_mm;
+  rep.cusp = sol.cusp;
+}
+
+// Marks of a circle of radius r stepped f apart overlap only while f < 2r.
+void require_overlapping_marks(double f_mm, double radius_mm, const char* flag, const char* what) {
+  if (f_mm < 2.0 * radius_mm) return;
+  throw InputError(std::string(flag) + " " + format_number(f_mm) +
+                   " mm: must be smaller than twice the " + what + " (" +
+                   format_number(2.0 * radius_mm) + " mm)");
+}
+
 void note_ignored(const Given& given, const std::vector<const char*>& flags, const char* why,
                   StepoverReport& rep) {
   for (const char* f : flags) {
@@ -102,30 +128,19 @@ void run_turning(const StepoverOptions& o, const Given& given, LengthUnit unit,
       single_mode(given, {"--feed-per-rev", "--target-scallop", "--target-ra", "--target-rz"});
   if (mode == "--feed-per-rev") {
     const double f = positive_length_mm(o.feed_per_rev, unit, "--feed-per-rev");
-    if (f >= 2.0 * r) {
-      throw InputError("--feed-per-rev " + format_number(f) +
-                       " mm: must be smaller than twice the nose radius (" +
-                       format_number(2.0 * r) + " mm)");
-    }
+    require_overlapping_marks(f, r, "--feed-per-rev", "nose radius");
     rep.cusp = feed_mark(r, f);
     return;
   }
   const FinishTarget t = target_kind(mode);
-  const std::string& text = t == FinishTarget::Ra   ? o.target_ra
-                            : t == FinishTarget::Rz ? o.target_rz
-                                                    : o.target_scallop;
-  const double target_um = positive_height_um(text, unit, mode.c_str());
+  const double target_um = target_value_um(o, mode, unit);
   const StepoverSolution sol = inverse_feed_mark(r, t, target_um);
   if (!sol.reachable) {
     throw InputError(mode + " " + format_number(target_um) + " um: unreachable; a " +
                      format_number(r) + " mm nose radius leaves at most " + target_word(t) + " " +
                      format_number(sol.max_target_um) + " um before its marks stop overlapping");
   }
-  rep.inverse = true;
-  rep.target = t;
-  rep.target_um = target_um;
-  rep.stepover_approx_mm = sol.stepover_approx_mm;
-  rep.cusp = sol.cusp;
+  record_inverse(t, target_um, sol, rep);
 }
 
 Cutter read_cutter(const StepoverOptions& o, const Given& given, LengthUnit unit,
@@ -209,29 +224,19 @@ void run_milling(const StepoverOptions& o, const Given& given, LengthUnit unit,
     rep.cusp = cross_feed_cusp(setup, positive_length_mm(o.stepover, unit, "--stepover"));
   } else {
     const FinishTarget t = target_kind(mode);
-    const std::string& text = t == FinishTarget::Ra   ? o.target_ra
-                              : t == FinishTarget::Rz ? o.target_rz
-                                                      : o.target_scallop;
-    const double target_um = positive_height_um(text, unit, mode.c_str());
+    const double target_um = target_value_um(o, mode, unit);
     const StepoverSolution sol = inverse_stepover(setup, t, target_um);
     if (!sol.reachable) throw InputError(unreachable_message(setup, mode, t, target_um, sol));
-    rep.inverse = true;
-    rep.target = t;
-    rep.target_um = target_um;
-    rep.stepover_approx_mm = sol.stepover_approx_mm;
-    rep.cusp = sol.cusp;
+    record_inverse(t, target_um, sol, rep);
   }
   if (given("--feed-per-tooth")) {
     const double fz = positive_length_mm(o.feed_per_tooth, unit, "--feed-per-tooth");
     rep.feed_per_tooth_mm = fz;
     const double radius = setup.cutter.effective_corner_mm();
     if (radius > 0.0) {
-      if (fz >= 2.0 * radius) {
-        throw InputError("--feed-per-tooth " + format_number(fz) +
-                         " mm: must be smaller than twice the " +
-                         (setup.cutter.shape == CutterShape::Ball ? "ball" : "corner") +
-                         " radius (" + format_number(2.0 * radius) + " mm)");
-      }
+      require_overlapping_marks(
+          fz, radius, "--feed-per-tooth",
+          setup.cutter.shape == CutterShape::Ball ? "ball radius" : "corner radius");
       rep.feed_mark = feed_mark(radius, fz);
       const double per_rev = fz * setup.cutter.teeth;
       if (rep.teeth_given && per_rev < 2.0 * radius) rep.feed_mark_per_rev = feed_mark(radius, per_rev);

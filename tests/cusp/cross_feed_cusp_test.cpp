@@ -2,21 +2,16 @@
 #include <cmath>
 
 #include "cusp/cross_feed_cusp.h"
+#include "cusp/cusp_setups.h"
 #include "test_support.h"
 
 namespace {
 using cuspmap::CutterShape;
 using cuspmap::SurfaceKind;
+// Shape, D, rc, surface, rho, slope (the order these tests read best in).
 cuspmap::CuspSetup make(CutterShape shape, double d, double rc, SurfaceKind k, double rho,
                         double slope) {
-  cuspmap::CuspSetup s;
-  s.cutter.shape = shape;
-  s.cutter.diameter_mm = d;
-  s.cutter.corner_radius_mm = rc;
-  s.surface = k;
-  s.surface_radius_mm = rho;
-  s.slope_deg = slope;
-  return s;
+  return cuspmap::test::make_setup(shape, d, rc, k, slope, rho);
 }
 }  // namespace
 

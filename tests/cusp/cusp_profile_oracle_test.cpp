@@ -6,6 +6,7 @@
 #include "cusp/cross_feed_cusp.h"
 #include "cusp/feed_mark.h"
 #include "cusp/scallop_plane.h"
+#include "cusp/cusp_setups.h"
 #include "cusp/min_of_sections.h"
 #include "test_support.h"
 
@@ -31,12 +32,7 @@ void require_matches(const CuspResult& r, const OracleStats& o) {
 }
 
 CuspSetup plane_setup(CutterShape shape, double d, double rc, double slope_deg) {
-  CuspSetup s;
-  s.cutter.shape = shape;
-  s.cutter.diameter_mm = d;
-  s.cutter.corner_radius_mm = rc;
-  s.slope_deg = slope_deg;
-  return s;
+  return cuspmap::test::make_setup(shape, d, rc, SurfaceKind::Plane, slope_deg);
 }
 
 }  // namespace

@@ -4,6 +4,7 @@
 
 #include "cusp/cross_feed_cusp.h"
 #include "cusp/inverse_stepover.h"
+#include "cusp/cusp_setups.h"
 #include "test_support.h"
 
 namespace {
@@ -11,17 +12,7 @@ using cuspmap::CutterShape;
 using cuspmap::FinishTarget;
 using cuspmap::SurfaceKind;
 
-cuspmap::CuspSetup setup(CutterShape shape, double d, double rc, SurfaceKind surf = SurfaceKind::Plane,
-                         double slope = 0.0, double rho = 0.0) {
-  cuspmap::CuspSetup s;
-  s.cutter.shape = shape;
-  s.cutter.diameter_mm = d;
-  s.cutter.corner_radius_mm = rc;
-  s.surface = surf;
-  s.slope_deg = slope;
-  s.surface_radius_mm = rho;
-  return s;
-}
+using cuspmap::test::make_setup;
 
 double value(const cuspmap::CuspResult& r, FinishTarget t) {
   return t == FinishTarget::Ra ? r.stats.ra_um : t == FinishTarget::Rz ? r.stats.rz_um : r.scallop_um;
@@ -30,7 +21,7 @@ double value(const cuspmap::CuspResult& r, FinishTarget t) {
 
 TEST_CASE("inverse_stepover: published inverse example", "[cusp]") {
   // machinecalcs.com ball-nose stepover calculator: 6 mm ball, 0.005 mm cusp -> ~0.346 mm.
-  const auto sol = cuspmap::inverse_stepover(setup(CutterShape::Ball, 6.0, 0.0),
+  const auto sol = cuspmap::inverse_stepover(make_setup(CutterShape::Ball, 6.0, 0.0),
                                              FinishTarget::Scallop, 5.0);
   REQUIRE(sol.reachable);
   REQUIRE_NEAR(sol.stepover_mm, 0.346, 0.0005);
@@ -40,14 +31,14 @@ TEST_CASE("inverse_stepover: published inverse example", "[cusp]") {
 
 TEST_CASE("inverse_stepover: forward(inverse(target)) == target on every surface", "[cusp]") {
   const cuspmap::CuspSetup setups[] = {
-      setup(CutterShape::Ball, 6.0, 0.0),
-      setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Plane, 35.0),
-      setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Plane, 70.0),
-      setup(CutterShape::BullNose, 10.0, 1.0),
-      setup(CutterShape::BullNose, 10.0, 1.0, SurfaceKind::Plane, 20.0),
-      setup(CutterShape::Flat, 10.0, 0.0, SurfaceKind::Plane, 15.0),
-      setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Convex, 0.0, 20.0),
-      setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Concave, 0.0, 20.0),
+      make_setup(CutterShape::Ball, 6.0, 0.0),
+      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Plane, 35.0),
+      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Plane, 70.0),
+      make_setup(CutterShape::BullNose, 10.0, 1.0),
+      make_setup(CutterShape::BullNose, 10.0, 1.0, SurfaceKind::Plane, 20.0),
+      make_setup(CutterShape::Flat, 10.0, 0.0, SurfaceKind::Plane, 15.0),
+      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Convex, 0.0, 20.0),
+      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Concave, 0.0, 20.0),
   };
   for (const cuspmap::CuspSetup& s : setups) {
     for (FinishTarget t : {FinishTarget::Scallop, FinishTarget::Ra, FinishTarget::Rz}) {
@@ -70,7 +61,7 @@ TEST_CASE("inverse_stepover: forward(inverse(target)) == target on every surface
 TEST_CASE("inverse_stepover: closed forms agree with bisection", "[cusp]") {
   // Rz = cusp height for a periodic profile, so the Rz target takes the closed form while the
   // same cusp reached through Ra uses bisection: both must land on one stepover.
-  const cuspmap::CuspSetup s = setup(CutterShape::BullNose, 10.0, 1.0);
+  const cuspmap::CuspSetup s = make_setup(CutterShape::BullNose, 10.0, 1.0);
   const auto by_rz = cuspmap::inverse_stepover(s, FinishTarget::Rz, 20.0);
   const auto by_ra = cuspmap::inverse_stepover(s, FinishTarget::Ra, by_rz.cusp.stats.ra_um);
   REQUIRE_NEAR(by_ra.stepover_mm, by_rz.stepover_mm, 1e-10 * by_rz.stepover_mm);
@@ -78,18 +69,18 @@ TEST_CASE("inverse_stepover: closed forms agree with bisection", "[cusp]") {
 
 TEST_CASE("inverse_stepover: unreachable targets", "[cusp]") {
   // A bull-nose's cusp is never deeper than its corner radius (DESIGN.md closed form).
-  const auto bull = cuspmap::inverse_stepover(setup(CutterShape::BullNose, 10.0, 1.0),
+  const auto bull = cuspmap::inverse_stepover(make_setup(CutterShape::BullNose, 10.0, 1.0),
                                               FinishTarget::Scallop, 1500.0);
   REQUIRE_FALSE(bull.reachable);
   REQUIRE_NEAR(bull.max_target_um, 1000.0, 1e-6);
   // A flat end mill on a level floor leaves no cusp at all.
-  const auto flat = cuspmap::inverse_stepover(setup(CutterShape::Flat, 10.0, 0.0),
+  const auto flat = cuspmap::inverse_stepover(make_setup(CutterShape::Flat, 10.0, 0.0),
                                               FinishTarget::Scallop, 5.0);
   REQUIRE_FALSE(flat.reachable);
   REQUIRE(flat.max_target_um == 0.0);
   // A concave radius smaller than the ball.
   const auto tight = cuspmap::inverse_stepover(
-      setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Concave, 0.0, 2.0), FinishTarget::Ra, 1.0);
+      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Concave, 0.0, 2.0), FinishTarget::Ra, 1.0);
   REQUIRE_FALSE(tight.reachable);
 }
 
