@@ -44,13 +44,15 @@ class Given {
 
 double positive_length_mm(const std::string& text, LengthUnit unit, const char* flag) {
   const double mm = parse_length_mm(text, unit, flag);
-  if (!(mm > 0.0)) throw InputError(std::string(flag) + " " + format_number(mm) + " mm: must be > 0");
+  if (!(mm > 0.0))
+    throw InputError(std::string(flag) + " " + format_number(mm) + " mm: must be > 0");
   return mm;
 }
 
 double positive_height_um(const std::string& text, LengthUnit unit, const char* flag) {
   const double um = parse_length_mm(text, unit, flag) * kUmPerMm;
-  if (!(um > 0.0)) throw InputError(std::string(flag) + " " + format_number(um) + " um: must be > 0");
+  if (!(um > 0.0))
+    throw InputError(std::string(flag) + " " + format_number(um) + " um: must be > 0");
   return um;
 }
 
@@ -119,8 +121,9 @@ void run_turning(const StepoverOptions& o, const Given& given, LengthUnit unit,
   }
   if (!given("--nose-radius")) throw InputError("--nose-radius is required for --tool insert");
   const double r = positive_length_mm(o.nose_radius, unit, "--nose-radius");
-  note_ignored(given, {"--diameter", "--corner-radius", "--dish", "--surface", "--surface-radius",
-                       "--slope", "--feed-per-tooth", "--teeth"},
+  note_ignored(given,
+               {"--diameter", "--corner-radius", "--dish", "--surface", "--surface-radius",
+                "--slope", "--feed-per-tooth", "--teeth"},
                "turning uses --nose-radius and --feed-per-rev", rep);
   rep.turning = true;
   rep.nose_radius_mm = r;
@@ -152,7 +155,8 @@ Cutter read_cutter(const StepoverOptions& o, const Given& given, LengthUnit unit
   if (!given("--diameter")) throw InputError("--diameter is required for --tool " + o.tool);
   c.diameter_mm = parse_length_mm(o.diameter, unit, "--diameter");
   if (c.shape == CutterShape::BullNose) {
-    if (!given("--corner-radius")) throw InputError("--corner-radius is required for --tool bullnose");
+    if (!given("--corner-radius"))
+      throw InputError("--corner-radius is required for --tool bullnose");
     c.corner_radius_mm = parse_length_mm(o.corner_radius, unit, "--corner-radius");
   } else {
     note_ignored(given, {"--corner-radius"}, "only a bull-nose has a separate corner radius", rep);
@@ -173,8 +177,7 @@ Cutter read_cutter(const StepoverOptions& o, const Given& given, LengthUnit unit
     rep.teeth_given = true;
   }
   validate_cutter(c, NameStyle::Flag);
-  note_ignored(given, {"--nose-radius", "--feed-per-rev"}, "turning flags; use --tool insert",
-               rep);
+  note_ignored(given, {"--nose-radius", "--feed-per-rev"}, "turning flags; use --tool insert", rep);
   return c;
 }
 
@@ -198,8 +201,9 @@ CuspSetup read_setup(const StepoverOptions& o, const Given& given, LengthUnit un
     }
     setup.surface_radius_mm = positive_length_mm(o.surface_radius, unit, "--surface-radius");
     if (given("--slope")) {
-      throw InputError("--slope applies to --surface flat only (a cylinder's slope changes "
-                       "across the pass; its stepover is measured along the surface)");
+      throw InputError(
+          "--slope applies to --surface flat only (a cylinder's slope changes "
+          "across the pass; its stepover is measured along the surface)");
     }
   } else {
     throw InputError("--surface '" + o.surface + "': allowed surfaces are flat, convex, concave");
@@ -239,7 +243,8 @@ void run_milling(const StepoverOptions& o, const Given& given, LengthUnit unit,
           setup.cutter.shape == CutterShape::Ball ? "ball radius" : "corner radius");
       rep.feed_mark = feed_mark(radius, fz);
       const double per_rev = fz * setup.cutter.teeth;
-      if (rep.teeth_given && per_rev < 2.0 * radius) rep.feed_mark_per_rev = feed_mark(radius, per_rev);
+      if (rep.teeth_given && per_rev < 2.0 * radius)
+        rep.feed_mark_per_rev = feed_mark(radius, per_rev);
     }
   }
 }
@@ -274,11 +279,14 @@ void setup_stepover(CLI::App& sub) {
       "Closed-form cusp height, Ra/Rq/Rz and feed marks of a finishing pass for a given stepover\n"
       "(--stepover), or the stepover that meets a target (--target-scallop | --target-ra |\n"
       "--target-rz). Exact geometry first, the small-stepover approximation beside it.");
-  sub.add_option("--tool", opts->tool, "Cutter: ball | bullnose | flat (end mills) | insert (turning)")
+  sub.add_option("--tool", opts->tool,
+                 "Cutter: ball | bullnose | flat (end mills) | insert (turning)")
       ->capture_default_str();
   sub.add_option("--diameter", opts->diameter, "End-mill diameter D (length)");
-  sub.add_option("--corner-radius", opts->corner_radius, "Bull-nose corner radius rc, 0 < rc <= D/2");
-  sub.add_option("--dish", opts->dish, "End-face dish angle (deg, >= 0); does not change the cross-feed cusp");
+  sub.add_option("--corner-radius", opts->corner_radius,
+                 "Bull-nose corner radius rc, 0 < rc <= D/2");
+  sub.add_option("--dish", opts->dish,
+                 "End-face dish angle (deg, >= 0); does not change the cross-feed cusp");
   sub.add_option("--surface", opts->surface,
                  "flat | convex | concave (cylinders: axis along the feed, ball only)")
       ->capture_default_str();
@@ -286,13 +294,19 @@ void setup_stepover(CLI::App& sub) {
   sub.add_option("--slope", opts->slope, "Slope of a flat surface across the pass (deg, |a| < 90)");
   sub.add_option("--stepover", opts->stepover,
                  "Stepover (plan view on a flat or sloped floor; along the surface on cylinders)");
-  sub.add_option("--target-scallop", opts->target_scallop, "Target cusp height, e.g. 5um or 0.2thou");
-  sub.add_option("--target-ra", opts->target_ra, "Target Ra of the ideal profile, e.g. 0.8um or 32uin");
+  sub.add_option("--target-scallop", opts->target_scallop,
+                 "Target cusp height, e.g. 5um or 0.2thou");
+  sub.add_option("--target-ra", opts->target_ra,
+                 "Target Ra of the ideal profile, e.g. 0.8um or 32uin");
   sub.add_option("--target-rz", opts->target_rz, "Target Rz of the ideal profile, e.g. 4um");
-  sub.add_option("--feed-per-tooth", opts->feed_per_tooth, "Feed per tooth fz: adds the feed-mark height");
-  sub.add_option("--teeth", opts->teeth, "Number of teeth: adds the once-per-revolution mark (runout)");
-  sub.add_option("--nose-radius", opts->nose_radius, "Turning insert nose radius r (--tool insert)");
-  sub.add_option("--feed-per-rev", opts->feed_per_rev, "Turning feed per revolution f (--tool insert)");
+  sub.add_option("--feed-per-tooth", opts->feed_per_tooth,
+                 "Feed per tooth fz: adds the feed-mark height");
+  sub.add_option("--teeth", opts->teeth,
+                 "Number of teeth: adds the once-per-revolution mark (runout)");
+  sub.add_option("--nose-radius", opts->nose_radius,
+                 "Turning insert nose radius r (--tool insert)");
+  sub.add_option("--feed-per-rev", opts->feed_per_rev,
+                 "Turning feed per revolution f (--tool insert)");
   add_common_flags(sub, opts->common);
   sub.footer(stepover_help_footer());
   sub.callback([opts, &sub] { run_stepover(*opts, sub); });

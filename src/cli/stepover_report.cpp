@@ -19,11 +19,10 @@ constexpr int kTableDigits = 4;
 std::string sig(double v) {
   std::array<char, 64> buf{};
   const bool large = std::abs(v) >= 1e4;
-  const auto [ptr, ec] =
-      large ? std::to_chars(buf.data(), buf.data() + buf.size(), std::round(v),
-                            std::chars_format::fixed, 0)
-            : std::to_chars(buf.data(), buf.data() + buf.size(), v, std::chars_format::general,
-                            kTableDigits);
+  const auto [ptr, ec] = large ? std::to_chars(buf.data(), buf.data() + buf.size(), std::round(v),
+                                               std::chars_format::fixed, 0)
+                               : std::to_chars(buf.data(), buf.data() + buf.size(), v,
+                                               std::chars_format::general, kTableDigits);
   return ec == std::errc() ? std::string(buf.data(), ptr) : "?";
 }
 
@@ -79,13 +78,15 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
   const double big_r = c.radius_mm(), rc = c.effective_corner_mm();
   if (r.limit == CuspLimit::PassesDoNotOverlap) {
     if (s.surface == SurfaceKind::Plane) {
-      std::string why = c.shape == CutterShape::Ball ? "the cusp would be deeper than the ball radius"
+      std::string why = c.shape == CutterShape::Ball
+                            ? "the cusp would be deeper than the ball radius"
                         : c.shape == CutterShape::BullNose
                             ? "the cusp would be deeper than the corner radius " + length(rc, unit)
                             : "a flat end mill leaves strips as high as the stock";
       m.warnings.push_back("stepover " + length(r.stepover_mm, unit) + " >= tool diameter " +
-                           length(c.diameter_mm, unit) + ": neighbouring passes leave uncut strips (" +
-                           why + "); the heights shown are lower bounds");
+                           length(c.diameter_mm, unit) +
+                           ": neighbouring passes leave uncut strips (" + why +
+                           "); the heights shown are lower bounds");
     } else {
       m.warnings.push_back("stepover " + length(r.stepover_mm, unit) +
                            " along the surface: neighbouring tool circles no longer meet; uncut "
@@ -99,8 +100,9 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
                          "or gouges); no cusp is computed");
   }
   if (r.profile_overhangs) {
-    m.warnings.push_back("on this slope part of the cusp leans over the surface; Ra and Rq are "
-                         "of the net profile along the surface");
+    m.warnings.push_back(
+        "on this slope part of the cusp leans over the surface; Ra and Rq are "
+        "of the net profile along the surface");
   }
   if (s.surface == SurfaceKind::Plane && c.shape != CutterShape::Ball && s.slope_deg == 0.0 &&
       r.scallop_um == 0.0 && r.limit == CuspLimit::None) {
@@ -113,8 +115,9 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
         "; real marks come from the rim, dish, tilt and runout: see `cuspmap simulate`");
   }
   if (c.dish_deg > 0.0) {
-    m.notes.push_back("the dish does not change the cross-feed cusp of a straight pass (the "
-                      "lowest ring sweeps every chord); its rim marks need `cuspmap simulate`");
+    m.notes.push_back(
+        "the dish does not change the cross-feed cusp of a straight pass (the "
+        "lowest ring sweeps every chord); its rim marks need `cuspmap simulate`");
   }
   if (r.side_forms_cusp && r.limit == CuspLimit::None) {
     m.notes.push_back("on this slope the cutter's cylindrical side, not its end, bounds the cusp");
@@ -124,26 +127,31 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
                       length(r.chord_mm, unit) + " apart");
   }
   if (s.surface != SurfaceKind::Plane) {
-    m.notes.push_back("the ball is treated as a full sphere: valid where the cusp lies on its "
-                      "lower half (near the crown, or with the axis along the surface normal)");
+    m.notes.push_back(
+        "the ball is treated as a full sphere: valid where the cusp lies on its "
+        "lower half (near the crown, or with the axis along the surface normal)");
   }
   if (rep.feed_per_tooth_mm) {
     if (c.shape == CutterShape::Flat) {
-      m.notes.push_back("a flat end mill's ideal end face wipes its own feed marks (feed mark 0); "
-                        "real ones come from dish, tilt and runout: see `cuspmap simulate`");
+      m.notes.push_back(
+          "a flat end mill's ideal end face wipes its own feed marks (feed mark 0); "
+          "real ones come from dish, tilt and runout: see `cuspmap simulate`");
     } else {
-      m.notes.push_back("feed-per-tooth marks run across the feed; they leave the cross-feed "
-                        "cusp and its Ra unchanged");
+      m.notes.push_back(
+          "feed-per-tooth marks run across the feed; they leave the cross-feed "
+          "cusp and its Ra unchanged");
       if (c.shape == CutterShape::BullNose) {
-        m.notes.push_back("corner feed marks assume only the leading side cuts (dish or tilt lift "
-                          "the trailing side), as in face milling");
+        m.notes.push_back(
+            "corner feed marks assume only the leading side cuts (dish or tilt lift "
+            "the trailing side), as in face milling");
       }
     }
     if (rep.teeth_given && c.shape != CutterShape::Flat) {
-      m.notes.push_back("with runout larger than the feed mark one tooth cuts deepest and the "
-                        "marks repeat once per revolution (feed per revolution " +
-                        length(*rep.feed_per_tooth_mm * c.teeth, unit) + ")" +
-                        (rep.feed_mark_per_rev ? "" : "; too coarse for overlapping marks"));
+      m.notes.push_back(
+          "with runout larger than the feed mark one tooth cuts deepest and the "
+          "marks repeat once per revolution (feed per revolution " +
+          length(*rep.feed_per_tooth_mm * c.teeth, unit) + ")" +
+          (rep.feed_mark_per_rev ? "" : "; too coarse for overlapping marks"));
     }
   }
   return m;
@@ -190,8 +198,8 @@ nlohmann::json stepover_json(const StepoverReport& rep) {
   j["mode"] = rep.inverse ? "inverse" : "forward";
   if (rep.inverse) {
     j["target"] = {{"quantity", target_name(rep.target)}, {"value_um", rep.target_um}};
-    j["stepover_approx_mm"] =
-        rep.stepover_approx_mm > 0.0 ? nlohmann::json(rep.stepover_approx_mm) : nlohmann::json(nullptr);
+    j["stepover_approx_mm"] = rep.stepover_approx_mm > 0.0 ? nlohmann::json(rep.stepover_approx_mm)
+                                                           : nlohmann::json(nullptr);
   }
   j["stepover_mm"] = r.stepover_mm;
   j["scallop_height_um"] = r.scallop_um;
@@ -257,7 +265,8 @@ std::string stepover_table(const StepoverReport& rep) {
                   sig(grade->ra_um) + " um)"
             : (r.stats.ra_um > 0.0 ? "coarser than N12" : "none (no ideal cusp)"),
       "");
-  row("effective radius", r.effective_radius_mm ? length(*r.effective_radius_mm, u) : "none (flat face)", "");
+  row("effective radius",
+      r.effective_radius_mm ? length(*r.effective_radius_mm, u) : "none (flat face)", "");
   if (rep.feed_per_tooth_mm) {
     row("feed mark", height(rep.feed_mark ? rep.feed_mark->scallop_um : 0.0, u),
         rep.feed_mark ? height(rep.feed_mark->scallop_approx_um, u) : "");
@@ -288,9 +297,12 @@ std::string unreachable_message(const CuspSetup& setup, const std::string& flag,
            " on a level floor leaves no cross-feed cusp at stepovers below its diameter (marks "
            "come from the rim, dish, tilt and runout: use cuspmap simulate)";
   }
-  const std::string what = target == FinishTarget::Ra ? "Ra" : target == FinishTarget::Rz ? "Rz" : "cusp";
+  const std::string what = target == FinishTarget::Ra   ? "Ra"
+                           : target == FinishTarget::Rz ? "Rz"
+                                                        : "cusp";
   std::string why = "before neighbouring passes stop overlapping";
-  if (c.shape == CutterShape::BullNose && setup.surface == SurfaceKind::Plane && setup.slope_deg == 0.0) {
+  if (c.shape == CutterShape::BullNose && setup.surface == SurfaceKind::Plane &&
+      setup.slope_deg == 0.0) {
     why = "(a cusp is never deeper than the corner radius " + format_number(c.corner_radius_mm) +
           " mm)";
   }

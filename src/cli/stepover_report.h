@@ -18,20 +18,20 @@ namespace cuspmap {
 
 /// Everything `stepover` found, ready to print.
 struct StepoverReport {
-  LengthUnit unit = LengthUnit::Millimetre;  ///< display unit of the human table
-  bool turning = false;                      ///< --tool insert: turning feed marks
-  double nose_radius_mm = 0.0;               ///< insert nose radius (turning)
-  CuspSetup setup;                           ///< cutter and surface (milling)
-  bool inverse = false;                      ///< a --target-* was given
+  LengthUnit unit = LengthUnit::Millimetre;     ///< display unit of the human table
+  bool turning = false;                         ///< --tool insert: turning feed marks
+  double nose_radius_mm = 0.0;                  ///< insert nose radius (turning)
+  CuspSetup setup;                              ///< cutter and surface (milling)
+  bool inverse = false;                         ///< a --target-* was given
   FinishTarget target = FinishTarget::Scallop;  ///< which target (inverse)
-  double target_um = 0.0;                    ///< target value (inverse), um
-  double stepover_approx_mm = 0.0;           ///< stepover from the approximation (inverse); 0 = none
-  CuspResult cusp;                           ///< cross-feed cusp (or turning marks)
-  bool teeth_given = false;                  ///< --teeth was given
-  std::optional<double> feed_per_tooth_mm;   ///< --feed-per-tooth, mm
-  std::optional<CuspResult> feed_mark;       ///< feed-per-tooth marks (ball, bull-nose corner)
+  double target_um = 0.0;                       ///< target value (inverse), um
+  double stepover_approx_mm = 0.0;          ///< stepover from the approximation (inverse); 0 = none
+  CuspResult cusp;                          ///< cross-feed cusp (or turning marks)
+  bool teeth_given = false;                 ///< --teeth was given
+  std::optional<double> feed_per_tooth_mm;  ///< --feed-per-tooth, mm
+  std::optional<CuspResult> feed_mark;      ///< feed-per-tooth marks (ball, bull-nose corner)
   std::optional<CuspResult> feed_mark_per_rev;  ///< marks once per revolution (runout), fz * teeth
-  std::vector<std::string> notes;            ///< notes gathered while reading flags
+  std::vector<std::string> notes;               ///< notes gathered while reading flags
 };
 
 /// The one JSON object (mm, um), with warnings[], notes[] and cautions[].
@@ -42,8 +42,7 @@ std::string stepover_table(const StepoverReport& rep);
 
 /// One-line error for a target no stepover reaches, naming the value and the largest reachable.
 std::string unreachable_message(const CuspSetup& setup, const std::string& flag,
-                                FinishTarget target, double target_um,
-                                const StepoverSolution& sol);
+                                FinishTarget target, double target_um, const StepoverSolution& sol);
 
 /// Conventions and examples shown at the end of `cuspmap stepover --help`.
 std::string stepover_help_footer();

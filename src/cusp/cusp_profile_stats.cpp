@@ -113,8 +113,7 @@ double line_integral(const std::vector<ProfilePiece>& pieces, double kx, double 
     total += kn * (antiderivative(p.n1_mm) - antiderivative(p.n0_mm));
     if (!(p.u1_mm > p.u0_mm)) continue;  // a wall: only the n-term above
     auto f = [&](double u) { return integrand(p.height_mm(u)); };
-    const bool crosses =
-        std::isfinite(split) && (p.n0_mm - split) * (p.n1_mm - split) < 0.0;
+    const bool crosses = std::isfinite(split) && (p.n0_mm - split) * (p.n1_mm - split) < 0.0;
     if (crosses) {
       const double uc = mean_crossing(p, split);
       total += kx * (integrate_graded(f, p.u0_mm, uc) + integrate_graded(f, uc, p.u1_mm));
@@ -156,13 +155,12 @@ ProfileStats arc_cusp_stats(double radius_mm, double half_chord_mm, double flat_
   if (half_flat > 0.0) {
     pieces.push_back({0.0, half_flat, 0.0, 0.0, [](double) { return 0.0; }});
   }
-  pieces.push_back({half_flat, half_flat + half_chord_mm, 0.0,
-                    arc(half_flat + half_chord_mm), arc});
+  pieces.push_back(
+      {half_flat, half_flat + half_chord_mm, 0.0, arc(half_flat + half_chord_mm), arc});
   return periodic_profile_stats(pieces, 1.0, 0.0);
 }
 
-ProfileStats periodic_profile_stats(const std::vector<ProfilePiece>& pieces, double kx,
-                                    double kn) {
+ProfileStats periodic_profile_stats(const std::vector<ProfilePiece>& pieces, double kx, double kn) {
   assert(!pieces.empty() && kx > 0.0 && "profile needs pieces and a forward map");
   const double period = kx * (pieces.back().u1_mm - pieces.front().u0_mm) +
                         kn * (pieces.back().n1_mm - pieces.front().n0_mm);
@@ -170,19 +168,17 @@ ProfileStats periodic_profile_stats(const std::vector<ProfilePiece>& pieces, dou
   const double nan = std::numeric_limits<double>::quiet_NaN();
   const double mean =
       line_integral(
-          pieces, kx, kn, [](double n) { return n; }, [](double n) { return 0.5 * n * n; },
-          nan) /
+          pieces, kx, kn, [](double n) { return n; }, [](double n) { return 0.5 * n * n; }, nan) /
       period;
   const double var =
       line_integral(
           pieces, kx, kn, [mean](double n) { return (n - mean) * (n - mean); },
           [mean](double n) { return (n - mean) * (n - mean) * (n - mean) / 3.0; }, nan) /
       period;
-  const double ra =
-      line_integral(
-          pieces, kx, kn, [mean](double n) { return std::abs(n - mean); },
-          [mean](double n) { return 0.5 * (n - mean) * std::abs(n - mean); }, mean) /
-      period;
+  const double ra = line_integral(
+                        pieces, kx, kn, [mean](double n) { return std::abs(n - mean); },
+                        [mean](double n) { return 0.5 * (n - mean) * std::abs(n - mean); }, mean) /
+                    period;
   double lo = pieces.front().n0_mm, hi = lo;
   for (const ProfilePiece& p : pieces) {
     lo = std::min({lo, p.n0_mm, p.n1_mm});

@@ -120,9 +120,8 @@ StepoverSolution inverse_feed_mark(double radius_mm, FinishTarget target, double
   if (!(target_um < sol.max_target_um)) return sol;
   sol.reachable = true;
   const double h_mm = target_um / kUmPerMm;
-  sol.stepover_mm = target == FinishTarget::Ra
-                        ? solve_increasing(exact, 0.0, f_top, target_um)
-                        : ball_chord_for_scallop_mm(radius_mm, h_mm);
+  sol.stepover_mm = target == FinishTarget::Ra ? solve_increasing(exact, 0.0, f_top, target_um)
+                                               : ball_chord_for_scallop_mm(radius_mm, h_mm);
   sol.cusp = feed_mark(radius_mm, sol.stepover_mm);
   // Rt = f^2/(8r) and Ra = f^2/(18 sqrt(3) r), solved for f.
   sol.stepover_approx_mm = target == FinishTarget::Ra

@@ -10,7 +10,7 @@ namespace cuspmap {
 namespace {
 
 // Nominal Ra of N1 ... N12, um (ISO 1302 table; the series doubles, rounded at N9 and N10).
-constexpr std::array<double, 12> kGradeRaUm = {0.025, 0.05, 0.1, 0.2, 0.4, 0.8,
+constexpr std::array<double, 12> kGradeRaUm = {0.025, 0.05, 0.1, 0.2,  0.4,  0.8,
                                                1.6,   3.2,  6.3, 12.5, 25.0, 50.0};
 // Computed Ra values carry rounding near 1e-12 relative; grades are given to 2-3 digits, so a
 // 1e-9 relative allowance only absorbs rounding, never a real difference.

@@ -11,8 +11,8 @@ namespace cuspmap {
 
 /// An ISO 1302 roughness grade.
 struct RoughnessGrade {
-  int number = 0;        ///< 1 ... 12 (N1 ... N12)
-  double ra_um = 0.0;    ///< the grade's nominal Ra, um
+  int number = 0;      ///< 1 ... 12 (N1 ... N12)
+  double ra_um = 0.0;  ///< the grade's nominal Ra, um
   /// "N7" style label.
   std::string label() const;
 };

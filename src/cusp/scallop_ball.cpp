@@ -37,8 +37,8 @@ CuspResult scallop_ball(double radius_mm, double stepover_mm, double slope_deg) 
          "closed form holds while the cusp lies on the sphere");
   CuspResult r;
   r.stepover_mm = stepover_mm;
-  r.chord_mm = std::min(2.0 * radius_mm,
-                        stepover_mm / std::cos(slope_deg * std::numbers::pi / 180.0));
+  r.chord_mm =
+      std::min(2.0 * radius_mm, stepover_mm / std::cos(slope_deg * std::numbers::pi / 180.0));
   r.scallop_um = scallop_ball_mm(radius_mm, r.chord_mm) * kUmPerMm;
   r.stats = arc_cusp_stats(radius_mm, 0.5 * r.chord_mm, 0.0);
   return r;

@@ -46,9 +46,9 @@ double curved_reach_mm(double radius_mm, double surface_radius_mm, bool convex) 
 double scallop_curved_mm(double radius_mm, double surface_radius_mm, bool convex,
                          double stepover_mm) {
   assert(radius_mm > 0.0 && surface_radius_mm > 0.0 && stepover_mm >= 0.0 && "curved domain");
-  const double delta = std::min(stepover_mm, curved_reach_mm(radius_mm, surface_radius_mm,
-                                                             convex)) /
-                       (2.0 * surface_radius_mm);
+  const double delta =
+      std::min(stepover_mm, curved_reach_mm(radius_mm, surface_radius_mm, convex)) /
+      (2.0 * surface_radius_mm);
   return ray_height_mm(radius_mm, surface_radius_mm, convex, delta);
 }
 
@@ -77,12 +77,11 @@ CuspResult scallop_curved(double radius_mm, double surface_radius_mm, bool conve
   // Half a period: tool 0's arc from its contact up to the cusp (or to the reach, then the
   // uncut strip at that height when the circles no longer meet).
   const double half = 0.5 * stepover_mm, half_reach = 0.5 * std::min(stepover_mm, reach);
-  auto arc = [big_r, rho, convex](double x) {
-    return ray_height_mm(big_r, rho, convex, x / rho);
-  };
+  auto arc = [big_r, rho, convex](double x) { return ray_height_mm(big_r, rho, convex, x / rho); };
   const double top = arc(half_reach);
   std::vector<ProfilePiece> pieces{{0.0, half_reach, 0.0, top, arc}};
-  if (half > half_reach) pieces.push_back({half_reach, half, top, top, [top](double) { return top; }});
+  if (half > half_reach)
+    pieces.push_back({half_reach, half, top, top, [top](double) { return top; }});
   r.scallop_um = top * kUmPerMm;
   r.stats = periodic_profile_stats(pieces, 1.0, 0.0);
   return r;

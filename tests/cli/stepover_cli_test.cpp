@@ -58,8 +58,8 @@ TEST_CASE("stepover: JSON keys and the handbook ball cusp", "[cli]") {
 }
 
 TEST_CASE("stepover: feed-per-tooth mark of a ball and once-per-revolution mark", "[cli]") {
-  const nlohmann::json j = run_json({"--diameter", "6", "--stepover", "0.5", "--feed-per-tooth",
-                                     "0.1", "--teeth", "2"});
+  const nlohmann::json j =
+      run_json({"--diameter", "6", "--stepover", "0.5", "--feed-per-tooth", "0.1", "--teeth", "2"});
   // DESIGN.md: ball feed mark R - sqrt(R^2 - (fz/2)^2).
   REQUIRE_NEAR(j["feed_mark_um"].get<double>(), (3.0 - std::sqrt(9.0 - 0.0025)) * 1000.0, 1e-9);
   REQUIRE_NEAR(j["feed_mark_per_rev_um"].get<double>(), (3.0 - std::sqrt(9.0 - 0.01)) * 1000.0,
@@ -71,7 +71,8 @@ TEST_CASE("stepover: feed-per-tooth mark of a ball and once-per-revolution mark"
 
 TEST_CASE("stepover: inch input equals its metric equivalent", "[cli]") {
   const nlohmann::json in = run_json({"--diameter", "0.25in", "--stepover", "0.020in"});
-  const nlohmann::json bare = run_json({"--units", "in", "--diameter", "0.25", "--stepover", "0.02"});
+  const nlohmann::json bare =
+      run_json({"--units", "in", "--diameter", "0.25", "--stepover", "0.02"});
   const nlohmann::json mm = run_json({"--diameter", "6.35", "--stepover", "0.508mm"});
   for (const char* key : {"scallop_height_um", "ra_um", "rq_um", "stepover_mm"}) {
     CAPTURE(key);
@@ -98,8 +99,8 @@ TEST_CASE("stepover: inverse targets in mm and inch", "[cli]") {
 }
 
 TEST_CASE("stepover: bull-nose, flat, slope and cylinders", "[cli]") {
-  const nlohmann::json bull = run_json({"--tool", "bullnose", "--diameter", "10",
-                                        "--corner-radius", "1", "--stepover", "9"});
+  const nlohmann::json bull = run_json(
+      {"--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--stepover", "9"});
   // DESIGN.md: rc - sqrt(rc^2 - (s/2 - (R - rc))^2) = 1 - sqrt(1 - 0.25) mm.
   REQUIRE_NEAR(bull["scallop_height_um"].get<double>(), (1.0 - std::sqrt(0.75)) * 1000.0, 1e-9);
   REQUIRE(bull["effective_radius_mm"].get<double>() == 1.0);
@@ -109,12 +110,12 @@ TEST_CASE("stepover: bull-nose, flat, slope and cylinders", "[cli]") {
   REQUIRE(flat["iso1302_grade"].is_null());
   REQUIRE(flat["notes"][0].get<std::string>().find("cuspmap simulate") != std::string::npos);
   // Flat end mill on a 10 deg slope: saw-tooth s sin(a) (geometry, see scallop_plane_test).
-  const nlohmann::json saw = run_json({"--tool", "flat", "--diameter", "10", "--slope", "10deg",
-                                       "--stepover", "1"});
+  const nlohmann::json saw =
+      run_json({"--tool", "flat", "--diameter", "10", "--slope", "10deg", "--stepover", "1"});
   REQUIRE_NEAR(saw["scallop_height_um"].get<double>(), std::sin(10.0 * M_PI / 180.0) * 1000.0,
                1e-6);
-  const nlohmann::json vex = run_json({"--diameter", "6", "--surface", "convex",
-                                       "--surface-radius", "20", "--stepover", "0.5"});
+  const nlohmann::json vex = run_json(
+      {"--diameter", "6", "--surface", "convex", "--surface-radius", "20", "--stepover", "0.5"});
   REQUIRE_NEAR(vex["effective_radius_mm"].get<double>(), 3.0 * 20.0 / 23.0, 1e-12);
   // Lin & Koren 1996 small-stepover limit, within 0.5% at s = 0.5 mm.
   REQUIRE_NEAR(vex["scallop_height_um"].get<double>(), 0.25 / 8.0 * (1.0 / 3 + 1.0 / 20) * 1000.0,
@@ -122,8 +123,8 @@ TEST_CASE("stepover: bull-nose, flat, slope and cylinders", "[cli]") {
 }
 
 TEST_CASE("stepover: turning feed marks with --tool insert", "[cli]") {
-  const nlohmann::json j = run_json({"--tool", "insert", "--nose-radius", "0.8", "--feed-per-rev",
-                                     "0.2"});
+  const nlohmann::json j =
+      run_json({"--tool", "insert", "--nose-radius", "0.8", "--feed-per-rev", "0.2"});
   // Boothroyd & Knight: Rt = f^2/(8r) = 6.25 um, Ra = f^2/(18 sqrt 3 r) ~= 1.604 um.
   REQUIRE_NEAR(j["rz_approx_um"].get<double>(), 6.25, 1e-9);
   REQUIRE_NEAR(j["ra_approx_um"].get<double>(), 40.0 / (18.0 * std::sqrt(3.0) * 0.8), 1e-9);
@@ -137,12 +138,12 @@ TEST_CASE("stepover: warnings outside the model, exit 0", "[cli]") {
   REQUIRE(flat["warnings"][0] ==
           "stepover 7 mm >= tool diameter 6 mm: neighbouring passes leave uncut strips (a flat "
           "end mill leaves strips as high as the stock); the heights shown are lower bounds");
-  const nlohmann::json bull = run_json({"--tool", "bullnose", "--diameter", "10",
-                                        "--corner-radius", "1", "--stepover", "11"});
+  const nlohmann::json bull = run_json(
+      {"--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--stepover", "11"});
   REQUIRE(bull["warnings"][0].get<std::string>().find(
               "the cusp would be deeper than the corner radius 1 mm") != std::string::npos);
-  const nlohmann::json cave = run_json({"--diameter", "6", "--surface", "concave",
-                                        "--surface-radius", "2", "--stepover", "0.5"});
+  const nlohmann::json cave = run_json(
+      {"--diameter", "6", "--surface", "concave", "--surface-radius", "2", "--stepover", "0.5"});
   REQUIRE(cave["warnings"][0] ==
           "--surface-radius 2 mm is not larger than the ball radius 3 mm: the ball cannot follow "
           "this concave surface (it leaves its own radius or gouges); no cusp is computed");
@@ -155,8 +156,8 @@ TEST_CASE("stepover: human table in mm and in inches", "[cli]") {
   REQUIRE(mm.out.find("scallop height      10.43 um") != std::string::npos);
   REQUIRE(mm.out.find("ISO 1302 grade      N8 (Ra up to 3.2 um)") != std::string::npos);
   REQUIRE(mm.out.find("caution: ") != std::string::npos);
-  const auto in = run_cuspmap({"stepover", "--units", "in", "--diameter", "0.25", "--stepover",
-                               "0.02"});
+  const auto in =
+      run_cuspmap({"stepover", "--units", "in", "--diameter", "0.25", "--stepover", "0.02"});
   REQUIRE(in.exit_code == 0);
   REQUIRE(in.out.find("stepover            0.02 in") != std::string::npos);
   REQUIRE(in.out.find("400.6 uin (0.4006 thou)") != std::string::npos);
@@ -198,8 +199,8 @@ TEST_CASE("stepover: bad input exits 2 with one line naming the value", "[cli]")
               "--tool 'drill': allowed tools are ball, bullnose, flat, insert");
   require_bad({"--diameter", "6", "--surface", "torus", "--stepover", "1"},
               "--surface 'torus': allowed surfaces are flat, convex, concave");
-  require_bad({"--tool", "bullnose", "--diameter", "10", "--corner-radius", "1",
-               "--target-scallop", "1500um"},
+  require_bad({"--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--target-scallop",
+               "1500um"},
               "--target-scallop 1500 um: unreachable; the largest cusp this cutter and surface "
               "leave is 1000 um (a cusp is never deeper than the corner radius 1 mm)");
   require_bad({"--tool", "flat", "--diameter", "10", "--target-scallop", "5um"},

@@ -1,8 +1,9 @@
 // Heightfield dimensions, NaN fill, cell centres, and the memory-limit error verbatim.
+#include "core/heightfield.h"
+
 #include <cmath>
 #include <string>
 
-#include "core/heightfield.h"
 #include "core/input_error.h"
 #include "test_support.h"
 

@@ -1,10 +1,11 @@
 // Unit parsing at the edge: every length suffix, bare numbers in mm and in, angles, plain
 // numbers, and the error messages verbatim.
+#include "core/units.h"
+
 #include <stdexcept>
 #include <string>
 
 #include "core/input_error.h"
-#include "core/units.h"
 #include "test_support.h"
 
 namespace {
@@ -36,7 +37,7 @@ TEST_CASE("parse_length_mm: every suffix", "[core]") {
   REQUIRE_NEAR(mm("1e-3in"), 0.0254, 1e-17);
   REQUIRE(mm(" 6 mm ") == 6.0);  // spaces around and before the suffix
   REQUIRE(mm("+3") == 3.0);
-  REQUIRE(mm("-3") == -3.0);     // the sign is kept: callers check ranges
+  REQUIRE(mm("-3") == -3.0);  // the sign is kept: callers check ranges
   REQUIRE(mm(".5mm") == 0.5);
 }
 

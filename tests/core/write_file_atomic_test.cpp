@@ -1,8 +1,9 @@
 // Atomic whole-file writes: new file, replacement, no temp left behind, failure leaves nothing.
+#include "core/write_file_atomic.h"
+
 #include <stdexcept>
 #include <string>
 
-#include "core/write_file_atomic.h"
 #include "test_support.h"
 
 TEST_CASE("write_file_atomic: writes, replaces, leaves no temp file", "[core]") {
@@ -25,8 +26,7 @@ TEST_CASE("write_file_atomic: a missing folder throws and leaves nothing", "[cor
     cuspmap::write_file_atomic(path, "x");
     FAIL("expected std::runtime_error");
   } catch (const std::runtime_error& e) {
-    REQUIRE(std::string(e.what()) ==
-            "cannot write " + path + ": open: No such file or directory");
+    REQUIRE(std::string(e.what()) == "cannot write " + path + ": open: No such file or directory");
   }
   REQUIRE(dir.list().empty());
 }

@@ -1,7 +1,8 @@
 // Dispatcher: effective radius and small-stepover approximation per cutter and surface.
+#include "cusp/cross_feed_cusp.h"
+
 #include <cmath>
 
-#include "cusp/cross_feed_cusp.h"
 #include "cusp/cusp_setups.h"
 #include "test_support.h"
 
@@ -34,22 +35,27 @@ TEST_CASE("cross_feed_cusp: effective radius per DESIGN.md", "[cusp]") {
 
 TEST_CASE("cross_feed_cusp: approximation s^2/(8 R_eff) beside the exact value", "[cusp]") {
   // Handbook small-cusp form h ~ s^2/(8R); Lin & Koren 1996 with R_eff on cylinders.
-  const auto ball = cuspmap::cross_feed_cusp(make(CutterShape::Ball, 6, 0, SurfaceKind::Plane, 0, 0), 0.5);
+  const auto ball =
+      cuspmap::cross_feed_cusp(make(CutterShape::Ball, 6, 0, SurfaceKind::Plane, 0, 0), 0.5);
   REQUIRE_NEAR(ball.scallop_approx_um, 0.25 / 24.0 * 1000.0, 1e-9);
-  const auto vex = cuspmap::cross_feed_cusp(make(CutterShape::Ball, 6, 0, SurfaceKind::Convex, 20, 0), 0.5);
+  const auto vex =
+      cuspmap::cross_feed_cusp(make(CutterShape::Ball, 6, 0, SurfaceKind::Convex, 20, 0), 0.5);
   REQUIRE_NEAR(vex.scallop_approx_um, 0.25 / 8.0 * (1.0 / 3.0 + 1.0 / 20.0) * 1000.0, 1e-9);
   // Exact above the parabola for a ball (the circle rises faster), within 0.2% at s = R/6.
   REQUIRE(ball.scallop_um > ball.scallop_approx_um);
   REQUIRE_NEAR(ball.scallop_um, ball.scallop_approx_um, 0.002 * ball.scallop_um);
   // Bull-nose on a level floor: (s/2 - (R - rc))^2 / (2 rc).
-  const auto bull = cuspmap::cross_feed_cusp(make(CutterShape::BullNose, 10, 1, SurfaceKind::Plane, 0, 0), 8.4);
+  const auto bull =
+      cuspmap::cross_feed_cusp(make(CutterShape::BullNose, 10, 1, SurfaceKind::Plane, 0, 0), 8.4);
   REQUIRE_NEAR(bull.scallop_approx_um, 0.2 * 0.2 / 2.0 * 1000.0, 1e-9);
 }
 
 TEST_CASE("cross_feed_cusp: stepover at or past the diameter is outside the model", "[cusp]") {
-  const auto r = cuspmap::cross_feed_cusp(make(CutterShape::Ball, 6, 0, SurfaceKind::Plane, 0, 0), 6.0);
+  const auto r =
+      cuspmap::cross_feed_cusp(make(CutterShape::Ball, 6, 0, SurfaceKind::Plane, 0, 0), 6.0);
   REQUIRE(r.limit == cuspmap::CuspLimit::PassesDoNotOverlap);
   REQUIRE_NEAR(r.scallop_um, 3000.0, 1e-9);  // the ball radius: a lower bound
-  const auto f = cuspmap::cross_feed_cusp(make(CutterShape::Flat, 6, 0, SurfaceKind::Plane, 0, 0), 7.0);
+  const auto f =
+      cuspmap::cross_feed_cusp(make(CutterShape::Flat, 6, 0, SurfaceKind::Plane, 0, 0), 7.0);
   REQUIRE(f.limit == cuspmap::CuspLimit::PassesDoNotOverlap);
 }

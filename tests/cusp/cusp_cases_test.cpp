@@ -1,7 +1,8 @@
 // Runs every row of tests/data/cusp_cases.toml (published values with tolerance and source)
 // through the cusp library: forward stepovers, targets and turning marks.
-#include <string>
 #include <toml++/toml.h>
+
+#include <string>
 
 #include "core/units.h"
 #include "cusp/cross_feed_cusp.h"
@@ -21,8 +22,8 @@ double read_value(const toml::node& node, const std::string& quantity) {
 }
 
 double length_mm(const toml::table& row, const char* key) {
-  return cuspmap::parse_length_mm(row[key].value_or(std::string()),
-                                  cuspmap::LengthUnit::Millimetre, key);
+  return cuspmap::parse_length_mm(row[key].value_or(std::string()), cuspmap::LengthUnit::Millimetre,
+                                  key);
 }
 
 double pick(const cuspmap::CuspResult& r, double stepover_approx, const std::string& q) {
@@ -68,8 +69,8 @@ TEST_CASE("cusp_cases.toml: published values", "[cusp]") {
       if (mode == "forward") {
         r = cuspmap::feed_mark(nose, length_mm(row, "stepover"));
       } else {
-        const auto sol = cuspmap::inverse_feed_mark(
-            nose, target_of(mode), length_mm(row, "target") * cuspmap::kUmPerMm);
+        const auto sol = cuspmap::inverse_feed_mark(nose, target_of(mode),
+                                                    length_mm(row, "target") * cuspmap::kUmPerMm);
         REQUIRE(sol.reachable);
         r = sol.cusp;
         approx_step = sol.stepover_approx_mm;
@@ -80,7 +81,8 @@ TEST_CASE("cusp_cases.toml: published values", "[cusp]") {
                            : tool == "bullnose" ? cuspmap::CutterShape::BullNose
                                                 : cuspmap::CutterShape::Flat;
       setup.cutter.diameter_mm = length_mm(row, "diameter");
-      if (row.contains("corner_radius")) setup.cutter.corner_radius_mm = length_mm(row, "corner_radius");
+      if (row.contains("corner_radius"))
+        setup.cutter.corner_radius_mm = length_mm(row, "corner_radius");
       if (mode == "forward") {
         r = cuspmap::cross_feed_cusp(setup, length_mm(row, "stepover"));
       } else {

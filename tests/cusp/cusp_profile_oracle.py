@@ -79,7 +79,8 @@ def stats(x, n):
     rq = np.sum(dx * (a * a + a * b + b * b) / 3.0) / period
     same = a * b >= 0
     denom = np.where(same, 1.0, np.abs(b - a))
-    ra = np.sum(np.where(same, dx * 0.5 * np.abs(a + b), dx * 0.5 * (a * a + b * b) / denom)) / period
+    seg = np.where(same, dx * 0.5 * np.abs(a + b), dx * 0.5 * (a * a + b * b) / denom)
+    ra = np.sum(seg) / period
     return n.max() * 1e3, ra * 1e3, math.sqrt(rq) * 1e3
 
 
@@ -88,7 +89,8 @@ FAILURES = []
 
 def compare(label, got, want, tol):
     ok = abs(got - want) <= tol
-    print(f"{'ok  ' if ok else 'FAIL'} {label}: cuspmap {got:.6g} oracle {want:.6g} (tol {tol:.3g})")
+    status = "ok  " if ok else "FAIL"
+    print(f"{status} {label}: cuspmap {got:.6g} oracle {want:.6g} (tol {tol:.3g})")
     if not ok:
         FAILURES.append(label)
 
@@ -106,15 +108,16 @@ def main():
     planes = [
         ("ball level", ["--tool", "ball", "--diameter", "6", "--stepover", "0.5"], (3, 3, 0.5, 0)),
         ("ball level wide", ["--tool", "ball", "--diameter", "6", "--stepover", "4"], (3, 3, 4, 0)),
-        ("ball slope 30", ["--diameter", "6", "--slope", "30", "--stepover", "0.5"], (3, 3, 0.5, 30)),
+        ("ball slope 30", ["--diameter", "6", "--slope", "30", "--stepover", "0.5"],
+         (3, 3, 0.5, 30)),
         ("ball slope 60 (side cuts)", ["--diameter", "6", "--slope", "60", "--stepover", "2"],
          (3, 3, 2, 60)),
         ("bull-nose level", ["--tool", "bullnose", "--diameter", "10", "--corner-radius", "1",
                              "--stepover", "9"], (5, 1, 9, 0)),
         ("bull-nose slope 20", ["--tool", "bullnose", "--diameter", "10", "--corner-radius", "1",
                                 "--slope", "20", "--stepover", "3"], (5, 1, 3, 20)),
-        ("flat slope 10", ["--tool", "flat", "--diameter", "10", "--slope", "10", "--stepover", "1"],
-         (5, 0, 1, 10)),
+        ("flat slope 10", ["--tool", "flat", "--diameter", "10", "--slope", "10",
+                           "--stepover", "1"], (5, 0, 1, 10)),
         ("ball inch", ["--units", "in", "--diameter", "0.25", "--stepover", "0.02"],
          (3.175, 3.175, 0.508, 0)),
     ]

@@ -4,10 +4,10 @@
 #include <string>
 
 #include "cusp/cross_feed_cusp.h"
-#include "cusp/feed_mark.h"
-#include "cusp/scallop_plane.h"
 #include "cusp/cusp_setups.h"
+#include "cusp/feed_mark.h"
 #include "cusp/min_of_sections.h"
+#include "cusp/scallop_plane.h"
 #include "test_support.h"
 
 namespace {
@@ -60,9 +60,9 @@ TEST_CASE("cross_feed_cusp: planes match the min-of-sections profile", "[cusp]")
     CAPTURE(c.name);
     const CuspSetup setup = plane_setup(c.shape, c.d, c.rc, c.slope_deg);
     const CuspResult r = cuspmap::cross_feed_cusp(setup, c.stepover);
-    const OracleStats o = cuspmap::test::oracle_stats(cuspmap::test::plane_profile(
-        0.5 * c.d, c.shape == CutterShape::Ball ? 0.5 * c.d : c.rc, c.stepover, c.slope_deg,
-        kSamples));
+    const OracleStats o = cuspmap::test::oracle_stats(
+        cuspmap::test::plane_profile(0.5 * c.d, c.shape == CutterShape::Ball ? 0.5 * c.d : c.rc,
+                                     c.stepover, c.slope_deg, kSamples));
     require_matches(r, o);
   }
 }
@@ -84,7 +84,7 @@ TEST_CASE("cross_feed_cusp: cylinders match the min-of-circles profile", "[cusp]
     double d, rho, stepover;
   };
   const Case cases[] = {
-      {"convex rho 20", true, 6.0, 20.0, 0.5},  {"concave rho 20", false, 6.0, 20.0, 0.5},
+      {"convex rho 20", true, 6.0, 20.0, 0.5},        {"concave rho 20", false, 6.0, 20.0, 0.5},
       {"convex rho 3, large s", true, 6.0, 3.0, 2.0}, {"concave rho 5 < 2R", false, 6.0, 5.0, 2.0},
       {"concave rho 100", false, 10.0, 100.0, 1.5},
   };

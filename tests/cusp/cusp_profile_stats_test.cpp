@@ -1,8 +1,9 @@
 // Ideal-profile statistics: the parabolic constants, exact semicircle values, walls.
+#include "cusp/cusp_profile_stats.h"
+
 #include <cmath>
 #include <numbers>
 
-#include "cusp/cusp_profile_stats.h"
 #include "test_support.h"
 
 TEST_CASE("parabolic_cusp_stats: Ra = 4h/(9 sqrt 3), Rq = 2h/(3 sqrt 5), Rz = h", "[cusp]") {

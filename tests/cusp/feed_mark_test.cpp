@@ -1,7 +1,8 @@
 // Circle marks: turning theory (Boothroyd & Knight) and the ball feed-mark formula.
+#include "cusp/feed_mark.h"
+
 #include <cmath>
 
-#include "cusp/feed_mark.h"
 #include "test_support.h"
 
 TEST_CASE("feed_mark: turning theory Rt = f^2/(8r), Ra = f^2/(18 sqrt3 r)", "[cusp]") {

@@ -1,9 +1,10 @@
 // Inverse stepover: round trips through the forward model, closed form vs bisection,
 // published inverse examples and unreachable targets.
+#include "cusp/inverse_stepover.h"
+
 #include <cmath>
 
 #include "cusp/cross_feed_cusp.h"
-#include "cusp/inverse_stepover.h"
 #include "cusp/cusp_setups.h"
 #include "test_support.h"
 
@@ -15,7 +16,9 @@ using cuspmap::SurfaceKind;
 using cuspmap::test::make_setup;
 
 double value(const cuspmap::CuspResult& r, FinishTarget t) {
-  return t == FinishTarget::Ra ? r.stats.ra_um : t == FinishTarget::Rz ? r.stats.rz_um : r.scallop_um;
+  return t == FinishTarget::Ra   ? r.stats.ra_um
+         : t == FinishTarget::Rz ? r.stats.rz_um
+                                 : r.scallop_um;
 }
 }  // namespace
 
@@ -80,7 +83,8 @@ TEST_CASE("inverse_stepover: unreachable targets", "[cusp]") {
   REQUIRE(flat.max_target_um == 0.0);
   // A concave radius smaller than the ball.
   const auto tight = cuspmap::inverse_stepover(
-      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Concave, 0.0, 2.0), FinishTarget::Ra, 1.0);
+      make_setup(CutterShape::Ball, 6.0, 0.0, SurfaceKind::Concave, 0.0, 2.0), FinishTarget::Ra,
+      1.0);
   REQUIRE_FALSE(tight.reachable);
 }
 

@@ -1,5 +1,6 @@
 // ISO 1302 grade numbers: table values and the "smallest grade whose Ra >= the given Ra" rule.
 #include "cusp/iso1302_grade.h"
+
 #include "test_support.h"
 
 TEST_CASE("iso1302_grade: the N1-N12 table", "[cusp]") {

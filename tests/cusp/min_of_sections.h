@@ -35,8 +35,8 @@ inline double section_height_mm(double y, double big_r, double rc) {
 
 /// Passes stepover_mm apart (plan view) on a plane sloped alpha_deg across them; the profile
 /// over one period, heights measured along the normal from the contacts (their minimum).
-inline SampledProfile plane_profile(double big_r, double rc, double stepover_mm,
-                                    double alpha_deg, int samples) {
+inline SampledProfile plane_profile(double big_r, double rc, double stepover_mm, double alpha_deg,
+                                    int samples) {
   const double al = alpha_deg * std::numbers::pi / 180.0, t = std::tan(al);
   const int passes = static_cast<int>(2.0 * big_r / stepover_mm) + 4;
   std::vector<double> y(samples + 1), r(samples + 1);
@@ -60,8 +60,8 @@ inline SampledProfile plane_profile(double big_r, double rc, double stepover_mm,
 
 /// Ball of radius R on a cylinder of radius rho (convex: tool outside), contacts stepover_mm
 /// apart along the surface: height along each ray from the axis, against arc length rho*theta.
-inline SampledProfile cylinder_profile(double big_r, double rho, bool convex,
-                                       double stepover_mm, int samples) {
+inline SampledProfile cylinder_profile(double big_r, double rho, bool convex, double stepover_mm,
+                                       int samples) {
   const double phi = stepover_mm / rho;
   const double centre = convex ? rho + big_r : rho - big_r;
   SampledProfile p;
@@ -97,7 +97,8 @@ inline OracleStats oracle_stats(const SampledProfile& p) {
   for (size_t i = 0; i + 1 < x.size(); ++i) {
     const double a = n[i] - mean, b = n[i + 1] - mean, dx = x[i + 1] - x[i];
     rq += dx * (a * a + a * b + b * b) / 3.0;
-    ra += (a * b >= 0.0) ? dx * 0.5 * std::abs(a + b) : dx * 0.5 * (a * a + b * b) / std::abs(b - a);
+    ra +=
+        (a * b >= 0.0) ? dx * 0.5 * std::abs(a + b) : dx * 0.5 * (a * a + b * b) / std::abs(b - a);
   }
   OracleStats s;
   s.scallop_um = *std::max_element(n.begin(), n.end()) * 1000.0;

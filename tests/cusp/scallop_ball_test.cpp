@@ -1,8 +1,9 @@
 // Ball end-mill cusp on level and sloped floors against the handbook formula, published worked
 // examples, and the general sloped-plane solver.
+#include "cusp/scallop_ball.h"
+
 #include <cmath>
 
-#include "cusp/scallop_ball.h"
 #include "cusp/scallop_plane.h"
 #include "test_support.h"
 
@@ -16,8 +17,7 @@ TEST_CASE("scallop_ball_mm: handbook cusp formula h = R - sqrt(R^2 - (s/2)^2)", 
       const long double half = 0.5L * s;
       const long double naive = big_r - std::sqrt((long double)big_r * big_r - half * half);
       CAPTURE(big_r, s);
-      REQUIRE_NEAR(cuspmap::scallop_ball_mm(big_r, s), static_cast<double>(naive),
-                   1e-12 * big_r);
+      REQUIRE_NEAR(cuspmap::scallop_ball_mm(big_r, s), static_cast<double>(naive), 1e-12 * big_r);
     }
   }
 }

@@ -1,9 +1,10 @@
 // Bull-nose and flat end-mill cusp on a level floor: DESIGN.md closed form, its inverse, and
 // agreement with the general sloped-plane solver at slope 0.
+#include "cusp/scallop_bullnose.h"
+
 #include <cmath>
 
 #include "cusp/scallop_ball.h"
-#include "cusp/scallop_bullnose.h"
 #include "cusp/scallop_plane.h"
 #include "test_support.h"
 

@@ -1,9 +1,10 @@
 // Ball cusp on convex and concave cylinders: the small-stepover limit (Lin & Koren 1996), the
 // level-floor limit for large radii, the closed-form inverse and the model's edges.
+#include "cusp/scallop_curved.h"
+
 #include <cmath>
 
 #include "cusp/scallop_ball.h"
-#include "cusp/scallop_curved.h"
 #include "test_support.h"
 
 TEST_CASE("scallop_curved_mm: small-stepover limit (s^2/8)(1/R +- 1/rho)", "[cusp]") {

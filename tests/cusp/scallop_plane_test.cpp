@@ -1,7 +1,8 @@
 // Sloped-plane solver: the flat end mill's saw-tooth, mirror symmetry of the slope, the limits.
+#include "cusp/scallop_plane.h"
+
 #include <cmath>
 
-#include "cusp/scallop_plane.h"
 #include "cusp/cusp_setups.h"
 #include "test_support.h"
 

@@ -1,10 +1,11 @@
 // Cutter and patch range checks: each message verbatim, in flag and job-key style.
+#include "job/validate_cutter.h"
+
 #include <cmath>
 #include <limits>
 #include <string>
 
 #include "core/input_error.h"
-#include "job/validate_cutter.h"
 #include "test_support.h"
 
 namespace {
@@ -64,7 +65,8 @@ TEST_CASE("validate_cutter: each limit, verbatim", "[job]") {
   c.dish_deg = 45.0;
   REQUIRE(cutter_error(c, NameStyle::Flag) == "--dish 45 deg: must be >= 0 and < 45 deg");
   c.dish_deg = -0.5;
-  REQUIRE(cutter_error(c, NameStyle::JobKey) == "tool.dish_deg -0.5 deg: must be >= 0 and < 45 deg");
+  REQUIRE(cutter_error(c, NameStyle::JobKey) ==
+          "tool.dish_deg -0.5 deg: must be >= 0 and < 45 deg");
 
   c = ball6();
   c.teeth = 0;

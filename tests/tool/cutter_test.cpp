@@ -1,11 +1,12 @@
 // The cutter's lower surface p(r) against DESIGN.md "Geometry": ball sphere, bull-nose flat and
 // torus corner, dished flat cone; argmin, interval minimum, first-order tilt.
+#include "tool/cutter.h"
+
 #include <cmath>
 #include <limits>
 #include <numbers>
 
 #include "test_support.h"
-#include "tool/cutter.h"
 
 namespace {
 cuspmap::Cutter make(cuspmap::CutterShape shape, double d, double rc, double dish) {
@@ -85,8 +86,7 @@ TEST_CASE("profile_argmin_mm and profile_min_mm: unimodal minimum", "[tool]") {
 TEST_CASE("profile_height_tilted_mm: first-order tilt p - tan(t) v.n", "[tool]") {
   cuspmap::Cutter flat = make(cuspmap::CutterShape::Flat, 8.0, 0.0, 0.0);
   const Eigen::Vector2d v(2.0, 1.0);
-  REQUIRE(cuspmap::profile_height_tilted_mm(flat, v) ==
-          cuspmap::profile_height_mm(flat, v.norm()));
+  REQUIRE(cuspmap::profile_height_tilted_mm(flat, v) == cuspmap::profile_height_mm(flat, v.norm()));
   flat.tilt_deg = 1.0;
   flat.tilt_toward_deg = 90.0;  // lowest point of the end face towards +Y
   REQUIRE_NEAR(cuspmap::profile_height_tilted_mm(flat, v), -std::tan(1.0 * kDeg) * 1.0, 1e-12);
