@@ -279,34 +279,37 @@ void setup_stepover(CLI::App& sub) {
       "Closed-form cusp height, Ra/Rq/Rz and feed marks of a finishing pass for a given stepover\n"
       "(--stepover), or the stepover that meets a target (--target-scallop | --target-ra |\n"
       "--target-rz). Exact geometry first, the small-stepover approximation beside it.");
-  sub.add_option("--tool", opts->tool,
-                 "Cutter: ball | bullnose | flat (end mills) | insert (turning)")
+  sub.add_option("--tool", opts->tool, "ball | bullnose | flat (end mills) | insert (turning)")
+      ->type_name("KIND")
       ->capture_default_str();
-  sub.add_option("--diameter", opts->diameter, "End-mill diameter D (length)");
-  sub.add_option("--corner-radius", opts->corner_radius,
-                 "Bull-nose corner radius rc, 0 < rc <= D/2");
-  sub.add_option("--dish", opts->dish,
-                 "End-face dish angle (deg, >= 0); does not change the cross-feed cusp");
-  sub.add_option("--surface", opts->surface,
-                 "flat | convex | concave (cylinders: axis along the feed, ball only)")
+  sub.add_option("--diameter", opts->diameter, "End-mill diameter D")->type_name("LENGTH");
+  sub.add_option("--corner-radius", opts->corner_radius, "Bull-nose corner radius, 0 < rc <= D/2")
+      ->type_name("LENGTH");
+  sub.add_option("--dish", opts->dish, "End-face dish angle, >= 0 (no effect on the cusp)")
+      ->type_name("ANGLE");
+  sub.add_option("--surface", opts->surface, "flat | convex | concave (cylinders: ball only)")
+      ->type_name("KIND")
       ->capture_default_str();
-  sub.add_option("--surface-radius", opts->surface_radius, "Cylinder radius rho (convex/concave)");
-  sub.add_option("--slope", opts->slope, "Slope of a flat surface across the pass (deg, |a| < 90)");
-  sub.add_option("--stepover", opts->stepover,
-                 "Stepover (plan view on a flat or sloped floor; along the surface on cylinders)");
-  sub.add_option("--target-scallop", opts->target_scallop,
-                 "Target cusp height, e.g. 5um or 0.2thou");
-  sub.add_option("--target-ra", opts->target_ra,
-                 "Target Ra of the ideal profile, e.g. 0.8um or 32uin");
-  sub.add_option("--target-rz", opts->target_rz, "Target Rz of the ideal profile, e.g. 4um");
-  sub.add_option("--feed-per-tooth", opts->feed_per_tooth,
-                 "Feed per tooth fz: adds the feed-mark height");
-  sub.add_option("--teeth", opts->teeth,
-                 "Number of teeth: adds the once-per-revolution mark (runout)");
-  sub.add_option("--nose-radius", opts->nose_radius,
-                 "Turning insert nose radius r (--tool insert)");
-  sub.add_option("--feed-per-rev", opts->feed_per_rev,
-                 "Turning feed per revolution f (--tool insert)");
+  sub.add_option("--surface-radius", opts->surface_radius, "Cylinder radius rho")
+      ->type_name("LENGTH");
+  sub.add_option("--slope", opts->slope, "Slope of a flat surface across the pass, |a| < 90 deg")
+      ->type_name("ANGLE");
+  sub.add_option("--stepover", opts->stepover, "Stepover: plan view on planes, along cylinders")
+      ->type_name("LENGTH");
+  sub.add_option("--target-scallop", opts->target_scallop, "Target cusp height, e.g. 5um, 0.2thou")
+      ->type_name("HEIGHT");
+  sub.add_option("--target-ra", opts->target_ra, "Target Ra of the ideal profile, e.g. 0.8um")
+      ->type_name("HEIGHT");
+  sub.add_option("--target-rz", opts->target_rz, "Target Rz of the ideal profile, e.g. 4um")
+      ->type_name("HEIGHT");
+  sub.add_option("--feed-per-tooth", opts->feed_per_tooth, "Feed per tooth fz: adds feed marks")
+      ->type_name("LENGTH");
+  sub.add_option("--teeth", opts->teeth, "Teeth: adds the once-per-revolution mark (runout)")
+      ->type_name("N");
+  sub.add_option("--nose-radius", opts->nose_radius, "Turning insert nose radius r")
+      ->type_name("LENGTH");
+  sub.add_option("--feed-per-rev", opts->feed_per_rev, "Turning feed per revolution f")
+      ->type_name("LENGTH");
   add_common_flags(sub, opts->common);
   sub.footer(stepover_help_footer());
   sub.callback([opts, &sub] { run_stepover(*opts, sub); });

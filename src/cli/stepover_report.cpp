@@ -36,7 +36,7 @@ std::string height(double um, LengthUnit unit) {
     const double uin = um * kUinPerUm;
     return sig(uin) + " uin (" + sig(uin * 1e-3) + " thou)";
   }
-  return sig(um) + " um";
+  return sig(um) + " um (" + sig(um * kUinPerUm) + " uin)";
 }
 
 std::string shape_words(const CuspSetup& s, LengthUnit unit) {
@@ -318,14 +318,16 @@ std::string stepover_help_footer() {
          "(--target-*) are lengths too: write 5um or 0.2thou (a bare 5 means 5 mm).\n"
          "Ra, Rq, Rz are those of the ideal periodic profile (ISO 4287 over whole periods); the\n"
          "exact arc profile comes first, the parabolic small-stepover form beside it\n"
-         "(Ra = 4h/(9 sqrt 3), Rq = 2h/(3 sqrt 5), Rz = h). --json prints one object in mm/um.\n"
-         "Examples (a mould insert and a pump cover):\n"
+         "(Ra = 4h/(9 sqrt 3), Rq = 2h/(3 sqrt 5), Rz = h). --json prints one object in mm/um;\n"
+         "effective_radius_mm is R (ball on a plane), R rho/(rho +- R) (cylinders), rc (bull-nose\n"
+         "corner), 0 (sharp corner on a slope) or null (a flat face finishes the floor).\n"
+         "Examples:\n"
          "  cuspmap stepover --tool ball --diameter 6 --stepover 0.5\n"
          "  cuspmap stepover --tool ball --diameter 0.25in --target-scallop 0.4thou --units in\n"
          "  cuspmap stepover --tool bullnose --diameter 10 --corner-radius 1 --slope 20 "
          "--target-ra 0.8um\n"
-         "  cuspmap stepover --tool ball --diameter 6 --surface concave --surface-radius 20 "
-         "--stepover 0.4 --feed-per-tooth 0.08 --teeth 2 --json\n"
+         "  cuspmap stepover --tool ball --diameter 6 --surface concave --surface-radius 20 \\\n"
+         "      --stepover 0.4 --feed-per-tooth 0.08 --teeth 2 --json\n"
          "  cuspmap stepover --tool insert --nose-radius 0.8 --feed-per-rev 0.2\n";
 }
 
