@@ -1,8 +1,7 @@
-// Presentation of `cuspmap stepover` results: the compact human table (mm/um or in/uin), the
-// one JSON object (always mm/um), the warning/note/caution lines both share, the message for an
-// unreachable target, and the --help footer. No computation beyond unit display.
-// Method: DESIGN.md "Command line" (keys stepover_mm, scallop_height_um, ra_um, rq_um, rz_um,
-// feed_mark_um, effective_radius_mm).
+// Presentation of `cuspmap stepover` results: human table (mm/um or in/uin), one JSON object
+// (mm/um), warning/note/caution lines, the unreachable-target message and the --help footer.
+// Inputs: StepoverReport; outputs: text and JSON. No computation beyond unit display.
+// Method: DESIGN.md "Command line" (stepover JSON keys).
 #pragma once
 
 #include <nlohmann/json.hpp>

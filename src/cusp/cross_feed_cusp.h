@@ -1,8 +1,7 @@
-// The cross-feed cusp for any supported cutter and surface: picks the exact closed form (ball,
-// bull-nose/flat on a level floor, ball on cylinders) or the exact sloped-plane solver, and puts
-// the small-stepover approximation and the effective radius beside it. Lengths mm, heights um.
-// Method: DESIGN.md "Closed forms"; approximations h ~ c^2/(8 R_eff) with R_eff = R, rc,
-// R rho/(rho +- R) (Lin & Koren 1996 small-stepover limit), bull-nose (s/2 - (R - rc))^2/(2 rc).
+// The cross-feed cusp for any supported cutter and surface, exact (closed form or sloped-plane
+// solver) with the small-stepover approximation and effective radius beside it. mm in, um out.
+// Method: DESIGN.md "Closed forms"; h ~ c^2/(8 R_eff), R_eff = R, rc, R rho/(rho +- R) (Lin &
+// Koren 1996 small-stepover limit); bull-nose (s/2 - (R - rc))^2/(2 rc).
 #pragma once
 
 #include "cusp/cusp_setup.h"

@@ -1,7 +1,6 @@
-// Ra, Rq and Rz of the ideal periodic cusp profile a finishing pass leaves: the parabolic
-// approximation in closed form, and the exact profile (circle arcs, flats, tilted walls) by
-// graded Gauss-Legendre quadrature accurate to ~1e-12 relative. Geometry in mm, results in um.
-// Method: ISO 4287:1997 §4.2.1 (Ra), §4.2.2 (Rq) over whole periods; parabola: Ra = 4h/(9 sqrt 3),
+// Ra, Rq, Rz of the ideal periodic cusp profile: parabolic forms in closed form, the exact
+// profile (arcs, flats, tilted walls) by graded Gauss-Legendre to ~1e-12. mm in, um out.
+// Method: ISO 4287:1997 §4.2.1-4.2.2 over whole periods; parabola Ra = 4h/(9 sqrt 3),
 // Rq = 2h/(3 sqrt 5) (DESIGN.md "Closed forms"); Gauss-Legendre nodes by Newton on P_n.
 #pragma once
 

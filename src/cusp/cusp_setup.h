@@ -1,8 +1,7 @@
-// What a closed-form cusp question is about (cutter, surface, slope) and the named result every
-// cusp/ function returns: exact cusp height and profile statistics, the small-stepover
-// approximation beside them, the effective radius, and where the answer leaves the model.
-// Method: DESIGN.md "Closed forms"; heights along the surface normal, stepover in plan view on
-// planes and along the surface on cylinders whose axis runs along the feed.
+// A closed-form cusp question (cutter, surface, slope) and the named result every cusp/ function
+// returns: exact height and statistics, the approximation beside them, effective radius, limits.
+// Heights along the surface normal; stepover in plan view on planes, along cylinders.
+// Method: DESIGN.md "Closed forms" and "Command line" (stepover conventions).
 #pragma once
 
 #include <optional>

@@ -1,9 +1,7 @@
-// Marks of a circle of radius r stepped f apart: the feed-per-tooth marks of a ball (r = R) or a
-// bull-nose corner (r = rc) along the feed, and the feed marks a turning insert's nose radius
-// leaves per revolution. Exact height r - sqrt(r^2 - (f/2)^2), Ra/Rq of the arc profile, and the
-// classical approximations Rt = f^2/(8r), Ra = f^2/(18 sqrt(3) r). Lengths mm, heights um.
-// Method: Boothroyd & Knight, Fundamentals of Machining and Machine Tools (ideal roughness of a
-// round-nosed tool); ball feed mark as in DESIGN.md "Closed forms".
+// Marks of a circle of radius r stepped f apart: ball (r = R) or bull-nose corner (r = rc) feed
+// marks per tooth, turning feed marks per revolution. Exact r - sqrt(r^2 - (f/2)^2) and arc Ra/Rq,
+// approximations Rt = f^2/(8r), Ra = f^2/(18 sqrt 3 r). Lengths mm, heights um.
+// Method: Boothroyd & Knight, Fundamentals of Machining and Machine Tools (round-nosed tool).
 #pragma once
 
 #include "cusp/cusp_setup.h"

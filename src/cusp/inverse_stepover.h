@@ -1,9 +1,7 @@
-// The largest stepover (or turning feed) that keeps the cusp height, Ra or Rz at a target:
-// closed-form inverses where they exist (ball on planes and cylinders, bull-nose on a level
-// floor, flat end mill on a slope), otherwise bisection on the exact forward model to 1e-12
-// relative; the small-stepover approximation's stepover beside it. Lengths mm, heights um.
-// Method: inverses of the forms in scallop_ball.h, scallop_bullnose.h, scallop_curved.h,
-// feed_mark.h; bisection on a quantity that grows with the stepover.
+// The largest stepover (or turning feed) meeting a target cusp, Ra or Rz: closed-form inverses
+// where they exist, else bisection on the exact forward model to 1e-12; the approximation's
+// stepover beside it. Lengths mm, heights um.
+// Method: inverses of scallop_ball.h, scallop_bullnose.h, scallop_curved.h, feed_mark.h forms.
 #pragma once
 
 #include "cusp/cusp_setup.h"

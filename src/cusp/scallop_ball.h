@@ -1,8 +1,7 @@
-// Cusp left by a ball end mill between neighbouring passes on a level or sloped floor: the
-// circle geometry h = R - sqrt(R^2 - (c/2)^2) with c the contact spacing along the surface
-// (c = stepover / cos(slope) for a plan-view stepover), and its inverse. Lengths mm, heights um.
-// Method: standard handbook cusp-height formula (e.g. Machinery's Handbook, "ball end mill
-// cusp height"); slope: DESIGN.md "Closed forms" (s / cos(alpha) along the surface).
+// Cusp of a ball end mill between neighbouring passes on a level or sloped floor,
+// h = R - sqrt(R^2 - (c/2)^2) with contact spacing c = stepover / cos(slope), and its inverse.
+// Method: handbook cusp-height formula (Machinery's Handbook, ball end mill cusp height);
+// slope: DESIGN.md "Closed forms" (s / cos(alpha) along the surface). Lengths mm, heights um.
 #pragma once
 
 #include "cusp/cusp_setup.h"

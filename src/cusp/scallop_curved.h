@@ -1,16 +1,15 @@
-// Cusp left by a ball end mill on a convex or concave cylinder whose axis runs along the feed,
-// stepover measured along the nominal surface: the neighbouring tool circles have their centres
-// on radius rho + R (convex) or rho - R (concave); the cusp is where they meet, its height
-// measured along the normal from the nominal radius. Lengths mm, heights um.
-// Method: circle-intersection scallop geometry (Lin & Koren 1996, Int. J. Mach. Tools Manuf.,
-// iso-scallop paths; small-stepover limit h ~ (s^2/8)(1/R +- 1/rho)); the ball is a full sphere
-// (valid where the cusp lies on the ball's lower half, e.g. near the crown or with the axis
-// along the normal).
+// Cusp of a ball end mill on a convex or concave cylinder (axis along the feed, stepover along the
+// surface): where neighbouring tool circles (centres on rho + R or rho - R) meet, height along
+// the normal from the nominal radius. Lengths mm, heights um.
+// Method: circle-intersection scallop geometry (Lin & Koren 1996, Int. J. Mach. Tools Manuf.).
 #pragma once
 
 #include "cusp/cusp_setup.h"
 
 namespace cuspmap {
+
+// The ball is treated as a full sphere: valid where the cusp lies on the ball's lower half (near
+// the crown, or with the tool axis along the surface normal as on five-axis machines).
 
 /// Exact cusp height, mm, of a ball on a cylinder, between contacts `stepover_mm` apart along the
 /// surface. Written as c0 / (B + sqrt(B^2 - c0)), c0 = 4 rho A sin^2(phi/4),

@@ -1,8 +1,7 @@
 // Cusp of a revolving end mill on a sloped plane: bisection on the crossing of neighbouring
 // swept sections, then the exact profile's statistics in the surface frame.
 // Inputs: Cutter (mm), plan-view stepover (mm), slope (deg); output: CuspResult (um).
-// Method: swept-section geometry (DESIGN.md "Geometry": envelope = min of p over the chord);
-// arc residuals in the stable versine form d - rc cos(beta - alpha).
+// Method: swept section = min of p over the chord (DESIGN.md "Geometry"); versine arc residuals.
 #include "cusp/scallop_plane.h"
 
 #include <algorithm>

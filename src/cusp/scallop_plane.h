@@ -1,10 +1,6 @@
 // Exact cusp of any revolving end mill (ball, bull-nose, flat; vertical axis) on a plane sloped
-// across the pass, for any plan-view stepover: heights along the normal, Ra/Rq/Rz of the exact
-// profile, and whether the cutter's side or an uncut strip bounds the cusp. Lengths mm, um out.
-// Method: the swept section of a revolving cutter is its lower profile p(|y|) (the dish does not
-// change it: the lowest ring sweeps the chord) with vertical sides at |y| = R; relative to the
-// surface line its height is convex with its minimum at the contact, so the cusp is the unique
-// crossing of two neighbouring sections, found by bisection to 1e-15 of the stepover.
+// across the pass, at any plan-view stepover: height along the normal, Ra/Rq/Rz, limits. mm, um.
+// Method: swept-section crossing (DESIGN.md "Geometry"), bisection to 1e-15 of the stepover.
 // Cost: ~60 section evaluations for the height, ~10^4 for the statistics.
 #pragma once
 
@@ -12,6 +8,11 @@
 #include "tool/cutter.h"
 
 namespace cuspmap {
+
+// The swept section of a revolving cutter is its lower profile p(|y|) (the dish does not change
+// it: the lowest ring sweeps every chord) with vertical sides at |y| = R. Relative to the surface
+// line its height is convex with its minimum at the contact, so the cusp is the unique crossing
+// of two neighbouring sections.
 
 /// Exact cusp between neighbouring straight passes of `cutter` on a plane of slope `slope_deg`.
 /// Fills stepover, chord, scallop, stats, limit (PassesDoNotOverlap when s >= D: the height is
