@@ -64,16 +64,18 @@ TEST_CASE("cusp_cases.toml: published values", "[cusp]") {
     CAPTURE(name, row["source"].value_or(std::string()));
     cuspmap::CuspResult r;
     double approx_step = 0.0;
+    auto take = [&](const cuspmap::StepoverSolution& sol) {
+      REQUIRE(sol.reachable);
+      r = sol.cusp;
+      approx_step = sol.stepover_approx_mm;
+    };
+    const double target_um = mode == "forward" ? 0.0 : length_mm(row, "target") * cuspmap::kUmPerMm;
     if (tool == "insert") {
       const double nose = length_mm(row, "nose_radius");
       if (mode == "forward") {
         r = cuspmap::feed_mark(nose, length_mm(row, "stepover"));
       } else {
-        const auto sol = cuspmap::inverse_feed_mark(nose, target_of(mode),
-                                                    length_mm(row, "target") * cuspmap::kUmPerMm);
-        REQUIRE(sol.reachable);
-        r = sol.cusp;
-        approx_step = sol.stepover_approx_mm;
+        take(cuspmap::inverse_feed_mark(nose, target_of(mode), target_um));
       }
     } else {
       cuspmap::CuspSetup setup;
@@ -86,11 +88,7 @@ TEST_CASE("cusp_cases.toml: published values", "[cusp]") {
       if (mode == "forward") {
         r = cuspmap::cross_feed_cusp(setup, length_mm(row, "stepover"));
       } else {
-        const auto sol = cuspmap::inverse_stepover(setup, target_of(mode),
-                                                   length_mm(row, "target") * cuspmap::kUmPerMm);
-        REQUIRE(sol.reachable);
-        r = sol.cusp;
-        approx_step = sol.stepover_approx_mm;
+        take(cuspmap::inverse_stepover(setup, target_of(mode), target_um));
       }
     }
     REQUIRE_NEAR(pick(r, approx_step, quantity), read_value(*row.get("expected"), quantity),
