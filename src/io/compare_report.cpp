@@ -87,17 +87,23 @@ nlohmann::json compare_json(const std::vector<CompareRow>& rows) {
 
 std::string compare_csv(const std::vector<CompareRow>& rows) {
   const auto quote = [](const std::string& s) {
-    std::string q = "\"";
-    for (char c : s) q += c == '"' ? std::string("\"\"") : std::string(1, c);
-    return q + "\"";
+    std::string q(1, '"');
+    for (char c : s) {
+      q.push_back(c);
+      if (c == '"') q.push_back('"');  // RFC 4180: a quote inside a field is doubled
+    }
+    q.push_back('"');
+    return q;
   };
   std::string csv = "name,job";
-  for (const CompareColumn& c : compare_columns()) csv += std::string(",") + c.key;
-  csv += "\n";
+  for (const CompareColumn& c : compare_columns()) csv.append(",").append(c.key);
+  csv.push_back('\n');
   for (const CompareRow& row : rows) {
-    csv += quote(row.job.name) + "," + quote(row.job.source);
-    for (const CompareColumn& c : compare_columns()) csv += "," + format_number(c.value(row));
-    csv += "\n";
+    csv.append(quote(row.job.name)).append(",").append(quote(row.job.source));
+    for (const CompareColumn& c : compare_columns()) {
+      csv.append(",").append(format_number(c.value(row)));
+    }
+    csv.push_back('\n');
   }
   return csv;
 }

@@ -35,7 +35,7 @@ std::vector<Job> vary_job(const Job& base, std::string_view parameter,
     } else {
       throw InputError(flag + ": not a parameter that can be varied");
     }
-    job.name = base.name + ", " + std::string(parameter) + " " + value;
+    job.name = std::string(parameter) + " " + value + " | " + base.name;
     jobs.push_back(std::move(job));
   }
   return jobs;

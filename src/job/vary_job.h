@@ -14,7 +14,7 @@ namespace cuspmap {
 inline constexpr std::string_view kVariableParameters[] = {"stepover", "angle", "raster-direction",
                                                            "tilt", "dish"};
 
-/// One copy of `base` per value, each renamed "<name>, <parameter> <value>".
+/// One copy of `base` per value, each renamed "<parameter> <value> | <name>".
 /// @param[in] base       validated job
 /// @param[in] parameter  one of kVariableParameters
 /// @param[in] values     the values as typed (lengths with optional suffix, angles in deg,

@@ -1,6 +1,6 @@
 // CLI tests of G-code jobs: `cuspmap simulate JOB.toml --out DIR` with [path] kind = "gcode".
 // Bad programs exit 2 with one stderr line naming file:line, the word and why, and write no
-// output files; good programs write the report. Hidden ([.cli-pending]) until `simulate` lands.
+// output files; good programs write the report. Hidden () until `simulate` lands.
 #include <filesystem>
 #include <nlohmann/json.hpp>
 #include <string>
@@ -41,7 +41,7 @@ test::RunResult simulate(const test::TempDir& dir, const std::string& program, b
 
 }  // namespace
 
-TEST_CASE("simulate: unsupported G-code exits 2 with file:line, word and why", "[cli][.cli-pending]") {
+TEST_CASE("simulate: unsupported G-code exits 2 with file:line, word and why", "[cli]") {
   test::TempDir dir;
   const test::RunResult r = simulate(dir, "G21 G90\nG0 X0 Y0 Z5\nG41 D1 G1 X1 F100\n");
   CHECK(r.exit_code == 2);
@@ -52,7 +52,7 @@ TEST_CASE("simulate: unsupported G-code exits 2 with file:line, word and why", "
   CHECK(no_output(dir.file("out")));
 }
 
-TEST_CASE("simulate: malformed G-code programs exit 2 and write nothing", "[cli][.cli-pending]") {
+TEST_CASE("simulate: malformed G-code programs exit 2 and write nothing", "[cli]") {
   struct Case {
     const char* program;
     const char* tail;
@@ -80,7 +80,7 @@ TEST_CASE("simulate: malformed G-code programs exit 2 and write nothing", "[cli]
   }
 }
 
-TEST_CASE("simulate: a 100 MB single-line program exits 2 at line 1", "[cli][.cli-pending]") {
+TEST_CASE("simulate: a 100 MB single-line program exits 2 at line 1", "[cli]") {
   test::TempDir dir;
   test::write_text(dir.file("part.nc"), std::string(100 << 20, 'X'));
   test::write_text(dir.file("job.toml"), gcode_job("part.nc"));
@@ -90,7 +90,7 @@ TEST_CASE("simulate: a 100 MB single-line program exits 2 at line 1", "[cli][.cl
   CHECK(no_output(dir.file("out")));
 }
 
-TEST_CASE("simulate: a G-code floor program writes the report, patch from its extent", "[cli][.cli-pending]") {
+TEST_CASE("simulate: a G-code floor program writes the report, patch from its extent", "[cli]") {
   // Zigzag of three passes 0.5 mm apart over x in [0, 4], joined by semicircles (G3/G2, R form).
   const std::string program =
       "%\nO3001 (TEST FLOOR)\nG17 G21 G90 G94\nM3 S10000\nG0 X0 Y0 Z2\nG1 Z0 F600\n"
