@@ -1,0 +1,38 @@
+// The --out folder of a command: created if missing, never wiped; files are written only under
+// names cuspmap chooses (never names taken from input files), each through write_file_atomic.
+#pragma once
+
+#include <string>
+#include <string_view>
+#include <vector>
+
+namespace cuspmap {
+
+/// An output folder and the files written into it so far.
+class OutputDir {
+ public:
+  /// Creates the folder (and parents) if needed.
+  /// @throws InputError when the path exists and is not a folder, or cannot be created.
+  explicit OutputDir(std::string path);
+
+  /// Writes `bytes` to <folder>/<name> atomically. `name` must be a plain file name made by
+  /// cuspmap (no '/', no "..", not empty): anything else is a programming error.
+  void write(std::string_view name, std::string_view bytes);
+
+  /// Full path of a file in the folder.
+  std::string path_of(std::string_view name) const;
+  /// The folder.
+  const std::string& path() const { return path_; }
+  /// Names written so far, in order.
+  const std::vector<std::string>& written() const { return written_; }
+
+ private:
+  std::string path_;
+  std::vector<std::string> written_;
+};
+
+/// A file name derived from user text (a job name) reduced to [A-Za-z0-9_-.], at most 60 chars,
+/// never starting with '.', so it cannot leave the output folder.
+std::string safe_file_stem(std::string_view text);
+
+}  // namespace cuspmap
