@@ -12,6 +12,7 @@
 #include "finish/grit_table.h"
 #include "finish/sanding_allowance.h"
 #include "finish/surface_heights.h"
+#include "finish/toolpath_machine_time.h"
 #include "tool/cutter.h"
 
 namespace cuspmap {
@@ -33,15 +34,6 @@ struct PlanSpec {
   double area_mm2 = 0.0;                    ///< finished area, mm^2, > 0
   GritTable grit_table;                     ///< grades available
   std::vector<std::string> grits;           ///< sanding sequence, coarse to fine, non-empty
-};
-
-/// Machine time of one option's path.
-struct MachineTime {
-  int passes = 0;                   ///< finishing passes
-  double path_length_mm = 0.0;      ///< length of all moves (feed and rapid), mm
-  double cycle_time_s = 0.0;        ///< feed moves at their feed, rapids at the rapid rate, s
-  double overhead_s = 0.0;          ///< passes x per-pass overhead, s
-  double machine_time_s = 0.0;      ///< cycle_time_s + overhead_s
 };
 
 /// One priced option.
