@@ -4,6 +4,7 @@
 #include "finish/price_option.h"
 
 #include <cassert>
+#include <cmath>
 #include <utility>
 
 #include "core/units.h"
@@ -13,17 +14,22 @@ namespace {
 
 constexpr double kSecondsPerHour = 3600.0;
 
+// Heights in reasons are shown to 0.1 um, Ra to 0.001 um (finer digits are noise next to the
+// model's own error).
+std::string um_text(double um) { return format_number(std::round(um * 10.0) / 10.0) + " um"; }
+
 // Whether a finish meets the targets; on a miss, `why` names the first target missed.
 bool meets_targets(const PlanSpec& spec, double ra_um, double peak_to_valley_um, const char* what,
                    std::string& why) {
   if (spec.target_ra_um && ra_um > *spec.target_ra_um) {
-    why = std::string(what) + " Ra " + format_number(ra_um) + " um > target " +
+    why = std::string(what) + " Ra " + format_number(std::round(ra_um * 1000.0) / 1000.0) +
+          " um > target " +
           format_number(*spec.target_ra_um) + " um";
     return false;
   }
   if (spec.target_scallop_um && peak_to_valley_um > *spec.target_scallop_um) {
-    why = std::string(what) + " peak-to-valley " + format_number(peak_to_valley_um) +
-          " um > target " + format_number(*spec.target_scallop_um) + " um";
+    why = std::string(what) + " peak-to-valley " + um_text(peak_to_valley_um) + " > target " +
+          format_number(*spec.target_scallop_um) + " um";
     return false;
   }
   return true;
@@ -65,7 +71,7 @@ PlanOption price_option(const std::string& tool, const Cutter& cutter, double st
       option.reason = why + ": add finer grades";
     } else if (!allowance.within_tolerance) {
       option.reason = "sanding changes the dimension by up to " +
-                      format_number(allowance.dimension_change_um) + " um > tolerance +-" +
+                      um_text(allowance.dimension_change_um) + " > tolerance +-" +
                       format_number(*allowance.tolerance_um) + " um";
     } else {
       option.meets_spec = true;

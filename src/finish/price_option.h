@@ -57,6 +57,12 @@ struct PlanOption {
   std::string reason;               ///< one line: why it meets or misses the spec
 };
 
+/// The priced options of a plan (tools in order, stepovers ascending) and the best one.
+struct PlanResult {
+  std::vector<PlanOption> options;     ///< every option tried
+  std::optional<std::size_t> best;     ///< index of the cheapest option meeting the spec, or none
+};
+
 /// Prices an option.
 /// @param[in] tool         label for reports
 /// @param[in] cutter       validated cutter
