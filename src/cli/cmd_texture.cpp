@@ -1,12 +1,189 @@
-// `cuspmap texture`: not built yet; refuses with exit 2 until its issue lands.
+// `cuspmap texture FILE`: reads a heightmap (npy, csv, xyz, sdf, x3p), prints ISO 4287 profile
+// and ISO 25178-2 areal parameters as a table or one JSON object, optionally re-saves the map.
+// cli/ holds no computation: flags -> io/read_heightmap -> texture/texture_report -> print.
+#include <cstdio>
+#include <memory>
+#include <string>
+
 #include "cli/command.h"
 #include "core/input_error.h"
+#include "core/stage_timer.h"
+#include "core/units.h"
+#include "core/write_file_atomic.h"
+#include "io/read_heightmap.h"
+#include "io/texture_json.h"
+#include "texture/texture_report.h"
 
 namespace cuspmap {
+namespace {
+
+struct TextureCliOptions {
+  CommonOptions common;
+  std::string file;
+  std::string cell;                  ///< cell size for npy/csv (length with optional suffix)
+  std::string cutoff = "auto";       ///< auto (ISO 4288) or a length
+  std::string lambda_s = "auto";     ///< auto (ISO 3274 pairing), 0 (none) or a length
+  std::string direction = "across";  ///< across | along | angle in deg
+  std::string lay;                   ///< known lay direction, deg (else detected)
+  std::string z_units;               ///< um | nm | mm | m for npy/csv/xyz
+  std::string s_filter;              ///< areal S-filter nesting index (length)
+  std::string l_filter;              ///< areal L-filter nesting index (length)
+  std::string export_path;           ///< re-save the heightmap in the format of this extension
+};
+
+double positive_length(const std::string& text, LengthUnit unit, const char* flag) {
+  const double mm = parse_length_mm(text, unit, flag);
+  if (!(mm > 0.0)) throw InputError(std::string(flag) + " " + text + ": must be > 0");
+  return mm;
+}
+
+TextureOptions texture_options(const TextureCliOptions& o, LengthUnit unit) {
+  TextureOptions t;
+  if (o.direction == "across") {
+    t.direction = ProfileDirection::Across;
+  } else if (o.direction == "along") {
+    t.direction = ProfileDirection::Along;
+  } else {
+    t.direction = ProfileDirection::Angle;
+    try {
+      t.direction_deg = parse_angle_deg(o.direction, "--direction");
+    } catch (const InputError&) {
+      throw InputError("--direction '" + o.direction +
+                       "': allowed are across, along or an angle in deg");
+    }
+  }
+  if (!o.lay.empty()) t.lay_deg = parse_angle_deg(o.lay, "--lay");
+  if (o.cutoff != "auto") t.cutoff_mm = positive_length(o.cutoff, unit, "--cutoff");
+  if (o.lambda_s != "auto") {
+    const double mm = parse_length_mm(o.lambda_s, unit, "--lambda-s");
+    if (mm < 0.0)
+      throw InputError("--lambda-s " + o.lambda_s + ": must be >= 0 (0 = no short-wave filter)");
+    t.lambda_s_um = mm * kUmPerMm;
+  }
+  if (!o.s_filter.empty()) t.s_filter_mm = positive_length(o.s_filter, unit, "--s-filter");
+  if (!o.l_filter.empty()) t.l_filter_mm = positive_length(o.l_filter, unit, "--l-filter");
+  return t;
+}
+
+std::string fixed(double v, int decimals) {
+  char buf[64];
+  std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
+  return buf;
+}
+
+// One table row: name, value in um and uin, and a note.
+void height_row(const char* name, double um, const std::string& note = "") {
+  std::printf("  %-4s %11s um %11s uin  %s\n", name, fixed(um, 4).c_str(),
+              fixed(um * kUinPerUm, 2).c_str(), note.c_str());
+}
+
+void print_table(const HeightmapFile& file, const TextureReport& r, const std::string& path) {
+  const ProfileReport& p = r.profile;
+  const ProfileParameters& q = p.roughness;
+  std::printf("%s: %s, %d x %d cells of %s mm (%s x %s mm), cell from %s\n", path.c_str(),
+              file.format.c_str(), file.field.nx, file.field.ny, format_number(r.cell_mm).c_str(),
+              format_number(r.size_x_mm).c_str(), format_number(r.size_y_mm).c_str(),
+              file.cell_source.c_str());
+  std::printf("\nProfile (ISO 4287), %s the lay at %s deg, mean of %d traces\n",
+              p.direction == "angle" ? "at an angle to" : p.direction.c_str(),
+              format_number(p.direction_deg).c_str(), p.traces);
+  std::printf("  cut-off %s mm (%s), lambda-s %s um, evaluation length %s mm = %d x %s mm\n",
+              format_number(p.cutoff_mm).c_str(), p.cutoff_rule.c_str(),
+              format_number(p.lambda_s_um).c_str(), format_number(p.evaluation_length_mm).c_str(),
+              p.sampling_lengths, format_number(p.cutoff_mm).c_str());
+  height_row("Ra", q.a_um, "ISO 1302 " + p.iso1302_grade);
+  height_row("Rq", q.q_um);
+  height_row("Rz", q.z_um, "mean of " + std::to_string(p.sampling_lengths) + " sampling lengths");
+  height_row("Rp", q.p_um);
+  height_row("Rv", q.v_um);
+  height_row("Rt", q.t_um);
+  std::printf("  Rsk %s   Rku %s   RSm %s mm\n", fixed(q.sk, 3).c_str(), fixed(q.ku, 3).c_str(),
+              format_number(q.sm_mm).c_str());
+  std::printf("  primary: Pa %s um, Pt %s um;  waviness: Wa %s um, Wt %s um\n",
+              format_number(p.primary.a_um).c_str(), format_number(p.primary.t_um).c_str(),
+              format_number(p.waviness.a_um).c_str(), format_number(p.waviness.t_um).c_str());
+  const ArealReport& a = r.areal;
+  const ArealParameters& s = a.parameters;
+  std::printf(
+      "\nAreal (ISO 25178-2), least-squares plane removed%s%s\n",
+      a.s_filter_mm > 0 ? (", S-filter " + format_number(a.s_filter_mm) + " mm").c_str() : "",
+      a.l_filter_mm > 0 ? (", L-filter " + format_number(a.l_filter_mm) + " mm").c_str() : "");
+  height_row("Sa", s.sa_um);
+  height_row("Sq", s.sq_um);
+  height_row("Sz", s.sz_um);
+  height_row("Sp", s.sp_um);
+  height_row("Sv", s.sv_um);
+  std::printf("  Ssk %s   Sku %s   Sdr %s %%   Str %s   Sal %s mm\n", fixed(s.ssk, 3).c_str(),
+              fixed(s.sku, 3).c_str(), format_number(s.sdr * 100.0).c_str(),
+              fixed(a.spatial.str, 3).c_str(), format_number(a.spatial.sal_mm).c_str());
+  std::printf("  lay %s deg from +X (strength %s)\n", fixed(a.spatial.lay_deg, 1).c_str(),
+              fixed(a.spatial.lay_strength, 2).c_str());
+  if (!r.warnings.empty()) {
+    std::printf("\nWarnings:\n");
+    for (const std::string& w : r.warnings) std::printf("  - %s\n", w.c_str());
+  }
+}
+
+void run_texture(const TextureCliOptions& o) {
+  const LengthUnit unit = o.common.length_unit();
+  const TextureOptions topt = texture_options(o, unit);
+  HeightmapReadOptions ropt;
+  if (!o.cell.empty()) ropt.cell_mm = positive_length(o.cell, unit, "--cell");
+  if (!o.z_units.empty()) {
+    z_units_to_um(o.z_units);  // validates the value before reading
+    ropt.z_units = o.z_units;
+  }
+  StageTimer timer;
+  const HeightmapFile file = read_heightmap(o.file, ropt);
+  print_stage(o.common.verbose, "read", timer.lap());
+  const TextureReport report = texture_report(file.field, topt);
+  print_stage(o.common.verbose, "texture", timer.lap());
+  if (!o.export_path.empty()) {
+    write_file_atomic(o.export_path, encode_heightmap(file.field, o.export_path));
+    print_stage(o.common.verbose, "export", timer.lap());
+  }
+  if (o.common.json) {
+    print_json(texture_report_json(report));
+  } else {
+    print_table(file, report, o.file);
+  }
+}
+
+}  // namespace
 
 void setup_texture(CLI::App& sub) {
-  sub.allow_extras();
-  sub.callback([] { throw InputError("'texture' is not built yet in this version of cuspmap"); });
+  auto opts = std::make_shared<TextureCliOptions>();
+  sub.add_option("file", opts->file,
+                 "Heightmap: .npy (um), .csv grid (um), .xyz X Y Z list (mm, mm, um), .sdf or .x3p "
+                 "(metres)")
+      ->required();
+  sub.add_option("--cell", opts->cell,
+                 "Cell size for .npy/.csv (else report.json beside the file gives cell_mm)");
+  sub.add_option("--cutoff", opts->cutoff,
+                 "Profile cut-off lambda-c: auto (ISO 4288 rules) or a length")
+      ->capture_default_str();
+  // Reason for the flag: instruments are often set to a lambda-s other than ISO 3274's pairing.
+  sub.add_option("--lambda-s", opts->lambda_s,
+                 "Short-wave cut-off: auto (ISO 3274 pairing), 0 (none) or a length")
+      ->capture_default_str();
+  sub.add_option("--direction", opts->direction,
+                 "Profile direction: across (the lay), along, or an angle in deg from +X")
+      ->capture_default_str();
+  // Reason for the flag: the lay is known from the toolpath when the surface is too isotropic to
+  // detect it.
+  sub.add_option("--lay", opts->lay,
+                 "Lay direction in deg from +X when known (default: detected from the spectrum)");
+  sub.add_option("--z-units", opts->z_units,
+                 "Height unit of .npy/.csv/.xyz values: um (default), nm, mm, m");
+  sub.add_option("--s-filter", opts->s_filter,
+                 "Areal S-filter nesting index (Gaussian, ISO 16610-61); default none");
+  sub.add_option("--l-filter", opts->l_filter,
+                 "Areal L-filter nesting index (Gaussian); default none (plane removal only)");
+  // Reason for the flag: measurement labs exchange X3P/SDF; this converts a simulated height.npy.
+  sub.add_option("--export", opts->export_path,
+                 "Also save the heightmap as .npy, .csv, .xyz, .sdf or .x3p");
+  add_common_flags(sub, opts->common);
+  sub.callback([opts] { run_texture(*opts); });
 }
 
 }  // namespace cuspmap

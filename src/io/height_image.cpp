@@ -1,0 +1,124 @@
+// Heightfield -> grayscale height picture (+Y up, black = low, white = not reached) + legend.
+// Inputs: heights in um on cells of cell_mm; outputs: gray Image, range used, um per level.
+// Method: linear quantisation to 255 levels (0..254) after NaN-aware block reduction.
+#include "io/height_image.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+
+#include "core/input_error.h"
+#include "io/legend.h"
+#include "io/nice_ticks.h"
+
+namespace cuspmap {
+namespace {
+
+constexpr int kFlatLevel = 127;  // a range of zero width: one mid gray, neither "low" nor "high"
+constexpr int kMarginPx = 8;     // white margin around the framed map when a legend is drawn
+constexpr int kMinLegendBarPx = 120;  // a ramp shorter than this cannot hold three labels
+
+}  // namespace
+
+int height_gray_level(double z_um, double lo_um, double hi_um) {
+  if (std::isnan(z_um)) return kUnreachedLevel;
+  if (!(hi_um > lo_um)) return kFlatLevel;
+  const double t = (z_um - lo_um) / (hi_um - lo_um);
+  return static_cast<int>(std::clamp(std::lround(t * kTopHeightLevel), 0L, long{kTopHeightLevel}));
+}
+
+HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions& options) {
+  HeightImage out;
+  if (options.range) {
+    const HeightRange& r = *options.range;
+    if (!std::isfinite(r.lo_um) || !std::isfinite(r.hi_um) || !(r.hi_um > r.lo_um)) {
+      throw InputError("height range " + format_number(r.lo_um) + ".." + format_number(r.hi_um) +
+                       " um: needs two finite heights with the high end above the low end");
+    }
+    out.lo_um = r.lo_um;
+    out.hi_um = r.hi_um;
+  } else {
+    double lo = std::numeric_limits<double>::infinity(), hi = -lo;
+    for (float v : hf.z_um.reshaped()) {
+      if (!std::isfinite(v)) continue;
+      lo = std::min(lo, double{v});
+      hi = std::max(hi, double{v});
+    }
+    out.lo_um = std::isfinite(lo) ? lo : 0.0;
+    out.hi_um = std::isfinite(hi) ? hi : 0.0;
+  }
+  out.um_per_level = (out.hi_um - out.lo_um) / kTopHeightLevel;
+  if (options.range) {
+    for (float v : hf.z_um.reshaped()) {
+      if (std::isfinite(v) && (v < out.lo_um || v > out.hi_um)) ++out.clamped_cells;
+    }
+  }
+
+  out.cells_per_pixel = cells_per_pixel_for(hf.nx, hf.ny, options.max_pixels);
+  out.mm_per_px = out.cells_per_pixel * hf.cell_mm;
+  const HeightGrid blocks = reduce_blocks(hf.z_um, out.cells_per_pixel, options.downsample);
+  out.map_width_px = static_cast<int>(blocks.cols());
+  out.map_height_px = static_cast<int>(blocks.rows());
+  Image map = make_image(out.map_width_px, out.map_height_px, 1, kWhite);
+  for (int r = 0; r < out.map_height_px; ++r) {
+    const int block_row = out.map_height_px - 1 - r;  // image top = highest Y
+    for (int c = 0; c < out.map_width_px; ++c) {
+      const int level = height_gray_level(blocks(block_row, c), out.lo_um, out.hi_um);
+      if (level == kUnreachedLevel) ++out.unreached_pixels;
+      map.at(c, r) = static_cast<std::uint8_t>(level);
+    }
+  }
+  if (!options.legend) {
+    out.image = std::move(map);
+    return out;
+  }
+
+  HeightLegendSpec spec;
+  spec.lo_um = out.lo_um;
+  spec.hi_um = out.hi_um;
+  spec.units = options.units;
+  spec.text_scale = options.text_scale;
+  spec.show_unreached = true;  // always explain white, so nobody reads it as a high spot
+  spec.bar_height_px = std::max(out.map_height_px, kMinLegendBarPx);
+  const Image legend = render_height_legend(spec);
+  // The map sits in a black frame one pixel outside it, so the white margin is never mistaken for
+  // unreached cells; the legend's ramp top lines up with the map's top row.
+  out.map_x_px = kMarginPx;
+  out.map_y_px = std::max(kMarginPx, legend_ramp_top_px(spec));
+  const int legend_x = out.map_x_px + out.map_width_px + kMarginPx;
+  const int legend_y = out.map_y_px - legend_ramp_top_px(spec);
+  const int width = legend_x + legend.width;
+  const int height =
+      std::max(out.map_y_px + out.map_height_px + kMarginPx, legend_y + legend.height);
+  out.image = make_image(width, height, 1, kWhite);
+  draw_rect(out.image, out.map_x_px - 1, out.map_y_px - 1, out.map_width_px + 2,
+            out.map_height_px + 2, kBlack);
+  blit(map, out.image, out.map_x_px, out.map_y_px);
+  blit(legend, out.image, legend_x, legend_y);
+  return out;
+}
+
+std::string height_image_caption(const HeightImage& image, LengthUnit units) {
+  const std::string u = height_unit_label(units);
+  const double lo = height_in_display_unit(image.lo_um, units);
+  const double hi = height_in_display_unit(image.hi_um, units);
+  const double step = height_in_display_unit(image.um_per_level, units);
+  // Decimals of a 1-2-5 step near 1/25 of the range (~10 gray levels): ends read to that step.
+  const int decimals = decimals_for_step(nice_step(std::max(hi - lo, 1e-12), kTopHeightLevel / 10));
+  const double px = units == LengthUnit::Inch ? image.mm_per_px / kMmPerInch : image.mm_per_px;
+  const std::string k = std::to_string(image.cells_per_pixel);
+  // Built by appending: GCC 12 misreports chained std::string operator+ (-Wrestrict, PR 105651).
+  std::string text = "Height seen from above, +Y up: black = ";
+  text.append(format_fixed(lo, decimals)).append(" ").append(u);
+  text.append(", light gray = ").append(format_fixed(hi, decimals)).append(" ").append(u);
+  text.append(" (").append(format_significant(step, 3)).append(" ").append(u);
+  text.append(" per gray level); white = not reached; 1 pixel = ")
+      .append(k)
+      .append(" x ")
+      .append(k);
+  text.append(" cells (").append(format_significant(px, 3));
+  text.append(units == LengthUnit::Inch ? " in)." : " mm).");
+  return text;
+}
+
+}  // namespace cuspmap

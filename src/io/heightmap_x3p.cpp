@@ -1,0 +1,295 @@
+// X3P (ISO 25178-72) reader and writer with libzip (in-memory archives) and pugixml.
+// Inputs/outputs: Heightfield <-> zip bytes. Cost O(cells).
+// Method: ISO 25178-72:2017 / ISO 5436-2:2012 file layout; MD5 from io/md5_hex.
+#include "io/heightmap_x3p.h"
+
+#include <zip.h>
+
+#include <bit>
+#include <cmath>
+#include <cstdint>
+#include <cstdio>
+#include <cstring>
+#include <pugixml.hpp>
+#include <sstream>
+#include <stdexcept>
+
+#include "core/input_error.h"
+#include "core/units.h"
+#include "io/heightmap_text.h"
+#include "io/md5_hex.h"
+
+namespace cuspmap {
+namespace {
+
+constexpr double kMetresPerMm = 1e-3;
+constexpr double kUmPerMetre = 1e6;
+// CX and CY increments agreeing to 1e-6 are one square cell.
+constexpr double kSquareCellRel = 1e-6;
+constexpr const char* kNamespace = "http://www.opengps.eu/2008/ISO5436_2";
+
+// Child element by local name (the root carries a namespace prefix, the records do not, but
+// tolerate prefixes anywhere).
+pugi::xml_node child(pugi::xml_node node, const char* local) {
+  for (pugi::xml_node c : node.children()) {
+    const char* n = c.name();
+    const char* colon = std::strrchr(n, ':');
+    if (std::strcmp(colon ? colon + 1 : n, local) == 0) return c;
+  }
+  return {};
+}
+
+std::string text_at(pugi::xml_node root, std::initializer_list<const char*> path) {
+  pugi::xml_node n = root;
+  for (const char* p : path) n = child(n, p);
+  return n ? std::string(n.child_value()) : std::string();
+}
+
+std::string trimmed(std::string s) {
+  const size_t a = s.find_first_not_of(" \t\r\n"), b = s.find_last_not_of(" \t\r\n");
+  return a == std::string::npos ? std::string() : s.substr(a, b - a + 1);
+}
+
+void add_text(pugi::xml_node parent, const char* name, const std::string& value) {
+  parent.append_child(name).text().set(value.c_str());
+}
+
+void add_axis(pugi::xml_node axes, const char* name, const char* type, const char* data_type,
+              const std::string& increment, const std::string& offset) {
+  pugi::xml_node a = axes.append_child(name);
+  add_text(a, "AxisType", type);
+  add_text(a, "DataType", data_type);
+  add_text(a, "Increment", increment);
+  add_text(a, "Offset", offset);
+}
+
+std::string read_entry(zip_t* za, const char* entry, const std::string& name) {
+  zip_stat_t st;
+  zip_stat_init(&st);
+  if (zip_stat(za, entry, 0, &st) != 0 || !(st.valid & ZIP_STAT_SIZE)) {
+    zip_discard(za);
+    throw InputError(name + ": X3P archive has no " + std::string(entry));
+  }
+  std::string out(static_cast<size_t>(st.size), '\0');
+  zip_file_t* f = zip_fopen(za, entry, 0);
+  const zip_int64_t got = f ? zip_fread(f, out.data(), st.size) : -1;
+  if (f) zip_fclose(f);
+  if (got != static_cast<zip_int64_t>(st.size)) {
+    zip_discard(za);
+    throw InputError(name + ": X3P entry " + std::string(entry) + " cannot be read (damaged zip)");
+  }
+  return out;
+}
+
+double number_or(const std::string& text, double fallback, const std::string& name,
+                 const char* what) {
+  const std::string t = trimmed(text);
+  if (t.empty()) return fallback;
+  double v = 0.0;
+  if (!parse_height_value(t, v) || std::isnan(v)) {
+    throw InputError(name + ": main.xml " + what + " '" + t + "' is not a number");
+  }
+  return v;
+}
+
+}  // namespace
+
+std::string encode_x3p(const Heightfield& hf) {
+  std::string data(static_cast<size_t>(hf.cells()) * 8, '\0');
+  for (std::int64_t k = 0; k < hf.cells(); ++k) {
+    const double metres = static_cast<double>(hf.z_um.data()[k]) / kUmPerMetre;
+    const std::uint64_t bits = std::bit_cast<std::uint64_t>(metres);
+    for (int b = 0; b < 8; ++b)
+      data[static_cast<size_t>(k) * 8 + static_cast<size_t>(b)] =
+          static_cast<char>((bits >> (8 * b)) & 0xff);
+  }
+  pugi::xml_document doc;
+  pugi::xml_node decl = doc.append_child(pugi::node_declaration);
+  decl.append_attribute("version") = "1.0";
+  decl.append_attribute("encoding") = "UTF-8";
+  pugi::xml_node root = doc.append_child("p:ISO5436_2");
+  root.append_attribute("xmlns:p") = kNamespace;
+  pugi::xml_node r1 = root.append_child("Record1");
+  add_text(r1, "Revision", "ISO5436 - 2000");
+  add_text(r1, "FeatureType", "SUR");
+  pugi::xml_node axes = r1.append_child("Axes");
+  const std::string inc = format_coordinate(hf.cell_mm * kMetresPerMm);
+  // Offsets are the first point's position: the centre of cell 0.
+  add_axis(axes, "CX", "I", "D", inc, format_coordinate(hf.x_mm(0) * kMetresPerMm));
+  add_axis(axes, "CY", "I", "D", inc, format_coordinate(hf.y_mm(0) * kMetresPerMm));
+  add_axis(axes, "CZ", "A", "D", "1", "0");
+  pugi::xml_node r2 = root.append_child("Record2");
+  add_text(r2, "Date", "2000-01-01T00:00:00.0+00:00");
+  add_text(r2, "Creator", "cuspmap");
+  pugi::xml_node inst = r2.append_child("Instrument");
+  add_text(inst, "Manufacturer", "none");
+  add_text(inst, "Model", "cuspmap simulation");
+  add_text(inst, "Serial", "0");
+  add_text(inst, "Version", "0.1.0");
+  add_text(r2, "CalibrationDate", "2000-01-01T00:00:00.0+00:00");
+  pugi::xml_node probe = r2.append_child("ProbingSystem");
+  add_text(probe, "Type", "NonContacting");
+  add_text(probe, "Identification", "simulated heightfield");
+  add_text(r2, "Comment", "heights of a simulated floor; unreached cells are NaN");
+  pugi::xml_node r3 = root.append_child("Record3");
+  pugi::xml_node dim = r3.append_child("MatrixDimension");
+  add_text(dim, "SizeX", std::to_string(hf.nx));
+  add_text(dim, "SizeY", std::to_string(hf.ny));
+  add_text(dim, "SizeZ", "1");
+  pugi::xml_node link = r3.append_child("DataLink");
+  add_text(link, "PointDataLink", "bindata/data.bin");
+  add_text(link, "MD5ChecksumPointData", md5_hex(data));
+  add_text(root.append_child("Record4"), "ChecksumFile", "md5checksum.hex");
+  std::ostringstream xml_out;
+  doc.save(xml_out, "  ", pugi::format_default, pugi::encoding_utf8);
+  const std::string xml = xml_out.str();
+  const std::string checksum = md5_hex(xml) + " *main.xml\n";
+
+  zip_error_t err;
+  zip_error_init(&err);
+  zip_source_t* src = zip_source_buffer_create(nullptr, 0, 0, &err);
+  zip_t* za = src ? zip_open_from_source(src, ZIP_TRUNCATE, &err) : nullptr;
+  if (!za) {
+    if (src) zip_source_free(src);
+    throw std::runtime_error("libzip cannot create an archive in memory");
+  }
+  zip_source_keep(src);
+  auto add = [&](const char* entry, const std::string& bytes) {
+    zip_source_t* s = zip_source_buffer(za, bytes.data(), bytes.size(), 0);
+    if (!s || zip_file_add(za, entry, s, ZIP_FL_ENC_UTF_8) < 0) {
+      if (s) zip_source_free(s);
+      throw std::runtime_error(std::string("libzip cannot add ") + entry);
+    }
+  };
+  add("main.xml", xml);
+  add("bindata/data.bin", data);
+  add("md5checksum.hex", checksum);
+  if (zip_close(za) != 0) {
+    zip_discard(za);
+    zip_source_free(src);
+    throw std::runtime_error("libzip cannot finish the archive in memory");
+  }
+  std::string out;
+  if (zip_source_open(src) == 0) {
+    zip_source_seek(src, 0, SEEK_END);
+    const zip_int64_t size = zip_source_tell(src);
+    zip_source_seek(src, 0, SEEK_SET);
+    out.resize(static_cast<size_t>(std::max<zip_int64_t>(size, 0)));
+    const zip_int64_t got = zip_source_read(src, out.data(), out.size());
+    zip_source_close(src);
+    if (got != size) out.clear();
+  }
+  zip_source_free(src);
+  if (out.empty()) throw std::runtime_error("libzip cannot read back the archive from memory");
+  return out;
+}
+
+Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
+  zip_error_t err;
+  zip_error_init(&err);
+  zip_source_t* src = zip_source_buffer_create(bytes.data(), bytes.size(), 0, &err);
+  zip_t* za = src ? zip_open_from_source(src, ZIP_RDONLY, &err) : nullptr;
+  if (!za) {
+    if (src) zip_source_free(src);
+    throw InputError(name + ": not an X3P file (not a zip archive)");
+  }
+  const std::string xml = read_entry(za, "main.xml", name);
+  pugi::xml_document doc;
+  const pugi::xml_parse_result parsed = doc.load_buffer(xml.data(), xml.size());
+  if (!parsed) {
+    zip_discard(za);
+    throw InputError(name + ": main.xml is not well-formed XML (" + parsed.description() + ")");
+  }
+  const pugi::xml_node root = doc.document_element();
+  auto fail = [&](const std::string& what) {
+    zip_discard(za);
+    throw InputError(name + ": main.xml " + what);
+  };
+  const char* rn = std::strrchr(root.name(), ':');
+  if (std::strcmp(rn ? rn + 1 : root.name(), "ISO5436_2") != 0)
+    fail("root element is not ISO5436_2");
+  const std::string feature = trimmed(text_at(root, {"Record1", "FeatureType"}));
+  if (feature != "SUR") fail("FeatureType '" + feature + "' is not SUR (an areal surface)");
+  if (child(child(root, "Record3"), "DataList"))
+    fail("holds an inline <DataList>; only binary data links are read");
+  const std::string link = trimmed(text_at(root, {"Record3", "DataLink", "PointDataLink"}));
+  if (link.empty()) fail("has no Record3/DataLink/PointDataLink");
+  const double sx =
+      number_or(text_at(root, {"Record3", "MatrixDimension", "SizeX"}), -1, name, "SizeX");
+  const double sy =
+      number_or(text_at(root, {"Record3", "MatrixDimension", "SizeY"}), -1, name, "SizeY");
+  const double sz =
+      number_or(text_at(root, {"Record3", "MatrixDimension", "SizeZ"}), 1, name, "SizeZ");
+  if (sx < 1 || sy < 1 || sx != std::floor(sx) || sy != std::floor(sy))
+    fail("SizeX and SizeY must be whole numbers >= 1");
+  if (sz != 1) fail("SizeZ " + format_number(sz) + " is not 1 (layered data is not read)");
+  const double inc_x =
+      number_or(text_at(root, {"Record1", "Axes", "CX", "Increment"}), -1, name, "CX Increment");
+  const double inc_y =
+      number_or(text_at(root, {"Record1", "Axes", "CY", "Increment"}), inc_x, name, "CY Increment");
+  if (!(inc_x > 0.0)) fail("CX Increment must be > 0 m");
+  if (sy > 1 && std::abs(inc_y - inc_x) > kSquareCellRel * inc_x) {
+    fail("CX Increment " + format_number(inc_x) + " m differs from CY Increment " +
+         format_number(inc_y) + " m; cuspmap needs square cells");
+  }
+  const double off_x =
+      number_or(text_at(root, {"Record1", "Axes", "CX", "Offset"}), 0, name, "CX Offset");
+  const double off_y =
+      number_or(text_at(root, {"Record1", "Axes", "CY", "Offset"}), 0, name, "CY Offset");
+  const std::string type = trimmed(text_at(root, {"Record1", "Axes", "CZ", "DataType"}));
+  const double inc_z =
+      number_or(text_at(root, {"Record1", "Axes", "CZ", "Increment"}), 1, name, "CZ Increment");
+  const double off_z =
+      number_or(text_at(root, {"Record1", "Axes", "CZ", "Offset"}), 0, name, "CZ Offset");
+  size_t item = 0;
+  if (type == "I")
+    item = 2;
+  else if (type == "L" || type == "F")
+    item = 4;
+  else if (type == "D")
+    item = 8;
+  else
+    fail("CZ DataType '" + type + "' is not I, L, F or D");
+  const std::string expected_md5 =
+      trimmed(text_at(root, {"Record3", "DataLink", "MD5ChecksumPointData"}));
+  const std::string data = read_entry(za, link.c_str(), name);
+  zip_discard(za);
+  const long nx = static_cast<long>(sx), ny = static_cast<long>(sy);
+  if (data.size() != static_cast<size_t>(nx * ny) * item) {
+    throw InputError(name + ": " + link + " holds " + std::to_string(data.size()) +
+                     " bytes, SizeX x SizeY of type " + type + " needs " +
+                     std::to_string(static_cast<size_t>(nx * ny) * item));
+  }
+  if (!expected_md5.empty()) {
+    std::string want = expected_md5;
+    for (char& c : want) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));
+    if (md5_hex(data) != want)
+      throw InputError(name + ": MD5 of " + link + " does not match main.xml (damaged file)");
+  }
+  Heightfield hf;
+  hf.nx = static_cast<int>(nx);
+  hf.ny = static_cast<int>(ny);
+  hf.cell_mm = inc_x / kMetresPerMm;
+  hf.origin_x_mm = off_x / kMetresPerMm - 0.5 * hf.cell_mm;  // offset = first cell's centre
+  hf.origin_y_mm = off_y / kMetresPerMm - 0.5 * hf.cell_mm;
+  hf.z_um.resize(hf.ny, hf.nx);
+  for (long k = 0; k < nx * ny; ++k) {
+    const unsigned char* p =
+        reinterpret_cast<const unsigned char*>(data.data()) + static_cast<size_t>(k) * item;
+    std::uint64_t bits = 0;
+    for (size_t b = 0; b < item; ++b) bits |= static_cast<std::uint64_t>(p[b]) << (8 * b);
+    double v = 0.0;
+    if (type == "I")
+      v = static_cast<std::int16_t>(bits);
+    else if (type == "L")
+      v = static_cast<std::int32_t>(bits);
+    else if (type == "F")
+      v = std::bit_cast<float>(static_cast<std::uint32_t>(bits));
+    else
+      v = std::bit_cast<double>(bits);
+    hf.z_um.data()[k] = static_cast<float>((v * inc_z + off_z) * kUmPerMetre);
+  }
+  return hf;
+}
+
+}  // namespace cuspmap

@@ -1,0 +1,78 @@
+// Least-squares plane fit through the finite cells of a heightfield, and plane removal.
+// Inputs: heights um, cell centres mm; output: Plane (um, um/mm) or a residual heightfield.
+// Method: normal equations of ordinary least squares (ISO 25178-2:2012 §3.1.8 F-operator),
+// solved with a complete orthogonal decomposition so degenerate layouts get the least-norm plane.
+#include "texture/fit_plane.h"
+
+#include <Eigen/Dense>
+#include <cassert>
+#include <cmath>
+
+namespace cuspmap {
+
+void PlaneSums::add(double x_mm, double y_mm, double z_um) {
+  if (std::isnan(z_um)) return;
+  const double x = x_mm - x0_mm, y = y_mm - y0_mm;
+  n += 1.0;
+  sx += x;
+  sy += y;
+  sxx += x * x;
+  sxy += x * y;
+  syy += y * y;
+  sz += z_um;
+  sxz += x * z_um;
+  syz += y * z_um;
+}
+
+void PlaneSums::merge(const PlaneSums& o) {
+  assert(o.x0_mm == x0_mm && o.y0_mm == y0_mm && "plane sums must share their centre");
+  n += o.n;
+  sx += o.sx;
+  sy += o.sy;
+  sxx += o.sxx;
+  sxy += o.sxy;
+  syy += o.syy;
+  sz += o.sz;
+  sxz += o.sxz;
+  syz += o.syz;
+}
+
+Plane PlaneSums::solve() const {
+  Plane plane;
+  plane.x0_mm = x0_mm;
+  plane.y0_mm = y0_mm;
+  if (n <= 0.0) return plane;
+  Eigen::Matrix3d a;
+  a << n, sx, sy, sx, sxx, sxy, sy, sxy, syy;
+  const Eigen::Vector3d b(sz, sxz, syz);
+  const Eigen::Vector3d c = a.completeOrthogonalDecomposition().solve(b);
+  plane.z0_um = c(0);
+  plane.gx_um_per_mm = c(1);
+  plane.gy_um_per_mm = c(2);
+  return plane;
+}
+
+Plane fit_plane(const Heightfield& hf) {
+  PlaneSums sums;
+  sums.x0_mm = hf.origin_x_mm + 0.5 * hf.nx * hf.cell_mm;
+  sums.y0_mm = hf.origin_y_mm + 0.5 * hf.ny * hf.cell_mm;
+  for (int j = 0; j < hf.ny; ++j) {
+    const double y = hf.y_mm(j);
+    for (int i = 0; i < hf.nx; ++i) sums.add(hf.x_mm(i), y, hf.z_um(j, i));
+  }
+  return sums.solve();
+}
+
+Heightfield remove_plane(const Heightfield& hf, const Plane& plane) {
+  Heightfield out = hf;
+  for (int j = 0; j < hf.ny; ++j) {
+    const double y = hf.y_mm(j);
+    for (int i = 0; i < hf.nx; ++i) {
+      const float z = hf.z_um(j, i);
+      if (!std::isnan(z)) out.z_um(j, i) = static_cast<float>(z - plane.at(hf.x_mm(i), y));
+    }
+  }
+  return out;
+}
+
+}  // namespace cuspmap

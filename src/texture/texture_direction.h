@@ -1,0 +1,37 @@
+// Spatial parameters of a surface: autocorrelation length Sal, texture aspect ratio Str (from
+// the areal autocorrelation function) and the lay direction (from the power spectrum).
+// Inputs: residual Heightfield um over mm cells (plane removed); NaN cells are filled with the
+// plane (0) for the FFT and left out of the autocorrelation's pair counts.
+// Cost O(N log N) for N padded cells (FFTW), plus O(angles * radius) for the decay search.
+// Method: ISO 25178-2:2012 §4.2.1-4.2.2 (f_ACF, Sal, Str with s = 0.2); lay from the power
+// spectral density's doubled-angle mean direction (Mardia & Jupp, Directional Statistics, 2000,
+// axial data), computed with FFTW3 (Frigo & Johnson 2005).
+#pragma once
+
+#include "core/heightfield.h"
+
+namespace cuspmap {
+
+/// ISO 25178-2 default threshold s for Sal and Str.
+inline constexpr double kAcfThreshold = 0.2;
+/// Angular step of the decay-length search, deg (0.5 deg resolves Str of strongly directional
+/// surfaces without a noticeable cost).
+inline constexpr double kAcfAngleStepDeg = 0.5;
+
+/// Spatial parameters and lay.
+struct TextureDirection {
+  double sal_mm = 0.0;           ///< Sal: shortest distance at which the ACF decays to s
+  double str = 0.0;              ///< Str: Sal / longest decay distance, 0..1 (1 = isotropic)
+  bool str_upper_bound = false;  ///< some direction never decayed within half the field: Str is
+                                 ///< at most the value given (computed with that half size)
+  bool sal_found = false;        ///< the ACF decayed to s in at least one direction
+  double lay_deg = 0.0;          ///< direction of the lay (the grooves), deg from +X, [0, 180)
+  double lay_strength = 0.0;     ///< 0 (no preferred direction) .. 1 (one direction only)
+};
+
+/// Computes Sal, Str and the lay of a residual surface.
+/// @param[in] residual heightfield with its mean plane removed; needs nx, ny >= 2 and a finite
+///            cell (else all zeros)
+TextureDirection texture_direction(const Heightfield& residual);
+
+}  // namespace cuspmap

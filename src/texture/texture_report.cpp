@@ -1,0 +1,152 @@
+// Texture report: areal side first (plane, filters, parameters, lay), then profiles traced
+// across or along that lay and evaluated at the ISO 4288 cut-off; undefined values become 0 with
+// a warning.
+// Inputs: Heightfield, TextureOptions; output: TextureReport. Cost: see texture_report.h.
+// Method: ISO 25178-2:2012, ISO 4287:1997, ISO 4288:1996 (docs/texture.md).
+#include "texture/texture_report.h"
+
+#include <algorithm>
+#include <cmath>
+
+#include "core/input_error.h"
+#include "core/units.h"
+#include "texture/extract_profiles.h"
+#include "texture/gaussian_areal_filter.h"
+#include "texture/iso1302_grade.h"
+#include "texture/iso4288_cutoff.h"
+#include "texture/select_cutoff.h"
+
+namespace cuspmap {
+namespace {
+
+double wrap_180(double deg) {
+  double a = std::fmod(deg, 180.0);
+  if (a < 0.0) a += 180.0;
+  // 179.9999999 from round-off is 0 for the traces.
+  constexpr double kWrapSlackDeg = 1e-9;
+  return a > 180.0 - kWrapSlackDeg ? 0.0 : a;
+}
+
+ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
+                       std::vector<std::string>& warnings) {
+  ArealReport a;
+  a.plane = fit_plane(hf);
+  Heightfield residual = remove_plane(hf, a.plane);
+  if (o.s_filter_mm > 0.0) {
+    residual = gaussian_areal_filter(residual, o.s_filter_mm);
+    a.s_filter_mm = o.s_filter_mm;
+  }
+  if (o.l_filter_mm > 0.0) {
+    const Heightfield mean = gaussian_areal_filter(residual, o.l_filter_mm);
+    residual.z_um -= mean.z_um;
+    // The L-filter's mean surface is not exactly the plane: take the plane off again.
+    residual = remove_plane(residual, fit_plane(residual));
+    a.l_filter_mm = o.l_filter_mm;
+  }
+  a.parameters = areal_parameters(residual);
+  a.spatial = texture_direction(residual);
+  if (!a.parameters.shape_defined) warnings.push_back("surface is flat: Ssk and Sku reported as 0");
+  if (!a.spatial.sal_found) {
+    warnings.push_back(
+        "the autocorrelation never fell to 0.2 within half the field: Sal and Str "
+        "reported as 0");
+  } else if (a.spatial.str_upper_bound) {
+    warnings.push_back(
+        "the autocorrelation did not fall to 0.2 in some directions within half "
+        "the field: Str is an upper bound");
+  }
+  return a;
+}
+
+double trace_direction(const TextureOptions& o, const ArealReport& areal, std::string& label,
+                       std::vector<std::string>& warnings) {
+  if (o.direction == ProfileDirection::Angle) {
+    label = "angle";
+    return wrap_180(o.direction_deg);
+  }
+  label = o.direction == ProfileDirection::Across ? "across" : "along";
+  double lay = 0.0;
+  if (o.lay_deg) {
+    lay = *o.lay_deg;
+  } else if (areal.spatial.lay_strength >= kMinLayStrength) {
+    lay = areal.spatial.lay_deg;
+  } else {
+    warnings.push_back("no dominant lay (strength " + format_number(areal.spatial.lay_strength) +
+                       "): profiles traced along X");
+    return 0.0;
+  }
+  return wrap_180(o.direction == ProfileDirection::Across ? lay + 90.0 : lay);
+}
+
+void note_undefined(const char* name, const ProfileParameters& p, std::vector<std::string>& w) {
+  if (!p.shape_defined) {
+    w.push_back(std::string(name) + " profile is flat: its skewness and kurtosis reported as 0");
+  }
+  if (!p.sm_defined) {
+    w.push_back(std::string(name) +
+                " profile has no complete element: its mean width reported "
+                "as 0");
+  }
+}
+
+}  // namespace
+
+TextureReport texture_report(const Heightfield& hf, const TextureOptions& options) {
+  TextureReport report;
+  report.cell_mm = hf.cell_mm;
+  report.size_x_mm = hf.nx * hf.cell_mm;
+  report.size_y_mm = hf.ny * hf.cell_mm;
+  report.cells = hf.cells();
+  report.reached_cells = reached_cells(hf);
+  if (report.reached_cells == 0) {
+    throw InputError("surface has no finite height: every cell is unreached (NaN)");
+  }
+  if (report.reached_cells < report.cells) {
+    report.warnings.push_back(std::to_string(report.cells - report.reached_cells) + " of " +
+                              std::to_string(report.cells) +
+                              " cells are unreached (NaN) and left out");
+  }
+  report.areal = areal_side(hf, options, report.warnings);
+
+  ProfileReport& p = report.profile;
+  p.direction_deg = trace_direction(options, report.areal, p.direction, report.warnings);
+  const double shortest_cutoff =
+      options.cutoff_mm > 0.0 ? options.cutoff_mm : kStandardCutoffsMm.front();
+  const std::vector<ProfileTrace> traces =
+      extract_profiles(hf, p.direction_deg, options.max_traces, 2.0 * shortest_cutoff);
+  if (traces.empty()) {
+    throw InputError("surface too short for a profile at " + format_number(p.direction_deg) +
+                     " deg: the longest trace is " +
+                     format_number(longest_chord_mm(hf, p.direction_deg)) + " mm, at least " +
+                     format_number(2.0 * shortest_cutoff) + " mm (two cut-offs) is needed");
+  }
+  const CutoffSelection sel = select_cutoff(traces, options.cutoff_mm, options.lambda_s_um);
+  const ProfileEvaluation& e = sel.evaluation;
+  report.warnings.insert(report.warnings.end(), sel.warnings.begin(), sel.warnings.end());
+  p.roughness = e.roughness;
+  p.primary = e.primary;
+  p.waviness = e.waviness;
+  p.cutoff_mm = e.cutoff_mm;
+  p.lambda_s_um = e.lambda_s_um;
+  p.evaluation_length_mm = e.evaluation_length_mm;
+  p.sampling_lengths = e.sampling_lengths;
+  p.traces = e.traces;
+  p.cutoff_rule = sel.rule;
+  p.periodic = sel.periodicity.periodic;
+  p.acf_peak = sel.periodicity.acf_peak;
+  p.iso1302_grade = iso1302_grade(p.roughness.a_um);
+  if (e.sampling_lengths < kDefaultSamplingLengths) {
+    report.warnings.push_back("evaluation length " + format_number(e.evaluation_length_mm) +
+                              " mm holds " + std::to_string(e.sampling_lengths) +
+                              " sampling length(s) of " + format_number(e.cutoff_mm) +
+                              " mm, fewer than the 5 ISO 4288 asks for: the surface is "
+                              "shorter than 6 cut-offs along the trace");
+  }
+  note_undefined("roughness", p.roughness, report.warnings);
+  note_undefined("primary", p.primary, report.warnings);
+  // The waviness of a machined floor is often nil: its undefined Wsk/Wku/WSm are 0 without a
+  // warning (docs/texture.md).
+  return report;
+}
+
+}  // namespace cuspmap
