@@ -1,6 +1,7 @@
 // `cuspmap allowance`: depth to sand before the machining marks vanish, volume, programmed stock
 // (two conventions), grit sequence with times, tolerance verdict and cautions; from the closed-form
-// cusp (tool + stepover flags) or a simulate report. Human table or --json.
+// cusp (tool + stepover flags), a simulate report, or a heightmap file (npy, csv, xyz, sdf, x3p)
+// through the ISO texture parameters. Human table or --json.
 #include <cstdio>
 #include <fstream>
 #include <optional>
@@ -11,7 +12,9 @@
 #include "finish/cusp_profile_heights.h"
 #include "finish/finishing_cautions.h"
 #include "finish/sanding_allowance.h"
+#include "io/read_heightmap.h"
 #include "job/job.h"
+#include "texture/texture_report.h"
 
 namespace cuspmap {
 namespace {
@@ -24,7 +27,9 @@ struct AllowanceOptions {
   CommonOptions common;
   ToolFlags tool;
   GritFlags grits;
-  std::string input;      // report.json from `cuspmap simulate`
+  std::string input;      // report.json from `cuspmap simulate`, or a heightmap file
+  std::string cell;       // --cell for npy/csv heightmaps
+  std::string z_units;    // --z-units for npy/csv/xyz heightmaps
   std::string stepover;   // analytic case
   std::string area;       // --area
   std::string tolerance;  // --tolerance (+-, length)
@@ -71,6 +76,33 @@ Marks marks_from_report(const std::string& file) {
   }
   m.description = "simulated floor from " + file;
   m.source = {{"kind", "report"}, {"file", file}};
+  return m;
+}
+
+Marks marks_from_heightmap(const AllowanceOptions& o, LengthUnit units) {
+  HeightmapReadOptions read;
+  if (!o.cell.empty()) {
+    read.cell_mm = parse_length_mm(o.cell, units, "--cell");
+    if (!(*read.cell_mm > 0.0)) throw InputError("--cell " + o.cell + ": must be > 0");
+  }
+  if (!o.z_units.empty()) {
+    z_units_to_um(o.z_units);  // validates the value before reading
+    read.z_units = o.z_units;
+  }
+  const HeightmapFile file = read_heightmap(o.input, read);
+  const TextureReport r = texture_report(file.field, TextureOptions{});
+  Marks m;
+  m.heights.sz_um = r.areal.parameters.sz_um;
+  m.heights.sv_um = r.areal.parameters.sv_um;
+  m.heights.sp_um = r.areal.parameters.sp_um;
+  m.heights.sa_um = r.areal.parameters.sa_um;
+  m.heights.ra_um = r.profile.roughness.a_um;
+  m.patch_area_mm2 = r.size_x_mm * r.size_y_mm;
+  m.description = file.format + " heightmap " + o.input + " (ISO 25178-2, plane removed; Ra " +
+                  r.profile.direction + " the lay, cut-off " + format_number(r.profile.cutoff_mm) +
+                  " mm)";
+  m.source = {{"kind", "heightmap"}, {"file", o.input}, {"format", file.format},
+              {"cutoff_mm", r.profile.cutoff_mm}};
   return m;
 }
 
@@ -147,16 +179,13 @@ void run_allowance(const AllowanceOptions& o) {
   const LengthUnit units = o.common.length_unit();
   Marks marks;
   if (!o.input.empty()) {
-    if (o.input.size() < 5 || o.input.substr(o.input.size() - 5) != ".json") {
-      throw InputError("allowance " + o.input +
-                       ": expected a report.json written by `cuspmap simulate`");
-    }
-    marks = marks_from_report(o.input);
+    const bool report = o.input.size() >= 5 && o.input.substr(o.input.size() - 5) == ".json";
+    marks = report ? marks_from_report(o.input) : marks_from_heightmap(o, units);
   } else if (!o.stepover.empty()) {
     marks = marks_from_flags(o, units);
   } else {
-    throw InputError("allowance needs a simulate report.json or --stepover with the tool flags "
-                     "(--tool, --diameter)");
+    throw InputError("allowance needs a simulate report.json, a heightmap file or --stepover "
+                     "with the tool flags (--tool, --diameter)");
   }
   const GritChoice grits = grit_choice_from_flags(o.grits);
   double area_mm2 = kReferenceAreaMm2;
@@ -225,8 +254,12 @@ void run_allowance(const AllowanceOptions& o) {
 
 void setup_allowance(CLI::App& sub) {
   auto o = std::make_shared<AllowanceOptions>();
-  sub.add_option("input", o->input, "report.json written by `cuspmap simulate` (else use the tool "
-                                    "flags and --stepover)");
+  sub.add_option("input", o->input,
+                 "report.json written by `cuspmap simulate`, or a heightmap (npy, csv, xyz, sdf, "
+                 "x3p); else use the tool flags and --stepover");
+  sub.add_option("--cell", o->cell, "Cell size of an npy/csv heightmap (length; else report.json "
+                                    "beside it)");
+  sub.add_option("--z-units", o->z_units, "Height unit of an npy/csv/xyz heightmap: um, nm, mm, m");
   add_tool_flags(sub, o->tool);
   sub.add_option("--stepover", o->stepover, "Stepover of the raster (length), closed-form case");
   sub.add_option("--area", o->area,

@@ -2,6 +2,11 @@
 // input, a user grade table, a simulate report as input, and bad input lines verbatim (exit 2).
 #include <nlohmann/json.hpp>
 
+#include <cmath>
+
+#include "core/write_file_atomic.h"
+#include "finish/cusp_profile_heights.h"
+#include "io/read_heightmap.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -104,10 +109,46 @@ TEST_CASE("cuspmap allowance: reads a simulate report", "[cli]") {
                 report + ": areal.Sv_um is missing: expected a report.json written by `cuspmap simulate`");
 }
 
+TEST_CASE("cuspmap allowance: a heightmap of the ideal cusp gives the closed-form allowance",
+          "[cli]") {
+  // Ball D 6 mm, stepover 0.41 mm: twelve periods of the exact circle z = R - sqrt(R^2 - y^2)
+  // (handbook cusp geometry), 41 cells of 0.01 mm per period: a cell centre on every crest.
+  const double big_r = 3.0, s = 0.41;
+  const int per = 41, periods = 12;
+  Heightfield hf;
+  hf.nx = 24;
+  hf.ny = per * periods;
+  hf.cell_mm = s / per;
+  hf.z_um.resize(hf.ny, hf.nx);
+  for (int j = 0; j < hf.ny; ++j) {
+    const double y = std::remainder(hf.y_mm(j), s);  // distance to the nearest pass
+    hf.z_um.row(j).setConstant(static_cast<float>((big_r - std::sqrt(big_r * big_r - y * y)) * 1000.0));
+  }
+  test::TempDir dir;
+  const std::string npy = dir.file("cusp.npy");
+  write_file_atomic(npy, encode_heightmap(hf, npy));
+  const nlohmann::json doc = json_of(run_cuspmap(
+      {"allowance", npy, "--cell", "0.01mm", "--json"}));
+  Cutter ball;
+  ball.diameter_mm = 2.0 * big_r;
+  const SurfaceHeights exact = cusp_profile_heights(ball, s);
+  // Sampling error ~6e-4 h at the valleys; float storage ~1e-7 relative: 2% is ample.
+  REQUIRE_NEAR(doc["depth_to_clear_um"].get<double>(), exact.sz_um, 0.02 * exact.sz_um);
+  REQUIRE_NEAR(doc["mean_removal_um"].get<double>(), exact.sv_um, 0.02 * exact.sv_um);
+  // Ra is the ISO 4287 roughness Ra behind the ISO 16610-21 Gaussian filter at the cut-off the
+  // texture module picks (0.8 mm here): the filter passes the 0.41 mm fundamental at
+  // 1 - exp(-pi (0.4697 x 0.8 / 0.41)^2) ~ 0.93, so Ra lies a little under the ideal, never above.
+  const double ra = doc["marks"]["ra_um"].get<double>();
+  REQUIRE(ra <= exact.ra_um * 1.001);
+  REQUIRE(ra >= 0.9 * exact.ra_um);
+  REQUIRE(doc["input"]["kind"] == "heightmap");
+  REQUIRE_NEAR(doc["area_mm2"].get<double>(), hf.nx * hf.ny * hf.cell_mm * hf.cell_mm, 1e-9);
+}
+
 TEST_CASE("cuspmap allowance: bad input exits 2 with one line", "[cli]") {
   require_error({"allowance"},
-                "allowance needs a simulate report.json or --stepover with the tool flags "
-                "(--tool, --diameter)");
+                "allowance needs a simulate report.json, a heightmap file or --stepover with the "
+                "tool flags (--tool, --diameter)");
   require_error({"allowance", "--diameter", "6", "--stepover", "7"},
                 "--stepover 7 mm: must be > 0 and <= the tool diameter 6 mm");
   require_error({"allowance", "--tool", "cone", "--diameter", "6", "--stepover", "1"},
@@ -123,8 +164,8 @@ TEST_CASE("cuspmap allowance: bad input exits 2 with one line", "[cli]") {
                 "--corner-radius is missing: a bullnose tool needs its corner radius");
   require_error({"allowance", "--tool", "flat", "--diameter", "10", "--stepover", "1", "--tilt", "3"},
                 "--tilt 3 deg: must be within +-1 deg (the first-order tilt model's limit)");
-  require_error({"allowance", "height.npy"},
-                "allowance height.npy: expected a report.json written by `cuspmap simulate`");
+  require_error({"allowance", "--diameter", "6", "--stepover", "1", "--grit-table", "/nonexistent/g.toml"},
+                "--grit-table /nonexistent/g.toml: cannot read the file");
 }
 
 }  // namespace cuspmap
