@@ -38,9 +38,9 @@ struct AllowanceOptions {
 // The marks to sand and where they came from.
 struct Marks {
   SurfaceHeights heights;
-  std::string description;                 // one line for the human header
-  nlohmann::json source;                   // the same for JSON
-  std::optional<double> patch_area_mm2;    // area of a simulated patch
+  std::string description;               // one line for the human header
+  nlohmann::json source;                 // the same for JSON
+  std::optional<double> patch_area_mm2;  // area of a simulated patch
 };
 
 double report_number(const nlohmann::json& doc, const char* group, const char* key,
@@ -101,27 +101,34 @@ Marks marks_from_heightmap(const AllowanceOptions& o, LengthUnit units) {
   m.description = file.format + " heightmap " + o.input + " (ISO 25178-2, plane removed; Ra " +
                   r.profile.direction + " the lay, cut-off " + format_number(r.profile.cutoff_mm) +
                   " mm)";
-  m.source = {{"kind", "heightmap"}, {"file", o.input}, {"format", file.format},
+  m.source = {{"kind", "heightmap"},
+              {"file", o.input},
+              {"format", file.format},
               {"cutoff_mm", r.profile.cutoff_mm}};
   return m;
 }
 
 Marks marks_from_flags(const AllowanceOptions& o, LengthUnit units) {
   const Cutter cutter = tool_from_flags(o.tool, units);
+  require_tilt_along_feed(cutter, "simulate the job and pass its report.json or height.npy");
   const double s_mm = parse_length_mm(o.stepover, units, "--stepover");
   if (s_mm <= 0.0 || s_mm > cutter.diameter_mm) {
-    throw InputError("--stepover " + format_number(s_mm) + " mm: must be > 0 and <= the tool "
-                     "diameter " + format_number(cutter.diameter_mm) + " mm");
+    throw InputError("--stepover " + format_number(s_mm) +
+                     " mm: must be > 0 and <= the tool "
+                     "diameter " +
+                     format_number(cutter.diameter_mm) + " mm");
   }
   Marks m;
   m.heights = cusp_profile_heights(cutter, s_mm);
   const std::string step = units == LengthUnit::Inch ? format_number(s_mm / kMmPerInch) + " in"
-                                                      : format_number(s_mm) + " mm";
-  m.description = describe_tool(cutter, units) + ", stepover " + step + " (closed-form cusp profile";
+                                                     : format_number(s_mm) + " mm";
+  m.description =
+      describe_tool(cutter, units) + ", stepover " + step + " (closed-form cusp profile";
   m.description += cutter.shape == CutterShape::Flat && cutter.tilt_deg != 0.0
                        ? ", tilt taken along the feed)"
                        : ")";
-  m.source = {{"kind", "analytic"}, {"tool", describe_tool(cutter, LengthUnit::Millimetre)},
+  m.source = {{"kind", "analytic"},
+              {"tool", describe_tool(cutter, LengthUnit::Millimetre)},
               {"stepover_mm", s_mm}};
   return m;
 }
@@ -147,8 +154,8 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
   std::printf("  Ra of the marks                                      %s\n",
               height_text(m.heights.ra_um, u).c_str());
   std::printf("\nProgrammed stock so that the sanded surface lands on nominal\n");
-  std::printf("  valleys on nominal  %-10s %s\n", height_text(a.stock_valleys_nominal_um, u).c_str(),
-              kStockValleysNominalNote);
+  std::printf("  valleys on nominal  %-10s %s\n",
+              height_text(a.stock_valleys_nominal_um, u).c_str(), kStockValleysNominalNote);
   std::printf("  mean on nominal     %-10s %s\n", height_text(a.stock_mean_nominal_um, u).c_str(),
               kStockMeanNominalNote);
   std::printf("\nVolume over %s mm^2 (%s in^2; %s)\n", fixed(a.area_mm2, 0).c_str(),
@@ -163,14 +170,16 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
     std::printf("  %-6s %12s %12s %10s\n", s.grit.c_str(), height_text(s.scratch_um, u).c_str(),
                 height_text(s.remove_um, u).c_str(), duration_text(s.time_s).c_str());
   }
-  std::printf("  %-6s %12s %12s %10s\n", "total", "", height_text(a.grits.total_remove_um, u).c_str(),
+  std::printf("  %-6s %12s %12s %10s\n", "total", "",
+              height_text(a.grits.total_remove_um, u).c_str(),
               duration_text(a.grits.total_time_s).c_str());
   for (const std::string& name : a.grits.skipped) {
     std::printf("  skipped %s: its scratches are deeper than the marks\n", name.c_str());
   }
-  std::printf("Leftover Ra after %s: about %s (estimate: the Ra that grade leaves on its own, "
-              "from the grade table)\n",
-              a.grits.steps.back().grit.c_str(), height_text(a.grits.final_ra_um, u).c_str());
+  std::printf(
+      "Leftover Ra after %s: about %s (estimate: the Ra that grade leaves on its own, "
+      "from the grade table)\n",
+      a.grits.steps.back().grit.c_str(), height_text(a.grits.final_ra_um, u).c_str());
   if (a.tolerance_um) std::printf("\nTolerance check: %s\n", verdict_text(a).c_str());
   print_cautions(sanding_cautions());
 }
@@ -184,8 +193,9 @@ void run_allowance(const AllowanceOptions& o) {
   } else if (!o.stepover.empty()) {
     marks = marks_from_flags(o, units);
   } else {
-    throw InputError("allowance needs a simulate report.json, a heightmap file or --stepover "
-                     "with the tool flags (--tool, --diameter)");
+    throw InputError(
+        "allowance needs a simulate report.json, a heightmap file or --stepover "
+        "with the tool flags (--tool, --diameter)");
   }
   const GritChoice grits = grit_choice_from_flags(o.grits);
   double area_mm2 = kReferenceAreaMm2;
@@ -205,23 +215,26 @@ void run_allowance(const AllowanceOptions& o) {
     }
     tolerance_um = t_mm * kUmPerMm;
   }
-  const Allowance a = sanding_allowance(marks.heights, grits.table, grits.sequence, area_mm2,
-                                        tolerance_um);
+  const Allowance a =
+      sanding_allowance(marks.heights, grits.table, grits.sequence, area_mm2, tolerance_um);
   if (!o.common.json) {
     print_human(a, marks, grits, area_note, units);
     return;
   }
   nlohmann::json doc = {
       {"input", marks.source},
-      {"marks", {{"sz_um", marks.heights.sz_um}, {"sv_um", marks.heights.sv_um},
-                 {"sp_um", marks.heights.sp_um}, {"sa_um", marks.heights.sa_um},
-                 {"ra_um", marks.heights.ra_um}}},
+      {"marks",
+       {{"sz_um", marks.heights.sz_um},
+        {"sv_um", marks.heights.sv_um},
+        {"sp_um", marks.heights.sp_um},
+        {"sa_um", marks.heights.sa_um},
+        {"ra_um", marks.heights.ra_um}}},
       {"depth_to_clear_um", a.depth_to_clear_um},
       {"mean_removal_um", a.mean_removal_um},
       {"stock_valleys_nominal_um", a.stock_valleys_nominal_um},
       {"stock_mean_nominal_um", a.stock_mean_nominal_um},
-      {"stock_notes", {{"valleys_nominal", kStockValleysNominalNote},
-                       {"mean_nominal", kStockMeanNominalNote}}},
+      {"stock_notes",
+       {{"valleys_nominal", kStockValleysNominalNote}, {"mean_nominal", kStockMeanNominalNote}}},
       {"area_mm2", a.area_mm2},
       {"area_basis", area_note},
       {"volume_per_area_mm3_per_mm2", a.volume_per_area_mm3_per_mm2},
@@ -235,10 +248,12 @@ void run_allowance(const AllowanceOptions& o) {
       {"sanding_time_s", a.grits.total_time_s},
       {"final_ra_um", a.grits.final_ra_um},
       {"final_scratch_um", a.grits.final_scratch_um},
-      {"basis", {{"grit_table", grits.table.source},
-                 {"final_ra", "Ra the last grade leaves on its own, from the grade table"},
-                 {"model", "marks vanish at the deepest valley; each grade erases the scratches "
-                           "of the one before (docs/finishing.md)"}}},
+      {"basis",
+       {{"grit_table", grits.table.source},
+        {"final_ra", "Ra the last grade leaves on its own, from the grade table"},
+        {"model",
+         "marks vanish at the deepest valley; each grade erases the scratches "
+         "of the one before (docs/finishing.md)"}}},
       {"cautions", sanding_cautions()},
   };
   doc["tolerance"] = nullptr;
@@ -257,8 +272,9 @@ void setup_allowance(CLI::App& sub) {
   sub.add_option("input", o->input,
                  "report.json written by `cuspmap simulate`, or a heightmap (npy, csv, xyz, sdf, "
                  "x3p); else use the tool flags and --stepover");
-  sub.add_option("--cell", o->cell, "Cell size of an npy/csv heightmap (length; else report.json "
-                                    "beside it)");
+  sub.add_option("--cell", o->cell,
+                 "Cell size of an npy/csv heightmap (length; else report.json "
+                 "beside it)");
   sub.add_option("--z-units", o->z_units, "Height unit of an npy/csv/xyz heightmap: um, nm, mm, m");
   add_tool_flags(sub, o->tool);
   sub.add_option("--stepover", o->stepover, "Stepover of the raster (length), closed-form case");

@@ -18,14 +18,15 @@ namespace cuspmap {
 
 /// Tool flags as typed (lengths keep their suffixes until parsed).
 struct ToolFlags {
-  std::string tool = "ball";    ///< ball | bullnose | flat
-  std::string diameter;         ///< --diameter, required
-  std::string corner_radius;    ///< --corner-radius, bull-nose only
-  std::string dish = "0";       ///< --dish, deg
-  std::string tilt = "0";       ///< --tilt, deg (flat end: taken along the feed)
+  std::string tool = "ball";      ///< ball | bullnose | flat
+  std::string diameter;           ///< --diameter, required
+  std::string corner_radius;      ///< --corner-radius, bull-nose only
+  std::string dish = "0";         ///< --dish, deg
+  std::string tilt = "0";         ///< --tilt, deg (flat end: taken along the feed)
+  std::string tilt_toward = "0";  ///< --tilt-toward, deg from +X (the pass direction), ccw
 };
 
-/// Adds --tool --diameter --corner-radius --dish --tilt.
+/// Adds --tool --diameter --corner-radius --dish --tilt --tilt-toward.
 void add_tool_flags(CLI::App& sub, ToolFlags& flags);
 
 /// Parses a shape name.
@@ -35,6 +36,11 @@ CutterShape parse_cutter_shape(std::string_view name, std::string_view what);
 /// Builds and validates the cutter the tool flags describe.
 /// @throws InputError naming the flag: missing --diameter, bad numbers, values out of range.
 Cutter tool_from_flags(const ToolFlags& flags, LengthUnit units);
+
+/// Refuses a flat end tilted across the feed where only the closed form will be used: its cusp
+/// model takes the tilt along the passes (+X), i.e. --tilt-toward 0 or 180.
+/// @throws InputError naming --tilt-toward and suggesting the simulated route (`hint`).
+void require_tilt_along_feed(const Cutter& cutter, const std::string& hint);
 
 /// Abrasive flags as typed.
 struct GritFlags {
@@ -47,8 +53,8 @@ void add_grit_flags(CLI::App& sub, GritFlags& flags);
 
 /// The grade table and sequence the flags choose.
 struct GritChoice {
-  GritTable table;                   ///< built-in or read from --grit-table
-  std::vector<std::string> sequence; ///< grades to use, coarse to fine
+  GritTable table;                    ///< built-in or read from --grit-table
+  std::vector<std::string> sequence;  ///< grades to use, coarse to fine
 };
 
 /// @throws InputError for an unreadable or invalid table or sequence.

@@ -1,7 +1,8 @@
 // Closed-form height parameters of the ideal cusp profile: circle arcs, optionally beyond a level
 // band (bull-nose) or scaled by tan(tilt) (tilted flat end). Heights um, lengths mm. O(1).
-// Method: circle-arc integral int_0^a (c - sqrt(c^2-u^2)) du = c a - (a sqrt(c^2-a^2) + c^2 asin(a/c))/2
-// (standard antiderivative); Ra = (2/L) int_{z>m} (z - m), since z - m integrates to zero.
+// Method: circle-arc integral int_0^a (c - sqrt(c^2-u^2)) du = c a - (a sqrt(c^2-a^2) + c^2
+// asin(a/c))/2 (standard antiderivative); Ra = (2/L) int_{z>m} (z - m), since z - m integrates to
+// zero.
 #include "finish/cusp_profile_heights.h"
 
 #include <algorithm>
@@ -19,14 +20,17 @@ namespace {
 constexpr double kSeriesRatio = 1e-2;
 
 // Height of the arc of radius c at distance u from its lowest point, cancellation-free form.
-double arc_height(double c, double u) { return u * u / (c + std::sqrt(std::max(0.0, c * c - u * u))); }
+double arc_height(double c, double u) {
+  return u * u / (c + std::sqrt(std::max(0.0, c * c - u * u)));
+}
 
 // int_0^a arc_height(c, u) du, a in [0, c].
 double arc_integral(double c, double a) {
   const double x = a / c;
   if (x < kSeriesRatio) {
     const double x2 = x * x;
-    return c * c * x * x2 * (1.0 / 6.0 + x2 * (1.0 / 40.0 + x2 * (1.0 / 112.0 + x2 * 5.0 / 1152.0)));
+    return c * c * x * x2 *
+           (1.0 / 6.0 + x2 * (1.0 / 40.0 + x2 * (1.0 / 112.0 + x2 * 5.0 / 1152.0)));
   }
   const double root = std::sqrt(std::max(0.0, c * c - a * a));
   return c * a - 0.5 * (a * root + c * c * std::asin(std::min(1.0, x)));
@@ -42,7 +46,8 @@ CuspProfile cusp_profile(const Cutter& cutter) {
       profile = {CuspProfileKind::Circle, 0.0, big_r, 1.0};
       break;
     case CutterShape::BullNose:
-      // The dished flat is lowest at its rim R - rc, which sweeps a level band of half-width R - rc.
+      // The dished flat is lowest at its rim R - rc, which sweeps a level band of half-width R -
+      // rc.
       profile = {CuspProfileKind::FlatAndArc, big_r - cutter.corner_radius_mm,
                  cutter.corner_radius_mm, 1.0};
       break;
@@ -69,8 +74,8 @@ SurfaceHeights cusp_profile_heights(const Cutter& cutter, double stepover_mm) {
   if (profile.kind == CuspProfileKind::Level || reach <= 0.0) return heights;
 
   const double h_mm = profile.scale * arc_height(c, reach);
-  const double area = arc_integral(c, reach);          // int over one half period, unscaled
-  const double mean_unscaled = area / half_period;     // mean of the unscaled arc profile
+  const double area = arc_integral(c, reach);       // int over one half period, unscaled
+  const double mean_unscaled = area / half_period;  // mean of the unscaled arc profile
   // Where the unscaled profile crosses its mean: c - sqrt(c^2 - u0^2) = mean.
   const double u0 = std::sqrt(std::max(0.0, mean_unscaled * (2.0 * c - mean_unscaled)));
   const double above = area - arc_integral(c, std::min(u0, reach)) - mean_unscaled * (reach - u0);

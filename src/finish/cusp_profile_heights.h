@@ -2,7 +2,8 @@
 // leaves on a flat floor, in closed form (exact circle arcs, no parabolic approximation).
 // Inputs: Cutter (mm, deg), stepover mm; output: SurfaceHeights in um. Cost O(1).
 // Method: cusp geometry of DESIGN.md "Closed forms" (handbook scallop h = R - sqrt(R^2-(s/2)^2));
-// mean and Ra by integrating the circle arc, int sqrt(c^2-u^2) du = (u sqrt(c^2-u^2) + c^2 asin(u/c))/2.
+// mean and Ra by integrating the circle arc, int sqrt(c^2-u^2) du = (u sqrt(c^2-u^2) + c^2
+// asin(u/c))/2.
 #pragma once
 
 #include "finish/surface_heights.h"
@@ -12,10 +13,10 @@ namespace cuspmap {
 
 /// Which closed form describes the cross-feed profile of a cutter.
 enum class CuspProfileKind {
-  Circle,       ///< ball: circle arcs of radius R
-  FlatAndArc,   ///< bull-nose: flat of half-width R - rc (dish makes no difference), arcs of rc
-  TiltedRim,    ///< flat end with tilt along the feed: arcs of R scaled by tan(tilt)
-  Level,        ///< flat end without tilt: the rim sweeps a level floor, no cross-feed cusp
+  Circle,      ///< ball: circle arcs of radius R
+  FlatAndArc,  ///< bull-nose: flat of half-width R - rc (dish makes no difference), arcs of rc
+  TiltedRim,   ///< flat end with tilt along the feed: arcs of R scaled by tan(tilt)
+  Level,       ///< flat end without tilt: the rim sweeps a level floor, no cross-feed cusp
 };
 
 /// The closed form chosen for a cutter: the profile of one period is

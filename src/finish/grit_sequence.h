@@ -26,15 +26,16 @@ struct GritStep {
 
 /// The whole sequence and where it leaves the surface.
 struct GritSequence {
-  std::vector<GritStep> steps;              ///< grades used, coarse to fine; never empty
-  std::vector<std::string> skipped;         ///< leading grades skipped: their scratches are deeper than the marks
-  double mean_below_valleys_um = 0.0;       ///< final mean plane below the machined valleys, um
-  double deepest_below_valleys_um = 0.0;    ///< final deepest scratch below the machined valleys, um
-  double final_scratch_um = 0.0;            ///< scratch depth of the last grade (peak to valley), um
-  double final_ra_um = 0.0;                 ///< Ra estimate after the last grade: its own Ra, um
-  double total_remove_um = 0.0;             ///< sum of remove_um: machined mean to final mean, um
-  double total_volume_mm3 = 0.0;            ///< sum of volume_mm3
-  double total_time_s = 0.0;                ///< sum of time_s
+  std::vector<GritStep> steps;  ///< grades used, coarse to fine; never empty
+  std::vector<std::string>
+      skipped;  ///< leading grades skipped: their scratches are deeper than the marks
+  double mean_below_valleys_um = 0.0;     ///< final mean plane below the machined valleys, um
+  double deepest_below_valleys_um = 0.0;  ///< final deepest scratch below the machined valleys, um
+  double final_scratch_um = 0.0;          ///< scratch depth of the last grade (peak to valley), um
+  double final_ra_um = 0.0;               ///< Ra estimate after the last grade: its own Ra, um
+  double total_remove_um = 0.0;           ///< sum of remove_um: machined mean to final mean, um
+  double total_volume_mm3 = 0.0;          ///< sum of volume_mm3
+  double total_time_s = 0.0;              ///< sum of time_s
 };
 
 /// Plans the sanding.

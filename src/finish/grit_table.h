@@ -26,18 +26,18 @@ inline constexpr double kRemovalMm3PerMinPerParticleUm = 0.1;
 
 /// One abrasive grade.
 struct Grit {
-  std::string name;                   ///< grade as printed on the paper, e.g. "P240"
-  double particle_um = 0.0;           ///< mean particle size, um, > 0
-  double scratch_um = 0.0;            ///< depth of its scratches, peak to valley, um, > 0
-  double ra_um = 0.0;                 ///< Ra it leaves on its own, um, > 0
-  double removal_mm3_per_min = 0.0;   ///< volume it removes per minute by hand, mm^3/min, > 0
+  std::string name;                  ///< grade as printed on the paper, e.g. "P240"
+  double particle_um = 0.0;          ///< mean particle size, um, > 0
+  double scratch_um = 0.0;           ///< depth of its scratches, peak to valley, um, > 0
+  double ra_um = 0.0;                ///< Ra it leaves on its own, um, > 0
+  double removal_mm3_per_min = 0.0;  ///< volume it removes per minute by hand, mm^3/min, > 0
 };
 
 /// The grades available and the sequence used when the user names none.
 struct GritTable {
-  std::vector<Grit> grits;             ///< coarse to fine (particle size decreasing)
-  std::vector<std::string> sequence;   ///< default sequence, coarse to fine, names from `grits`
-  std::string source;                  ///< where the values come from, one line (for the report)
+  std::vector<Grit> grits;            ///< coarse to fine (particle size decreasing)
+  std::vector<std::string> sequence;  ///< default sequence, coarse to fine, names from `grits`
+  std::string source;                 ///< where the values come from, one line (for the report)
 };
 
 /// The built-in table: P80 ... P1200 with FEPA P-grade mean particle sizes (from memory),

@@ -23,8 +23,7 @@ bool meets_targets(const PlanSpec& spec, double ra_um, double peak_to_valley_um,
                    std::string& why) {
   if (spec.target_ra_um && ra_um > *spec.target_ra_um) {
     why = std::string(what) + " Ra " + format_number(std::round(ra_um * 1000.0) / 1000.0) +
-          " um > target " +
-          format_number(*spec.target_ra_um) + " um";
+          " um > target " + format_number(*spec.target_ra_um) + " um";
     return false;
   }
   if (spec.target_scallop_um && peak_to_valley_um > *spec.target_scallop_um) {
@@ -57,16 +56,16 @@ PlanOption price_option(const std::string& tool, const Cutter& cutter, double st
     option.meets_spec = true;
     option.reason = "meets the finish spec as machined: no sanding";
   } else {
-    Allowance allowance = sanding_allowance(surface, spec.grit_table, spec.grits, spec.area_mm2,
-                                            spec.tolerance_um);
+    Allowance allowance =
+        sanding_allowance(surface, spec.grit_table, spec.grits, spec.area_mm2, spec.tolerance_um);
     option.sanded = true;
     option.bench_time_s = allowance.grits.total_time_s;
     option.removed_volume_mm3 = allowance.grits.total_volume_mm3;
     option.final_ra_um = allowance.grits.final_ra_um;
     option.final_peak_to_valley_um = allowance.grits.final_scratch_um;
-    const bool finish_ok = meets_targets(spec, option.final_ra_um, option.final_peak_to_valley_um,
-                                         ("after " + allowance.grits.steps.back().grit).c_str(),
-                                         why);
+    const bool finish_ok =
+        meets_targets(spec, option.final_ra_um, option.final_peak_to_valley_um,
+                      ("after " + allowance.grits.steps.back().grit).c_str(), why);
     if (!finish_ok) {
       option.reason = why + ": add finer grades";
     } else if (!allowance.within_tolerance) {

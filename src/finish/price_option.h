@@ -25,42 +25,43 @@ enum class SandingMode {
 
 /// The finish spec, the rates and the sanding set-up shared by all options of a plan.
 struct PlanSpec {
-  std::optional<double> target_ra_um;       ///< finished Ra must be <= this, um
-  std::optional<double> target_scallop_um;  ///< finished peak-to-valley (cusp, or last scratches) <= this, um
-  std::optional<double> tolerance_um;       ///< +- tolerance the sanding may use up, um
+  std::optional<double> target_ra_um;  ///< finished Ra must be <= this, um
+  std::optional<double>
+      target_scallop_um;  ///< finished peak-to-valley (cusp, or last scratches) <= this, um
+  std::optional<double> tolerance_um;             ///< +- tolerance the sanding may use up, um
   SandingMode sanding = SandingMode::WhenNeeded;  ///< when to sand
-  double machine_rate_per_hour = 0.0;       ///< cost of one machine hour, currency-neutral, >= 0
-  double bench_rate_per_hour = 0.0;         ///< cost of one bench (sanding) hour, >= 0
-  double area_mm2 = 0.0;                    ///< finished area, mm^2, > 0
-  GritTable grit_table;                     ///< grades available
-  std::vector<std::string> grits;           ///< sanding sequence, coarse to fine, non-empty
+  double machine_rate_per_hour = 0.0;  ///< cost of one machine hour, currency-neutral, >= 0
+  double bench_rate_per_hour = 0.0;    ///< cost of one bench (sanding) hour, >= 0
+  double area_mm2 = 0.0;               ///< finished area, mm^2, > 0
+  GritTable grit_table;                ///< grades available
+  std::vector<std::string> grits;      ///< sanding sequence, coarse to fine, non-empty
 };
 
 /// One priced option.
 struct PlanOption {
-  std::string tool;                 ///< label of the tool, e.g. "ball D6"
-  Cutter cutter;                    ///< the cutter
-  double stepover_mm = 0.0;         ///< stepover, mm
-  MachineTime machine;              ///< machine side
-  SurfaceHeights surface;           ///< machined surface heights, um
-  bool simulated = false;           ///< surface from a simulated heightfield (else closed form)
-  bool sanded = false;              ///< the option includes sanding
+  std::string tool;                    ///< label of the tool, e.g. "ball D6"
+  Cutter cutter;                       ///< the cutter
+  double stepover_mm = 0.0;            ///< stepover, mm
+  MachineTime machine;                 ///< machine side
+  SurfaceHeights surface;              ///< machined surface heights, um
+  bool simulated = false;              ///< surface from a simulated heightfield (else closed form)
+  bool sanded = false;                 ///< the option includes sanding
   std::optional<Allowance> allowance;  ///< sanding detail when sanded
-  double bench_time_s = 0.0;        ///< sanding time over the area, s (0 when not sanded)
-  double removed_volume_mm3 = 0.0;  ///< volume sanded off, mm^3
-  double final_ra_um = 0.0;         ///< Ra of the finished surface, um
+  double bench_time_s = 0.0;           ///< sanding time over the area, s (0 when not sanded)
+  double removed_volume_mm3 = 0.0;     ///< volume sanded off, mm^3
+  double final_ra_um = 0.0;            ///< Ra of the finished surface, um
   double final_peak_to_valley_um = 0.0;  ///< cusp (not sanded) or last scratch depth (sanded), um
-  double machine_cost = 0.0;        ///< machine rate x machine time
-  double bench_cost = 0.0;          ///< bench rate x bench time
-  double cost = 0.0;                ///< machine_cost + bench_cost
-  bool meets_spec = false;          ///< finish target(s) and tolerance met
-  std::string reason;               ///< one line: why it meets or misses the spec
+  double machine_cost = 0.0;             ///< machine rate x machine time
+  double bench_cost = 0.0;               ///< bench rate x bench time
+  double cost = 0.0;                     ///< machine_cost + bench_cost
+  bool meets_spec = false;               ///< finish target(s) and tolerance met
+  std::string reason;                    ///< one line: why it meets or misses the spec
 };
 
 /// The priced options of a plan (tools in order, stepovers ascending) and the best one.
 struct PlanResult {
-  std::vector<PlanOption> options;     ///< every option tried
-  std::optional<std::size_t> best;     ///< index of the cheapest option meeting the spec, or none
+  std::vector<PlanOption> options;  ///< every option tried
+  std::optional<std::size_t> best;  ///< index of the cheapest option meeting the spec, or none
 };
 
 /// Prices an option.

@@ -29,20 +29,23 @@ inline constexpr const char* kStockMeanNominalNote =
 
 /// Everything `cuspmap allowance` reports.
 struct Allowance {
-  double depth_to_clear_um = 0.0;          ///< Sz: peaks to the deepest valley, sanded before the marks vanish
-  double mean_removal_um = 0.0;            ///< Sv: mean minus minimum, the average thickness over the marks
-  double stock_valleys_nominal_um = 0.0;   ///< stock when the program puts the valleys on the stock plane
-  double stock_mean_nominal_um = 0.0;      ///< stock when the program puts the cusps' mean on the stock plane
-  double area_mm2 = 0.0;                   ///< area the volumes and times are for, mm^2
+  double depth_to_clear_um =
+      0.0;  ///< Sz: peaks to the deepest valley, sanded before the marks vanish
+  double mean_removal_um = 0.0;  ///< Sv: mean minus minimum, the average thickness over the marks
+  double stock_valleys_nominal_um =
+      0.0;  ///< stock when the program puts the valleys on the stock plane
+  double stock_mean_nominal_um =
+      0.0;                ///< stock when the program puts the cusps' mean on the stock plane
+  double area_mm2 = 0.0;  ///< area the volumes and times are for, mm^2
   double volume_per_area_mm3_per_mm2 = 0.0;  ///< Sv in mm: volume over the marks per unit area
-  double volume_mm3 = 0.0;                 ///< Sv x area: volume down to the deepest valley, mm^3
-  double volume_in3 = 0.0;                 ///< the same in in^3
-  double sequence_volume_mm3 = 0.0;        ///< volume all grades remove (marks + scratch layers), mm^3
-  double sequence_volume_in3 = 0.0;        ///< the same in in^3
-  double dimension_change_um = 0.0;        ///< Sz + deepest scratch: peaks to the lowest sanded point, um
-  std::optional<double> tolerance_um;      ///< +- dimensional tolerance checked, um (empty: none given)
-  bool within_tolerance = true;            ///< dimension_change_um <= tolerance (true when none given)
-  GritSequence grits;                      ///< the sanding sequence over area_mm2
+  double volume_mm3 = 0.0;                   ///< Sv x area: volume down to the deepest valley, mm^3
+  double volume_in3 = 0.0;                   ///< the same in in^3
+  double sequence_volume_mm3 = 0.0;  ///< volume all grades remove (marks + scratch layers), mm^3
+  double sequence_volume_in3 = 0.0;  ///< the same in in^3
+  double dimension_change_um = 0.0;  ///< Sz + deepest scratch: peaks to the lowest sanded point, um
+  std::optional<double> tolerance_um;  ///< +- dimensional tolerance checked, um (empty: none given)
+  bool within_tolerance = true;        ///< dimension_change_um <= tolerance (true when none given)
+  GritSequence grits;                  ///< the sanding sequence over area_mm2
 };
 
 /// Computes the allowance.

@@ -14,11 +14,11 @@ inline constexpr double kDefaultPassOverheadS = 0.5;
 
 /// Machine time of one option's path.
 struct MachineTime {
-  int passes = 0;                   ///< finishing passes (horizontal feed moves along the raster)
-  double path_length_mm = 0.0;      ///< length of all moves (feed and rapid), mm
-  double cycle_time_s = 0.0;        ///< feed moves at their feed, rapids at their rapid rate, s
-  double overhead_s = 0.0;          ///< passes x per-pass overhead, s
-  double machine_time_s = 0.0;      ///< cycle_time_s + overhead_s
+  int passes = 0;               ///< finishing passes (horizontal feed moves along the raster)
+  double path_length_mm = 0.0;  ///< length of all moves (feed and rapid), mm
+  double cycle_time_s = 0.0;    ///< feed moves at their feed, rapids at their rapid rate, s
+  double overhead_s = 0.0;      ///< passes x per-pass overhead, s
+  double machine_time_s = 0.0;  ///< cycle_time_s + overhead_s
 };
 
 /// Times a raster path.

@@ -31,7 +31,8 @@ std::string encode_plan_csv(const PlanResult& plan) {
     const PlanOption& p = plan.options[k];
     std::string grits;
     if (p.allowance) {
-      for (const GritStep& g : p.allowance->grits.steps) grits += (grits.empty() ? "" : " ") + g.grit;
+      for (const GritStep& g : p.allowance->grits.steps)
+        grits += (grits.empty() ? "" : " ") + g.grit;
     }
     csv += field(p.tool) + "," + num(p.stepover_mm) + "," + std::to_string(p.machine.passes) + "," +
            num(p.machine.path_length_mm) + "," + num(p.machine.machine_time_s) + "," +

@@ -17,8 +17,8 @@ namespace {
 // Layout of the chart, px.
 constexpr double kLeftPx = 72.0, kRightPx = 230.0, kTopPx = 48.0, kBottomPx = 56.0;
 // Tool colours: a qualitative palette chosen for contrast on white (no outside scheme).
-constexpr std::array<const char*, 6> kColours = {"#1f5fa8", "#c2491d", "#2e8b3a", "#7b3fa0",
-                                                 "#8a6d1d", "#2a8a8a"};
+constexpr std::array<const char*, 6> kColours = {"#1f5fa8", "#c2491d", "#2e8b3a",
+                                                 "#7b3fa0", "#8a6d1d", "#2a8a8a"};
 
 std::string num(double v, int decimals = 1) {
   char buf[64];
@@ -30,11 +30,20 @@ std::string escape(const std::string& text) {
   std::string out;
   for (const char c : text) {
     switch (c) {
-      case '&': out += "&amp;"; break;
-      case '<': out += "&lt;"; break;
-      case '>': out += "&gt;"; break;
-      case '"': out += "&quot;"; break;
-      default: out += c;
+      case '&':
+        out += "&amp;";
+        break;
+      case '<':
+        out += "&lt;";
+        break;
+      case '>':
+        out += "&gt;";
+        break;
+      case '"':
+        out += "&quot;";
+        break;
+      default:
+        out += c;
     }
   }
   return out;
@@ -63,14 +72,15 @@ struct Axes {
 
 std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   const double w = o.width_px, h = o.height_px;
-  std::string svg = "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"" +
-                    std::to_string(o.width_px) + "\" height=\"" + std::to_string(o.height_px) +
-                    "\" viewBox=\"0 0 " + std::to_string(o.width_px) + " " +
-                    std::to_string(o.height_px) +
-                    "\" font-family=\"sans-serif\" font-size=\"12\">\n"
-                    "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n"
-                    "<text x=\"" + num(kLeftPx) + "\" y=\"26\" font-size=\"16\">" + escape(o.title) +
-                    "</text>\n";
+  std::string svg =
+      "<?xml version=\"1.0\" encoding=\"UTF-8\"?>\n<svg xmlns=\"http://www.w3.org/2000/svg\" "
+      "width=\"" +
+      std::to_string(o.width_px) + "\" height=\"" + std::to_string(o.height_px) +
+      "\" viewBox=\"0 0 " + std::to_string(o.width_px) + " " + std::to_string(o.height_px) +
+      "\" font-family=\"sans-serif\" font-size=\"12\">\n"
+      "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n"
+      "<text x=\"" +
+      num(kLeftPx) + "\" y=\"26\" font-size=\"16\">" + escape(o.title) + "</text>\n";
   if (plan.options.empty()) {
     return svg + "<text x=\"" + num(kLeftPx) + "\" y=\"" + num(h / 2) +
            "\">no options to show</text>\n</svg>\n";
@@ -102,8 +112,12 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   double cost_hi = valley_top > 0.0 ? std::min(max_total, o.clip_factor * valley_top) : max_total;
   if (!(cost_hi > 0.0)) cost_hi = 1.0;
   const double pad = 0.04 * (std::log10(s_hi) - std::log10(s_lo));
-  const Axes ax{kLeftPx, w - kRightPx, kTopPx, h - kBottomPx,
-                std::log10(s_lo) - pad, std::log10(s_hi) + pad,
+  const Axes ax{kLeftPx,
+                w - kRightPx,
+                kTopPx,
+                h - kBottomPx,
+                std::log10(s_lo) - pad,
+                std::log10(s_hi) + pad,
                 nice_step(cost_hi, 5.0) * std::ceil(cost_hi / nice_step(cost_hi, 5.0))};
   const double unit = o.inch ? kMmPerInch : 1.0;  // mm per axis unit
 
@@ -135,8 +149,9 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
          "\" height=\"" + num(ax.y1 - ax.y0) + "\" fill=\"none\" stroke=\"#444444\"/>\n";
   svg += "<text x=\"" + num(0.5 * (ax.x0 + ax.x1)) + "\" y=\"" + num(h - 14) +
          "\" text-anchor=\"middle\">stepover (" + (o.inch ? "in" : "mm") + ", log scale)</text>\n";
-  svg += "<text transform=\"translate(18 " + num(0.5 * (ax.y0 + ax.y1)) +
-         ") rotate(-90)\" text-anchor=\"middle\">cost (machine + bench, at the given rates)</text>\n";
+  svg +=
+      "<text transform=\"translate(18 " + num(0.5 * (ax.y0 + ax.y1)) +
+      ") rotate(-90)\" text-anchor=\"middle\">cost (machine + bench, at the given rates)</text>\n";
   svg += "<clipPath id=\"plot\"><rect x=\"" + num(ax.x0) + "\" y=\"" + num(ax.y0 - 4) +
          "\" width=\"" + num(ax.x1 - ax.x0) + "\" height=\"" + num(ax.y1 - ax.y0 + 8) +
          "\"/></clipPath>\n<g clip-path=\"url(#plot)\" fill=\"none\">\n";
@@ -171,9 +186,10 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   double ly = kTopPx + 6;
   const double lx = w - kRightPx + 16;
   for (std::size_t t = 0; t < tools.size(); ++t) {
-    svg += "<rect x=\"" + num(lx) + "\" y=\"" + num(ly - 9) + "\" width=\"14\" height=\"10\" fill=\"" +
-           kColours[t % kColours.size()] + "\"/><text x=\"" + num(lx + 20) + "\" y=\"" + num(ly) +
-           "\">" + escape(tools[t]) + "</text>\n";
+    svg += "<rect x=\"" + num(lx) + "\" y=\"" + num(ly - 9) +
+           "\" width=\"14\" height=\"10\" fill=\"" + kColours[t % kColours.size()] +
+           "\"/><text x=\"" + num(lx + 20) + "\" y=\"" + num(ly) + "\">" + escape(tools[t]) +
+           "</text>\n";
     ly += 18;
   }
   ly += 8;
@@ -192,7 +208,8 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   ly += 26;
   if (plan.best) {
     const PlanOption& b = plan.options[*plan.best];
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\" font-weight=\"bold\">ringed: best</text>\n";
+    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) +
+           "\" font-weight=\"bold\">ringed: best</text>\n";
     ly += 18;
     svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">" + escape(b.tool) + " at " +
            format_number(b.stepover_mm / unit) + (o.inch ? " in" : " mm") + "</text>\n";
@@ -204,8 +221,8 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   }
   if (max_total > ax.cost_hi) {
     ly += 26;
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">costs above " + format_number(ax.cost_hi) +
-           " run off the top</text>\n";
+    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">costs above " +
+           format_number(ax.cost_hi) + " run off the top</text>\n";
   }
   return svg + "</svg>\n";
 }

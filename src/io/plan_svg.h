@@ -12,10 +12,10 @@ namespace cuspmap {
 
 /// How to draw the chart.
 struct PlanSvgOptions {
-  int width_px = 880;               ///< document width
-  int height_px = 520;              ///< document height
+  int width_px = 880;                                     ///< document width
+  int height_px = 520;                                    ///< document height
   std::string title = "Finishing cost against stepover";  ///< heading
-  bool inch = false;                ///< stepover axis in inches (else mm)
+  bool inch = false;                                      ///< stepover axis in inches (else mm)
   /// The cost axis ends at this multiple of the largest per-tool minimum total (or at the
   /// highest cost, if lower), so a few very expensive options do not flatten every tool's valley.
   double clip_factor = 5.0;

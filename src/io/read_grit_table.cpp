@@ -3,12 +3,13 @@
 // Method: TOML v1.0 (toml++ 3.3); derived values as in finish/grit_table.h.
 #include "io/read_grit_table.h"
 
+#include <toml++/toml.h>
+
 #include <algorithm>
 #include <array>
 #include <cmath>
 #include <fstream>
 #include <sstream>
-#include <toml++/toml.h>
 
 #include "core/input_error.h"
 #include "core/units.h"
@@ -28,14 +29,15 @@ void check_keys(const toml::table& table, const std::array<std::string_view, N>&
     if (std::find(allowed.begin(), allowed.end(), key.str()) != allowed.end()) continue;
     std::string list;
     for (std::string_view a : allowed) list += (list.empty() ? "" : ", ") + std::string(a);
-    throw InputError(where(file, key.source()) + ": unknown key '" + prefix + std::string(key.str()) +
-                     "'; allowed keys are " + list);
+    throw InputError(where(file, key.source()) + ": unknown key '" + prefix +
+                     std::string(key.str()) + "'; allowed keys are " + list);
   }
 }
 
 // A positive finite number at `key`, or `fallback` when absent.
 double positive(const toml::table& table, std::string_view key, double fallback,
-                const std::string& file, const std::string& name, const toml::source_region& owner) {
+                const std::string& file, const std::string& name,
+                const toml::source_region& owner) {
   const toml::node* node = table.get(key);
   if (node == nullptr) {
     if (fallback > 0.0) return fallback;
@@ -62,13 +64,16 @@ GritTable parse_grit_table(std::string_view text, const std::string& file_name) 
     throw InputError(where(file_name, e.source()) + ": " + std::string(e.description()));
   }
   static constexpr std::array<std::string_view, 6> kRootKeys = {
-      "source", "sequence", "scratch_per_particle", "ra_per_particle",
-      "removal_mm3_per_min_per_particle_um", "grit"};
+      "source",
+      "sequence",
+      "scratch_per_particle",
+      "ra_per_particle",
+      "removal_mm3_per_min_per_particle_um",
+      "grit"};
   check_keys(root, kRootKeys, file_name, "");
   const toml::source_region& top = root.source();
-  const double scratch_frac =
-      positive(root, "scratch_per_particle", kScratchDepthPerParticle, file_name,
-               "scratch_per_particle", top);
+  const double scratch_frac = positive(root, "scratch_per_particle", kScratchDepthPerParticle,
+                                       file_name, "scratch_per_particle", top);
   const double ra_frac =
       positive(root, "ra_per_particle", kRaPerParticle, file_name, "ra_per_particle", top);
   const double removal_frac =
@@ -81,8 +86,8 @@ GritTable parse_grit_table(std::string_view text, const std::string& file_name) 
   if (grits == nullptr || grits->empty()) {
     throw InputError(file_name + ": 'grit' is missing: expected an array of grade tables");
   }
-  static constexpr std::array<std::string_view, 5> kGritKeys = {
-      "name", "particle_um", "scratch_um", "ra_um", "removal_mm3_per_min"};
+  static constexpr std::array<std::string_view, 5> kGritKeys = {"name", "particle_um", "scratch_um",
+                                                                "ra_um", "removal_mm3_per_min"};
   for (std::size_t k = 0; k < grits->size(); ++k) {
     const toml::node& node = (*grits)[k];
     const std::string name_k = "grit[" + std::to_string(k) + "]";
@@ -102,12 +107,12 @@ GritTable parse_grit_table(std::string_view text, const std::string& file_name) 
     }
     Grit grit;
     grit.name = *name;
-    grit.particle_um = positive(*entry, "particle_um", 0.0, file_name, name_k + ".particle_um",
-                                node.source());
+    grit.particle_um =
+        positive(*entry, "particle_um", 0.0, file_name, name_k + ".particle_um", node.source());
     grit.scratch_um = positive(*entry, "scratch_um", scratch_frac * grit.particle_um, file_name,
                                name_k + ".scratch_um", node.source());
-    grit.ra_um = positive(*entry, "ra_um", ra_frac * grit.particle_um, file_name,
-                          name_k + ".ra_um", node.source());
+    grit.ra_um = positive(*entry, "ra_um", ra_frac * grit.particle_um, file_name, name_k + ".ra_um",
+                          node.source());
     grit.removal_mm3_per_min =
         positive(*entry, "removal_mm3_per_min", removal_frac * grit.particle_um, file_name,
                  name_k + ".removal_mm3_per_min", node.source());
@@ -127,7 +132,8 @@ GritTable parse_grit_table(std::string_view text, const std::string& file_name) 
       if (!s) throw InputError(where(file_name, n.source()) + ": sequence: expected names");
       joined += (joined.empty() ? "" : ",") + *s;
     }
-    table.sequence = parse_grit_sequence(joined, table, where(file_name, seq->source()) + ": sequence");
+    table.sequence =
+        parse_grit_sequence(joined, table, where(file_name, seq->source()) + ": sequence");
   } else {
     for (const Grit& g : table.grits) table.sequence.push_back(g.name);
   }
@@ -164,7 +170,8 @@ std::vector<std::string> parse_grit_sequence(std::string_view text, const GritTa
     if (grit == nullptr) {
       std::string known;
       for (const Grit& g : table.grits) known += (known.empty() ? "" : ", ") + g.name;
-      throw InputError(std::string(what) + " '" + name + "': unknown grade; the table has " + known);
+      throw InputError(std::string(what) + " '" + name + "': unknown grade; the table has " +
+                       known);
     }
     if (previous != nullptr && grit->particle_um >= previous->particle_um) {
       throw InputError(std::string(what) + " '" + std::string(text) + "': " + name +

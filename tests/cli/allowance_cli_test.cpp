@@ -1,8 +1,7 @@
 // CLI tests of `cuspmap allowance`: the JSON contract keys, cautions in both outputs, inch
 // input, a user grade table, a simulate report as input, and bad input lines verbatim (exit 2).
-#include <nlohmann/json.hpp>
-
 #include <cmath>
+#include <nlohmann/json.hpp>
 
 #include "core/write_file_atomic.h"
 #include "finish/cusp_profile_heights.h"
@@ -30,13 +29,13 @@ void require_error(const std::vector<std::string>& args, const std::string& line
 }  // namespace
 
 TEST_CASE("cuspmap allowance: JSON carries the contract keys", "[cli]") {
-  const nlohmann::json doc = json_of(run_cuspmap(
-      {"allowance", "--tool", "ball", "--diameter", "6", "--stepover", "0.5", "--area", "120x80",
-       "--tolerance", "0.05mm", "--json"}));
-  for (const char* key : {"depth_to_clear_um", "mean_removal_um", "stock_valleys_nominal_um",
-                          "stock_mean_nominal_um", "volume_mm3", "volume_in3",
-                          "volume_per_area_mm3_per_mm2", "grits", "cautions", "final_ra_um",
-                          "basis", "tolerance", "stock_notes"}) {
+  const nlohmann::json doc =
+      json_of(run_cuspmap({"allowance", "--tool", "ball", "--diameter", "6", "--stepover", "0.5",
+                           "--area", "120x80", "--tolerance", "0.05mm", "--json"}));
+  for (const char* key :
+       {"depth_to_clear_um", "mean_removal_um", "stock_valleys_nominal_um", "stock_mean_nominal_um",
+        "volume_mm3", "volume_in3", "volume_per_area_mm3_per_mm2", "grits", "cautions",
+        "final_ra_um", "basis", "tolerance", "stock_notes"}) {
     CAPTURE(key);
     REQUIRE(doc.contains(key));
   }
@@ -56,13 +55,13 @@ TEST_CASE("cuspmap allowance: JSON carries the contract keys", "[cli]") {
 }
 
 TEST_CASE("cuspmap allowance: human output shows the stock, grits, verdict and cautions", "[cli]") {
-  const test::RunResult r = run_cuspmap({"allowance", "--diameter", "6", "--stepover", "0.5",
-                                         "--tolerance", "10um"});
+  const test::RunResult r =
+      run_cuspmap({"allowance", "--diameter", "6", "--stepover", "0.5", "--tolerance", "10um"});
   REQUIRE(r.exit_code == 0);
-  for (const char* text : {"valleys on nominal", "mean on nominal", "P400", "Leftover Ra",
-                           "Tolerance check: exceeds", "Cautions:", "respiratory protection",
-                           "combustible", "aluminium", "local codes", "licensed practice",
-                           "reference area 100 cm^2"}) {
+  for (const char* text :
+       {"valleys on nominal", "mean on nominal", "P400", "Leftover Ra", "Tolerance check: exceeds",
+        "Cautions:", "respiratory protection", "combustible", "aluminium", "local codes",
+        "licensed practice", "reference area 100 cm^2"}) {
     CAPTURE(text);
     REQUIRE(r.out.find(text) != std::string::npos);
   }
@@ -72,20 +71,20 @@ TEST_CASE("cuspmap allowance: inch units read bare numbers in inches", "[cli]") 
   // 0.5 in ball at 0.020 in: the same as 12.7 mm at 0.508 mm (1 in = 25.4 mm exactly).
   const nlohmann::json in = json_of(run_cuspmap({"allowance", "--units", "in", "--diameter", "0.5",
                                                  "--stepover", "0.020", "--area", "10", "--json"}));
-  const nlohmann::json mm = json_of(run_cuspmap({"allowance", "--diameter", "12.7mm", "--stepover",
-                                                 "0.508mm", "--area", "10in2", "--json"}));
+  const nlohmann::json mm = json_of(run_cuspmap(
+      {"allowance", "--diameter", "12.7mm", "--stepover", "0.508mm", "--area", "10in2", "--json"}));
   REQUIRE_NEAR(in["depth_to_clear_um"].get<double>(), mm["depth_to_clear_um"].get<double>(), 1e-9);
   REQUIRE_NEAR(in["area_mm2"].get<double>(), 6451.6, 1e-9);  // 10 in^2 = 10 x 645.16 mm^2
   REQUIRE_NEAR(mm["area_mm2"].get<double>(), 6451.6, 1e-9);
-  const test::RunResult human = run_cuspmap({"allowance", "--units", "in", "--diameter", "0.5",
-                                             "--stepover", "0.020"});
+  const test::RunResult human =
+      run_cuspmap({"allowance", "--units", "in", "--diameter", "0.5", "--stepover", "0.020"});
   REQUIRE(human.out.find(" uin") != std::string::npos);
 }
 
 TEST_CASE("cuspmap allowance: a grade table file and --grits replace the defaults", "[cli]") {
-  const nlohmann::json doc = json_of(run_cuspmap(
-      {"allowance", "--diameter", "10", "--stepover", "1.5", "--grit-table",
-       test::data_path("grits_measured.toml"), "--grits", "P240,P600", "--json"}));
+  const nlohmann::json doc = json_of(
+      run_cuspmap({"allowance", "--diameter", "10", "--stepover", "1.5", "--grit-table",
+                   test::data_path("grits_measured.toml"), "--grits", "P240,P600", "--json"}));
   REQUIRE(doc["grits"].size() == 2);
   REQUIRE(doc["grits"][1]["grit"] == "P600");
   REQUIRE(doc["final_ra_um"].get<double>() == 0.25);
@@ -105,8 +104,9 @@ TEST_CASE("cuspmap allowance: reads a simulate report", "[cli]") {
   REQUIRE(doc["area_mm2"].get<double>() == 1000.0);  // the simulated patch, 40 x 25 mm
   REQUIRE_NEAR(doc["volume_mm3"].get<double>(), 3.0e-3 * 1000.0, 1e-12);
   test::write_text(report, R"({"areal": {"Sz_um": 9.0}})");
-  require_error({"allowance", report},
-                report + ": areal.Sv_um is missing: expected a report.json written by `cuspmap simulate`");
+  require_error(
+      {"allowance", report},
+      report + ": areal.Sv_um is missing: expected a report.json written by `cuspmap simulate`");
 }
 
 TEST_CASE("cuspmap allowance: a heightmap of the ideal cusp gives the closed-form allowance",
@@ -122,13 +122,13 @@ TEST_CASE("cuspmap allowance: a heightmap of the ideal cusp gives the closed-for
   hf.z_um.resize(hf.ny, hf.nx);
   for (int j = 0; j < hf.ny; ++j) {
     const double y = std::remainder(hf.y_mm(j), s);  // distance to the nearest pass
-    hf.z_um.row(j).setConstant(static_cast<float>((big_r - std::sqrt(big_r * big_r - y * y)) * 1000.0));
+    hf.z_um.row(j).setConstant(
+        static_cast<float>((big_r - std::sqrt(big_r * big_r - y * y)) * 1000.0));
   }
   test::TempDir dir;
   const std::string npy = dir.file("cusp.npy");
   write_file_atomic(npy, encode_heightmap(hf, npy));
-  const nlohmann::json doc = json_of(run_cuspmap(
-      {"allowance", npy, "--cell", "0.01mm", "--json"}));
+  const nlohmann::json doc = json_of(run_cuspmap({"allowance", npy, "--cell", "0.01mm", "--json"}));
   Cutter ball;
   ball.diameter_mm = 2.0 * big_r;
   const SurfaceHeights exact = cusp_profile_heights(ball, s);
@@ -153,7 +153,8 @@ TEST_CASE("cuspmap allowance: bad input exits 2 with one line", "[cli]") {
                 "--stepover 7 mm: must be > 0 and <= the tool diameter 6 mm");
   require_error({"allowance", "--tool", "cone", "--diameter", "6", "--stepover", "1"},
                 "--tool cone: must be ball, bullnose or flat");
-  require_error({"allowance", "--stepover", "1"}, "--diameter is missing: give the cutter diameter");
+  require_error({"allowance", "--stepover", "1"},
+                "--diameter is missing: give the cutter diameter");
   require_error({"allowance", "--diameter", "6", "--stepover", "1", "--area", "-5"},
                 "--area -5: must be > 0 (an area such as 9600, 96cm2, 120x80 or 4.7inx3.1in)");
   require_error({"allowance", "--diameter", "6", "--stepover", "1", "--tolerance", "0"},
@@ -162,10 +163,12 @@ TEST_CASE("cuspmap allowance: bad input exits 2 with one line", "[cli]") {
                 "--grits 'P400,P180': P180 is not finer than P400; list grades coarse to fine");
   require_error({"allowance", "--tool", "bullnose", "--diameter", "10", "--stepover", "1"},
                 "--corner-radius is missing: a bullnose tool needs its corner radius");
-  require_error({"allowance", "--tool", "flat", "--diameter", "10", "--stepover", "1", "--tilt", "3"},
-                "--tilt 3 deg: must be within +-1 deg (the first-order tilt model's limit)");
-  require_error({"allowance", "--diameter", "6", "--stepover", "1", "--grit-table", "/nonexistent/g.toml"},
-                "--grit-table /nonexistent/g.toml: cannot read the file");
+  require_error(
+      {"allowance", "--tool", "flat", "--diameter", "10", "--stepover", "1", "--tilt", "3"},
+      "--tilt 3 deg: must be within +-1 deg (the first-order tilt model's limit)");
+  require_error(
+      {"allowance", "--diameter", "6", "--stepover", "1", "--grit-table", "/nonexistent/g.toml"},
+      "--grit-table /nonexistent/g.toml: cannot read the file");
 }
 
 }  // namespace cuspmap

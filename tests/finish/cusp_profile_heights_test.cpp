@@ -138,8 +138,7 @@ TEST_CASE("cusp_profile_heights: tilted flat end is the circle of R scaled by ta
   flat.tilt_deg = tilt_deg;
   const double t = std::tan(tilt_deg * std::numbers::pi / 180.0);
   const SurfaceHeights got = cusp_profile_heights(flat, s);
-  REQUIRE_NEAR(got.sz_um, t * (big_r - std::sqrt(big_r * big_r - 0.25 * s * s)) * 1000.0,
-               1e-12);
+  REQUIRE_NEAR(got.sz_um, t * (big_r - std::sqrt(big_r * big_r - 0.25 * s * s)) * 1000.0, 1e-12);
   const auto z = [&](double y) { return t * (big_r - std::sqrt(big_r * big_r - y * y)); };
   require_same(got, reference(z, 0.5 * s));
   // The sign of the tilt does not matter (one lowest rim point either way).

@@ -81,8 +81,10 @@ TEST_CASE("price_option: a surface that meets the target as machined is not sand
   REQUIRE(coarse.final_ra_um == spec.grit_table.grits[10].ra_um);
 }
 
-TEST_CASE("price_option: misses the spec when the last grade is too coarse or the tolerance "
-          "too tight", "[finish]") {
+TEST_CASE(
+    "price_option: misses the spec when the last grade is too coarse or the tolerance "
+    "too tight",
+    "[finish]") {
   PlanSpec spec = base_spec();
   spec.target_ra_um = 0.2;  // finer than P400's 0.35 um
   const PlanOption rough = price_all(spec, {1.0}).front();
@@ -119,8 +121,7 @@ TEST_CASE("cheapest_option: never picks an option that misses the spec; empty wh
   REQUIRE_FALSE(cheapest_option(price_all(spec, stepovers)).has_value());
 }
 
-TEST_CASE("cheapest_option: optimum moves to finer stepovers as the bench rate rises",
-          "[finish]") {
+TEST_CASE("cheapest_option: optimum moves to finer stepovers as the bench rate rises", "[finish]") {
   PlanSpec spec = base_spec();
   spec.sanding = SandingMode::Always;  // every option sanded: a real machine/bench trade-off
   std::vector<double> stepovers;

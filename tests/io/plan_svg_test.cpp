@@ -1,11 +1,12 @@
 // Tests of the plan encoders: the SVG chart parses as XML (pugixml) with one set of series per
 // tool, a marker per option and the best ringed, labels escaped; the CSV has one row per option
 // with RFC 4180 quoting and the best flagged.
+#include "io/plan_svg.h"
+
 #include <pugixml.hpp>
 
 #include "finish/cusp_profile_heights.h"
 #include "io/plan_csv.h"
-#include "io/plan_svg.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -52,8 +53,8 @@ TEST_CASE("encode_plan_svg: well-formed chart with series per tool and the best 
   const pugi::xml_node root = doc.child("svg");
   REQUIRE(root);
   REQUIRE(std::string(root.attribute("width").value()) == "880");
-  REQUIRE(count(root, "polyline") == 3 * 2);      // total, machine, bench per tool
-  REQUIRE(count(root, "circle") == 6 + 1);        // a marker per option + the ring
+  REQUIRE(count(root, "polyline") == 3 * 2);  // total, machine, bench per tool
+  REQUIRE(count(root, "circle") == 6 + 1);    // a marker per option + the ring
   REQUIRE(svg.find("ball &amp; &quot;co&quot; &lt;R3&gt;") != std::string::npos);
   REQUIRE(svg.find("ringed: best") != std::string::npos);
   // Deterministic: same plan, same bytes.

@@ -60,14 +60,15 @@ TEST_CASE("read_grit_table: bad tables fail with one line naming the value", "[i
           "scratch_um, ra_um, removal_mm3_per_min");
   REQUIRE(error_of("grit = [{name = \"P1\"}]\n") ==
           "t.toml:1:9: grit[0].particle_um is missing: expected a number > 0");
-  REQUIRE(error_of("grit = [{name = \"A\", particle_um = 3.0}, {name = \"A\", particle_um = 2.0}]\n") ==
-          "t.toml:1:42: grit[1].name 'A': appears twice");
+  REQUIRE(
+      error_of("grit = [{name = \"A\", particle_um = 3.0}, {name = \"A\", particle_um = 2.0}]\n") ==
+      "t.toml:1:42: grit[1].name 'A': appears twice");
   REQUIRE(error_of("sequence = [\"B\", \"A\"]\ngrit = [{name = \"A\", particle_um = 30.0},"
                    " {name = \"B\", particle_um = 20.0}]\n") ==
           "t.toml:1:12: sequence 'B,A': A is not finer than B; list grades coarse to fine");
   REQUIRE(error_of("scratch_per_particle = 0.1\n") ==
           "t.toml: 'grit' is missing: expected an array of grade tables");
-  REQUIRE(error_of("grit = [\n") .rfind("t.toml:", 0) == 0);
+  REQUIRE(error_of("grit = [\n").rfind("t.toml:", 0) == 0);
   REQUIRE_THROWS_AS(read_grit_table("/nonexistent/grits.toml"), InputError);
 }
 
@@ -79,7 +80,8 @@ TEST_CASE("parse_grit_sequence: names must exist and go from coarse to fine", "[
     parse_grit_sequence("P180,P9", t, "--grits");
     FAIL("accepted an unknown grade");
   } catch (const InputError& e) {
-    REQUIRE(std::string(e.what()).rfind("--grits 'P9': unknown grade; the table has P80, P100,", 0) == 0);
+    REQUIRE(std::string(e.what()).rfind("--grits 'P9': unknown grade; the table has P80, P100,",
+                                        0) == 0);
   }
   try {
     parse_grit_sequence("P400,P240", t, "--grits");
