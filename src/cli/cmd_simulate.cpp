@@ -1,12 +1,183 @@
-// `cuspmap simulate`: not built yet; refuses with exit 2 until its issue lands.
+// `cuspmap simulate JOB.toml --out DIR` (or `--gcode FILE` with tool flags): runs the pipeline
+// and writes height.npy, height.png, shaded.png, profile.png and report.json (+ an HTML page).
+// cli/ holds no computation: flags -> job/ -> run_job -> io/ encoders -> OutputDir.
+#include <cstdio>
+#include <memory>
+#include <string>
+
 #include "cli/command.h"
+#include "cli/output_dir.h"
+#include "cli/progress_bar.h"
+#include "cli/sim_flags.h"
+#include "cli/texture_flags.h"
 #include "core/input_error.h"
+#include "core/stage_timer.h"
+#include "core/write_file_atomic.h"
+#include "io/html_report.h"
+#include "io/simulation_pictures.h"
+#include "job/job.h"
+#include "job/run_job.h"
+#include "job/validate_cutter.h"
 
 namespace cuspmap {
+namespace {
+
+struct SimulateOptions {
+  CommonOptions common;
+  SimFlags sim;
+  TextureFlags texture;
+  std::string job_file;
+  std::string out;
+  std::string report_html;
+  // G-code mode: the program plus the tool described by flags.
+  std::string gcode;
+  std::string tool = "ball";
+  std::string diameter;
+  std::string corner_radius = "0";
+  std::string dish = "0";
+  int teeth = 2;
+  std::string cell = "0.01mm";
+  std::string floor_z = "0";
+  double rpm = 10000.0;
+  bool tooth_marks = false;
+  bool units_given = false;
+};
+
+// A Job from --gcode and the tool flags (no job file).
+Job gcode_job(const SimulateOptions& o) {
+  const LengthUnit unit = o.common.length_unit();
+  Job job;
+  job.source = o.gcode;
+  job.name = o.gcode.substr(o.gcode.find_last_of('/') + 1);
+  job.units = unit;
+  if (o.tool == "ball") {
+    job.cutter.shape = CutterShape::Ball;
+  } else if (o.tool == "bullnose") {
+    job.cutter.shape = CutterShape::BullNose;
+  } else if (o.tool == "flat") {
+    job.cutter.shape = CutterShape::Flat;
+  } else {
+    throw InputError("--tool '" + o.tool + "': allowed values are ball, bullnose, flat");
+  }
+  if (o.diameter.empty()) throw InputError("--diameter is required with --gcode");
+  job.cutter.diameter_mm = parse_length_mm(o.diameter, unit, "--diameter");
+  job.cutter.corner_radius_mm = parse_length_mm(o.corner_radius, unit, "--corner-radius");
+  job.cutter.dish_deg = parse_angle_deg(o.dish, "--dish");
+  job.cutter.teeth = o.teeth;
+  validate_cutter(job.cutter, NameStyle::Flag);
+  job.patch.cell_mm = parse_positive_length_mm(o.cell, unit, "--cell");
+  job.patch.floor_z_mm = parse_length_mm(o.floor_z, unit, "--floor-z");
+  job.patch_from_program = true;
+  if (!(o.rpm > 0)) throw InputError("--rpm " + format_number(o.rpm) + ": must be > 0");
+  job.cut.rpm = o.rpm;
+  job.path.kind = PathKind::Gcode;
+  job.path.file = o.gcode;
+  job.sim.tooth_marks = o.tooth_marks;
+  return job;
+}
+
+std::string height_text(double um, LengthUnit units) {
+  if (units == LengthUnit::Inch) return format_number(um * kUinPerUm) + " uin";
+  return format_number(um) + " um";
+}
+
+void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, LengthUnit units) {
+  const auto& rough = run.texture.profile.roughness;
+  const auto& areal = run.texture.areal.parameters;
+  std::printf("%s\n", job.name.c_str());
+  std::printf("  tool    %s\n  path    %s, %zu moves\n", describe_tool(job.cutter, units).c_str(),
+              describe_path(job.path, units).c_str(), run.built.path.moves.size());
+  std::printf("  Ra %s (%s)  Rz %s  cut-off %s mm\n", height_text(rough.a_um, units).c_str(),
+              run.texture.profile.iso1302_grade.c_str(), height_text(rough.z_um, units).c_str(),
+              format_number(run.texture.profile.cutoff_mm).c_str());
+  std::printf("  Sa %s  Sz %s  highest point above nominal %s\n",
+              height_text(areal.sa_um, units).c_str(), height_text(areal.sz_um, units).c_str(),
+              height_text(run.max_scallop_um, units).c_str());
+  std::printf("  path %s mm, cycle %s s\n", format_number(run.path_length_mm).c_str(),
+              format_number(run.cycle_time_s).c_str());
+  for (const PathWarning& w : run.built.warnings) {
+    std::printf("  warning: %s%s\n", w.line > 0 ? ("line " + std::to_string(w.line) + ": ").c_str() : "",
+                w.message.c_str());
+  }
+  for (const std::string& w : run.texture.warnings) std::printf("  note: %s\n", w.c_str());
+  for (const std::string& k : job.ignored_keys) std::printf("  ignored: %s\n", k.c_str());
+  std::printf("  wrote %zu files to %s/\n", dir.written().size(), dir.path().c_str());
+  std::printf(
+      "  Before cutting: prove the program on the machine as its maker instructs (guards, "
+      "workholding, rotating tools); follow local codes and licensed practice.\n");
+}
+
+void run_simulate(const SimulateOptions& o, bool units_flag_given) {
+  StageTimer total;
+  if (o.job_file.empty() == o.gcode.empty()) {
+    throw InputError("give either a job file or --gcode FILE (with --tool and --diameter)");
+  }
+  Job job = o.gcode.empty() ? load_job(o.job_file) : gcode_job(o);
+  const LengthUnit units = units_flag_given ? o.common.length_unit() : job.units;
+  RunOptions ropt;
+  ropt.threads = o.sim.threads;
+  if (!o.sim.max_memory.empty()) ropt.max_memory_bytes = parse_bytes(o.sim.max_memory, "--max-memory");
+  ropt.texture = texture_options(o.texture, units);
+  const auto range = parse_height_range(o.sim.range, units);
+  OutputDir dir(o.out);  // created only once the inputs are known to be good
+  JobRun run;
+  {
+    ProgressBar bar("sweep");
+    ropt.progress = bar.callback();
+    run = run_job(job, ropt);
+  }
+  print_stage(o.common.verbose, "path", run.path_s);
+  print_stage(o.common.verbose, "sweep", run.sweep_s);
+  print_stage(o.common.verbose, "texture", run.texture_s);
+  StageTimer write;
+  const SimulationPictures pics = render_simulation_pictures(run, units, range);
+  dir.write("height.npy", pics.height_npy);
+  dir.write("height.png", pics.height_png);
+  dir.write("shaded.png", pics.shaded_png);
+  if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
+  if (!o.report_html.empty()) {
+    write_file_atomic(o.report_html,
+                      render_html_report(simulation_html_report(job, run, pics, units)));
+  }
+  const double write_s = write.seconds();
+  std::vector<std::string> files = dir.written();
+  files.push_back("report.json");
+  const nlohmann::json report =
+      simulate_report_json(job, run, pics.facts, files, write_s, total.seconds());
+  dir.write("report.json", report.dump(2) + "\n");
+  print_stage(o.common.verbose, "write", write.seconds());
+  if (o.common.json) {
+    print_json(report);
+  } else {
+    print_summary(job, run, dir, units);
+  }
+}
+
+}  // namespace
 
 void setup_simulate(CLI::App& sub) {
-  sub.allow_extras();
-  sub.callback([] { throw InputError("'simulate' is not built yet in this version of cuspmap"); });
+  auto o = std::make_shared<SimulateOptions>();
+  sub.add_option("job", o->job_file, "Job file (TOML): [patch], [tool], [cut], [path], [sim]");
+  sub.add_option("--out", o->out, "Output folder (created if missing; other files are left alone)")
+      ->required();
+  sub.add_option("--report", o->report_html, "Also write a self-contained HTML page here");
+  // Reason for the G-code flags: users want to see their own program without writing a job file.
+  sub.add_option("--gcode", o->gcode, "Simulate this RS-274 program instead of a job file");
+  sub.add_option("--tool", o->tool, "With --gcode: ball, bullnose or flat")->capture_default_str();
+  sub.add_option("--diameter", o->diameter, "With --gcode: tool diameter");
+  sub.add_option("--corner-radius", o->corner_radius, "With --gcode: bull-nose corner radius");
+  sub.add_option("--dish", o->dish, "With --gcode: end-face dish angle, deg");
+  sub.add_option("--teeth", o->teeth, "With --gcode: number of teeth")->check(CLI::Range(1, 64));
+  sub.add_option("--cell", o->cell, "With --gcode: grid cell size")->capture_default_str();
+  sub.add_option("--floor-z", o->floor_z, "With --gcode: nominal floor Z in program coordinates")
+      ->capture_default_str();
+  sub.add_option("--rpm", o->rpm, "With --gcode: spindle speed, rev/min")->capture_default_str();
+  sub.add_flag("--tooth-marks", o->tooth_marks, "With --gcode: sweep tooth by tooth");
+  add_sim_flags(sub, o->sim);
+  add_texture_flags(sub, o->texture);
+  add_common_flags(sub, o->common);
+  CLI::App* app = &sub;
+  sub.callback([o, app] { run_simulate(*o, app->count("--units") > 0); });
 }
 
 }  // namespace cuspmap

@@ -1,12 +1,318 @@
-// `cuspmap stepover`: not built yet; refuses with exit 2 until its issue lands.
+// `cuspmap stepover`: closed-form cusp height, Ra/Rq/Rz and feed marks for a stepover, or the
+// stepover for a target scallop/Ra/Rz; turning feed marks with --tool insert. Parses and checks
+// the flags, calls cusp/, prints a compact table or one JSON object (mm, um).
+// Method: cusp/ closed forms (DESIGN.md "Closed forms"); flag contract in DESIGN.md "Command line".
+#include <array>
+#include <charconv>
+#include <cmath>
+#include <iostream>
+#include <optional>
+#include <string>
+#include <vector>
+
 #include "cli/command.h"
+#include "cli/stepover_report.h"
 #include "core/input_error.h"
+#include "core/stage_timer.h"
+#include "core/units.h"
+#include "cusp/cross_feed_cusp.h"
+#include "cusp/feed_mark.h"
+#include "cusp/inverse_stepover.h"
+#include "job/validate_cutter.h"
 
 namespace cuspmap {
+namespace {
+
+// Flag values as typed; parsed in the callback so that every error names the value.
+struct StepoverOptions {
+  std::string tool = "ball";
+  std::string diameter, corner_radius, dish, surface = "flat", surface_radius, slope;
+  std::string feed_per_tooth, teeth, stepover, target_scallop, target_ra, target_rz;
+  std::string nose_radius, feed_per_rev;
+  CommonOptions common;
+};
+
+// Which flags were given on the command line.
+class Given {
+ public:
+  explicit Given(const CLI::App& app) : app_(app) {}
+  bool operator()(const char* flag) const { return app_.count(flag) > 0; }
+
+ private:
+  const CLI::App& app_;
+};
+
+double positive_length_mm(const std::string& text, LengthUnit unit, const char* flag) {
+  const double mm = parse_length_mm(text, unit, flag);
+  if (!(mm > 0.0))
+    throw InputError(std::string(flag) + " " + format_number(mm) + " mm: must be > 0");
+  return mm;
+}
+
+double positive_height_um(const std::string& text, LengthUnit unit, const char* flag) {
+  const double um = parse_length_mm(text, unit, flag) * kUmPerMm;
+  if (!(um > 0.0))
+    throw InputError(std::string(flag) + " " + format_number(um) + " um: must be > 0");
+  return um;
+}
+
+// The single mode flag given among `flags`, or an error naming what is missing or doubled.
+std::string single_mode(const Given& given, const std::vector<const char*>& flags) {
+  std::vector<std::string> got;
+  for (const char* f : flags) {
+    if (given(f)) got.emplace_back(f);
+  }
+  std::string list;
+  for (size_t k = 0; k < flags.size(); ++k) list += (k ? ", " : "") + std::string(flags[k]);
+  if (got.empty()) throw InputError("one of " + list + " is required");
+  if (got.size() > 1) {
+    throw InputError("give only one of " + list + " (got " + got[0] + " and " + got[1] + ")");
+  }
+  return got[0];
+}
+
+FinishTarget target_kind(const std::string& flag) {
+  if (flag == "--target-ra") return FinishTarget::Ra;
+  if (flag == "--target-rz") return FinishTarget::Rz;
+  return FinishTarget::Scallop;
+}
+
+std::string target_word(FinishTarget t) {
+  return t == FinishTarget::Ra ? "Ra" : t == FinishTarget::Rz ? "Rz" : "cusp";
+}
+
+// The parsed value of the --target-* flag `mode`, in um.
+double target_value_um(const StepoverOptions& o, const std::string& mode, LengthUnit unit) {
+  const FinishTarget t = target_kind(mode);
+  const std::string& text = t == FinishTarget::Ra   ? o.target_ra
+                            : t == FinishTarget::Rz ? o.target_rz
+                                                    : o.target_scallop;
+  return positive_height_um(text, unit, mode.c_str());
+}
+
+void record_inverse(FinishTarget t, double target_um, const StepoverSolution& sol,
+                    StepoverReport& rep) {
+  rep.inverse = true;
+  rep.target = t;
+  rep.target_um = target_um;
+  rep.stepover_approx_mm = sol.stepover_approx_mm;
+  rep.cusp = sol.cusp;
+}
+
+// Marks of a circle of radius r stepped f apart overlap only while f < 2r.
+void require_overlapping_marks(double f_mm, double radius_mm, const char* flag, const char* what) {
+  if (f_mm < 2.0 * radius_mm) return;
+  throw InputError(std::string(flag) + " " + format_number(f_mm) +
+                   " mm: must be smaller than twice the " + what + " (" +
+                   format_number(2.0 * radius_mm) + " mm)");
+}
+
+void note_ignored(const Given& given, const std::vector<const char*>& flags, const char* why,
+                  StepoverReport& rep) {
+  for (const char* f : flags) {
+    if (given(f)) rep.notes.push_back(std::string("ignored: ") + f + " (" + why + ")");
+  }
+}
+
+void run_turning(const StepoverOptions& o, const Given& given, LengthUnit unit,
+                 StepoverReport& rep) {
+  if (given("--stepover")) {
+    throw InputError("--stepover does not apply to --tool insert; give --feed-per-rev");
+  }
+  if (!given("--nose-radius")) throw InputError("--nose-radius is required for --tool insert");
+  const double r = positive_length_mm(o.nose_radius, unit, "--nose-radius");
+  note_ignored(given,
+               {"--diameter", "--corner-radius", "--dish", "--surface", "--surface-radius",
+                "--slope", "--feed-per-tooth", "--teeth"},
+               "turning uses --nose-radius and --feed-per-rev", rep);
+  rep.turning = true;
+  rep.nose_radius_mm = r;
+  const std::string mode =
+      single_mode(given, {"--feed-per-rev", "--target-scallop", "--target-ra", "--target-rz"});
+  if (mode == "--feed-per-rev") {
+    const double f = positive_length_mm(o.feed_per_rev, unit, "--feed-per-rev");
+    require_overlapping_marks(f, r, "--feed-per-rev", "nose radius");
+    rep.cusp = feed_mark(r, f);
+    return;
+  }
+  const FinishTarget t = target_kind(mode);
+  const double target_um = target_value_um(o, mode, unit);
+  const StepoverSolution sol = inverse_feed_mark(r, t, target_um);
+  if (!sol.reachable) {
+    throw InputError(mode + " " + format_number(target_um) + " um: unreachable; a " +
+                     format_number(r) + " mm nose radius leaves at most " + target_word(t) + " " +
+                     format_number(sol.max_target_um) + " um before its marks stop overlapping");
+  }
+  record_inverse(t, target_um, sol, rep);
+}
+
+Cutter read_cutter(const StepoverOptions& o, const Given& given, LengthUnit unit,
+                   StepoverReport& rep) {
+  Cutter c;
+  c.shape = o.tool == "ball"       ? CutterShape::Ball
+            : o.tool == "bullnose" ? CutterShape::BullNose
+                                   : CutterShape::Flat;
+  if (!given("--diameter")) throw InputError("--diameter is required for --tool " + o.tool);
+  c.diameter_mm = parse_length_mm(o.diameter, unit, "--diameter");
+  if (c.shape == CutterShape::BullNose) {
+    if (!given("--corner-radius"))
+      throw InputError("--corner-radius is required for --tool bullnose");
+    c.corner_radius_mm = parse_length_mm(o.corner_radius, unit, "--corner-radius");
+  } else {
+    note_ignored(given, {"--corner-radius"}, "only a bull-nose has a separate corner radius", rep);
+  }
+  if (given("--dish")) {
+    c.dish_deg = parse_angle_deg(o.dish, "--dish");
+    if (c.shape == CutterShape::Ball) {
+      note_ignored(given, {"--dish"}, "a ball has no flat face", rep);
+      if (c.dish_deg >= 0.0) c.dish_deg = 0.0;  // a negative dish still fails validation
+    }
+  }
+  if (given("--teeth")) {
+    const double z = parse_number(o.teeth, "--teeth");
+    if (z != std::floor(z) || z < 1.0 || z > 1000.0) {
+      throw InputError("--teeth " + format_number(z) + ": must be a whole number >= 1");
+    }
+    c.teeth = static_cast<int>(z);
+    rep.teeth_given = true;
+  }
+  validate_cutter(c, NameStyle::Flag);
+  note_ignored(given, {"--nose-radius", "--feed-per-rev"}, "turning flags; use --tool insert", rep);
+  return c;
+}
+
+CuspSetup read_setup(const StepoverOptions& o, const Given& given, LengthUnit unit,
+                     StepoverReport& rep) {
+  CuspSetup setup;
+  setup.cutter = read_cutter(o, given, unit, rep);
+  if (o.surface == "flat") {
+    setup.surface = SurfaceKind::Plane;
+    note_ignored(given, {"--surface-radius"}, "a flat surface has no radius", rep);
+  } else if (o.surface == "convex" || o.surface == "concave") {
+    setup.surface = o.surface == "convex" ? SurfaceKind::Convex : SurfaceKind::Concave;
+    if (setup.cutter.shape != CutterShape::Ball) {
+      throw InputError("--surface " + o.surface +
+                       ": cylinder closed forms hold for --tool ball only (a flat-bottomed "
+                       "cutter's contact jumps across its flat face); use a ball, or --surface "
+                       "flat with --slope");
+    }
+    if (!given("--surface-radius")) {
+      throw InputError("--surface-radius is required for --surface " + o.surface);
+    }
+    setup.surface_radius_mm = positive_length_mm(o.surface_radius, unit, "--surface-radius");
+    if (given("--slope")) {
+      throw InputError(
+          "--slope applies to --surface flat only (a cylinder's slope changes "
+          "across the pass; its stepover is measured along the surface)");
+    }
+  } else {
+    throw InputError("--surface '" + o.surface + "': allowed surfaces are flat, convex, concave");
+  }
+  if (given("--slope")) {
+    setup.slope_deg = parse_angle_deg(o.slope, "--slope");
+    if (!(std::abs(setup.slope_deg) < 90.0)) {
+      throw InputError("--slope " + format_number(setup.slope_deg) +
+                       " deg: must be greater than -90 and less than 90 deg");
+    }
+  }
+  return setup;
+}
+
+void run_milling(const StepoverOptions& o, const Given& given, LengthUnit unit,
+                 StepoverReport& rep) {
+  const CuspSetup setup = read_setup(o, given, unit, rep);
+  rep.setup = setup;
+  const std::string mode =
+      single_mode(given, {"--stepover", "--target-scallop", "--target-ra", "--target-rz"});
+  if (mode == "--stepover") {
+    rep.cusp = cross_feed_cusp(setup, positive_length_mm(o.stepover, unit, "--stepover"));
+  } else {
+    const FinishTarget t = target_kind(mode);
+    const double target_um = target_value_um(o, mode, unit);
+    const StepoverSolution sol = inverse_stepover(setup, t, target_um);
+    if (!sol.reachable) throw InputError(unreachable_message(setup, mode, t, target_um, sol));
+    record_inverse(t, target_um, sol, rep);
+  }
+  if (given("--feed-per-tooth")) {
+    const double fz = positive_length_mm(o.feed_per_tooth, unit, "--feed-per-tooth");
+    rep.feed_per_tooth_mm = fz;
+    const double radius = setup.cutter.effective_corner_mm();
+    if (radius > 0.0) {
+      require_overlapping_marks(
+          fz, radius, "--feed-per-tooth",
+          setup.cutter.shape == CutterShape::Ball ? "ball radius" : "corner radius");
+      rep.feed_mark = feed_mark(radius, fz);
+      const double per_rev = fz * setup.cutter.teeth;
+      if (rep.teeth_given && per_rev < 2.0 * radius)
+        rep.feed_mark_per_rev = feed_mark(radius, per_rev);
+    }
+  }
+}
+
+void run_stepover(const StepoverOptions& o, const CLI::App& app) {
+  StageTimer timer;
+  const Given given(app);
+  const LengthUnit unit = o.common.length_unit();
+  StepoverReport rep;
+  rep.unit = unit;
+  if (o.tool == "insert") {
+    run_turning(o, given, unit, rep);
+  } else if (o.tool == "ball" || o.tool == "bullnose" || o.tool == "flat") {
+    run_milling(o, given, unit, rep);
+  } else {
+    throw InputError("--tool '" + o.tool + "': allowed tools are ball, bullnose, flat, insert");
+  }
+  print_stage(o.common.verbose, "cusp", timer.lap());
+  if (o.common.json) {
+    print_json(stepover_json(rep));
+  } else {
+    std::cout << stepover_table(rep);
+  }
+  print_stage(o.common.verbose, "output", timer.lap());
+}
+
+}  // namespace
 
 void setup_stepover(CLI::App& sub) {
-  sub.allow_extras();
-  sub.callback([] { throw InputError("'stepover' is not built yet in this version of cuspmap"); });
+  auto opts = std::make_shared<StepoverOptions>();
+  sub.description(
+      "Closed-form cusp height, Ra/Rq/Rz and feed marks of a finishing pass for a given stepover\n"
+      "(--stepover), or the stepover that meets a target (--target-scallop | --target-ra |\n"
+      "--target-rz). Exact geometry first, the small-stepover approximation beside it.");
+  sub.add_option("--tool", opts->tool, "ball | bullnose | flat (end mills) | insert (turning)")
+      ->type_name("KIND")
+      ->capture_default_str();
+  sub.add_option("--diameter", opts->diameter, "End-mill diameter D")->type_name("LENGTH");
+  sub.add_option("--corner-radius", opts->corner_radius, "Bull-nose corner radius, 0 < rc <= D/2")
+      ->type_name("LENGTH");
+  sub.add_option("--dish", opts->dish, "End-face dish angle, >= 0 (no effect on the cusp)")
+      ->type_name("ANGLE");
+  sub.add_option("--surface", opts->surface, "flat | convex | concave (cylinders: ball only)")
+      ->type_name("KIND")
+      ->capture_default_str();
+  sub.add_option("--surface-radius", opts->surface_radius, "Cylinder radius rho")
+      ->type_name("LENGTH");
+  sub.add_option("--slope", opts->slope, "Slope of a flat surface across the pass, |a| < 90 deg")
+      ->type_name("ANGLE");
+  sub.add_option("--stepover", opts->stepover, "Stepover: plan view on planes, along cylinders")
+      ->type_name("LENGTH");
+  sub.add_option("--target-scallop", opts->target_scallop, "Target cusp height, e.g. 5um, 0.2thou")
+      ->type_name("HEIGHT");
+  sub.add_option("--target-ra", opts->target_ra, "Target Ra of the ideal profile, e.g. 0.8um")
+      ->type_name("HEIGHT");
+  sub.add_option("--target-rz", opts->target_rz, "Target Rz of the ideal profile, e.g. 4um")
+      ->type_name("HEIGHT");
+  sub.add_option("--feed-per-tooth", opts->feed_per_tooth, "Feed per tooth fz: adds feed marks")
+      ->type_name("LENGTH");
+  sub.add_option("--teeth", opts->teeth, "Teeth: adds the once-per-revolution mark (runout)")
+      ->type_name("N");
+  sub.add_option("--nose-radius", opts->nose_radius, "Turning insert nose radius r")
+      ->type_name("LENGTH");
+  sub.add_option("--feed-per-rev", opts->feed_per_rev, "Turning feed per revolution f")
+      ->type_name("LENGTH");
+  add_common_flags(sub, opts->common);
+  sub.footer(stepover_help_footer());
+  sub.callback([opts, &sub] { run_stepover(*opts, sub); });
 }
 
 }  // namespace cuspmap

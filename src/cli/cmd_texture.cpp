@@ -6,6 +6,7 @@
 #include <string>
 
 #include "cli/command.h"
+#include "cli/texture_flags.h"
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "core/units.h"
@@ -21,49 +22,10 @@ struct TextureCliOptions {
   CommonOptions common;
   std::string file;
   std::string cell;                  ///< cell size for npy/csv (length with optional suffix)
-  std::string cutoff = "auto";       ///< auto (ISO 4288) or a length
-  std::string lambda_s = "auto";     ///< auto (ISO 3274 pairing), 0 (none) or a length
-  std::string direction = "across";  ///< across | along | angle in deg
-  std::string lay;                   ///< known lay direction, deg (else detected)
+  TextureFlags texture;              ///< cut-off, lambda-s, direction, lay, areal filters
   std::string z_units;               ///< um | nm | mm | m for npy/csv/xyz
-  std::string s_filter;              ///< areal S-filter nesting index (length)
-  std::string l_filter;              ///< areal L-filter nesting index (length)
   std::string export_path;           ///< re-save the heightmap in the format of this extension
 };
-
-double positive_length(const std::string& text, LengthUnit unit, const char* flag) {
-  const double mm = parse_length_mm(text, unit, flag);
-  if (!(mm > 0.0)) throw InputError(std::string(flag) + " " + text + ": must be > 0");
-  return mm;
-}
-
-TextureOptions texture_options(const TextureCliOptions& o, LengthUnit unit) {
-  TextureOptions t;
-  if (o.direction == "across") {
-    t.direction = ProfileDirection::Across;
-  } else if (o.direction == "along") {
-    t.direction = ProfileDirection::Along;
-  } else {
-    t.direction = ProfileDirection::Angle;
-    try {
-      t.direction_deg = parse_angle_deg(o.direction, "--direction");
-    } catch (const InputError&) {
-      throw InputError("--direction '" + o.direction +
-                       "': allowed are across, along or an angle in deg");
-    }
-  }
-  if (!o.lay.empty()) t.lay_deg = parse_angle_deg(o.lay, "--lay");
-  if (o.cutoff != "auto") t.cutoff_mm = positive_length(o.cutoff, unit, "--cutoff");
-  if (o.lambda_s != "auto") {
-    const double mm = parse_length_mm(o.lambda_s, unit, "--lambda-s");
-    if (mm < 0.0)
-      throw InputError("--lambda-s " + o.lambda_s + ": must be >= 0 (0 = no short-wave filter)");
-    t.lambda_s_um = mm * kUmPerMm;
-  }
-  if (!o.s_filter.empty()) t.s_filter_mm = positive_length(o.s_filter, unit, "--s-filter");
-  if (!o.l_filter.empty()) t.l_filter_mm = positive_length(o.l_filter, unit, "--l-filter");
-  return t;
-}
 
 std::string fixed(double v, int decimals) {
   char buf[64];
@@ -126,9 +88,9 @@ void print_table(const HeightmapFile& file, const TextureReport& r, const std::s
 
 void run_texture(const TextureCliOptions& o) {
   const LengthUnit unit = o.common.length_unit();
-  const TextureOptions topt = texture_options(o, unit);
+  const TextureOptions topt = texture_options(o.texture, unit);
   HeightmapReadOptions ropt;
-  if (!o.cell.empty()) ropt.cell_mm = positive_length(o.cell, unit, "--cell");
+  if (!o.cell.empty()) ropt.cell_mm = parse_positive_length_mm(o.cell, unit, "--cell");
   if (!o.z_units.empty()) {
     z_units_to_um(o.z_units);  // validates the value before reading
     ropt.z_units = o.z_units;
@@ -159,26 +121,9 @@ void setup_texture(CLI::App& sub) {
       ->required();
   sub.add_option("--cell", opts->cell,
                  "Cell size for .npy/.csv (else report.json beside the file gives cell_mm)");
-  sub.add_option("--cutoff", opts->cutoff,
-                 "Profile cut-off lambda-c: auto (ISO 4288 rules) or a length")
-      ->capture_default_str();
-  // Reason for the flag: instruments are often set to a lambda-s other than ISO 3274's pairing.
-  sub.add_option("--lambda-s", opts->lambda_s,
-                 "Short-wave cut-off: auto (ISO 3274 pairing), 0 (none) or a length")
-      ->capture_default_str();
-  sub.add_option("--direction", opts->direction,
-                 "Profile direction: across (the lay), along, or an angle in deg from +X")
-      ->capture_default_str();
-  // Reason for the flag: the lay is known from the toolpath when the surface is too isotropic to
-  // detect it.
-  sub.add_option("--lay", opts->lay,
-                 "Lay direction in deg from +X when known (default: detected from the spectrum)");
+  add_texture_flags(sub, opts->texture);
   sub.add_option("--z-units", opts->z_units,
                  "Height unit of .npy/.csv/.xyz values: um (default), nm, mm, m");
-  sub.add_option("--s-filter", opts->s_filter,
-                 "Areal S-filter nesting index (Gaussian, ISO 16610-61); default none");
-  sub.add_option("--l-filter", opts->l_filter,
-                 "Areal L-filter nesting index (Gaussian); default none (plane removal only)");
   // Reason for the flag: measurement labs exchange X3P/SDF; this converts a simulated height.npy.
   sub.add_option("--export", opts->export_path,
                  "Also save the heightmap as .npy, .csv, .xyz, .sdf or .x3p");

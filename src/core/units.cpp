@@ -73,6 +73,15 @@ double parse_length_mm(std::string_view text, LengthUnit bare_unit, std::string_
                    "': unknown unit; allowed suffixes are mm, um, in, thou, uin");
 }
 
+double parse_positive_length_mm(std::string_view text, LengthUnit bare_unit,
+                                std::string_view what) {
+  const double mm = parse_length_mm(text, bare_unit, what);
+  if (!(mm > 0.0)) {
+    throw InputError(std::string(what) + " " + std::string(text) + ": must be > 0");
+  }
+  return mm;
+}
+
 double parse_angle_deg(std::string_view text, std::string_view what) {
   const auto [value, suffix] = split_number(text, what);
   if (suffix.empty() || suffix == "deg" || suffix == "°") return value;

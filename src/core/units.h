@@ -35,6 +35,10 @@ LengthUnit parse_length_unit(std::string_view text, std::string_view what);
 /// @throws InputError on an empty string, a malformed number, NaN/inf or an unknown suffix.
 double parse_length_mm(std::string_view text, LengthUnit bare_unit, std::string_view what);
 
+/// parse_length_mm that also requires the result to be > 0.
+/// @throws InputError "<what> <text>: must be > 0" otherwise.
+double parse_positive_length_mm(std::string_view text, LengthUnit bare_unit, std::string_view what);
+
 /// Parses an angle "1.5", "1.5deg" or "1.5°" into degrees (bare numbers are degrees).
 /// @throws InputError on malformed numbers, NaN/inf or a suffix other than deg.
 double parse_angle_deg(std::string_view text, std::string_view what);

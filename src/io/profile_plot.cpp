@@ -85,9 +85,13 @@ void draw_panel(Image& img, int top, const ProfilePlotData& p, const ProfilePlot
   const double ref_lo = m.empty() ? centre : z_min, ref_hi = m.empty() ? centre : z_max;
   z_min = std::min({z_min, ref_lo - ra, centre - rz / 2});
   z_max = std::max({z_max, ref_hi + ra, centre + rz / 2});
-  if (!(z_max > z_min)) {
-    z_min -= 1.0;
-    z_max += 1.0;
+  // A profile flatter than this is drawn on a +-kMinHalfSpanUm axis, so float noise of a few
+  // 1e-7 um (a float32 heightfield's last bits) is not blown up into fake texture.
+  constexpr double kMinHalfSpanUm = 0.05;
+  if (!(z_max - z_min >= 2.0 * kMinHalfSpanUm)) {
+    const double mid = 0.5 * (z_min + z_max);
+    z_min = mid - kMinHalfSpanUm;
+    z_max = mid + kMinHalfSpanUm;
   }
   const double margin = kZMarginFraction * (z_max - z_min);
   f.z_lo = z_min - margin;

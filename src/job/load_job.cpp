@@ -199,10 +199,10 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
     if (t.contains(key) && !ok) job.ignored_keys.push_back(std::string("path.") + key + " (" + kinds + ")");
   };
   const bool lanes = p.kind == PathKind::Raster || p.kind == PathKind::Trochoidal;
-  applies("angle_deg", lanes, "raster and trochoidal only");
+  applies("angle_deg", lanes || p.kind == PathKind::Spiral, "raster, trochoidal and spiral only");
   applies("direction", lanes, "raster and trochoidal only");
   applies("boundary", p.kind == PathKind::Offset, "offset only");
-  applies("milling", p.kind == PathKind::Offset, "offset only");
+  applies("milling", p.kind != PathKind::Raster, "offset, spiral and trochoidal only");
   applies("outward", p.kind == PathKind::Spiral, "spiral only");
   applies("loop_diameter", p.kind == PathKind::Trochoidal, "trochoidal only");
   applies("advance", p.kind == PathKind::Trochoidal, "trochoidal only");

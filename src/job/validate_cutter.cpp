@@ -44,7 +44,10 @@ void validate_cutter(const Cutter& c, NameStyle style) {
   require_finite(corner, c.corner_radius_mm);
   require_finite(dish, c.dish_deg);
   require_finite(tilt, c.tilt_deg);
+  require_finite(value_name(style, "tool", "tilt_toward_deg", "tilt-toward"), c.tilt_toward_deg);
   require_finite(runout, c.runout_mm);
+  require_finite(value_name(style, "tool", "runout_phase_deg", "runout-phase"),
+                 c.runout_phase_deg);
   if (c.diameter_mm <= 0.0) reject(diameter, c.diameter_mm, " mm", "must be > 0");
   const double big_r = c.radius_mm();
   if (c.shape == CutterShape::BullNose &&

@@ -18,7 +18,7 @@ enum class NameStyle {
 
 /// Throws InputError on the first value out of range: diameter <= 0, bull-nose corner radius not
 /// in (0, R], dish < 0 or >= 45 deg, teeth < 1, |tilt| > kMaxTiltDeg, runout < 0 or >= R,
-/// per-tooth axial offsets not one per tooth, any NaN/inf.
+/// per-tooth axial offsets not one per tooth, any NaN/inf (tilt direction and runout phase too).
 void validate_cutter(const Cutter& cutter, NameStyle style);
 
 /// Throws InputError when a patch size or cell is <= 0 or not finite, or the cell is larger than

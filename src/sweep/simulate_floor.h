@@ -15,17 +15,17 @@ namespace cuspmap {
 
 /// How to simulate ([sim] of a job, plus run-time settings).
 struct SimSpec {
-  bool tooth_marks = false;            ///< tooth-resolved sweep (true) or revolving envelope (false)
-  int threads = 0;                     ///< worker threads; 0 = all hardware threads
-  std::int64_t max_memory_bytes = 0;   ///< grid memory limit; 0 = half of physical memory
+  bool tooth_marks = false;           ///< tooth-resolved sweep (true) or revolving envelope (false)
+  int threads = 0;                    ///< worker threads; 0 = all hardware threads
+  std::int64_t max_memory_bytes = 0;  ///< grid memory limit; 0 = half of physical memory
   std::function<void(double)> progress;  ///< called with the done fraction in [0, 1]; may be empty
 };
 
 /// What the sweep did, for the report and benchmarks.
 struct SweepStats {
-  std::int64_t cell_updates = 0;  ///< cell visits by the min-update (cells x moves touching them)
-  std::int64_t moves_swept = 0;   ///< moves that reached the patch
-  std::int64_t moves_skipped = 0; ///< moves that could not reach the patch (above it or outside)
+  std::int64_t cell_updates = 0;   ///< cell visits by the min-update (cells x moves touching them)
+  std::int64_t moves_swept = 0;    ///< moves that reached the patch
+  std::int64_t moves_skipped = 0;  ///< moves that could not reach the patch (above it or outside)
 };
 
 /// Simulates the floor.

@@ -1,0 +1,334 @@
+// Human table, JSON object and message lines of `cuspmap stepover`.
+// Inputs: StepoverReport (mm, um); outputs: text in mm/um or in/uin, JSON in mm/um.
+// Method: std::to_chars for numbers (locale-independent); 1 in = 25.4 mm, 1 um = 39.37 uin.
+#include "cli/stepover_report.h"
+
+#include <array>
+#include <charconv>
+#include <cmath>
+#include <sstream>
+
+#include "cusp/iso1302_grade.h"
+
+namespace cuspmap {
+namespace {
+
+// Significant digits in the human table: cusp inputs are rarely known better than this.
+constexpr int kTableDigits = 4;
+
+std::string sig(double v) {
+  std::array<char, 64> buf{};
+  const bool large = std::abs(v) >= 1e4;
+  const auto [ptr, ec] = large ? std::to_chars(buf.data(), buf.data() + buf.size(), std::round(v),
+                                               std::chars_format::fixed, 0)
+                               : std::to_chars(buf.data(), buf.data() + buf.size(), v,
+                                               std::chars_format::general, kTableDigits);
+  return ec == std::errc() ? std::string(buf.data(), ptr) : "?";
+}
+
+std::string length(double mm, LengthUnit unit) {
+  if (unit == LengthUnit::Inch) return sig(mm / kMmPerInch) + " in";
+  return sig(mm) + " mm";
+}
+
+std::string height(double um, LengthUnit unit) {
+  if (unit == LengthUnit::Inch) {
+    const double uin = um * kUinPerUm;
+    return sig(uin) + " uin (" + sig(uin * 1e-3) + " thou)";
+  }
+  return sig(um) + " um (" + sig(um * kUinPerUm) + " uin)";
+}
+
+std::string shape_words(const CuspSetup& s, LengthUnit unit) {
+  const Cutter& c = s.cutter;
+  std::string t = c.shape == CutterShape::Ball       ? "ball end mill D "
+                  : c.shape == CutterShape::BullNose ? "bull-nose end mill D "
+                                                     : "flat end mill D ";
+  t += length(c.diameter_mm, unit);
+  if (c.shape == CutterShape::BullNose) t += " rc " + length(c.corner_radius_mm, unit);
+  if (c.dish_deg > 0.0) t += " dish " + sig(c.dish_deg) + " deg";
+  if (s.surface == SurfaceKind::Plane) {
+    t += s.slope_deg == 0.0 ? ", level floor" : ", floor sloped " + sig(s.slope_deg) + " deg";
+  } else {
+    t += s.surface == SurfaceKind::Convex ? ", convex" : ", concave";
+    t += " cylinder rho " + length(s.surface_radius_mm, unit);
+  }
+  return t;
+}
+
+std::string target_name(FinishTarget t) {
+  return t == FinishTarget::Ra ? "Ra" : t == FinishTarget::Rz ? "Rz" : "scallop";
+}
+
+struct Messages {
+  std::vector<std::string> warnings, notes;
+};
+
+// Warning and note lines for the result (units of the human table; JSON uses mm).
+Messages collect(const StepoverReport& rep, LengthUnit unit) {
+  Messages m;
+  m.notes = rep.notes;
+  const CuspResult& r = rep.cusp;
+  if (rep.turning) {
+    m.notes.push_back("turning: the feed per revolution is the mark spacing (shown as stepover)");
+    return m;
+  }
+  const CuspSetup& s = rep.setup;
+  const Cutter& c = s.cutter;
+  const double big_r = c.radius_mm(), rc = c.effective_corner_mm();
+  if (r.limit == CuspLimit::PassesDoNotOverlap) {
+    if (s.surface == SurfaceKind::Plane) {
+      std::string why = c.shape == CutterShape::Ball
+                            ? "the cusp would be deeper than the ball radius"
+                        : c.shape == CutterShape::BullNose
+                            ? "the cusp would be deeper than the corner radius " + length(rc, unit)
+                            : "a flat end mill leaves strips as high as the stock";
+      m.warnings.push_back("stepover " + length(r.stepover_mm, unit) + " >= tool diameter " +
+                           length(c.diameter_mm, unit) +
+                           ": neighbouring passes leave uncut strips (" + why +
+                           "); the heights shown are lower bounds");
+    } else {
+      m.warnings.push_back("stepover " + length(r.stepover_mm, unit) +
+                           " along the surface: neighbouring tool circles no longer meet; uncut "
+                           "strips remain and the heights shown are lower bounds");
+    }
+  }
+  if (r.limit == CuspLimit::ToolTooLargeForConcave) {
+    m.warnings.push_back("--surface-radius " + length(s.surface_radius_mm, unit) +
+                         " is not larger than the ball radius " + length(big_r, unit) +
+                         ": the ball cannot follow this concave surface (it leaves its own radius "
+                         "or gouges); no cusp is computed");
+  }
+  if (r.profile_overhangs) {
+    m.warnings.push_back(
+        "on this slope part of the cusp leans over the surface; Ra and Rq are "
+        "of the net profile along the surface");
+  }
+  if (s.surface == SurfaceKind::Plane && c.shape != CutterShape::Ball && s.slope_deg == 0.0 &&
+      r.scallop_um == 0.0 && r.limit == CuspLimit::None) {
+    m.notes.push_back(
+        (c.shape == CutterShape::Flat
+             ? std::string("a flat end mill with a vertical axis leaves no cross-feed cusp below "
+                           "one diameter")
+             : "the flat faces of neighbouring passes overlap (stepover <= 2(R - rc) = " +
+                   length(2.0 * (big_r - rc), unit) + "), so no cross-feed cusp forms") +
+        "; real marks come from the rim, dish, tilt and runout: see `cuspmap simulate`");
+  }
+  if (c.dish_deg > 0.0) {
+    m.notes.push_back(
+        "the dish does not change the cross-feed cusp of a straight pass (the "
+        "lowest ring sweeps every chord); its rim marks need `cuspmap simulate`");
+  }
+  if (r.side_forms_cusp && r.limit == CuspLimit::None) {
+    m.notes.push_back("on this slope the cutter's cylindrical side, not its end, bounds the cusp");
+  }
+  if (s.surface == SurfaceKind::Plane && s.slope_deg != 0.0) {
+    m.notes.push_back("the stepover is in plan view; along the surface the contacts are " +
+                      length(r.chord_mm, unit) + " apart");
+  }
+  if (s.surface != SurfaceKind::Plane) {
+    m.notes.push_back(
+        "the ball is treated as a full sphere: valid where the cusp lies on its "
+        "lower half (near the crown, or with the axis along the surface normal)");
+  }
+  if (rep.feed_per_tooth_mm) {
+    if (c.shape == CutterShape::Flat) {
+      m.notes.push_back(
+          "a flat end mill's ideal end face wipes its own feed marks (feed mark 0); "
+          "real ones come from dish, tilt and runout: see `cuspmap simulate`");
+    } else {
+      m.notes.push_back(
+          "feed-per-tooth marks run across the feed; they leave the cross-feed "
+          "cusp and its Ra unchanged");
+      if (c.shape == CutterShape::BullNose) {
+        m.notes.push_back(
+            "corner feed marks assume only the leading side cuts (dish or tilt lift "
+            "the trailing side), as in face milling");
+      }
+    }
+    if (rep.teeth_given && c.shape != CutterShape::Flat) {
+      m.notes.push_back(
+          "with runout larger than the feed mark one tooth cuts deepest and the "
+          "marks repeat once per revolution (feed per revolution " +
+          length(*rep.feed_per_tooth_mm * c.teeth, unit) + ")" +
+          (rep.feed_mark_per_rev ? "" : "; too coarse for overlapping marks"));
+    }
+  }
+  return m;
+}
+
+const char* kCaution =
+    "finishing passes run a rotating cutter: guard it, clamp the work securely, and treat fine "
+    "metal dust as combustible and harmful to breathe; follow local codes, the machine maker's "
+    "instructions and licensed practice";
+
+nlohmann::json optional_number(const std::optional<double>& v) {
+  return v ? nlohmann::json(*v) : nlohmann::json(nullptr);
+}
+
+}  // namespace
+
+nlohmann::json stepover_json(const StepoverReport& rep) {
+  nlohmann::json j;
+  const CuspResult& r = rep.cusp;
+  if (rep.turning) {
+    j["tool"] = {{"shape", "insert"}, {"nose_radius_mm", rep.nose_radius_mm}};
+    j["feed_per_rev_mm"] = r.stepover_mm;
+  } else {
+    const Cutter& c = rep.setup.cutter;
+    const char* shape = c.shape == CutterShape::Ball       ? "ball"
+                        : c.shape == CutterShape::BullNose ? "bullnose"
+                                                           : "flat";
+    j["tool"] = {{"shape", shape},
+                 {"diameter_mm", c.diameter_mm},
+                 {"corner_radius_mm", c.effective_corner_mm()},
+                 {"dish_deg", c.dish_deg}};
+    if (rep.teeth_given) j["tool"]["teeth"] = c.teeth;
+    const SurfaceKind k = rep.setup.surface;
+    j["surface"] = {{"kind", k == SurfaceKind::Plane    ? "flat"
+                             : k == SurfaceKind::Convex ? "convex"
+                                                        : "concave"}};
+    if (k == SurfaceKind::Plane) {
+      j["surface"]["slope_deg"] = rep.setup.slope_deg;
+      j["stepover_along_surface_mm"] = r.chord_mm;
+    } else {
+      j["surface"]["surface_radius_mm"] = rep.setup.surface_radius_mm;
+    }
+  }
+  j["mode"] = rep.inverse ? "inverse" : "forward";
+  if (rep.inverse) {
+    j["target"] = {{"quantity", target_name(rep.target)}, {"value_um", rep.target_um}};
+    j["stepover_approx_mm"] = rep.stepover_approx_mm > 0.0 ? nlohmann::json(rep.stepover_approx_mm)
+                                                           : nlohmann::json(nullptr);
+  }
+  j["stepover_mm"] = r.stepover_mm;
+  j["scallop_height_um"] = r.scallop_um;
+  j["scallop_height_approx_um"] = r.scallop_approx_um;
+  j["ra_um"] = r.stats.ra_um;
+  j["rq_um"] = r.stats.rq_um;
+  j["rz_um"] = r.stats.rz_um;
+  j["ra_approx_um"] = r.stats_approx.ra_um;
+  j["rq_approx_um"] = r.stats_approx.rq_um;
+  j["rz_approx_um"] = r.stats_approx.rz_um;
+  j["effective_radius_mm"] = optional_number(r.effective_radius_mm);
+  const auto grade = r.stats.ra_um > 0.0 ? iso1302_grade(r.stats.ra_um) : std::nullopt;
+  j["iso1302_grade"] = grade ? nlohmann::json(grade->label()) : nlohmann::json(nullptr);
+  if (rep.feed_per_tooth_mm) {
+    j["feed_per_tooth_mm"] = *rep.feed_per_tooth_mm;
+    j["feed_mark_um"] = rep.feed_mark ? rep.feed_mark->scallop_um : 0.0;
+    j["feed_mark_approx_um"] = rep.feed_mark ? rep.feed_mark->scallop_approx_um : 0.0;
+    if (rep.teeth_given) {
+      j["feed_per_rev_mm"] = *rep.feed_per_tooth_mm * rep.setup.cutter.teeth;
+      if (rep.feed_mark_per_rev) j["feed_mark_per_rev_um"] = rep.feed_mark_per_rev->scallop_um;
+    }
+  }
+  const Messages m = collect(rep, LengthUnit::Millimetre);
+  j["within_model"] = r.limit == CuspLimit::None;
+  j["warnings"] = m.warnings;
+  j["notes"] = m.notes;
+  j["cautions"] = nlohmann::json::array({kCaution});
+  return j;
+}
+
+std::string stepover_table(const StepoverReport& rep) {
+  const LengthUnit u = rep.unit;
+  const CuspResult& r = rep.cusp;
+  std::ostringstream out;
+  auto row = [&out](const std::string& label, const std::string& exact, const std::string& approx) {
+    std::string line = "  " + label;
+    line.resize(22, ' ');
+    line += exact;
+    if (!approx.empty()) {
+      if (line.size() < 48) line.resize(48, ' ');
+      line += "  " + approx;
+    }
+    out << line << '\n';
+  };
+  out << "cuspmap stepover: "
+      << (rep.turning ? "turning insert, nose radius " + length(rep.nose_radius_mm, u)
+                      : shape_words(rep.setup, u))
+      << '\n';
+  if (rep.inverse) {
+    out << "  target " << target_name(rep.target) << " " << height(rep.target_um, u) << '\n';
+  }
+  row("", "exact", "small-stepover approx.");
+  row(rep.turning ? "feed per rev" : "stepover", length(r.stepover_mm, u),
+      rep.inverse ? (rep.stepover_approx_mm > 0.0 ? length(rep.stepover_approx_mm, u) : "-") : "");
+  row("scallop height", height(r.scallop_um, u), height(r.scallop_approx_um, u));
+  row("Ra", height(r.stats.ra_um, u), height(r.stats_approx.ra_um, u));
+  row("Rq", height(r.stats.rq_um, u), height(r.stats_approx.rq_um, u));
+  row("Rz", height(r.stats.rz_um, u), height(r.stats_approx.rz_um, u));
+  const auto grade = r.stats.ra_um > 0.0 ? iso1302_grade(r.stats.ra_um) : std::nullopt;
+  row("ISO 1302 grade",
+      grade ? grade->label() + " (Ra up to " +
+                  (u == LengthUnit::Inch ? sig(grade->ra_um * kUinPerUm) + " uin, " : "") +
+                  sig(grade->ra_um) + " um)"
+            : (r.stats.ra_um > 0.0 ? "coarser than N12" : "none (no ideal cusp)"),
+      "");
+  row("effective radius",
+      r.effective_radius_mm ? length(*r.effective_radius_mm, u) : "none (flat face)", "");
+  if (rep.feed_per_tooth_mm) {
+    row("feed mark", height(rep.feed_mark ? rep.feed_mark->scallop_um : 0.0, u),
+        rep.feed_mark ? height(rep.feed_mark->scallop_approx_um, u) : "");
+    if (rep.feed_mark_per_rev) {
+      row("once-per-rev mark", height(rep.feed_mark_per_rev->scallop_um, u),
+          height(rep.feed_mark_per_rev->scallop_approx_um, u));
+    }
+  }
+  const Messages m = collect(rep, u);
+  for (const std::string& w : m.warnings) out << "warning: " << w << '\n';
+  for (const std::string& n : m.notes) out << "note: " << n << '\n';
+  out << "caution: " << kCaution << '\n';
+  return out.str();
+}
+
+std::string unreachable_message(const CuspSetup& setup, const std::string& flag,
+                                FinishTarget target, double target_um,
+                                const StepoverSolution& sol) {
+  const Cutter& c = setup.cutter;
+  const std::string head = flag + " " + format_number(target_um) + " um: unreachable; ";
+  if (setup.surface == SurfaceKind::Concave && setup.surface_radius_mm <= c.radius_mm()) {
+    return head + "a ball of radius " + format_number(c.radius_mm()) +
+           " mm cannot follow a concave radius of " + format_number(setup.surface_radius_mm) +
+           " mm";
+  }
+  if (sol.max_target_um == 0.0) {
+    return head + "a " + (c.shape == CutterShape::Flat ? "flat end mill" : "bull-nose") +
+           " on a level floor leaves no cross-feed cusp at stepovers below its diameter (marks "
+           "come from the rim, dish, tilt and runout: use cuspmap simulate)";
+  }
+  const std::string what = target == FinishTarget::Ra   ? "Ra"
+                           : target == FinishTarget::Rz ? "Rz"
+                                                        : "cusp";
+  std::string why = "before neighbouring passes stop overlapping";
+  if (c.shape == CutterShape::BullNose && setup.surface == SurfaceKind::Plane &&
+      setup.slope_deg == 0.0) {
+    why = "(a cusp is never deeper than the corner radius " + format_number(c.corner_radius_mm) +
+          " mm)";
+  }
+  return head + "the largest " + what + " this cutter and surface leave is " +
+         format_number(sol.max_target_um) + " um " + why;
+}
+
+std::string stepover_help_footer() {
+  return "Conventions: heights are along the surface normal. --slope tilts a flat floor across\n"
+         "the pass and takes the stepover in plan view. --surface convex|concave is a cylinder\n"
+         "whose axis runs along the feed; its stepover is measured along the surface.\n"
+         "Lengths take the suffixes mm, um, in, thou, uin; bare numbers use --units. Heights\n"
+         "(--target-*) are lengths too: write 5um or 0.2thou (a bare 5 means 5 mm).\n"
+         "Ra, Rq, Rz are those of the ideal periodic profile (ISO 4287 over whole periods); the\n"
+         "exact arc profile comes first, the parabolic small-stepover form beside it\n"
+         "(Ra = 4h/(9 sqrt 3), Rq = 2h/(3 sqrt 5), Rz = h). --json prints one object in mm/um;\n"
+         "effective_radius_mm is R (ball on a plane), R rho/(rho +- R) (cylinders), rc (bull-nose\n"
+         "corner), 0 (sharp corner on a slope) or null (a flat face finishes the floor).\n"
+         "Examples:\n"
+         "  cuspmap stepover --tool ball --diameter 6 --stepover 0.5\n"
+         "  cuspmap stepover --tool ball --diameter 0.25in --target-scallop 0.4thou --units in\n"
+         "  cuspmap stepover --tool bullnose --diameter 10 --corner-radius 1 --slope 20 "
+         "--target-ra 0.8um\n"
+         "  cuspmap stepover --tool ball --diameter 6 --surface concave --surface-radius 20 \\\n"
+         "      --stepover 0.4 --feed-per-tooth 0.08 --teeth 2 --json\n"
+         "  cuspmap stepover --tool insert --nose-radius 0.8 --feed-per-rev 0.2\n";
+}
+
+}  // namespace cuspmap

@@ -1,0 +1,30 @@
+// Flags that choose how texture is measured (cut-off, lambda-s, trace direction, lay, areal
+// filters), shared by `texture`, `simulate` and `compare`, and their conversion to TextureOptions.
+#pragma once
+
+#include <CLI/CLI.hpp>
+#include <string>
+
+#include "core/units.h"
+#include "texture/texture_report.h"
+
+namespace cuspmap {
+
+/// The texture flags as typed.
+struct TextureFlags {
+  std::string cutoff = "auto";       ///< auto (ISO 4288) or a length
+  std::string lambda_s = "auto";     ///< auto (ISO 3274 pairing), 0 (none) or a length
+  std::string direction = "across";  ///< across | along | angle in deg
+  std::string lay;                   ///< known lay direction, deg (else detected)
+  std::string s_filter;              ///< areal S-filter nesting index (length)
+  std::string l_filter;              ///< areal L-filter nesting index (length)
+};
+
+/// Adds --cutoff, --lambda-s, --direction, --lay, --s-filter, --l-filter to a subcommand.
+void add_texture_flags(CLI::App& sub, TextureFlags& flags);
+
+/// Parses the flags (lengths in `unit` when bare).
+/// @throws InputError naming the flag and value when one is malformed or out of range.
+TextureOptions texture_options(const TextureFlags& flags, LengthUnit unit);
+
+}  // namespace cuspmap

@@ -1,0 +1,55 @@
+// The comparison of several simulated jobs: rows of Ra, Rz, Sa, Sz, cusp, path length, cycle time
+// and sanding figures, the best value per column, as JSON, CSV, a terminal table, a labelled
+// montage of the shaded floors on one scale, and an HTML page. Heights um, lengths mm, times s.
+#pragma once
+
+#include <nlohmann/json.hpp>
+#include <string>
+#include <vector>
+
+#include "io/html_report.h"
+#include "io/raster_image.h"
+#include "io/simulation_pictures.h"
+#include "job/job.h"
+#include "job/run_job.h"
+
+namespace cuspmap {
+
+/// One compared job and what its simulation produced.
+struct CompareRow {
+  Job job;                        ///< the job (possibly a variation of another)
+  JobRun run;                     ///< its simulation
+  SimulationPictures pictures;    ///< its pictures on the shared scale
+};
+
+/// A column of the comparison: name, JSON key, and which end is best.
+struct CompareColumn {
+  const char* title;     ///< header text
+  const char* key;       ///< JSON/CSV key (unit-suffixed)
+  bool lower_is_better;  ///< all compared columns are "lower is better" except none today
+  double (*value)(const CompareRow&);  ///< the number, in the key's unit
+};
+
+/// The compared columns, in display order.
+const std::vector<CompareColumn>& compare_columns();
+
+/// Index of the best row per column (lowest value; first on ties).
+std::vector<size_t> best_rows(const std::vector<CompareRow>& rows);
+
+/// compare.json: {rows[{name, job, Ra_um, ...}], best{key: row index}, cutoff_mm per row ...}.
+nlohmann::json compare_json(const std::vector<CompareRow>& rows);
+
+/// compare.csv: header line then one line per row; numbers with 6 significant digits.
+std::string compare_csv(const std::vector<CompareRow>& rows);
+
+/// Terminal table in the display unit, best value per column marked with '*'.
+std::string compare_table_text(const std::vector<CompareRow>& rows, LengthUnit units);
+
+/// Shaded floors side by side on one scale, each labelled (path, tool, stepover, feed).
+Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units);
+
+/// The HTML page: inputs per job, the table with best values marked, the montage, cautions.
+HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const std::string& montage_png,
+                               LengthUnit units);
+
+}  // namespace cuspmap

@@ -1,0 +1,160 @@
+// Pictures of one simulation (height, shaded relief, profiles), its .npy, and its HTML page.
+// Inputs: JobRun (um over mm cells); outputs: encoded PNG/.npy bytes and captions.
+// Method: io/height_image, io/shaded_image (Lambert), texture/ ISO 16610-21 mean line.
+#include "io/simulation_pictures.h"
+
+#include <algorithm>
+#include <cmath>
+
+#include "io/npy.h"
+#include "io/png.h"
+#include "texture/evaluate_profiles.h"
+#include "texture/extract_profiles.h"
+#include "texture/gaussian_profile_filter.h"
+
+namespace cuspmap {
+namespace {
+
+std::string height_text(double um, LengthUnit units) {
+  if (units == LengthUnit::Inch) return format_number(um * kUinPerUm) + " uin";
+  return format_number(um) + " um";
+}
+
+std::string length_text(double mm, LengthUnit units) {
+  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
+  return format_number(mm) + " mm";
+}
+
+// The longest finite run through the middle of the field in a direction, with its mean line.
+std::optional<ProfilePlotData> centre_profile(const Heightfield& hf, double direction_deg,
+                                              double cutoff_mm, double lambda_s_um,
+                                              const std::string& title) {
+  const std::vector<ProfileTrace> traces = extract_profiles(hf, direction_deg, 1, 0.0);
+  if (traces.empty()) return std::nullopt;
+  const ProfileTrace& trace = *std::max_element(
+      traces.begin(), traces.end(),
+      [](const ProfileTrace& a, const ProfileTrace& b) { return a.z_um.size() < b.z_um.size(); });
+  if (trace.z_um.size() < 2) return std::nullopt;
+  ProfilePlotData data;
+  data.title = title;
+  data.cutoff_mm = cutoff_mm;
+  data.z_um = trace.z_um;
+  for (size_t k = 0; k < trace.z_um.size(); ++k) {
+    data.x_mm.push_back(trace.start_mm + static_cast<double>(k) * trace.spacing_mm);
+  }
+  data.mean_line_um = gaussian_profile_filter(trace.z_um, trace.spacing_mm, cutoff_mm);
+  if (const auto eval = evaluate_profiles({trace}, cutoff_mm, lambda_s_um)) {
+    data.ra_um = eval->roughness.a_um;
+    data.rz_um = eval->roughness.z_um;
+  }
+  return data;
+}
+
+}  // namespace
+
+std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
+  const ProfileReport& p = run.texture.profile;
+  std::vector<ProfilePlotData> out;
+  if (auto across = centre_profile(run.floor, p.direction_deg, p.cutoff_mm, p.lambda_s_um,
+                                   "Across the lay, " + format_number(p.direction_deg) + " deg")) {
+    out.push_back(std::move(*across));
+  }
+  const double along_deg = std::fmod(p.direction_deg + 90.0, 180.0);
+  if (auto along = centre_profile(run.floor, along_deg, p.cutoff_mm, p.lambda_s_um,
+                                  "Along the lay, " + format_number(along_deg) + " deg")) {
+    out.push_back(std::move(*along));
+  }
+  return out;
+}
+
+SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,
+                                              const std::optional<HeightRange>& range,
+                                              int cells_per_pixel) {
+  SimulationPictures pics;
+  HeightImageOptions hopt;
+  hopt.range = range;
+  hopt.units = units;
+  const HeightImage height = render_height_image(run.floor, hopt);
+  pics.height_png = encode_png(height.image);
+  pics.height_caption = height_image_caption(height, units);
+
+  ShadedImageOptions sopt;
+  sopt.cells_per_pixel = cells_per_pixel;
+  pics.shaded = render_shaded_image(run.floor, sopt);
+  pics.shaded_png = encode_png(pics.shaded.image);
+  pics.shaded_caption = shaded_image_caption(pics.shaded);
+
+  ProfilePlotOptions popt;
+  popt.units = units;
+  const std::vector<ProfilePlotData> profiles = simulation_profiles(run);
+  if (!profiles.empty()) {
+    pics.profile_png = encode_png(render_profile_plot(profiles, popt).image);
+  }
+  pics.profile_caption =
+      "Centre traces across and along the lay; the smooth line is the ISO 16610-21 Gaussian mean "
+      "line at the cut-off used; Ra and Rz of each trace are marked.";
+  pics.height_npy = encode_npy(run.floor);
+
+  pics.facts.height_lo_um = height.lo_um;
+  pics.facts.height_hi_um = height.hi_um;
+  pics.facts.um_per_level = height.um_per_level;
+  pics.facts.cells_per_pixel = height.cells_per_pixel;
+  pics.facts.light_azimuth_deg = pics.shaded.light_azimuth_deg;
+  pics.facts.light_elevation_deg = pics.shaded.light_elevation_deg;
+  pics.facts.exaggeration = pics.shaded.exaggeration;
+  return pics;
+}
+
+HtmlReport simulation_html_report(const Job& job, const JobRun& run,
+                                  const SimulationPictures& pictures, LengthUnit units) {
+  HtmlReport r;
+  r.title = "Floor simulation: " + job.name;
+  r.subtitle = "cuspmap 0.1.0 - simulate " + job.source;
+  r.inputs = {{"tool", describe_tool(job.cutter, units) + ", " + std::to_string(job.cutter.teeth) +
+                           " teeth"},
+              {"path", describe_path(job.path, units)},
+              {"patch", length_text(run.patch.size_x_mm, units) + " x " +
+                            length_text(run.patch.size_y_mm, units) + ", cell " +
+                            length_text(run.floor.cell_mm, units)},
+              {"cut", format_number(job.cut.rpm) + " rpm, feed " +
+                          length_text(job.cut.feed_mm_per_min, units) + "/min"},
+              {"sweep", job.sim.tooth_marks ? "tooth by tooth" : "envelope of the revolving tool"}};
+  const ProfileParameters& rough = run.texture.profile.roughness;
+  const ArealParameters& areal = run.texture.areal.parameters;
+  HtmlTable t;
+  t.caption = "Predicted surface";
+  t.columns = {"quantity", "value"};
+  const auto row = [&](const std::string& name, const std::string& value) {
+    t.rows.push_back({{name}, {value}});
+  };
+  row("Ra (across the lay)", height_text(rough.a_um, units) + " (" +
+                                 run.texture.profile.iso1302_grade + ")");
+  row("Rz", height_text(rough.z_um, units));
+  row("Sa", height_text(areal.sa_um, units));
+  row("Sz", height_text(areal.sz_um, units));
+  row("highest point above nominal", height_text(run.max_scallop_um, units));
+  row("lowest point", height_text(run.min_height_um, units));
+  row("path length", length_text(run.path_length_mm, units));
+  row("cycle time", format_number(run.cycle_time_s) + " s");
+  r.tables.push_back(t);
+  r.images.push_back({pictures.height_png, "height map", pictures.height_caption});
+  r.images.push_back({pictures.shaded_png, "shaded relief", pictures.shaded_caption});
+  if (!pictures.profile_png.empty()) {
+    r.profile_plots.push_back({pictures.profile_png, "profiles", pictures.profile_caption});
+  }
+  const ProfileReport& p = run.texture.profile;
+  r.filters = {"Profile: ISO 16610-21 Gaussian, lambda-c " + length_text(p.cutoff_mm, units) +
+                   " (" + p.cutoff_rule + "), lambda-s " + format_number(p.lambda_s_um) +
+                   " um, evaluation length " + length_text(p.evaluation_length_mm, units) + " (" +
+                   std::to_string(p.sampling_lengths) + " sampling lengths, " +
+                   std::to_string(p.traces) + " traces)",
+               "Areal: least-squares plane removed (F-operator)"};
+  for (const std::string& w : run.texture.warnings) r.notes.push_back(w);
+  for (const PathWarning& w : run.built.warnings) {
+    r.notes.push_back((w.line > 0 ? "line " + std::to_string(w.line) + ": " : "") + w.message);
+  }
+  for (const std::string& k : job.ignored_keys) r.notes.push_back("ignored key: " + k);
+  return r;
+}
+
+}  // namespace cuspmap

@@ -1,0 +1,45 @@
+// The simulate pipeline for one job: build the path, sweep the floor, measure its texture.
+// Inputs: validated Job (mm, deg), run settings; output: heightfield (um), path, ISO texture
+// report and stage timings. Method: DESIGN.md data flow (path -> sweep -> texture).
+#pragma once
+
+#include <functional>
+
+#include "core/heightfield.h"
+#include "job/job.h"
+#include "path/build_toolpath.h"
+#include "sweep/simulate_floor.h"
+#include "texture/texture_report.h"
+
+namespace cuspmap {
+
+/// Run-time settings that are not part of the job.
+struct RunOptions {
+  int threads = 0;                         ///< sweep threads; 0 = all hardware threads
+  std::int64_t max_memory_bytes = 0;       ///< grid limit; 0 = half of physical memory
+  std::function<void(double)> progress;    ///< sweep progress in [0, 1]; may be empty
+  TextureOptions texture;                  ///< cut-off and direction overrides
+};
+
+/// Everything one simulation produced.
+struct JobRun {
+  Patch patch;              ///< the patch simulated (derived from the program when not given)
+  BuiltPath built;          ///< moves, warnings, spindle direction
+  Heightfield floor;        ///< heights, um above the nominal floor; NaN = not reached
+  SweepStats sweep;         ///< sweep counters
+  TextureReport texture;    ///< ISO profile and areal parameters
+  double path_length_mm = 0.0;   ///< feed and rapid moves
+  double cycle_time_s = 0.0;     ///< feed moves at their feed, rapids at cut.rapid_mm_per_min
+  double max_scallop_um = 0.0;   ///< highest point above the nominal floor (material left, worst)
+  double min_height_um = 0.0;    ///< lowest point (negative = below nominal, e.g. under tilt)
+  double path_s = 0.0;           ///< time to build the path, s
+  double sweep_s = 0.0;          ///< time to sweep, s
+  double texture_s = 0.0;        ///< time for the texture parameters, s
+};
+
+/// Runs one job.
+/// @throws InputError for a bad G-code file, a grid over the memory limit, or a floor that no
+///         move reached.
+JobRun run_job(const Job& job, const RunOptions& options);
+
+}  // namespace cuspmap

@@ -1,0 +1,31 @@
+// Builds the Toolpath a PathSpec asks for: one of the built-in strategies (raster, offset,
+// spiral, trochoidal) or the user's G-code program. Lengths mm, feeds mm/min.
+// Method: dispatch only; each strategy's file names its method.
+#include "path/build_toolpath.h"
+
+#include <cassert>
+
+#include "path/gcode_reader.h"
+#include "path/offset_path.h"
+#include "path/raster.h"
+#include "path/spiral_path.h"
+#include "path/trochoidal_path.h"
+
+namespace cuspmap {
+
+BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
+                         const Cutter& cutter) {
+  if (spec.kind == PathKind::Gcode) return read_gcode_file(spec.file, cut, patch, cutter);
+  BuiltPath built;
+  built.spindle = cut.spindle;
+  switch (spec.kind) {
+    case PathKind::Raster: built.path = raster_path(spec, cut, patch, cutter); break;
+    case PathKind::Offset: built.path = offset_path(spec, cut, patch, cutter); break;
+    case PathKind::Spiral: built.path = spiral_path(spec, cut, patch, cutter); break;
+    case PathKind::Trochoidal: built.path = trochoidal_path(spec, cut, patch, cutter); break;
+    case PathKind::Gcode: assert(false && "handled above"); break;
+  }
+  return built;
+}
+
+}  // namespace cuspmap

@@ -1,0 +1,209 @@
+// Sorts the words of one RS-274 line into a GcodeBlock (see gcode_block.h), rejecting what the
+// reader does not support with the word and the reason. Cost O(words).
+// Method: RS274NGC v3 (Kramer, Proctor & Messina 2000) §3.3.2.1 (codes within 0.0001 of an
+// integer), §3.3.5 item repeats, §3.4 Table 4 modal groups, §3.5 Table 5, §3.6 M-codes.
+#include "path/gcode_block.h"
+
+#include <cmath>
+
+namespace cuspmap {
+namespace {
+
+// §3.3.2.1: "a decimal number which is supposed be close to an integer is considered close
+// enough if it is within 0.0001 of an integer" (G-codes are compared after multiplying by 10).
+constexpr double kCodeIntegerTolerance = 1e-4;
+
+// Modal groups that can appear at most once per line (§3.3.5), by Table 4 group number.
+enum Group {
+  kNonModal, kMotion, kPlane, kDistance, kArcDistance, kFeedMode, kUnits, kCutterComp,
+  kToolLength, kRetract, kCoordSystem, kPathControl, kMStop, kMToolChange, kMSpindle, kMCoolant,
+  kMOverride, kGroupCount
+};
+
+class BlockSorter {
+ public:
+  BlockSorter(std::string_view file, long long line_number, GcodeBlock& block)
+      : file_(file), line_number_(line_number), b_(block) {}
+
+  void run(const GcodeLine& line) {
+    b_ = GcodeBlock{};
+    int m_words = 0;
+    for (const GcodeWord& w : line.words) {
+      switch (w.letter) {
+        case 'G': g_code(w); break;
+        case 'M':
+          if (++m_words > 4) fail(w.text, "more than four M words on one line (RS274NGC allows four)");
+          m_code(w);
+          break;
+        case 'F': case 'H': case 'I': case 'J': case 'K': case 'P': case 'Q': case 'R':
+        case 'S': case 'T': case 'X': case 'Y': case 'Z':
+          value_word(w);
+          break;
+        case 'A': case 'B': case 'C': case 'U': case 'V': case 'W':
+          fail(w.text, "rotary and extra axes (A B C U V W) are not supported: cuspmap "
+                       "simulates X, Y and Z only");
+        case 'D':
+          fail(w.text, "tool radius compensation numbers (D) are not supported; post the "
+                       "program with compensation off");
+        case 'L':
+          fail(w.text, "L words (canned-cycle repeats, G10 keys) are not supported");
+        default:
+          fail(w.text, std::string("unknown or unsupported word ") + w.letter);
+      }
+    }
+    if (b_.dwell && !b_['P'].present) fail("G4", "a dwell needs a P word (seconds)");
+    if (b_.dwell && b_['P'].value < 0.0) fail(b_['P'].text, "a dwell time must be >= 0 s");
+    if (b_['H'].present && !b_.tool_length) fail(b_['H'].text, "H is used only with G43");
+    if (b_['Q'].present && !b_.path_control) {
+      fail(b_['Q'].text, "Q is used only with G64 here (canned cycles are not supported)");
+    }
+  }
+
+ private:
+  [[noreturn]] void fail(std::string_view word, std::string_view why) const {
+    throw_gcode_error(file_, line_number_, word, why);
+  }
+
+  void claim(Group g, const std::string& word) {
+    std::string& holder = group_word_[g];
+    if (!holder.empty()) {
+      fail(word, "two codes of one modal group on one line ('" + holder + "' and '" + word +
+                     "'); RS274NGC allows one");
+    }
+    holder = word;
+  }
+
+  void g_code(const GcodeWord& w) {
+    const double tenths_real = w.value * 10.0;
+    const double tenths_round = std::round(tenths_real);
+    if (std::abs(tenths_real - tenths_round) > 10.0 * kCodeIntegerTolerance || w.value < 0.0 ||
+        tenths_round > 10000.0) {
+      fail(w.text, "unknown or unsupported G-code");
+    }
+    const int t = static_cast<int>(tenths_round);
+    switch (t) {
+      case 0: case 10: case 20: case 30: case 800:
+        claim(kMotion, w.text);
+        b_.has_motion = true;
+        b_.motion = t == 0    ? GcodeMotion::Rapid
+                    : t == 10 ? GcodeMotion::Linear
+                    : t == 20 ? GcodeMotion::ArcCw
+                    : t == 30 ? GcodeMotion::ArcCcw
+                              : GcodeMotion::None;
+        b_.motion_word = w.text;
+        return;
+      case 40: claim(kNonModal, w.text); b_.dwell = true; return;
+      case 170: case 180: case 190:
+        claim(kPlane, w.text);
+        b_.has_plane = true;
+        b_.plane = t == 170 ? GcodePlane::XY : t == 180 ? GcodePlane::XZ : GcodePlane::YZ;
+        b_.plane_word = w.text;
+        return;
+      case 200: case 210: claim(kUnits, w.text); b_.units = t == 210 ? 1 : -1; return;
+      case 400: claim(kCutterComp, w.text); return;
+      case 410: case 411: case 420: case 421:
+        fail(w.text, "cutter radius compensation is not supported; post the program with "
+                     "compensation off");
+      case 430: claim(kToolLength, w.text); b_.tool_length = true; return;
+      case 490: claim(kToolLength, w.text); return;
+      case 540: case 550: case 560: case 570: case 580: case 590: case 591: case 592: case 593:
+        claim(kCoordSystem, w.text);
+        b_.work_offset_tenths = t;
+        b_.work_offset_word = w.text;
+        return;
+      case 610: case 611: case 640: claim(kPathControl, w.text); b_.path_control = true; return;
+      case 900: case 910: claim(kDistance, w.text); b_.distance = t == 900 ? 1 : -1; return;
+      case 901: case 911: claim(kArcDistance, w.text); b_.arc_distance = t == 901 ? 1 : -1; return;
+      case 940: claim(kFeedMode, w.text); return;
+      case 930:
+        fail(w.text, "inverse-time feed (G93) is not supported; post the program with feed per "
+                     "minute (G94)");
+      case 950:
+        fail(w.text, "feed per revolution (G95) is not supported; post the program with feed "
+                     "per minute (G94)");
+      case 980: case 990: claim(kRetract, w.text); return;
+      case 730: case 760: case 810: case 820: case 830: case 840: case 850: case 860: case 870:
+      case 880: case 890:
+        fail(w.text, "canned cycles are not supported; post the program with the cycles "
+                     "expanded into G0/G1 moves");
+      case 280: case 281: case 300: case 301:
+        fail(w.text, "return to home needs the machine's home position, which the program "
+                     "does not hold");
+      case 530:
+        fail(w.text, "moves in machine coordinates (G53) are not supported: the work offset "
+                     "is not known");
+      case 100:
+        fail(w.text, "setting coordinate system data (G10) is not supported");
+      case 920: case 921: case 922: case 923:
+        fail(w.text, "coordinate system offsets (G92) are not supported; post the program "
+                     "without them");
+      case 382: case 383: case 384: case 385:
+        fail(w.text, "probing moves are not supported");
+      case 50: case 51: case 52:
+        fail(w.text, "spline moves are not supported; post the program as lines and arcs");
+      case 431: fail(w.text, "dynamic tool length offset is not supported");
+      default: fail(w.text, "unknown or unsupported G-code");
+    }
+  }
+
+  void m_code(const GcodeWord& w) {
+    const double r = std::round(w.value);
+    if (std::abs(w.value - r) > kCodeIntegerTolerance || w.value < 0.0 || r > 1000.0) {
+      fail(w.text, "unknown or unsupported M-code");
+    }
+    const int m = static_cast<int>(r);
+    switch (m) {
+      case 0: case 1: case 60:
+        claim(kMStop, w.text);
+        b_.stop = GcodeStop::Pause;
+        b_.stop_word = w.text;
+        return;
+      case 2: case 30:
+        claim(kMStop, w.text);
+        b_.stop = GcodeStop::End;
+        b_.stop_word = w.text;
+        return;
+      case 3: case 4: case 5:
+        claim(kMSpindle, w.text);
+        b_.spindle = m == 3 ? GcodeSpindle::Cw : m == 4 ? GcodeSpindle::Ccw : GcodeSpindle::Stop;
+        return;
+      case 6: claim(kMToolChange, w.text); b_.tool_change = true; return;
+      case 7: case 8: case 9: claim(kMCoolant, w.text); return;
+      case 48: case 49: claim(kMOverride, w.text); return;
+      case 98: case 99:
+        fail(w.text, "subprogram calls are not supported; post the program as one flat file");
+      default: fail(w.text, "unknown or unsupported M-code");
+    }
+  }
+
+  void value_word(const GcodeWord& w) {
+    GcodeValue& v = b_.values[w.letter - 'A'];
+    if (v.present) {
+      fail(w.text, std::string("a second ") + w.letter + " word on the line ('" + v.text +
+                       "' came first); RS274NGC allows one per letter");
+    }
+    v.present = true;
+    v.value = w.value;
+    v.text = w.text;
+    if (w.letter == 'F' && !(w.value > 0.0)) fail(w.text, "feed rate must be > 0 (per minute, G94)");
+    if (w.letter == 'S' && w.value < 0.0) fail(w.text, "spindle speed must be >= 0 rev/min");
+    if (w.letter == 'T' && (w.value < 0.0 || std::abs(w.value - std::round(w.value)) >
+                                                 kCodeIntegerTolerance)) {
+      fail(w.text, "a tool number is a whole number >= 0");
+    }
+  }
+
+  std::string_view file_;
+  long long line_number_;
+  GcodeBlock& b_;
+  std::array<std::string, kGroupCount> group_word_;
+};
+
+}  // namespace
+
+void sort_gcode_block(const GcodeLine& line, std::string_view file, long long line_number,
+                      GcodeBlock& block) {
+  BlockSorter(file, line_number, block).run(line);
+}
+
+}  // namespace cuspmap

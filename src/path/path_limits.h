@@ -1,0 +1,24 @@
+// Size limits of built and read toolpaths: how many moves and lines cuspmap accepts before it
+// refuses with an InputError instead of exhausting memory. Counts only; no computation.
+// Method: memory arithmetic (a Move is ~100 bytes, so 4 million moves stay under ~0.4 GB).
+#pragma once
+
+#include <cstddef>
+
+namespace cuspmap {
+
+/// Most moves one toolpath may hold, built-in or read from G-code. A Move is about 100 bytes,
+/// so the limit keeps a path under ~0.4 GB; a 60 x 60 mm floor at a 0.05 mm stepover needs
+/// about 1,200 passes, far below it. Larger programs: split them or simulate a smaller patch.
+inline constexpr std::size_t kMaxPathMoves = 4'000'000;
+
+/// Longest G-code line, characters (end-of-line excluded). RS274NGC v3 (Kramer, Proctor &
+/// Messina 2000, §3.3) allows 256; posts with long comments exceed that, so cuspmap allows 16x
+/// more and stops reading a longer line as soon as the limit is passed.
+inline constexpr std::size_t kMaxGcodeLineChars = 4096;
+
+/// Most lines one G-code file may have (comments and blank lines included): 10x the move limit,
+/// so comment-heavy programs fit while a runaway file stops in seconds, not minutes.
+inline constexpr long long kMaxGcodeLines = 40'000'000;
+
+}  // namespace cuspmap

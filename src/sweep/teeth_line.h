@@ -1,0 +1,51 @@
+// Tooth-resolved height one straight move leaves at a cell: the lowest of the tooth edges that
+// pass over it, found without time stepping. Cost O(teeth) root solves per cell (a few atan2
+// each) next to each local minimum of the revolving envelope along the move.
+// Method: DESIGN.md "Tooth-resolved" (tooth trajectory, Altintas, Manufacturing Automation 2nd
+// ed. 2012, ch. 2; runout after Kline & DeVor 1983): tooth k passes the cell when the cell's
+// bearing from the axis equals the tooth angle (+ the runout's small bearing offset); along a
+// line that condition is atan2(w, x) + kappa x = const, monotone between at most two turning
+// points, so each crossing is a bracketed Newton root (Press et al., Numerical Recipes §9.4).
+#pragma once
+
+#include <array>
+
+#include "sweep/prepare_moves.h"
+#include "sweep/sweep_setup.h"
+#include "tool/chord_min.h"
+
+namespace cuspmap {
+
+/// Tooth crossings of one non-vertical straight move, set up once and asked cell after cell.
+/// Cells of a row parallel to the move share their chord (same lateral offset, same reach), so
+/// the chord's minima and the bearings there are kept from the previous cell. Not thread-safe:
+/// one per move per tile.
+class LineTeeth {
+ public:
+  /// @param[in] setup  profiles, teeth, runout, tilt, spindle speed (must outlive this)
+  /// @param[in] move   a Line move with length_xy_mm > 0 (must outlive this)
+  LineTeeth(const SweepSetup& setup, const PreparedMove& move);
+
+  /// Lowest tooth-edge height over a cell, mm above the floor (axial offsets included);
+  /// +infinity when no tooth passes the cell within reach, or when the revolving envelope (a
+  /// lower bound of every crossing) is not below bound_mm.
+  /// @param[in] u_mm      cell coordinate along the move from its start
+  /// @param[in] w_mm      cell coordinate to the move's left
+  /// @param[in] bound_mm  the cell's current height (mm); +infinity when unreached
+  double height_mm(double u_mm, double w_mm, double bound_mm);
+
+ private:
+  const SweepSetup& setup_;
+  const PreparedMove& move_;
+  double rise_ = 0.0;         // tip rise per mm along the move
+  double slope_ = 0.0;        // rise plus the tilt's drop along the move (chord's linear term)
+  double tilt_across_ = 0.0;  // tilt's drop per mm to the move's left
+  double kappa_ = 0.0;        // tooth angle turned per mm of travel, rad/mm (signed)
+  double phase0_ = 0.0;       // tooth 0's angle at the start less the move's direction, rad
+  bool cached_ = false;       // minima_ and angles_ hold the chord below
+  double cache_w_ = 0.0, cache_lo_ = 0.0, cache_hi_ = 0.0;
+  ChordMin minima_;                                   // local minima of the envelope
+  std::array<double, kMaxChordCandidates> angles_{};  // atan2(w, x) at each minimum
+};
+
+}  // namespace cuspmap

@@ -1,0 +1,75 @@
+// Tests of build_toolpath's dispatch (G-code file, offset, spiral, trochoidal) and of the
+// hand-written example program examples/bracket_pocket_floor.nc.
+#include "path/build_toolpath.h"
+
+#include "path/gcode_reader.h"
+#include "path/patch_from_extent.h"
+#include "path/path_test_geometry.h"
+#include "test_support.h"
+
+namespace cuspmap {
+
+TEST_CASE("build_toolpath: G-code jobs read the file, with its spindle direction", "[path]") {
+  test::TempDir dir;
+  test::write_text(dir.file("p.nc"), "G21 G90 M4 S10000\nG0 X0 Y0 Z0\nG1 X5 F200\n");
+  PathSpec spec;
+  spec.kind = PathKind::Gcode;
+  spec.file = dir.file("p.nc");
+  const BuiltPath b = build_toolpath(spec, CutSpec{}, test::test_patch(), test::test_ball());
+  REQUIRE(b.path.moves.size() == 1);
+  CHECK(b.spindle == SpindleDirection::Ccw);
+  CHECK(b.path.moves[0].source_line == 3);
+}
+
+TEST_CASE("build_toolpath: built-in strategies carry the [cut] spindle", "[path]") {
+  CutSpec cut;
+  cut.spindle = SpindleDirection::Ccw;
+  for (const PathKind kind : {PathKind::Offset, PathKind::Spiral, PathKind::Trochoidal}) {
+    PathSpec spec;
+    spec.kind = kind;
+    spec.stepover_mm = 1.0;
+    const BuiltPath b = build_toolpath(spec, cut, test::test_patch(), test::test_ball());
+    CAPTURE(static_cast<int>(kind));
+    CHECK(b.path.moves.size() > 4);
+    CHECK(b.spindle == SpindleDirection::Ccw);
+    CHECK(b.warnings.empty());
+    for (const Move& m : b.path.moves) CHECK(m.feed_mm_per_min == (m.rapid ? cut.rapid_mm_per_min : cut.feed_mm_per_min));
+  }
+}
+
+TEST_CASE("read_gcode_file: the example bracket pocket program", "[path]") {
+  CutSpec cut;
+  cut.rpm = 9000;
+  Patch pocket = test::test_patch();  // the pocket's box, as examples/bracket_pocket_gcode.toml
+  pocket.origin_x_mm = pocket.origin_y_mm = 5.0;
+  pocket.size_x_mm = 30.0;
+  pocket.size_y_mm = 20.0;
+  Cutter bull;  // as the example job: 6 mm bull-nose, 1 mm corner, 0.5 deg dish
+  bull.shape = CutterShape::BullNose;
+  bull.diameter_mm = 6.0;
+  bull.corner_radius_mm = 1.0;
+  bull.dish_deg = 0.5;
+  const BuiltPath b = read_gcode_file(test::source_path("examples/bracket_pocket_floor.nc"), cut,
+                                      pocket, bull);
+  std::string notes;
+  for (const PathWarning& w : b.warnings) notes += std::to_string(w.line) + ": " + w.message + "\n";
+  CAPTURE(notes);
+  CHECK(b.warnings.size() == 1);  // the M6 note
+  int arcs = 0;
+  for (const Move& m : b.path.moves) {
+    if (m.kind != MoveKind::Arc) continue;
+    ++arcs;
+    // Every arc's end is on its circle (the program's centres are exact).
+    REQUIRE_NEAR(arc_radius_mm(m), (m.end_mm.head<2>() - m.centre_mm).norm(), 1e-12);
+    CHECK(m.ccw);
+  }
+  CHECK(arcs == 9);
+  // Ring 0 runs 3 mm inside the pocket walls (X5..35, Y5..25): its box is the floor extent.
+  const Patch p = patch_from_extent(b.path, 0.05, 0.0);
+  REQUIRE_NEAR(p.origin_x_mm, 8.0, 1e-12);
+  REQUIRE_NEAR(p.origin_y_mm, 8.0, 1e-12);
+  REQUIRE_NEAR(p.size_x_mm, 24.0, 1e-12);
+  REQUIRE_NEAR(p.size_y_mm, 14.0, 1e-12);
+}
+
+}  // namespace cuspmap

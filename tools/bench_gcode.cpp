@@ -1,0 +1,99 @@
+// Benchmark of the G-code reader: a 200,000-line finishing program over a 60 x 60 mm floor
+// (zigzag passes of short G1 segments, as CAM posts write them, joined by G2/G3 semicircles),
+// read from memory and from a file. Target: well under a second per program.
+// Method: Google Benchmark; the program is generated here, so the figure is reproducible.
+#include <benchmark/benchmark.h>
+
+#include <charconv>
+#include <cstdio>
+#include <filesystem>
+#include <fstream>
+#include <string>
+
+#include "path/gcode_reader.h"
+
+namespace {
+
+constexpr int kLines = 200'000;
+constexpr double kFloorMm = 60.0;
+
+void append_number(std::string& out, char letter, double value) {
+  char buf[32];
+  buf[0] = letter;
+  const auto [end, ec] = std::to_chars(buf + 1, buf + sizeof buf, value, std::chars_format::fixed, 4);
+  (void)ec;
+  out.append(buf, end);
+}
+
+// Passes along X, 0.3 mm apart; each pass is cut into short segments so that the whole program
+// has kLines lines; the tip rides a gentle 5 um waviness in Z so Z is written on every line.
+std::string finishing_program() {
+  const int passes = static_cast<int>(kFloorMm / 0.3);
+  const int segments = kLines / passes - 1;
+  std::string out = "%\nO5001 (BENCH FLOOR)\nG17 G21 G90 G94\nM3 S10000\nG0 X0 Y0 Z2\nG1 Z0 F1200\n";
+  out.reserve(static_cast<std::size_t>(kLines) * 32);
+  for (int p = 0; p < passes; ++p) {
+    const double y = 0.3 * p;
+    for (int k = 1; k <= segments; ++k) {
+      const double t = static_cast<double>(k) / segments;
+      const double x = (p % 2 == 0) ? kFloorMm * t : kFloorMm * (1.0 - t);
+      out += "G1 ";
+      append_number(out, 'X', x);
+      out += ' ';
+      append_number(out, 'Z', 0.005 * ((k % 8) < 4 ? 1 : -1));
+      out += '\n';
+    }
+    if (p + 1 < passes) {
+      out += (p % 2 == 0) ? "G3 " : "G2 ";
+      append_number(out, 'X', p % 2 == 0 ? kFloorMm : 0.0);
+      out += ' ';
+      append_number(out, 'Y', y + 0.3);
+      out += " R0.15\n";
+    }
+  }
+  out += "G0 Z2\nM30\n%\n";
+  return out;
+}
+
+cuspmap::Patch bench_patch() {
+  cuspmap::Patch patch;
+  patch.size_x_mm = patch.size_y_mm = kFloorMm;
+  patch.cell_mm = 0.02;
+  return patch;
+}
+
+void BM_ReadGcodeText(benchmark::State& state) {
+  const std::string program = finishing_program();
+  const cuspmap::Cutter cutter;
+  std::size_t moves = 0;
+  for (auto _ : state) {
+    const cuspmap::BuiltPath b =
+        cuspmap::read_gcode_text(program, "bench.nc", cuspmap::CutSpec{}, bench_patch(), cutter);
+    moves = b.path.moves.size();
+    benchmark::DoNotOptimize(b.path.moves.data());
+  }
+  state.counters["lines"] = kLines;
+  state.counters["moves"] = static_cast<double>(moves);
+  state.SetBytesProcessed(static_cast<int64_t>(state.iterations() * program.size()));
+}
+BENCHMARK(BM_ReadGcodeText)->Unit(benchmark::kMillisecond);
+
+void BM_ReadGcodeFile(benchmark::State& state) {
+  const std::string program = finishing_program();
+  const std::string path =
+      (std::filesystem::temp_directory_path() / "cuspmap_bench_gcode.nc").string();
+  std::ofstream(path, std::ios::binary) << program;
+  const cuspmap::Cutter cutter;
+  for (auto _ : state) {
+    const cuspmap::BuiltPath b =
+        cuspmap::read_gcode_file(path, cuspmap::CutSpec{}, bench_patch(), cutter);
+    benchmark::DoNotOptimize(b.path.moves.data());
+  }
+  state.SetBytesProcessed(static_cast<int64_t>(state.iterations() * program.size()));
+  std::filesystem::remove(path);
+}
+BENCHMARK(BM_ReadGcodeFile)->Unit(benchmark::kMillisecond);
+
+}  // namespace
+
+BENCHMARK_MAIN();
