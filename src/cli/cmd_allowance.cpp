@@ -1,19 +1,22 @@
 // `cuspmap allowance`: depth to sand before the machining marks vanish, volume, programmed stock
 // (two conventions), grit sequence with times, tolerance verdict and cautions; from the closed-form
-// cusp (tool + stepover flags), a simulate report, or a heightmap file (npy, csv, xyz, sdf, x3p)
-// through the ISO texture parameters. Human table or --json.
+// cusp (tool + stepover flags), a simulate report, a heightmap file (npy, csv, xyz, sdf, x3p) or
+// a job file simulated on the spot, through the ISO texture parameters. Human table or --json.
 #include <cstdio>
 #include <fstream>
 #include <optional>
 
 #include "cli/command.h"
 #include "cli/finish_flags.h"
+#include "cli/texture_flags.h"
 #include "core/input_error.h"
+#include "core/stage_timer.h"
 #include "finish/cusp_profile_heights.h"
 #include "finish/finishing_cautions.h"
 #include "finish/sanding_allowance.h"
 #include "io/read_heightmap.h"
 #include "job/job.h"
+#include "job/run_job.h"
 #include "texture/texture_report.h"
 
 namespace cuspmap {
@@ -27,6 +30,7 @@ struct AllowanceOptions {
   CommonOptions common;
   ToolFlags tool;
   GritFlags grits;
+  TextureFlags texture;   // how a heightmap's or job's texture is measured
   std::string input;      // report.json from `cuspmap simulate`, or a heightmap file
   std::string cell;       // --cell for npy/csv heightmaps
   std::string z_units;    // --z-units for npy/csv/xyz heightmaps
@@ -79,6 +83,31 @@ Marks marks_from_report(const std::string& file) {
   return m;
 }
 
+// Height parameters of a texture report (the simulate pipeline's or a heightmap's).
+SurfaceHeights heights_of(const TextureReport& r) {
+  SurfaceHeights h;
+  h.sz_um = r.areal.parameters.sz_um;
+  h.sv_um = r.areal.parameters.sv_um;
+  h.sp_um = r.areal.parameters.sp_um;
+  h.sa_um = r.areal.parameters.sa_um;
+  h.ra_um = r.profile.roughness.a_um;
+  return h;
+}
+
+Marks marks_from_job(const std::string& file, const TextureOptions& texture) {
+  const Job job = load_job(file);
+  RunOptions options;
+  options.texture = texture;
+  const JobRun run = run_job(job, options);
+  Marks m;
+  m.heights = heights_of(run.texture);
+  m.patch_area_mm2 = run.patch.size_x_mm * run.patch.size_y_mm;
+  m.description = "job " + file + " simulated (" + describe_tool(job.cutter, job.units) + ", " +
+                  describe_path(job.path, job.units) + ")";
+  m.source = {{"kind", "job"}, {"file", file}, {"cutoff_mm", run.texture.profile.cutoff_mm}};
+  return m;
+}
+
 Marks marks_from_heightmap(const AllowanceOptions& o, LengthUnit units) {
   HeightmapReadOptions read;
   if (!o.cell.empty()) {
@@ -90,13 +119,9 @@ Marks marks_from_heightmap(const AllowanceOptions& o, LengthUnit units) {
     read.z_units = o.z_units;
   }
   const HeightmapFile file = read_heightmap(o.input, read);
-  const TextureReport r = texture_report(file.field, TextureOptions{});
+  const TextureReport r = texture_report(file.field, texture_options(o.texture, units));
   Marks m;
-  m.heights.sz_um = r.areal.parameters.sz_um;
-  m.heights.sv_um = r.areal.parameters.sv_um;
-  m.heights.sp_um = r.areal.parameters.sp_um;
-  m.heights.sa_um = r.areal.parameters.sa_um;
-  m.heights.ra_um = r.profile.roughness.a_um;
+  m.heights = heights_of(r);
   m.patch_area_mm2 = r.size_x_mm * r.size_y_mm;
   m.description = file.format + " heightmap " + o.input + " (ISO 25178-2, plane removed; Ra " +
                   r.profile.direction + " the lay, cut-off " + format_number(r.profile.cutoff_mm) +
@@ -186,15 +211,20 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
 
 void run_allowance(const AllowanceOptions& o) {
   const LengthUnit units = o.common.length_unit();
+  StageTimer timer;
   Marks marks;
   if (!o.input.empty()) {
-    const bool report = o.input.size() >= 5 && o.input.substr(o.input.size() - 5) == ".json";
-    marks = report ? marks_from_report(o.input) : marks_from_heightmap(o, units);
+    const auto ends_with = [&](std::string_view tail) {
+      return o.input.size() >= tail.size() && o.input.substr(o.input.size() - tail.size()) == tail;
+    };
+    marks = ends_with(".json")   ? marks_from_report(o.input)
+            : ends_with(".toml") ? marks_from_job(o.input, texture_options(o.texture, units))
+                                 : marks_from_heightmap(o, units);
   } else if (!o.stepover.empty()) {
     marks = marks_from_flags(o, units);
   } else {
     throw InputError(
-        "allowance needs a simulate report.json, a heightmap file or --stepover "
+        "allowance needs a job.toml, a simulate report.json, a heightmap file or --stepover "
         "with the tool flags (--tool, --diameter)");
   }
   const GritChoice grits = grit_choice_from_flags(o.grits);
@@ -215,8 +245,10 @@ void run_allowance(const AllowanceOptions& o) {
     }
     tolerance_um = t_mm * kUmPerMm;
   }
+  print_stage(o.common.verbose, "marks", timer.lap());
   const Allowance a =
       sanding_allowance(marks.heights, grits.table, grits.sequence, area_mm2, tolerance_um);
+  print_stage(o.common.verbose, "allowance", timer.lap());
   if (!o.common.json) {
     print_human(a, marks, grits, area_note, units);
     return;
@@ -270,8 +302,8 @@ void run_allowance(const AllowanceOptions& o) {
 void setup_allowance(CLI::App& sub) {
   auto o = std::make_shared<AllowanceOptions>();
   sub.add_option("input", o->input,
-                 "report.json written by `cuspmap simulate`, or a heightmap (npy, csv, xyz, sdf, "
-                 "x3p); else use the tool flags and --stepover");
+                 "job.toml (simulated here), report.json written by `cuspmap simulate`, or a "
+                 "heightmap (npy, csv, xyz, sdf, x3p); else use the tool flags and --stepover");
   sub.add_option("--cell", o->cell,
                  "Cell size of an npy/csv heightmap (length; else report.json "
                  "beside it)");
@@ -283,6 +315,7 @@ void setup_allowance(CLI::App& sub) {
                  "simulated patch, else 100 cm^2");
   sub.add_option("--tolerance", o->tolerance, "+- dimensional tolerance to check (length)");
   add_grit_flags(sub, o->grits);
+  add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
   sub.callback([o] { run_allowance(*o); });
 }

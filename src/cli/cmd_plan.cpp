@@ -9,9 +9,11 @@
 #include "cli/finish_flags.h"
 #include "cli/output_dir.h"
 #include "core/input_error.h"
+#include "core/stage_timer.h"
 #include "finish/finishing_cautions.h"
 #include "finish/plan_stepover.h"
 #include "finish/simulated_cusp_heights.h"
+#include "io/html_report.h"
 #include "io/plan_csv.h"
 #include "io/plan_svg.h"
 #include "job/job.h"
@@ -184,6 +186,14 @@ PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
   return r;
 }
 
+// A plan leads to both the machine and the bench: the report cautions (rotating tools,
+// workholding, combustible dust, codes) plus the sanding dust line.
+std::vector<std::string> plan_cautions() {
+  std::vector<std::string> cautions = standard_cautions();
+  cautions.emplace_back(kSandingDustCaution);
+  return cautions;
+}
+
 constexpr const char* kClosedFormBasis =
     "closed-form cusp profile (a flat end mill's cusp comes from its tilt, taken along the feed; "
     "none without tilt)";
@@ -244,8 +254,7 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
       r.spec.target_scallop_um ? nlohmann::json(*r.spec.target_scallop_um) : nlohmann::json();
   spec["tolerance_um"] =
       r.spec.tolerance_um ? nlohmann::json(*r.spec.tolerance_um) : nlohmann::json();
-  std::vector<std::string> cautions = machining_cautions();
-  for (const std::string& c : sanding_cautions()) cautions.push_back(c);
+  std::vector<std::string> cautions = plan_cautions();
   nlohmann::json doc = {
       {"options", options},
       {"message", best_message(plan, u)},
@@ -327,14 +336,15 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
   std::printf("\n%s\n", best_message(plan, u).c_str());
   std::printf("Costs are in the currency of the rates. Surfaces: %s.\n",
               r.simulate ? kSimulatedBasis : kClosedFormBasis);
-  print_cautions(machining_cautions());
-  for (const std::string& c : sanding_cautions()) std::printf("  ! %s\n", c.c_str());
+  print_cautions(plan_cautions());
 }
 
 void run_plan(const PlanOptions& o) {
   const LengthUnit units = o.common.length_unit();
   const PlanRequest request = request_from_flags(o, units);
+  StageTimer timer;
   const PlanResult plan = plan_stepover(request);
+  print_stage(o.common.verbose, "plan", timer.lap());
   const nlohmann::json doc = plan_document(request, plan, units);
   if (!o.out.empty()) {
     OutputDir dir(o.out);
@@ -343,6 +353,7 @@ void run_plan(const PlanOptions& o) {
     PlanSvgOptions svg;
     svg.inch = units == LengthUnit::Inch;
     dir.write("plan.svg", encode_plan_svg(plan, svg));
+    print_stage(o.common.verbose, "write", timer.lap());
   }
   if (o.common.json) {
     print_json(doc);

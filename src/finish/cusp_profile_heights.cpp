@@ -11,6 +11,7 @@
 #include <numbers>
 
 #include "core/units.h"
+#include "cusp/scallop_ball.h"
 
 namespace cuspmap {
 namespace {
@@ -19,10 +20,9 @@ namespace {
 // the Taylor series x^3/6 + x^5/40 + x^7/112 + 5x^9/1152 is then exact to ~1e-22 relative.
 constexpr double kSeriesRatio = 1e-2;
 
-// Height of the arc of radius c at distance u from its lowest point, cancellation-free form.
-double arc_height(double c, double u) {
-  return u * u / (c + std::sqrt(std::max(0.0, c * c - u * u)));
-}
+// Height of the arc of radius c at distance u from its lowest point: the handbook cusp of two
+// circles 2u apart (cusp/scallop_ball, cancellation-free).
+double arc_height(double c, double u) { return scallop_ball_mm(c, 2.0 * u); }
 
 // int_0^a arc_height(c, u) du, a in [0, c].
 double arc_integral(double c, double a) {

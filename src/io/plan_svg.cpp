@@ -10,6 +10,7 @@
 #include <limits>
 
 #include "core/units.h"
+#include "io/html_report.h"
 
 namespace cuspmap {
 namespace {
@@ -24,29 +25,6 @@ std::string num(double v, int decimals = 1) {
   char buf[64];
   const auto r = std::to_chars(buf, buf + sizeof buf, v, std::chars_format::fixed, decimals);
   return std::string(buf, r.ptr);
-}
-
-std::string escape(const std::string& text) {
-  std::string out;
-  for (const char c : text) {
-    switch (c) {
-      case '&':
-        out += "&amp;";
-        break;
-      case '<':
-        out += "&lt;";
-        break;
-      case '>':
-        out += "&gt;";
-        break;
-      case '"':
-        out += "&quot;";
-        break;
-      default:
-        out += c;
-    }
-  }
-  return out;
 }
 
 // Step of a 1-2-5 series giving about `target` intervals over `span`.
@@ -80,7 +58,7 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
       "\" font-family=\"sans-serif\" font-size=\"12\">\n"
       "<rect width=\"100%\" height=\"100%\" fill=\"white\"/>\n"
       "<text x=\"" +
-      num(kLeftPx) + "\" y=\"26\" font-size=\"16\">" + escape(o.title) + "</text>\n";
+      num(kLeftPx) + "\" y=\"26\" font-size=\"16\">" + html_escape(o.title) + "</text>\n";
   if (plan.options.empty()) {
     return svg + "<text x=\"" + num(kLeftPx) + "\" y=\"" + num(h / 2) +
            "\">no options to show</text>\n</svg>\n";
@@ -188,7 +166,7 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   for (std::size_t t = 0; t < tools.size(); ++t) {
     svg += "<rect x=\"" + num(lx) + "\" y=\"" + num(ly - 9) +
            "\" width=\"14\" height=\"10\" fill=\"" + kColours[t % kColours.size()] +
-           "\"/><text x=\"" + num(lx + 20) + "\" y=\"" + num(ly) + "\">" + escape(tools[t]) +
+           "\"/><text x=\"" + num(lx + 20) + "\" y=\"" + num(ly) + "\">" + html_escape(tools[t]) +
            "</text>\n";
     ly += 18;
   }
@@ -211,7 +189,7 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
     svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) +
            "\" font-weight=\"bold\">ringed: best</text>\n";
     ly += 18;
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">" + escape(b.tool) + " at " +
+    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">" + html_escape(b.tool) + " at " +
            format_number(b.stepover_mm / unit) + (o.inch ? " in" : " mm") + "</text>\n";
     ly += 18;
     svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">cost " + num(b.cost, 2) + "</text>\n";

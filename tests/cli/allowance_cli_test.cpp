@@ -145,10 +145,26 @@ TEST_CASE("cuspmap allowance: a heightmap of the ideal cusp gives the closed-for
   REQUIRE_NEAR(doc["area_mm2"].get<double>(), hf.nx * hf.ny * hf.cell_mm * hf.cell_mm, 1e-9);
 }
 
+TEST_CASE("cuspmap allowance: a job file is simulated and agrees with its report", "[cli]") {
+  // The invented pump-cover example: simulating it here, or reading the report `simulate`
+  // writes, must give the same marks (same pipeline, same numbers).
+  const std::string job = test::source_path("examples/pump_cover_ball.toml");
+  const nlohmann::json direct = json_of(run_cuspmap({"allowance", job, "--json"}));
+  test::TempDir dir;
+  const test::RunResult sim = run_cuspmap({"simulate", job, "--out", dir.path()});
+  REQUIRE(sim.exit_code == 0);
+  const nlohmann::json via = json_of(run_cuspmap({"allowance", dir.file("report.json"), "--json"}));
+  REQUIRE(direct["input"]["kind"] == "job");
+  REQUIRE_NEAR(direct["depth_to_clear_um"].get<double>(), via["depth_to_clear_um"].get<double>(),
+               1e-6);
+  REQUIRE_NEAR(direct["mean_removal_um"].get<double>(), via["mean_removal_um"].get<double>(), 1e-6);
+  REQUIRE_NEAR(direct["area_mm2"].get<double>(), 100.0, 1e-9);  // the job's 10 x 10 mm patch
+}
+
 TEST_CASE("cuspmap allowance: bad input exits 2 with one line", "[cli]") {
   require_error({"allowance"},
-                "allowance needs a simulate report.json, a heightmap file or --stepover with the "
-                "tool flags (--tool, --diameter)");
+                "allowance needs a job.toml, a simulate report.json, a heightmap file or "
+                "--stepover with the tool flags (--tool, --diameter)");
   require_error({"allowance", "--diameter", "6", "--stepover", "7"},
                 "--stepover 7 mm: must be > 0 and <= the tool diameter 6 mm");
   require_error({"allowance", "--tool", "cone", "--diameter", "6", "--stepover", "1"},

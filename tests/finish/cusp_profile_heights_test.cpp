@@ -7,6 +7,8 @@
 #include <functional>
 #include <numbers>
 
+#include "cusp/cusp_profile_stats.h"
+#include "cusp/scallop_bullnose.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -156,6 +158,25 @@ TEST_CASE("cusp_profile_heights: flat end without tilt leaves no cross-feed cusp
   REQUIRE(got.sv_um == 0.0);
   REQUIRE(got.ra_um == 0.0);
   REQUIRE(cusp_profile(flat).kind == CuspProfileKind::Level);
+}
+
+TEST_CASE("cusp_profile_heights: agrees with cusp/ (scallop and ideal-profile Ra)", "[finish]") {
+  // cusp/ computes the same profile another way (graded Gauss-Legendre over the arcs):
+  // arc_cusp_stats(rho, half chord, flat width) and the bull-nose scallop formula.
+  const double big_r = 5.0, rc = 1.5;
+  Cutter bull = make(CutterShape::BullNose, 2.0 * big_r, rc);
+  for (const double s : {7.5, 8.5, 9.5}) {
+    CAPTURE(s);
+    const SurfaceHeights got = cusp_profile_heights(bull, s);
+    const double w = big_r - rc;
+    const ProfileStats ref = arc_cusp_stats(rc, 0.5 * s - w, 2.0 * w);
+    REQUIRE_NEAR(got.sz_um, scallop_bullnose_mm(big_r, rc, s) * 1000.0, 1e-9);
+    REQUIRE_NEAR(got.sz_um, ref.rz_um, 1e-9);
+    REQUIRE_NEAR(got.ra_um, ref.ra_um, 1e-9 * ref.rz_um + 1e-12);
+  }
+  const SurfaceHeights ball = cusp_profile_heights(make(CutterShape::Ball, 6.0), 0.8);
+  const ProfileStats ref = arc_cusp_stats(3.0, 0.4, 0.0);
+  REQUIRE_NEAR(ball.ra_um, ref.ra_um, 1e-9 * ref.rz_um);
 }
 
 }  // namespace cuspmap
