@@ -5,6 +5,7 @@
 
 #include <unistd.h>
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <string>
@@ -26,15 +27,22 @@ std::string format_bytes(double bytes) {
   return format_number(std::round(bytes * 10.0) / 10.0) + " " + units[u];
 }
 
+// Cells along one side. Counts beyond kMaxCellsPerSide (far past any memory) saturate there, so
+// the conversion to an integer never overflows whatever size/cell a file holds.
+std::int64_t cells_along(double size_mm, double cell_mm) {
+  // A tiny relative slack so that 10 mm / 0.01 mm is exactly 1000 cells, not 1001.
+  constexpr double kSlack = 1e-9;
+  constexpr double kMaxCellsPerSide = 1e15;
+  const double n = std::ceil(size_mm / cell_mm - kSlack);
+  if (!(n >= 1.0)) return 1;  // also NaN (an unvalidated patch): one cell
+  return static_cast<std::int64_t>(std::min(n, kMaxCellsPerSide));
+}
+
 }  // namespace
 
 void grid_dimensions(const Patch& patch, std::int64_t& nx, std::int64_t& ny) {
-  // A tiny relative slack so that 10 mm / 0.01 mm is exactly 1000 cells, not 1001.
-  constexpr double kSlack = 1e-9;
-  nx = static_cast<std::int64_t>(std::ceil(patch.size_x_mm / patch.cell_mm - kSlack));
-  ny = static_cast<std::int64_t>(std::ceil(patch.size_y_mm / patch.cell_mm - kSlack));
-  if (nx < 1) nx = 1;
-  if (ny < 1) ny = 1;
+  nx = cells_along(patch.size_x_mm, patch.cell_mm);
+  ny = cells_along(patch.size_y_mm, patch.cell_mm);
 }
 
 std::int64_t heightfield_bytes(const Patch& patch) {
@@ -60,10 +68,11 @@ Heightfield make_heightfield(const Patch& patch, std::int64_t max_memory_bytes) 
   const std::int64_t bytes = heightfield_bytes(patch);
   if (nx > std::numeric_limits<int>::max() || ny > std::numeric_limits<int>::max() ||
       (limit > 0 && bytes > limit)) {
-    throw InputError("grid of " + std::to_string(nx) + " x " + std::to_string(ny) +
-                     " cells needs " + format_bytes(static_cast<double>(bytes)) +
-                     ", over the memory limit of " + format_bytes(static_cast<double>(limit)) +
-                     "; use a larger cell, a smaller patch or --max-memory");
+    throw InputError(
+        "grid of " + std::to_string(nx) + " x " + std::to_string(ny) + " cells needs " +
+        format_bytes(static_cast<double>(nx) * static_cast<double>(ny) * sizeof(float)) +
+        ", over the memory limit of " + format_bytes(static_cast<double>(limit)) +
+        "; use a larger cell, a smaller patch or --max-memory");
   }
   Heightfield hf;
   hf.nx = static_cast<int>(nx);

@@ -20,6 +20,18 @@ std::string_view trim(std::string_view s) {
   return s;
 }
 
+// A magnitude a double cannot hold (before or after the unit factor), e.g. "1e400" or "1e308in".
+InputError out_of_range(std::string_view text, std::string_view what) {
+  return InputError(std::string(what) + " '" + std::string(text) + "': out of range");
+}
+
+// value * factor, refusing a product that overflows to infinity.
+double scaled(double value, double factor, std::string_view text, std::string_view what) {
+  const double out = value * factor;
+  if (!std::isfinite(out)) throw out_of_range(text, what);
+  return out;
+}
+
 // Splits "12.5mm" into the number 12.5 and the suffix "mm"; throws on a malformed number.
 std::pair<double, std::string_view> split_number(std::string_view text, std::string_view what) {
   const std::string_view s = trim(text);
@@ -30,6 +42,7 @@ std::pair<double, std::string_view> split_number(std::string_view text, std::str
   if (*first == '+') ++first;  // from_chars rejects a leading '+', people type it
   double value = 0.0;
   const auto [ptr, ec] = std::from_chars(first, s.data() + s.size(), value);
+  if (ec == std::errc::result_out_of_range) throw out_of_range(text, what);
   if (ec != std::errc() || ptr == first) {
     throw InputError(std::string(what) + " '" + std::string(text) + "': not a number");
   }
@@ -64,10 +77,10 @@ double parse_length_mm(std::string_view text, LengthUnit bare_unit, std::string_
       {"uin", kMmPerInch * 1e-6},
   }};
   if (suffix.empty()) {
-    return bare_unit == LengthUnit::Inch ? value * kMmPerInch : value;
+    return scaled(value, bare_unit == LengthUnit::Inch ? kMmPerInch : 1.0, text, what);
   }
   for (const Factor& f : kFactors) {
-    if (suffix == f.suffix) return value * f.mm_per_unit;
+    if (suffix == f.suffix) return scaled(value, f.mm_per_unit, text, what);
   }
   throw InputError(std::string(what) + " '" + std::string(text) +
                    "': unknown unit; allowed suffixes are mm, um, in, thou, uin");

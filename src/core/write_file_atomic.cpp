@@ -21,15 +21,21 @@ namespace {
 // Temp names in flight, kept in fixed storage so a signal handler can read them safely.
 constexpr int kMaxInFlight = 64;
 constexpr int kMaxPath = 4096;
+// Slot states: a slot is claimed, its name written, and only then published as ready, so the
+// signal handler never unlinks a half-written (or stale) name.
+constexpr int kFree = 0, kClaimed = 1, kReady = 2;
 std::array<std::array<char, kMaxPath>, kMaxInFlight> g_temp_names{};
-std::array<std::atomic<bool>, kMaxInFlight> g_temp_used{};
+std::array<std::atomic<int>, kMaxInFlight> g_temp_state{};
 std::atomic<unsigned> g_counter{0};
 
 int register_temp(const std::string& name) {
+  // A truncated name could be some other file: such a temp is written but not signal-cleaned.
+  if (name.size() >= static_cast<size_t>(kMaxPath)) return -1;
   for (int k = 0; k < kMaxInFlight; ++k) {
-    bool expected = false;
-    if (g_temp_used[k].compare_exchange_strong(expected, true)) {
+    int expected = kFree;
+    if (g_temp_state[k].compare_exchange_strong(expected, kClaimed)) {
       std::snprintf(g_temp_names[k].data(), kMaxPath, "%s", name.c_str());
+      g_temp_state[k].store(kReady);
       return k;
     }
   }
@@ -37,12 +43,12 @@ int register_temp(const std::string& name) {
 }
 
 void unregister_temp(int slot) {
-  if (slot >= 0) g_temp_used[slot].store(false);
+  if (slot >= 0) g_temp_state[slot].store(kFree);
 }
 
 extern "C" void cleanup_and_reraise(int sig) {
   for (int k = 0; k < kMaxInFlight; ++k) {
-    if (g_temp_used[k].load()) unlink(g_temp_names[k].data());
+    if (g_temp_state[k].load() == kReady) unlink(g_temp_names[k].data());
   }
   std::signal(sig, SIG_DFL);
   std::raise(sig);

@@ -2,10 +2,11 @@
 // units (bare numbers in `units`, strings with suffixes), defaults and range checks.
 // Inputs: job text (TOML); output: Job in mm/deg/mm-per-min. Method: DESIGN.md "Job file".
 #include <algorithm>
+#include <array>
+#include <cmath>
 #include <filesystem>
 #include <fstream>
 #include <map>
-#include <sstream>
 
 #include "core/input_error.h"
 #include "job/job.h"
@@ -209,6 +210,48 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
   applies("file", false, "gcode only");
 }
 
+// Geometry the sweep would compute silently wrong: passes that leave uncut strips between them,
+// passes finer than the grid can resolve, a boundary that encloses nothing.
+void check_path_geometry(const toml::table& t, const TomlFields& f, const Job& job) {
+  const PathSpec& p = job.path;
+  if (p.kind == PathKind::Gcode) return;
+  const double diameter_mm = job.cutter.diameter_mm;
+  // Trochoidal lanes are as wide as the loop plus the tool (loop 0 = half the tool diameter).
+  const double loop_mm = p.loop_diameter_mm > 0 ? p.loop_diameter_mm : 0.5 * diameter_mm;
+  const double width_mm = p.kind == PathKind::Trochoidal ? diameter_mm + loop_mm : diameter_mm;
+  if (p.stepover_mm >= width_mm) {
+    f.fail(*t.get("stepover"), "path", "stepover",
+           format_number(p.stepover_mm) + " mm: must be smaller than the cut width " +
+               format_number(width_mm) + " mm so that neighbouring passes overlap");
+  }
+  if (!job.patch_from_program && p.stepover_mm < job.patch.cell_mm) {
+    f.fail(*t.get("stepover"), "path", "stepover",
+           format_number(p.stepover_mm) + " mm: must be at least patch.cell " +
+               format_number(job.patch.cell_mm) + " mm; the grid cannot resolve finer passes");
+  }
+  // Trochoidal loops advancing by less than a cell add moves (a 10 mm lane at 1 nm per loop would
+  // be 1e7 loops) without any detail the grid can show.
+  if (p.kind == PathKind::Trochoidal && p.advance_mm > 0 && !job.patch_from_program &&
+      p.advance_mm < job.patch.cell_mm) {
+    f.fail(*t.get("advance"), "path", "advance",
+           format_number(p.advance_mm) + " mm: must be 0 (automatic) or at least patch.cell " +
+               format_number(job.patch.cell_mm) + " mm");
+  }
+  if (!p.boundary_mm.empty()) {
+    double twice_area = 0.0;  // shoelace formula
+    for (size_t k = 0; k < p.boundary_mm.size(); ++k) {
+      const Eigen::Vector2d& a = p.boundary_mm[k];
+      const Eigen::Vector2d& b = p.boundary_mm[(k + 1) % p.boundary_mm.size()];
+      twice_area += a.x() * b.y() - b.x() * a.y();
+    }
+    // Less than one cell of area cannot be simulated (and 0 means collinear points).
+    if (!(std::abs(0.5 * twice_area) >= job.patch.cell_mm * job.patch.cell_mm)) {
+      f.fail(*t.get("boundary"), "path", "boundary",
+             "encloses no area: needs at least 3 points that are not on one line");
+    }
+  }
+}
+
 }  // namespace
 
 Job parse_job(std::string_view text, const std::string& source_name, const std::string& base_dir) {
@@ -232,7 +275,8 @@ Job parse_job(std::string_view text, const std::string& source_name, const std::
     if (auto n = plain.choice(root, "", "name", {})) job.name = *n;
   }
   const TomlFields f(source_name, job.units);
-  read_path(sub_table(root, "path", f, true), f, job, base_dir);
+  const toml::table& path_table = sub_table(root, "path", f, true);
+  read_path(path_table, f, job, base_dir);
   read_patch(sub_table(root, "patch", f, true), f, job);
   read_tool(sub_table(root, "tool", f, true), f, job);
   read_cut(sub_table(root, "cut", f, true), f, job);
@@ -250,22 +294,29 @@ Job parse_job(std::string_view text, const std::string& source_name, const std::
   } catch (const InputError& e) {
     throw InputError(source_name + ": " + e.what());
   }
+  check_path_geometry(path_table, f, job);
   return job;
 }
 
 Job load_job(const std::string& path) {
+  std::error_code ec;
+  if (std::filesystem::is_directory(path, ec)) {
+    throw InputError(path + ": is a folder; expected a job file (.toml)");
+  }
   std::ifstream in(path, std::ios::binary);
   if (!in) throw InputError(path + ": cannot read the job file");
-  // Job files are a few kB; refuse anything absurd instead of reading it all into memory.
-  constexpr std::streamoff kMaxJobBytes = 1 << 20;
-  in.seekg(0, std::ios::end);
-  const std::streamoff size = in.tellg();
-  if (size > kMaxJobBytes) throw InputError(path + ": job file larger than 1 MiB");
-  in.seekg(0);
-  std::ostringstream text;
-  text << in.rdbuf();
+  // Job files are a few kB; refuse anything absurd instead of reading it all into memory. Read in
+  // bounded chunks rather than trusting the reported size: a pipe or a device (/dev/zero) has none.
+  constexpr std::size_t kMaxJobBytes = std::size_t{1} << 20;
+  std::string text;
+  std::array<char, 65536> chunk{};
+  while (in.read(chunk.data(), chunk.size()) || in.gcount() > 0) {
+    text.append(chunk.data(), static_cast<std::size_t>(in.gcount()));
+    if (text.size() > kMaxJobBytes) throw InputError(path + ": job file larger than 1 MiB");
+  }
+  if (in.bad()) throw InputError(path + ": cannot read the job file");
   const std::string base = std::filesystem::path(path).parent_path().string();
-  return parse_job(text.str(), path, base.empty() ? "." : base);
+  return parse_job(text, path, base.empty() ? "." : base);
 }
 
 }  // namespace cuspmap

@@ -30,14 +30,16 @@ void TomlFields::fail(const toml::node& node, std::string_view table_name, std::
 
 double TomlFields::to_length_mm(const toml::node& node, std::string_view table_name,
                                 std::string_view key) const {
+  const double factor = units_ == LengthUnit::Inch ? kMmPerInch : 1.0;
   if (const auto* v = node.as_floating_point()) {
     if (!std::isfinite(v->get())) fail(node, table_name, key, "must be a finite number");
-    return units_ == LengthUnit::Inch ? v->get() * kMmPerInch : v->get();
+    // A huge inch value overflows to infinity once converted to mm.
+    if (!std::isfinite(v->get() * factor)) {
+      fail(node, table_name, key, format_number(v->get()) + ": out of range");
+    }
+    return v->get() * factor;
   }
-  if (const auto* v = node.as_integer()) {
-    const double x = static_cast<double>(v->get());
-    return units_ == LengthUnit::Inch ? x * kMmPerInch : x;
-  }
+  if (const auto* v = node.as_integer()) return static_cast<double>(v->get()) * factor;
   if (const auto* v = node.as_string()) {
     try {
       return parse_length_mm(v->get(), units_, full_name(table_name, key));

@@ -21,8 +21,8 @@ enum class NameStyle {
 /// per-tooth axial offsets not one per tooth, any NaN/inf (tilt direction and runout phase too).
 void validate_cutter(const Cutter& cutter, NameStyle style);
 
-/// Throws InputError when a patch size or cell is <= 0 or not finite, or the cell is larger than
-/// the patch.
+/// Throws InputError when a patch size or cell is <= 0 or not finite, the cell is larger than
+/// the patch, or a size, origin or floor_z lies beyond +-1e6 mm (1 km).
 void validate_patch(const Patch& patch, NameStyle style);
 
 /// The message name of a value: key_flag ("corner-radius") for flags -> "--corner-radius",
