@@ -2,21 +2,17 @@
 // unless --own-patch), then writes montage.png, compare.json, compare.csv, each job's pictures
 // and an optional HTML page; prints the table with the best value per column marked.
 // cli/ holds no computation: flags -> job/ (vary_job, run_job) -> io/compare_report -> OutputDir.
-#include <cmath>
 #include <cstdio>
-#include <limits>
 #include <memory>
 #include <string>
 
 #include "cli/command.h"
+#include "cli/comparison_run.h"
 #include "cli/output_dir.h"
-#include "cli/progress_bar.h"
 #include "cli/sim_flags.h"
 #include "cli/texture_flags.h"
 #include "core/input_error.h"
-#include "core/write_file_atomic.h"
 #include "io/compare_report.h"
-#include "io/png.h"
 #include "job/vary_job.h"
 
 namespace cuspmap {
@@ -82,41 +78,10 @@ void run_compare(const CompareOptions& o) {
   ropt.threads = o.sim.threads;
   if (!o.sim.max_memory.empty()) ropt.max_memory_bytes = parse_bytes(o.sim.max_memory, "--max-memory");
   ropt.texture = texture_options(o.texture, units);
-  std::optional<HeightRange> range = parse_height_range(o.sim.range, units);
+  const std::optional<HeightRange> range = parse_height_range(o.sim.range, units);
   OutputDir dir(o.out);
-  std::vector<CompareRow> rows;
-  {
-    ProgressBar bar("simulate");
-    for (size_t k = 0; k < jobs.size(); ++k) {
-      ropt.progress = [&bar, k, n = jobs.size()](double f) { bar.update((k + f) / n); };
-      rows.push_back({jobs[k], run_job(jobs[k], ropt), {}});
-      print_stage(o.common.verbose, "sweep", rows.back().run.sweep_s);
-    }
-  }
-  // One height scale for every height.png, unless the user fixed it.
-  if (!range) {
-    HeightRange shared{std::numeric_limits<double>::infinity(),
-                       -std::numeric_limits<double>::infinity()};
-    for (const CompareRow& r : rows) {
-      shared.lo_um = std::min(shared.lo_um, r.run.min_height_um);
-      shared.hi_um = std::max(shared.hi_um, r.run.max_scallop_um);
-    }
-    if (shared.hi_um > shared.lo_um) range = shared;
-  }
-  for (size_t k = 0; k < rows.size(); ++k) {
-    rows[k].pictures = render_simulation_pictures(rows[k].run, units, range);
-    const std::string stem = std::to_string(k + 1) + "_" + safe_file_stem(rows[k].job.name);
-    dir.write(stem + "_height.png", rows[k].pictures.height_png);
-    dir.write(stem + "_shaded.png", rows[k].pictures.shaded_png);
-  }
-  const std::string montage = encode_png(compare_montage(rows, units));
-  dir.write("montage.png", montage);
-  const nlohmann::json doc = compare_json(rows);
-  dir.write("compare.csv", compare_csv(rows));
-  dir.write("compare.json", doc.dump(2) + "\n");
-  if (!o.report_html.empty()) {
-    write_file_atomic(o.report_html, render_html_report(compare_html_report(rows, montage, units)));
-  }
+  const std::vector<CompareRow> rows = run_comparison(jobs, ropt, range, units, o.common.verbose);
+  const nlohmann::json doc = write_comparison(dir, rows, units, o.report_html);
   if (o.common.json) {
     print_json(doc);
     return;

@@ -1,12 +1,411 @@
-// `cuspmap plan`: not built yet; refuses with exit 2 until its issue lands.
+// `cuspmap plan`: sweep the stepover (and optionally the tool) of a finishing raster over a floor,
+// price machine time against bench (sanding) time at the user's hourly rates, mark the cheapest
+// option that meets the spec; table or --json on stdout, plan.json/plan.csv/plan.svg with --out.
+#include <algorithm>
+#include <cstdio>
+#include <memory>
+
 #include "cli/command.h"
+#include "cli/finish_flags.h"
+#include "cli/output_dir.h"
 #include "core/input_error.h"
+#include "core/stage_timer.h"
+#include "finish/finishing_cautions.h"
+#include "finish/plan_stepover.h"
+#include "finish/simulated_cusp_heights.h"
+#include "io/html_report.h"
+#include "io/plan_csv.h"
+#include "io/plan_svg.h"
+#include "job/job.h"
 
 namespace cuspmap {
+namespace {
+
+struct PlanOptions {
+  CommonOptions common;
+  ToolFlags tool;
+  GritFlags grits;
+  std::string tools;              // --tools ball:6,flat:12.7 (else the single-tool flags)
+  std::string stepovers;          // --stepovers 0.1,0.2mm,... (else the default range per tool)
+  std::string size;               // --size 120x80
+  std::string feed;               // --feed, length per minute
+  std::string rapid = "10000mm";  // --rapid, length per minute (CutSpec's default rapid rate)
+  std::string retract = "2mm";    // --retract
+  std::string direction = "one-way";
+  double pass_overhead_s = kDefaultPassOverheadS;
+  std::string machine_rate;    // per hour
+  std::string bench_rate;      // per hour
+  std::string target_ra;       // height
+  std::string target_scallop;  // height
+  std::string tolerance;       // length (+-)
+  std::string sand = "when-needed";
+  std::string out;        // --out DIR
+  bool simulate = false;  // --simulate: surfaces from a simulated window, not the closed form
+};
+
+// Splits "a,b,c" (also "a x b" for sizes) into trimmed non-empty items.
+std::vector<std::string> split(std::string_view text, char sep) {
+  std::vector<std::string> items;
+  std::size_t start = 0;
+  while (start <= text.size()) {
+    const std::size_t end = std::min(text.find(sep, start), text.size());
+    std::string_view item = text.substr(start, end - start);
+    while (!item.empty() && item.front() == ' ') item.remove_prefix(1);
+    while (!item.empty() && item.back() == ' ') item.remove_suffix(1);
+    if (!item.empty()) items.emplace_back(item);
+    start = end + 1;
+  }
+  return items;
+}
+
+// A height (Ra or cusp target): a length like every other, bare numbers in --units (as
+// `stepover` reads them), so "0.8um" or "32uin" is the usual way to write it.
+double parse_height_um(const std::string& text, LengthUnit units, const char* what) {
+  const double um = parse_length_mm(text, units, what) * kUmPerMm;
+  if (!(um > 0.0))
+    throw InputError(std::string(what) + " " + format_number(um) + " um: must be > 0");
+  return um;
+}
+
+double parse_rate(const std::string& text, const char* what) {
+  if (text.empty()) {
+    throw InputError(std::string(what) + " is missing: give the cost of one hour (any currency)");
+  }
+  const double v = parse_number(text, what);
+  if (v < 0.0) throw InputError(std::string(what) + " " + text + ": must be >= 0 per hour");
+  return v;
+}
+
+double parse_positive_length(const std::string& text, LengthUnit units, const char* what,
+                             const char* allowed) {
+  std::string t = text;
+  if (t.size() > 4 && t.substr(t.size() - 4) == "/min") t.resize(t.size() - 4);
+  const double mm = parse_length_mm(t, units, what);
+  if (!(mm > 0.0)) throw InputError(std::string(what) + " " + text + ": " + allowed);
+  return mm;
+}
+
+std::vector<PlanTool> tools_from_flags(const PlanOptions& o, LengthUnit units) {
+  std::vector<PlanTool> tools;
+  if (o.tools.empty()) {
+    const Cutter c = tool_from_flags(o.tool, units);
+    tools.push_back({describe_tool(c, units), c, {}});
+  } else {
+    for (const std::string& item : split(o.tools, ',')) {
+      const std::vector<std::string> f = split(item, ':');
+      ToolFlags t = o.tool;
+      if (f.size() < 2 || f.size() > 3) {
+        throw InputError("--tools " + item +
+                         ": expected shape:diameter or bullnose:diameter:corner "
+                         "(e.g. ball:6mm,flat:0.5in,bullnose:10:1)");
+      }
+      t.tool = f[0];
+      t.diameter = f[1];
+      t.corner_radius = f.size() == 3 ? f[2] : "";
+      const Cutter c = tool_from_flags(t, units);
+      tools.push_back({describe_tool(c, units), c, {}});
+    }
+  }
+  if (!o.stepovers.empty()) {
+    std::vector<double> all;
+    for (const std::string& s : split(o.stepovers, ',')) {
+      all.push_back(parse_positive_length(s, units, "--stepovers", "must be > 0"));
+    }
+    for (PlanTool& t : tools) {
+      for (const double s : all) {
+        if (s <= t.cutter.diameter_mm) t.stepovers_mm.push_back(s);
+      }
+      if (t.stepovers_mm.empty()) {
+        throw InputError("--stepovers " + o.stepovers + ": none is <= the diameter of the " +
+                         t.label);
+      }
+    }
+  }
+  return tools;
+}
+
+PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
+  PlanRequest r;
+  r.tools = tools_from_flags(o, units);
+  if (o.size.empty()) throw InputError("--size is missing: give the floor size, e.g. 120x80");
+  std::vector<std::string> xy = split(o.size, o.size.find('x') != std::string::npos ? 'x' : ',');
+  if (xy.size() != 2) throw InputError("--size " + o.size + ": expected two lengths, e.g. 120x80");
+  r.patch.size_x_mm = parse_positive_length(xy[0], units, "--size", "must be > 0");
+  r.patch.size_y_mm = parse_positive_length(xy[1], units, "--size", "must be > 0");
+  if (o.feed.empty())
+    throw InputError("--feed is missing: give the cutting feed, e.g. 1500 (mm/min)");
+  r.cut.feed_mm_per_min = parse_positive_length(o.feed, units, "--feed", "must be > 0 per minute");
+  r.cut.rapid_mm_per_min =
+      parse_positive_length(o.rapid, units, "--rapid", "must be > 0 per minute");
+  r.cut.retract_mm = parse_positive_length(o.retract, units, "--retract", "must be > 0");
+  if (o.direction == "one-way") {
+    r.direction = RasterDirection::OneWay;
+  } else if (o.direction == "zigzag") {
+    r.direction = RasterDirection::Zigzag;
+  } else {
+    throw InputError("--direction " + o.direction + ": must be one-way or zigzag");
+  }
+  if (!(o.pass_overhead_s >= 0.0)) {
+    throw InputError("--pass-overhead " + format_number(o.pass_overhead_s) + ": must be >= 0 s");
+  }
+  r.pass_overhead_s = o.pass_overhead_s;
+  PlanSpec& spec = r.spec;
+  spec.machine_rate_per_hour = parse_rate(o.machine_rate, "--machine-rate");
+  spec.bench_rate_per_hour = parse_rate(o.bench_rate, "--bench-rate");
+  if (!o.target_ra.empty()) spec.target_ra_um = parse_height_um(o.target_ra, units, "--target-ra");
+  if (!o.target_scallop.empty()) {
+    spec.target_scallop_um = parse_height_um(o.target_scallop, units, "--target-scallop");
+  }
+  if (o.sand == "when-needed") {
+    spec.sanding = SandingMode::WhenNeeded;
+  } else if (o.sand == "always") {
+    spec.sanding = SandingMode::Always;
+  } else {
+    throw InputError("--sand " + o.sand + ": must be when-needed or always");
+  }
+  if (!spec.target_ra_um && !spec.target_scallop_um && spec.sanding == SandingMode::WhenNeeded) {
+    throw InputError(
+        "plan needs a finish spec: --target-ra or --target-scallop (or --sand always)");
+  }
+  if (!o.tolerance.empty()) {
+    spec.tolerance_um =
+        parse_positive_length(o.tolerance, units, "--tolerance", "must be > 0 (the +- band)") *
+        kUmPerMm;
+  }
+  const GritChoice g = grit_choice_from_flags(o.grits);
+  spec.grit_table = g.table;
+  spec.grits = g.sequence;
+  if (!o.simulate) {
+    for (const PlanTool& t : r.tools) require_tilt_along_feed(t.cutter, "add --simulate");
+  } else {
+    const RasterDirection direction = r.direction;
+    r.simulate = [direction](const Cutter& cutter, double stepover_mm) {
+      return simulated_cusp_heights(cutter, stepover_mm, direction);
+    };
+  }
+  return r;
+}
+
+// A plan leads to both the machine and the bench: the report cautions (rotating tools,
+// workholding, combustible dust, codes) plus the sanding dust line.
+std::vector<std::string> plan_cautions() {
+  std::vector<std::string> cautions = standard_cautions();
+  cautions.emplace_back(kSandingDustCaution);
+  return cautions;
+}
+
+constexpr const char* kClosedFormBasis =
+    "closed-form cusp profile (a flat end mill's cusp comes from its tilt, taken along the feed; "
+    "none without tilt)";
+constexpr const char* kSimulatedBasis =
+    "simulated window per option (revolving envelope, whole periods, plane removed, ISO 25178-2 "
+    "Sz/Sv/Sp/Sa; Ra taken as Sa)";
+
+nlohmann::json option_json(const PlanOption& p) {
+  nlohmann::json j = {
+      {"tool", p.tool},
+      {"diameter_mm", p.cutter.diameter_mm},
+      {"stepover_mm", p.stepover_mm},
+      {"passes", p.machine.passes},
+      {"path_length_mm", p.machine.path_length_mm},
+      {"cycle_time_s", p.machine.cycle_time_s},
+      {"overhead_s", p.machine.overhead_s},
+      {"machine_time_s", p.machine.machine_time_s},
+      {"scallop_um", p.surface.sz_um},
+      {"sv_um", p.surface.sv_um},
+      {"ra_um", p.surface.ra_um},
+      {"simulated", p.simulated},
+      {"sanded", p.sanded},
+      {"bench_time_s", p.bench_time_s},
+      {"removed_volume_mm3", p.removed_volume_mm3},
+      {"final_ra_um", p.final_ra_um},
+      {"final_peak_to_valley_um", p.final_peak_to_valley_um},
+      {"machine_cost", p.machine_cost},
+      {"bench_cost", p.bench_cost},
+      {"cost", p.cost},
+      {"meets_spec", p.meets_spec},
+      {"reason", p.reason},
+  };
+  j["grits"] = p.allowance ? grits_json(p.allowance->grits) : nlohmann::json::array();
+  return j;
+}
+
+std::string best_message(const PlanResult& plan, LengthUnit u) {
+  if (!plan.best) {
+    return "no option meets the spec: loosen the target or tolerance, add finer grades, or try "
+           "other tools and stepovers";
+  }
+  const PlanOption& b = plan.options[*plan.best];
+  const std::string step = u == LengthUnit::Inch ? format_number(b.stepover_mm / kMmPerInch) + " in"
+                                                 : format_number(b.stepover_mm) + " mm";
+  return "best: " + b.tool + " at " + step + ", cost " + fixed(b.cost, 2) + " (machine " +
+         fixed(b.machine_cost, 2) + " + bench " + fixed(b.bench_cost, 2) + "); " + b.reason;
+}
+
+nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
+  nlohmann::json options = nlohmann::json::array();
+  for (const PlanOption& p : plan.options) options.push_back(option_json(p));
+  nlohmann::json spec = {
+      {"sanding", r.spec.sanding == SandingMode::Always ? "always" : "when-needed"},
+      {"grits", r.spec.grits}};
+  spec["target_ra_um"] =
+      r.spec.target_ra_um ? nlohmann::json(*r.spec.target_ra_um) : nlohmann::json();
+  spec["target_scallop_um"] =
+      r.spec.target_scallop_um ? nlohmann::json(*r.spec.target_scallop_um) : nlohmann::json();
+  spec["tolerance_um"] =
+      r.spec.tolerance_um ? nlohmann::json(*r.spec.tolerance_um) : nlohmann::json();
+  std::vector<std::string> cautions = plan_cautions();
+  nlohmann::json doc = {
+      {"options", options},
+      {"message", best_message(plan, u)},
+      {"size_mm", {r.patch.size_x_mm, r.patch.size_y_mm}},
+      {"area_mm2", r.patch.size_x_mm * r.patch.size_y_mm},
+      {"feed_mm_per_min", r.cut.feed_mm_per_min},
+      {"rapid_mm_per_min", r.cut.rapid_mm_per_min},
+      {"direction", r.direction == RasterDirection::OneWay ? "one-way" : "zigzag"},
+      {"pass_overhead_s", r.pass_overhead_s},
+      {"machine_rate_per_hour", r.spec.machine_rate_per_hour},
+      {"bench_rate_per_hour", r.spec.bench_rate_per_hour},
+      {"spec", spec},
+      {"basis",
+       {{"machine",
+         "raster path built over the floor: moves at their feed, rapids at the "
+         "rapid rate, plus the per-pass overhead"},
+        {"surface", r.simulate ? kSimulatedBasis : kClosedFormBasis},
+        {"bench", "sanding time of the grit sequence (docs/finishing.md)"},
+        {"grit_table", r.spec.grit_table.source}}},
+      {"cautions", cautions},
+  };
+  doc["best"] = plan.best ? nlohmann::json(*plan.best) : nlohmann::json();
+  return doc;
+}
+
+void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
+  const double unit = u == LengthUnit::Inch ? kMmPerInch : 1.0;
+  const char* lu = u == LengthUnit::Inch ? "in" : "mm";
+  std::printf(
+      "Stepover plan: %s x %s %s floor, %s raster, feed %s %s/min; rates per hour: "
+      "machine %s, bench %s\n",
+      format_number(r.patch.size_x_mm / unit).c_str(),
+      format_number(r.patch.size_y_mm / unit).c_str(), lu,
+      r.direction == RasterDirection::OneWay ? "one-way" : "zigzag",
+      format_number(r.cut.feed_mm_per_min / unit).c_str(), lu,
+      format_number(r.spec.machine_rate_per_hour).c_str(),
+      format_number(r.spec.bench_rate_per_hour).c_str());
+  std::string spec;
+  if (r.spec.target_ra_um) spec += "Ra <= " + height_text(*r.spec.target_ra_um, u);
+  if (r.spec.target_scallop_um) {
+    spec += (spec.empty() ? "" : ", ") + std::string("peak-to-valley <= ") +
+            height_text(*r.spec.target_scallop_um, u);
+  }
+  if (r.spec.tolerance_um)
+    spec += (spec.empty() ? "" : ", ") + std::string("tolerance +-") +
+            height_text(*r.spec.tolerance_um, u);
+  std::string grits;
+  for (const std::string& g : r.spec.grits) grits += (grits.empty() ? "" : " > ") + g;
+  std::printf("Spec: %s; sanding %s with %s\n\n", spec.empty() ? "none" : spec.c_str(),
+              r.spec.sanding == SandingMode::Always ? "always" : "when needed", grits.c_str());
+  int tool_w = 4;
+  for (const PlanOption& p : plan.options)
+    tool_w = std::max(tool_w, static_cast<int>(p.tool.size()));
+  std::printf("  %-*s %11s %7s %9s %10s %10s %13s %9s %10s %10s  %s\n", tool_w, "tool", "stepover",
+              "passes", "machine", "cusp", "Ra", "sanding", "bench", "final Ra", "cost", "spec");
+  std::vector<std::string> misses;
+  for (std::size_t k = 0; k < plan.options.size(); ++k) {
+    const PlanOption& p = plan.options[k];
+    const bool best = plan.best && *plan.best == k;
+    std::string sanding = "-";
+    if (p.sanded) {
+      const auto& steps = p.allowance->grits.steps;
+      sanding = steps.front().grit + (steps.size() > 1 ? "-" + steps.back().grit : "");
+    }
+    const std::string step = fixed(p.stepover_mm / unit, u == LengthUnit::Inch ? 4 : 3) + " " + lu;
+    std::printf("%s %-*s %11s %7d %9s %10s %10s %13s %9s %10s %10s  %s\n", best ? "*" : " ", tool_w,
+                p.tool.c_str(), step.c_str(), p.machine.passes,
+                duration_text(p.machine.machine_time_s).c_str(),
+                height_text(p.surface.sz_um, u).c_str(), height_text(p.surface.ra_um, u).c_str(),
+                sanding.c_str(), p.sanded ? duration_text(p.bench_time_s).c_str() : "-",
+                height_text(p.final_ra_um, u).c_str(), fixed(p.cost, 2).c_str(),
+                p.meets_spec ? (best ? "ok  <- cheapest" : "ok") : "misses");
+    if (!p.meets_spec &&
+        (k == 0 || plan.options[k - 1].meets_spec || plan.options[k - 1].tool != p.tool)) {
+      misses.push_back(p.tool + " from " + step + ": " + p.reason);
+    }
+  }
+  for (const std::string& m : misses) std::printf("  misses: %s\n", m.c_str());
+  std::printf("\n%s\n", best_message(plan, u).c_str());
+  std::printf("Costs are in the currency of the rates. Surfaces: %s.\n",
+              r.simulate ? kSimulatedBasis : kClosedFormBasis);
+  print_cautions(plan_cautions());
+}
+
+void run_plan(const PlanOptions& o) {
+  const LengthUnit units = o.common.length_unit();
+  const PlanRequest request = request_from_flags(o, units);
+  StageTimer timer;
+  const PlanResult plan = plan_stepover(request);
+  print_stage(o.common.verbose, "plan", timer.lap());
+  const nlohmann::json doc = plan_document(request, plan, units);
+  if (!o.out.empty()) {
+    OutputDir dir(o.out);
+    dir.write("plan.json", doc.dump(2) + "\n");
+    dir.write("plan.csv", encode_plan_csv(plan));
+    PlanSvgOptions svg;
+    svg.inch = units == LengthUnit::Inch;
+    dir.write("plan.svg", encode_plan_svg(plan, svg));
+    print_stage(o.common.verbose, "write", timer.lap());
+  }
+  if (o.common.json) {
+    print_json(doc);
+  } else {
+    print_table(request, plan, units);
+    if (!o.out.empty())
+      std::printf("\nWrote plan.json, plan.csv and plan.svg to %s\n", o.out.c_str());
+  }
+}
+
+}  // namespace
 
 void setup_plan(CLI::App& sub) {
-  sub.allow_extras();
-  sub.callback([] { throw InputError("'plan' is not built yet in this version of cuspmap"); });
+  auto o = std::make_shared<PlanOptions>();
+  add_tool_flags(sub, o->tool);
+  sub.add_option("--tools", o->tools,
+                 "Several tools to compare: shape:diameter[:corner], comma-separated, e.g. "
+                 "ball:6mm,flat:0.5in,bullnose:10:1 (--dish/--tilt apply to each)");
+  sub.add_option("--stepovers", o->stepovers,
+                 "Stepovers to try, comma-separated lengths (default: 24 from 1% to 60% of each "
+                 "diameter)");
+  sub.add_option("--size", o->size, "Floor size to finish, e.g. 120x80 (lengths)");
+  sub.add_option("--feed", o->feed, "Cutting feed, length per minute, e.g. 1500 or 60in");
+  sub.add_option("--rapid", o->rapid, "Rapid rate for links, length per minute")
+      ->capture_default_str();
+  sub.add_option("--retract", o->retract, "One-way return height above the floor")
+      ->capture_default_str();
+  sub.add_option("--direction", o->direction, "Raster passes: one-way or zigzag")
+      ->capture_default_str();
+  sub.add_option("--pass-overhead", o->pass_overhead_s,
+                 "Seconds per pass beyond the constant-feed time (default 0.5: no source)")
+      ->capture_default_str();
+  sub.add_option("--machine-rate", o->machine_rate, "Cost of one machine hour (any currency)");
+  sub.add_option("--bench-rate", o->bench_rate, "Cost of one bench (sanding) hour, same currency");
+  sub.add_option("--target-ra", o->target_ra, "Finished Ra at most this, e.g. 0.8um or 32uin");
+  sub.add_option(
+      "--target-scallop", o->target_scallop,
+      "Finished peak-to-valley at most this (cusp, or the last grade's scratches), e.g. 4um");
+  sub.add_option("--tolerance", o->tolerance, "+- dimensional tolerance sanding may use (length)");
+  // Reason for --sand: a visible cusp pattern may be unacceptable even when its Ra meets the
+  // target.
+  sub.add_option("--sand", o->sand,
+                 "when-needed (only if the machined surface misses the spec) "
+                 "or always")
+      ->capture_default_str();
+  add_grit_flags(sub, o->grits);
+  sub.add_option("--out", o->out, "Folder for plan.json, plan.csv and plan.svg");
+  sub.add_flag("--simulate", o->simulate,
+               "Take each option's surface from a simulated window (tilt in any direction, dish, "
+               "runout) instead of the closed form");
+  add_common_flags(sub, o->common);
+  sub.callback([o] { run_plan(*o); });
 }
 
 }  // namespace cuspmap

@@ -41,6 +41,7 @@ struct SimulateOptions {
   double rpm = 10000.0;
   bool tooth_marks = false;
   bool units_given = false;
+  bool stream = false;
 };
 
 // A Job from --gcode and the tool flags (no job file).
@@ -100,6 +101,13 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
                 w.message.c_str());
   }
   for (const std::string& w : run.texture.warnings) std::printf("  note: %s\n", w.c_str());
+  if (run.streamed) {
+    std::printf("  streamed: %d bands of %d rows, peak grid %s MiB; pictures show %d x %d cell "
+                "block means\n",
+                run.bands, run.band_rows,
+                format_number(static_cast<double>(run.peak_grid_bytes) / (1 << 20)).c_str(),
+                run.overview_cells_per_pixel, run.overview_cells_per_pixel);
+  }
   for (const std::string& k : job.ignored_keys) std::printf("  ignored: %s\n", k.c_str());
   std::printf("  wrote %zu files to %s/\n", dir.written().size(), dir.path().c_str());
   std::printf(
@@ -116,6 +124,7 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   const LengthUnit units = units_flag_given ? o.common.length_unit() : job.units;
   RunOptions ropt;
   ropt.threads = o.sim.threads;
+  ropt.stream = o.stream ? StreamMode::Always : StreamMode::Auto;
   if (!o.sim.max_memory.empty()) ropt.max_memory_bytes = parse_bytes(o.sim.max_memory, "--max-memory");
   ropt.texture = texture_options(o.texture, units);
   const auto range = parse_height_range(o.sim.range, units);
@@ -131,10 +140,12 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   print_stage(o.common.verbose, "texture", run.texture_s);
   StageTimer write;
   const SimulationPictures pics = render_simulation_pictures(run, units, range);
-  dir.write("height.npy", pics.height_npy);
+  // A streamed floor was never held whole: its pictures show the block-mean overview, and
+  // neither the full-resolution height.npy nor the overview's profile traces are written.
+  if (!run.streamed) dir.write("height.npy", pics.height_npy);
   dir.write("height.png", pics.height_png);
   dir.write("shaded.png", pics.shaded_png);
-  if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
+  if (!pics.profile_png.empty() && !run.streamed) dir.write("profile.png", pics.profile_png);
   if (!o.report_html.empty()) {
     write_file_atomic(o.report_html,
                       render_html_report(simulation_html_report(job, run, pics, units)));
@@ -142,8 +153,18 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   const double write_s = write.seconds();
   std::vector<std::string> files = dir.written();
   files.push_back("report.json");
-  const nlohmann::json report =
+  nlohmann::json report =
       simulate_report_json(job, run, pics.facts, files, write_s, total.seconds());
+  report["memory"] = {{"mode", run.streamed ? "streamed" : "in-memory"},
+                      {"peak_grid_bytes", run.peak_grid_bytes}};
+  if (run.streamed) {
+    report["cell_mm"] = run.patch.cell_mm;
+    report["grid"]["nx"] = run.grid_nx;
+    report["grid"]["ny"] = run.grid_ny;
+    report["memory"]["bands"] = run.bands;
+    report["memory"]["band_rows"] = run.band_rows;
+    report["memory"]["overview_cells_per_pixel"] = run.overview_cells_per_pixel;
+  }
   dir.write("report.json", report.dump(2) + "\n");
   print_stage(o.common.verbose, "write", write.seconds());
   if (o.common.json) {
@@ -173,6 +194,8 @@ void setup_simulate(CLI::App& sub) {
       ->capture_default_str();
   sub.add_option("--rpm", o->rpm, "With --gcode: spindle speed, rev/min")->capture_default_str();
   sub.add_flag("--tooth-marks", o->tooth_marks, "With --gcode: sweep tooth by tooth");
+  sub.add_flag("--stream", o->stream,
+               "Sweep in bands even when the grid fits the memory limit (automatic above it)");
   add_sim_flags(sub, o->sim);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);

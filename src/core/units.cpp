@@ -112,6 +112,7 @@ double parse_number(std::string_view text, std::string_view what) {
 
 std::string format_number(double value) {
   std::array<char, 64> buf{};
+  if (value == 0.0) value = 0.0;  // prints -0 as 0
   // std::to_chars with general format and precision 6: locale-independent, like %.6g.
   const auto [ptr, ec] =
       std::to_chars(buf.data(), buf.data() + buf.size(), value, std::chars_format::general, 6);

@@ -88,7 +88,7 @@ double integrate_graded(const std::function<double(double)>& f, double a, double
 }
 
 // u in [u0, u1] where the monotone n(u) equals m (n(u0) - m and n(u1) - m of opposite signs).
-double mean_crossing(const ProfilePiece& p, double m) {
+double mean_crossing(const CuspArcPiece& p, double m) {
   double lo = p.u0_mm, hi = p.u1_mm;
   const bool rising = p.n1_mm > p.n0_mm;
   const double tol = kCrossingRelTol * (p.u1_mm - p.u0_mm);
@@ -105,11 +105,11 @@ double mean_crossing(const ProfilePiece& p, double m) {
 
 // Line integral of F(n) dx over all pieces, with x = kx u + kn n. `antiderivative` is a G with
 // G' = F (for the wall parts and the kn n-term); `split` > NaN splits graph pieces where n = split.
-double line_integral(const std::vector<ProfilePiece>& pieces, double kx, double kn,
+double line_integral(const std::vector<CuspArcPiece>& pieces, double kx, double kn,
                      const std::function<double(double)>& integrand,
                      const std::function<double(double)>& antiderivative, double split) {
   double total = 0.0;
-  for (const ProfilePiece& p : pieces) {
+  for (const CuspArcPiece& p : pieces) {
     total += kn * (antiderivative(p.n1_mm) - antiderivative(p.n0_mm));
     if (!(p.u1_mm > p.u0_mm)) continue;  // a wall: only the n-term above
     auto f = [&](double u) { return integrand(p.height_mm(u)); };
@@ -151,7 +151,7 @@ ProfileStats arc_cusp_stats(double radius_mm, double half_chord_mm, double flat_
     const double x = u - half_flat;
     return x * x / (rho + std::sqrt(std::max(0.0, rho * rho - x * x)));
   };
-  std::vector<ProfilePiece> pieces;
+  std::vector<CuspArcPiece> pieces;
   if (half_flat > 0.0) {
     pieces.push_back({0.0, half_flat, 0.0, 0.0, [](double) { return 0.0; }});
   }
@@ -160,7 +160,7 @@ ProfileStats arc_cusp_stats(double radius_mm, double half_chord_mm, double flat_
   return periodic_profile_stats(pieces, 1.0, 0.0);
 }
 
-ProfileStats periodic_profile_stats(const std::vector<ProfilePiece>& pieces, double kx, double kn) {
+ProfileStats periodic_profile_stats(const std::vector<CuspArcPiece>& pieces, double kx, double kn) {
   assert(!pieces.empty() && kx > 0.0 && "profile needs pieces and a forward map");
   const double period = kx * (pieces.back().u1_mm - pieces.front().u0_mm) +
                         kn * (pieces.back().n1_mm - pieces.front().n0_mm);
@@ -180,7 +180,7 @@ ProfileStats periodic_profile_stats(const std::vector<ProfilePiece>& pieces, dou
                         [mean](double n) { return 0.5 * (n - mean) * std::abs(n - mean); }, mean) /
                     period;
   double lo = pieces.front().n0_mm, hi = lo;
-  for (const ProfilePiece& p : pieces) {
+  for (const CuspArcPiece& p : pieces) {
     lo = std::min({lo, p.n0_mm, p.n1_mm});
     hi = std::max({hi, p.n0_mm, p.n1_mm});
   }

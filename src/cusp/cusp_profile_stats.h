@@ -36,7 +36,7 @@ ProfileStats arc_cusp_stats(double radius_mm, double half_chord_mm, double flat_
 
 /// One stretch of a profile, in a parameter u that runs along the profile (mm). Either a graph
 /// piece n(u) monotone on [u0, u1], or a wall (u0 == u1): a jump of the height from n0 to n1.
-struct ProfilePiece {
+struct CuspArcPiece {
   double u0_mm = 0.0;                       ///< start of the stretch
   double u1_mm = 0.0;                       ///< end of the stretch; == u0_mm for a wall
   double n0_mm = 0.0;                       ///< height along the surface normal at the start
@@ -52,6 +52,6 @@ struct ProfilePiece {
 /// @param[in] pieces  consecutive stretches; the profile returns to its start height
 /// @param[in] kx, kn  map from (u, n) to the along-surface position x (kx > 0)
 /// Cost: ~600 evaluations of n(u) per piece and statistic.
-ProfileStats periodic_profile_stats(const std::vector<ProfilePiece>& pieces, double kx, double kn);
+ProfileStats periodic_profile_stats(const std::vector<CuspArcPiece>& pieces, double kx, double kn);
 
 }  // namespace cuspmap

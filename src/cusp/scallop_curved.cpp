@@ -79,7 +79,7 @@ CuspResult scallop_curved(double radius_mm, double surface_radius_mm, bool conve
   const double half = 0.5 * stepover_mm, half_reach = 0.5 * std::min(stepover_mm, reach);
   auto arc = [big_r, rho, convex](double x) { return ray_height_mm(big_r, rho, convex, x / rho); };
   const double top = arc(half_reach);
-  std::vector<ProfilePiece> pieces{{0.0, half_reach, 0.0, top, arc}};
+  std::vector<CuspArcPiece> pieces{{0.0, half_reach, 0.0, top, arc}};
   if (half > half_reach)
     pieces.push_back({half_reach, half, top, top, [top](double) { return top; }});
   r.scallop_um = top * kUmPerMm;

@@ -77,8 +77,8 @@ class SlopedSection {
 };
 
 // Graph piece of the profile on [u0, u1] given by a residual function (vertical mm).
-ProfilePiece graph_piece(double u0, double u1, std::function<double(double)> normal_height) {
-  ProfilePiece p;
+CuspArcPiece graph_piece(double u0, double u1, std::function<double(double)> normal_height) {
+  CuspArcPiece p;
   p.u0_mm = u0;
   p.u1_mm = u1;
   p.n0_mm = normal_height(u0);
@@ -87,7 +87,7 @@ ProfilePiece graph_piece(double u0, double u1, std::function<double(double)> nor
   return p;
 }
 
-ProfilePiece wall_piece(double u, double n0, double n1) { return {u, u, n0, n1, {}}; }
+CuspArcPiece wall_piece(double u, double n0, double n1) { return {u, u, n0, n1, {}}; }
 
 }  // namespace
 
@@ -121,7 +121,7 @@ CuspResult scallop_on_plane(const Cutter& cutter, double stepover_mm, double slo
   const double snap = kRimSnapRel * s;
   if (std::abs(lo - u_rim0) <= snap) lo = u_rim0;
   if (std::abs(hi - u_rim1) <= snap) hi = u_rim1;
-  std::vector<ProfilePiece> pieces;
+  std::vector<CuspArcPiece> pieces;
   double n_left = pass0(lo);  // end of pass 0's part of the profile
   double u1_start = hi;       // where pass 1's part starts
   if (lo > 0.0) pieces.push_back(graph_piece(0.0, lo, pass0));

@@ -81,10 +81,15 @@ direction = "zigzag"
 [sim]
 tooth_marks = true
 )"));
-  jobs.push_back(make("trochoidal.toml", R"(# Pump cover floor cleared and floored with trochoidal loops
-name = "6 mm flat, trochoidal loops"
+  jobs.push_back(make("trochoidal.toml", R"(# Pump cover floor cleared with trochoidal loops of a 6 mm ball
+name = "6 mm ball, trochoidal loops"
 units = "mm"
-)" + patch_block(quick, 6, 0.005) + flat_tool + R"(
+)" + patch_block(quick, 6, 0.005) + R"(
+[tool]
+shape = "ball"
+diameter = 6
+teeth = 2
+
 [cut]
 rpm = 12000
 feed = 2400
@@ -93,7 +98,7 @@ feed = 2400
 kind = "trochoidal"
 stepover = 3
 loop_diameter = 3
-advance = 0.6
+advance = 0.4
 )"));
   return jobs;
 }

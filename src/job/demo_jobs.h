@@ -17,7 +17,7 @@ struct DemoJob {
 };
 
 /// The four demo jobs: 6 mm ball raster 0.3 mm; 6 mm flat 1 deg dish one-way; the same zigzag with
-/// 0.01 deg tram error; a trochoidal floor.
+/// 0.01 deg tram error; trochoidal loops of the ball.
 /// @param[in] quick  smaller patches and coarser cells (for tests): same physics, less time
 std::vector<DemoJob> demo_jobs(bool quick);
 

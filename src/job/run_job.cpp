@@ -4,12 +4,78 @@
 
 #include <cmath>
 #include <limits>
+#include <string>
 
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "path/patch_from_extent.h"
+#include "sweep/simulate_bands.h"
+#include "sweep/sweep_tiles.h"
+#include "texture/streamed_texture.h"
 
 namespace cuspmap {
+namespace {
+
+// Texture options with the lay of built-in lanes (the pass direction); others are detected.
+TextureOptions lay_options(const Job& job, const RunOptions& options) {
+  TextureOptions texture = options.texture;
+  if (!texture.lay_deg &&
+      (job.path.kind == PathKind::Raster || job.path.kind == PathKind::Trochoidal)) {
+    texture.lay_deg = job.path.angle_deg;
+  }
+  return texture;
+}
+
+std::string no_move_message(const Job& job) {
+  return job.source + ": no move of the path reaches the patch; check [patch] size and origin, "
+                      "[cut] depth and the program's Z values against floor_z";
+}
+
+// Peak memory of an in-memory run in grid sizes: the grid, the residual, the filtered and FFT
+// copies of the texture report (measured: a 400 MB grid peaked at 5.7 GB RSS, 14 grids).
+constexpr std::int64_t kInMemoryGrids = 16;
+
+bool should_stream(const Patch& patch, const RunOptions& options) {
+  if (options.stream == StreamMode::Always) return true;
+  if (options.stream == StreamMode::Never) return false;
+  const std::int64_t limit = options.max_memory_bytes > 0 ? options.max_memory_bytes
+                                                          : physical_memory_bytes() / 2;
+  return heightfield_bytes(patch) > limit / kInMemoryGrids;
+}
+
+// Two passes of the band sweep: plane, overview and traces; then the residual moments.
+void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
+                  const RunOptions& options, JobRun& run, StageTimer& timer) {
+  const BandPlan plan = plan_bands(run.patch, sim.max_memory_bytes);
+  StreamedTexture texture(plan.nx, plan.ny, run.patch.cell_mm, run.patch.origin_x_mm,
+                          run.patch.origin_y_mm, lay_options(job, options),
+                          sweep_threads(sim.threads));
+  SimSpec pass = sim;
+  if (sim.progress) pass.progress = [&](double f) { sim.progress(0.5 * f); };
+  simulate_bands(job.cutter, run.built.path, cut, run.patch, pass, plan,
+                 [&](const Heightfield& band, int j0) { texture.add_first_pass(band, j0); },
+                 &run.sweep);
+  if (texture.reached() == 0) throw InputError(no_move_message(job));
+  texture.finish_first_pass();
+  if (sim.progress) pass.progress = [&](double f) { sim.progress(0.5 + 0.5 * f); };
+  simulate_bands(job.cutter, run.built.path, cut, run.patch, pass, plan,
+                 [&](const Heightfield& band, int) { texture.add_second_pass(band); });
+  run.sweep_s = timer.lap();
+  run.streamed = true;
+  run.grid_nx = plan.nx;
+  run.grid_ny = plan.ny;
+  run.bands = plan.bands;
+  run.band_rows = plan.band_rows;
+  run.peak_grid_bytes = plan.band_bytes;
+  run.overview_cells_per_pixel = texture.overview_cells_per_block();
+  run.floor = texture.overview();
+  run.max_scallop_um = texture.max_um();
+  run.min_height_um = texture.min_um();
+  run.texture = texture.report();
+  run.texture_s = timer.lap();
+}
+
+}  // namespace
 
 JobRun run_job(const Job& job, const RunOptions& options) {
   JobRun run;
@@ -29,8 +95,15 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   sim.threads = options.threads != 0 ? options.threads : job.sim.threads;
   sim.max_memory_bytes = options.max_memory_bytes;
   sim.progress = options.progress;
+  if (should_stream(run.patch, options)) {
+    run_streamed(job, cut, sim, options, run, timer);
+    return run;
+  }
   run.floor = simulate_floor(job.cutter, run.built.path, cut, run.patch, sim, &run.sweep);
   run.sweep_s = timer.lap();
+  run.grid_nx = run.floor.nx;
+  run.grid_ny = run.floor.ny;
+  run.peak_grid_bytes = run.floor.cells() * static_cast<std::int64_t>(sizeof(float));
 
   float lo = std::numeric_limits<float>::infinity(), hi = -lo;
   const float* z = run.floor.z_um.data();
@@ -40,19 +113,13 @@ JobRun run_job(const Job& job, const RunOptions& options) {
     hi = std::max(hi, z[k]);
   }
   if (!(hi >= lo)) {
-    throw InputError(job.source + ": no move of the path reaches the patch; check [patch] size and "
-                     "origin, [cut] depth and the program's Z values against floor_z");
+    throw InputError(no_move_message(job));
   }
   run.max_scallop_um = hi;
   run.min_height_um = lo;
 
-  TextureOptions texture = options.texture;
   // Built-in lanes have a known lay: the pass direction. Others are detected from the surface.
-  if (!texture.lay_deg &&
-      (job.path.kind == PathKind::Raster || job.path.kind == PathKind::Trochoidal)) {
-    texture.lay_deg = job.path.angle_deg;
-  }
-  run.texture = texture_report(run.floor, texture);
+  run.texture = texture_report(run.floor, lay_options(job, options));
   run.texture_s = timer.lap();
   return run;
 }

@@ -13,8 +13,16 @@
 
 namespace cuspmap {
 
+/// When the sweep streams the floor in bands instead of holding it whole.
+enum class StreamMode {
+  Never,  ///< in memory; a grid over the limit is an error
+  Auto,   ///< stream when the grid exceeds the memory limit
+  Always, ///< always stream (--stream)
+};
+
 /// Run-time settings that are not part of the job.
 struct RunOptions {
+  StreamMode stream = StreamMode::Never;   ///< streaming rule
   int threads = 0;                         ///< sweep threads; 0 = all hardware threads
   std::int64_t max_memory_bytes = 0;       ///< grid limit; 0 = half of physical memory
   std::function<void(double)> progress;    ///< sweep progress in [0, 1]; may be empty
@@ -25,7 +33,15 @@ struct RunOptions {
 struct JobRun {
   Patch patch;              ///< the patch simulated (derived from the program when not given)
   BuiltPath built;          ///< moves, warnings, spindle direction
-  Heightfield floor;        ///< heights, um above the nominal floor; NaN = not reached
+  Heightfield floor;        ///< heights, um above the nominal floor; NaN = not reached. When
+                            ///< streamed: the block-mean overview (cell = k x the grid's cell)
+  bool streamed = false;    ///< the floor was swept in bands and never held whole
+  int grid_nx = 0;          ///< columns of the simulated grid (also when streamed)
+  int grid_ny = 0;          ///< rows of the simulated grid
+  int bands = 0;            ///< bands swept per pass (streamed)
+  int band_rows = 0;        ///< rows per band (streamed)
+  std::int64_t peak_grid_bytes = 0;  ///< largest height grid held: the floor, or one band
+  int overview_cells_per_pixel = 1;  ///< k of the overview (streamed)
   SweepStats sweep;         ///< sweep counters
   TextureReport texture;    ///< ISO profile and areal parameters
   double path_length_mm = 0.0;   ///< feed and rapid moves
@@ -37,7 +53,8 @@ struct JobRun {
   double texture_s = 0.0;        ///< time for the texture parameters, s
 };
 
-/// Runs one job.
+/// Runs one job. Streamed runs sweep twice (plane, then residuals) and report the exact
+/// ISO 25178-2 height parameters; see texture/streamed_texture.h for what they leave out.
 /// @throws InputError for a bad G-code file, a grid over the memory limit, or a floor that no
 ///         move reached.
 JobRun run_job(const Job& job, const RunOptions& options);

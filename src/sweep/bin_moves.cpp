@@ -37,31 +37,40 @@ TileGrid tile_grid(int nx, int ny) {
   return g;
 }
 
-std::vector<std::vector<int>> bin_moves(const std::vector<PreparedMove>& moves,
-                                        const TileGrid& tiles, double cell_mm, double reach_mm) {
-  std::vector<std::vector<int>> bins(tiles.count());
+std::vector<std::vector<int>> bin_moves_rows(const std::vector<PreparedMove>& moves,
+                                             const std::vector<int>& candidates,
+                                             const TileGrid& tiles, int ty0, int ty1,
+                                             double cell_mm, double reach_mm) {
+  std::vector<std::vector<int>> bins(static_cast<std::size_t>(ty1 - ty0) * tiles.tiles_x);
   const double tile_w = tiles.tile_cols * cell_mm, tile_h = tiles.tile_rows * cell_mm;
-  for (std::size_t k = 0; k < moves.size(); ++k) {
+  auto tile_index = [](double v, double size, int lo, int hi) {
+    return std::clamp(static_cast<int>(std::floor(v / size)), lo, hi);
+  };
+  for (int k : candidates) {
     const PreparedMove& m = moves[k];
-    auto tile_index = [](double v, double size, int count) {
-      return std::clamp(static_cast<int>(std::floor(v / size)), 0, count - 1);
-    };
-    const int tx0 = tile_index(m.x_min_mm - reach_mm, tile_w, tiles.tiles_x);
-    const int tx1 = tile_index(m.x_max_mm + reach_mm, tile_w, tiles.tiles_x);
-    const int ty0 = tile_index(m.y_min_mm - reach_mm, tile_h, tiles.tiles_y);
-    const int ty1 = tile_index(m.y_max_mm + reach_mm, tile_h, tiles.tiles_y);
-    for (int ty = ty0; ty <= ty1; ++ty) {
+    if (m.y_max_mm + reach_mm < ty0 * tile_h || m.y_min_mm - reach_mm >= ty1 * tile_h) continue;
+    const int tx0 = tile_index(m.x_min_mm - reach_mm, tile_w, 0, tiles.tiles_x - 1);
+    const int tx1 = tile_index(m.x_max_mm + reach_mm, tile_w, 0, tiles.tiles_x - 1);
+    const int row0 = tile_index(m.y_min_mm - reach_mm, tile_h, ty0, ty1 - 1);
+    const int row1 = tile_index(m.y_max_mm + reach_mm, tile_h, ty0, ty1 - 1);
+    for (int ty = row0; ty <= row1; ++ty) {
       for (int tx = tx0; tx <= tx1; ++tx) {
-        const int t = ty * tiles.tiles_x + tx;
-        const TileRect r = tiles.rect(t);
+        const TileRect r = tiles.rect(ty * tiles.tiles_x + tx);
         // Cell centres of the tile span this box.
         const double dist = m.distance_to_box((r.i0 + 0.5) * cell_mm, (r.i1 - 0.5) * cell_mm,
                                               (r.j0 + 0.5) * cell_mm, (r.j1 - 0.5) * cell_mm);
-        if (dist <= reach_mm) bins[t].push_back(static_cast<int>(k));
+        if (dist <= reach_mm) bins[(ty - ty0) * tiles.tiles_x + tx].push_back(k);
       }
     }
   }
   return bins;
+}
+
+std::vector<std::vector<int>> bin_moves(const std::vector<PreparedMove>& moves,
+                                        const TileGrid& tiles, double cell_mm, double reach_mm) {
+  std::vector<int> all(moves.size());
+  for (std::size_t k = 0; k < moves.size(); ++k) all[k] = static_cast<int>(k);
+  return bin_moves_rows(moves, all, tiles, 0, tiles.tiles_y, cell_mm, reach_mm);
 }
 
 }  // namespace cuspmap

@@ -42,4 +42,15 @@ TileGrid tile_grid(int nx, int ny);
 std::vector<std::vector<int>> bin_moves(const std::vector<PreparedMove>& moves,
                                         const TileGrid& tiles, double cell_mm, double reach_mm);
 
+/// The bins of the tile rows [ty0, ty1) only (one band of the grid), from a candidate list.
+/// @param[in] moves       prepared moves (patch-local)
+/// @param[in] candidates  indices into moves worth testing, ascending (path order kept)
+/// @param[in] tiles       the tiling of the whole grid
+/// @param[in] ty0, ty1    tile rows wanted
+/// @return bins of tile (tx, ty) at (ty - ty0) tiles_x + tx
+std::vector<std::vector<int>> bin_moves_rows(const std::vector<PreparedMove>& moves,
+                                             const std::vector<int>& candidates,
+                                             const TileGrid& tiles, int ty0, int ty1,
+                                             double cell_mm, double reach_mm);
+
 }  // namespace cuspmap

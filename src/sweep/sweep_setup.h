@@ -33,6 +33,10 @@ struct SweepSetup {
   double top_mm = 0.0;            ///< highest any cutter point reaches above its tip
 };
 
+/// A move whose lowest tip is this far above the highest any cutter point reaches still counts
+/// as unable to reach the floor: 1 um covers rounding of program coordinates in mm.
+inline constexpr double kReachMarginMm = 1e-3;
+
 /// Builds the setup for a validated cutter, cutting conditions and patch.
 SweepSetup sweep_setup(const Cutter& cutter, const CutSpec& cut, const Patch& patch);
 

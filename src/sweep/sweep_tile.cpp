@@ -22,10 +22,10 @@ constexpr double kUmPerMm = 1000.0;
 
 // Highest cell of the tile (+inf while any is unreached). Eigen's maxCoeff runs in SIMD lanes;
 // the grid holds no NaN during the sweep, so lane order cannot change the result.
-float tile_max(const float* grid, int nx, const TileRect& t) {
+float tile_max(const float* grid, int nx, int row0, const TileRect& t) {
   float top = -kUnset;
   for (int j = t.j0; j < t.j1; ++j) {
-    const Eigen::Map<const Eigen::ArrayXf> row(grid + static_cast<std::int64_t>(j) * nx + t.i0,
+    const Eigen::Map<const Eigen::ArrayXf> row(grid + static_cast<std::int64_t>(j - row0) * nx + t.i0,
                                                t.i1 - t.i0);
     top = std::max(top, row.maxCoeff());
   }
@@ -62,11 +62,13 @@ void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, LineT
 
 std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
                         const std::vector<int>& tile_moves, const TileRect& tile, SweepMode mode,
-                        float* grid) {
+                        float* grid, int grid_row0) {
   const int nx = setup.nx;
+  // Row j of the grid lives at grid + (j - grid_row0) nx.
+  auto row_of = [&](int j) { return grid + static_cast<std::int64_t>(j - grid_row0) * nx; };
   const double cell = setup.cell_mm;
   for (int j = tile.j0; j < tile.j1; ++j) {
-    float* row = grid + static_cast<std::int64_t>(j) * nx;
+    float* row = row_of(j);
     std::fill(row + tile.i0, row + tile.i1, kUnset);
   }
 
@@ -98,7 +100,7 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
   double checked_um = -top_um;
   for (const Ranked& r : order) {
     if (r.bound_um >= top_um || (std::isinf(top_um) && r.bound_um > checked_um)) {
-      top_um = tile_max(grid, nx, tile);
+      top_um = tile_max(grid, nx, grid_row0, tile);
       checked_um = r.bound_um;
       if (r.bound_um >= top_um) break;  // sorted: no later move can lower any cell either
     }
@@ -113,8 +115,7 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
       if (!row_span(m, y, setup.envelope.reach_mm, cell, tile.i0, tile.i1 - 1, i_lo, i_hi)) {
         continue;
       }
-      sweep_row(setup, m, mode, line_teeth ? &*line_teeth : nullptr, y, i_lo, i_hi,
-                grid + static_cast<std::int64_t>(j) * nx);
+      sweep_row(setup, m, mode, line_teeth ? &*line_teeth : nullptr, y, i_lo, i_hi, row_of(j));
       visits += i_hi - i_lo + 1;
     }
   }
@@ -123,7 +124,7 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
   // cell was finite, every cell is, and there is nothing to do.
   if (!std::isfinite(top_um)) {
     for (int j = tile.j0; j < tile.j1; ++j) {
-      float* row = grid + static_cast<std::int64_t>(j) * nx;
+      float* row = row_of(j);
       for (int i = tile.i0; i < tile.i1; ++i) {
         if (row[i] == kUnset) row[i] = kUnreached;
       }

@@ -28,11 +28,13 @@ enum class SweepMode {
 /// @param[in] tile_moves  indices into moves of those that may reach this tile
 /// @param[in] tile        the tile's cells
 /// @param[in] mode        envelope or teeth
-/// @param[in,out] grid    the whole grid, row-major ny x nx, um; the tile's cells are written
-///                        (NaN where no move reached), no other cell is touched
+/// @param[in,out] grid    row-major rows of nx cells, um, whose first row is grid row
+///                        `grid_row0` (the whole grid, or one band of it); the tile's cells are
+///                        written (NaN where no move reached), no other cell is touched
+/// @param[in] grid_row0   grid row held by grid's first row (0 for the whole grid)
 /// @return cell visits by the minimum update
 std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
                         const std::vector<int>& tile_moves, const TileRect& tile, SweepMode mode,
-                        float* grid);
+                        float* grid, int grid_row0 = 0);
 
 }  // namespace cuspmap

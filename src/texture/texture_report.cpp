@@ -91,6 +91,34 @@ void note_undefined(const char* name, const ProfileParameters& p, std::vector<st
 
 }  // namespace
 
+void fill_profile_report(const std::vector<ProfileTrace>& traces, const TextureOptions& options,
+                         ProfileReport& p, std::vector<std::string>& warnings) {
+  const CutoffSelection sel = select_cutoff(traces, options.cutoff_mm, options.lambda_s_um);
+  const ProfileEvaluation& e = sel.evaluation;
+  warnings.insert(warnings.end(), sel.warnings.begin(), sel.warnings.end());
+  p.roughness = e.roughness;
+  p.primary = e.primary;
+  p.waviness = e.waviness;
+  p.cutoff_mm = e.cutoff_mm;
+  p.lambda_s_um = e.lambda_s_um;
+  p.evaluation_length_mm = e.evaluation_length_mm;
+  p.sampling_lengths = e.sampling_lengths;
+  p.traces = e.traces;
+  p.cutoff_rule = sel.rule;
+  p.periodic = sel.periodicity.periodic;
+  p.acf_peak = sel.periodicity.acf_peak;
+  p.iso1302_grade = iso1302_grade(p.roughness.a_um);
+  if (e.sampling_lengths < kDefaultSamplingLengths) {
+    warnings.push_back("evaluation length " + format_number(e.evaluation_length_mm) +
+                              " mm holds " + std::to_string(e.sampling_lengths) +
+                              " sampling length(s) of " + format_number(e.cutoff_mm) +
+                              " mm, fewer than the 5 ISO 4288 asks for: the surface is "
+                              "shorter than 6 cut-offs along the trace");
+  }
+  note_undefined("roughness", p.roughness, warnings);
+  note_undefined("primary", p.primary, warnings);
+}
+
 TextureReport texture_report(const Heightfield& hf, const TextureOptions& options) {
   TextureReport report;
   report.cell_mm = hf.cell_mm;
@@ -120,30 +148,7 @@ TextureReport texture_report(const Heightfield& hf, const TextureOptions& option
                      format_number(longest_chord_mm(hf, p.direction_deg)) + " mm, at least " +
                      format_number(2.0 * shortest_cutoff) + " mm (two cut-offs) is needed");
   }
-  const CutoffSelection sel = select_cutoff(traces, options.cutoff_mm, options.lambda_s_um);
-  const ProfileEvaluation& e = sel.evaluation;
-  report.warnings.insert(report.warnings.end(), sel.warnings.begin(), sel.warnings.end());
-  p.roughness = e.roughness;
-  p.primary = e.primary;
-  p.waviness = e.waviness;
-  p.cutoff_mm = e.cutoff_mm;
-  p.lambda_s_um = e.lambda_s_um;
-  p.evaluation_length_mm = e.evaluation_length_mm;
-  p.sampling_lengths = e.sampling_lengths;
-  p.traces = e.traces;
-  p.cutoff_rule = sel.rule;
-  p.periodic = sel.periodicity.periodic;
-  p.acf_peak = sel.periodicity.acf_peak;
-  p.iso1302_grade = iso1302_grade(p.roughness.a_um);
-  if (e.sampling_lengths < kDefaultSamplingLengths) {
-    report.warnings.push_back("evaluation length " + format_number(e.evaluation_length_mm) +
-                              " mm holds " + std::to_string(e.sampling_lengths) +
-                              " sampling length(s) of " + format_number(e.cutoff_mm) +
-                              " mm, fewer than the 5 ISO 4288 asks for: the surface is "
-                              "shorter than 6 cut-offs along the trace");
-  }
-  note_undefined("roughness", p.roughness, report.warnings);
-  note_undefined("primary", p.primary, report.warnings);
+  fill_profile_report(traces, options, p, report.warnings);
   // The waviness of a machined floor is often nil: its undefined Wsk/Wku/WSm are 0 without a
   // warning (docs/texture.md).
   return report;

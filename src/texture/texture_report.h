@@ -14,6 +14,7 @@
 
 #include "core/heightfield.h"
 #include "texture/areal_parameters.h"
+#include "texture/extract_profiles.h"
 #include "texture/fit_plane.h"
 #include "texture/profile_parameters.h"
 #include "texture/texture_direction.h"
@@ -93,5 +94,13 @@ struct TextureReport {
 /// @throws InputError when no cell is finite, or the surface is too short for one sampling
 ///         length of the smallest cut-off (or of a fixed cut-off) in the trace direction
 TextureReport texture_report(const Heightfield& hf, const TextureOptions& options);
+
+/// The profile side from traces already extracted along p.direction_deg (set by the caller with
+/// p.direction): ISO 4288 cut-off, R/P/W parameters, grade; notes appended to `warnings`.
+/// @param[in] traces   non-empty finite traces of one spacing
+/// @param[in] options  cut-off and lambda-s overrides
+/// @param[in,out] p    filled except direction and direction_deg
+void fill_profile_report(const std::vector<ProfileTrace>& traces, const TextureOptions& options,
+                         ProfileReport& p, std::vector<std::string>& warnings);
 
 }  // namespace cuspmap

@@ -62,7 +62,7 @@ TEST_CASE("periodic_profile_stats: a wall and a ramp form a triangle", "[cusp]")
   // Triangular profile of height h: Ra = h/4, Rq = h/(2 sqrt 3) (Boothroyd & Knight: a
   // sharp-cornered tool's ideal Ra = Rt/4), whether the rise is a wall or a slope.
   const double h = 0.2;
-  std::vector<cuspmap::ProfilePiece> pieces;
+  std::vector<cuspmap::CuspArcPiece> pieces;
   pieces.push_back({0.0, 0.0, 0.0, h, {}});  // wall at u = 0
   pieces.push_back({0.0, 1.0, h, 0.0, [h](double u) { return h * (1.0 - u); }});
   for (double kn : {0.0, 0.3}) {

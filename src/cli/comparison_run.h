@@ -1,0 +1,28 @@
+// Runs a set of jobs for `compare` and `demo` and writes their shared outputs: per-job pictures on
+// one height scale, montage.png, compare.json, compare.csv and an optional HTML page.
+#pragma once
+
+#include <optional>
+#include <string>
+#include <vector>
+
+#include "cli/output_dir.h"
+#include "io/compare_report.h"
+#include "job/run_job.h"
+
+namespace cuspmap {
+
+/// Simulates every job (progress bar on a terminal) and renders its pictures; height.png of all
+/// jobs share `range`, or the overall min..max when it is empty.
+std::vector<CompareRow> run_comparison(const std::vector<Job>& jobs, RunOptions options,
+                                       std::optional<HeightRange> range, LengthUnit units,
+                                       bool verbose);
+
+/// Writes <n>_<name>_height.png / _shaded.png / _profile.png, montage.png, compare.csv,
+/// compare.json and, when html_path is not empty, the HTML page (extra notes appended).
+/// @return compare.json's document
+nlohmann::json write_comparison(OutputDir& dir, const std::vector<CompareRow>& rows,
+                                LengthUnit units, const std::string& html_path,
+                                const std::vector<std::string>& html_notes = {});
+
+}  // namespace cuspmap

@@ -1,0 +1,69 @@
+// Simulated height parameters of a raster floor: a window of whole periods swept by the revolving
+// envelope, plane removed, ISO 25178-2 Sz/Sv/Sp/Sa. Heights um, lengths mm.
+// Method: simulate_floor + least-squares plane (ISO 25178-2:2012 §3.1.8) + §4.1 parameters.
+#include "finish/simulated_cusp_heights.h"
+
+#include <algorithm>
+#include <cassert>
+#include <cmath>
+
+#include "finish/cusp_profile_heights.h"
+#include "path/raster.h"
+#include "sweep/simulate_floor.h"
+#include "texture/areal_parameters.h"
+#include "texture/fit_plane.h"
+
+namespace cuspmap {
+
+SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
+                                      RasterDirection direction) {
+  assert(stepover_mm > 0.0 && stepover_mm <= cutter.diameter_mm && "validated by the caller");
+  // Cells per period: odd, at least kCellsPerPeriod, and kCellsPerArc across the arcs that lie
+  // beyond a level band (bull-nose).
+  const CuspProfile profile = cusp_profile(cutter);
+  const double arc_mm = 0.5 * stepover_mm - profile.flat_half_width_mm;
+  int cells = kCellsPerPeriod;
+  if (arc_mm > 0.0) {
+    const double wanted = kCellsPerArc * 0.5 * stepover_mm / arc_mm;
+    cells =
+        std::max(cells, static_cast<int>(std::min<double>(kMaxCellsPerPeriod, std::ceil(wanted))));
+  }
+  if (cells % 2 == 0) ++cells;
+  // The window sits between two guard bands of whole periods at least R + s wide, so every
+  // evaluated cell has all the passes within the cutter's reach on both sides (a tilted end face
+  // can cut lowest with its rim up to R away).
+  const double cell_mm = stepover_mm / cells;
+  const int guard_periods = static_cast<int>(std::ceil(cutter.radius_mm() / stepover_mm)) + 1;
+  const int rows = kWindowPeriods * cells;
+  const int guard_rows = guard_periods * cells;
+  Patch patch;
+  patch.cell_mm = cell_mm;
+  // Half a cell short of whole cells, so ceil(size / cell) gives exactly that many cells.
+  patch.size_y_mm = (rows + 2 * guard_rows - 0.5) * cell_mm;
+  patch.size_x_mm = (kWindowCellsAlong - 0.5) * cell_mm;
+  PathSpec spec;
+  spec.kind = PathKind::Raster;
+  spec.stepover_mm = stepover_mm;
+  spec.direction = direction;
+  CutSpec cut;
+  SimSpec sim;
+  sim.threads = 1;  // a small window: threads would cost more than they save
+  const Toolpath path = raster_path(spec, cut, patch, cutter);
+  const Heightfield floor = simulate_floor(cutter, path, cut, patch, sim);
+  assert(floor.ny == rows + 2 * guard_rows && "grid rows follow the half-cell-short size");
+  Heightfield window = floor;
+  window.ny = rows;
+  window.origin_y_mm = floor.origin_y_mm + guard_rows * cell_mm;
+  window.z_um = floor.z_um.block(guard_rows, 0, rows, floor.nx);
+  const Heightfield residual = remove_plane(window, fit_plane(window));
+  const ArealParameters a = areal_parameters(residual);
+  SurfaceHeights h;
+  h.sz_um = a.sz_um;
+  h.sv_um = a.sv_um;
+  h.sp_um = a.sp_um;
+  h.sa_um = a.sa_um;
+  h.ra_um = a.sa_um;
+  return h;
+}
+
+}  // namespace cuspmap

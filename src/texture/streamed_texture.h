@@ -1,0 +1,61 @@
+// Texture report of a heightfield too large to hold, built from two passes over its bands:
+// pass 1 the plane, extremes, overview and profile traces; pass 2 the residual moments. Sa, Sq,
+// Sp, Sv, Sz, Ssk, Sku are exact (the same as texture_report's to float rounding); profile
+// parameters come from axis-aligned traces of bounded length; Sdr, Sal, Str and the S/L areal
+// filters need the whole field and are left out with a warning.
+// Inputs: bands (um over mm cells), TextureOptions; output: TextureReport, overview.
+// Method: ISO 25178-2:2012 §3.1.8, §4.1; ISO 4287/4288 via fill_profile_report.
+#pragma once
+
+#include <cstdint>
+#include <optional>
+
+#include "core/heightfield.h"
+#include "texture/block_mean_overview.h"
+#include "texture/streaming_areal.h"
+#include "texture/streaming_profiles.h"
+#include "texture/texture_report.h"
+
+namespace cuspmap {
+
+/// Accumulates a streamed texture report over two passes of the same bands.
+class StreamedTexture {
+ public:
+  /// For a grid of nx x ny cells (origin and cell as the bands'), options as texture_report's.
+  StreamedTexture(int nx, int ny, double cell_mm, double origin_x_mm, double origin_y_mm,
+                  const TextureOptions& options, int threads);
+  /// Pass 1: a band whose first row is grid row j0.
+  void add_first_pass(const Heightfield& band, int j0);
+  /// Ends pass 1 (solves the plane). @throws InputError when no cell was finite.
+  void finish_first_pass();
+  /// Pass 2: the same band again (after finish_first_pass).
+  void add_second_pass(const Heightfield& band);
+  /// The report (after pass 2). @throws InputError when the traces are shorter than two of the
+  /// smallest cut-off.
+  TextureReport report() const;
+  /// Block-mean overview of the field (after pass 1).
+  Heightfield overview() const { return overview_.result(); }
+  /// Cells per overview block side.
+  int overview_cells_per_block() const { return overview_.cells_per_block(); }
+  /// Lowest and highest finite raw heights, um (after pass 1).
+  double min_um() const { return plane_.min_um; }
+  double max_um() const { return plane_.max_um; }  ///< see min_um
+  /// Finite cells seen in pass 1.
+  std::int64_t reached() const { return plane_.reached; }
+
+ private:
+  int nx_, ny_;
+  double cell_mm_;
+  TextureOptions options_;
+  int threads_;
+  double direction_deg_ = 0.0;
+  std::string direction_label_;
+  std::vector<std::string> warnings_;
+  StreamingPlane plane_;
+  Plane solved_;
+  BlockMeanOverview overview_;
+  std::optional<TraceCollector> traces_;
+  ArealMoments moments_;
+};
+
+}  // namespace cuspmap
