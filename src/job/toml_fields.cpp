@@ -5,6 +5,7 @@
 #include <cmath>
 
 #include "core/input_error.h"
+#include "job/validate_cutter.h"
 
 namespace cuspmap {
 namespace {
@@ -31,23 +32,28 @@ void TomlFields::fail(const toml::node& node, std::string_view table_name, std::
 double TomlFields::to_length_mm(const toml::node& node, std::string_view table_name,
                                 std::string_view key) const {
   const double factor = units_ == LengthUnit::Inch ? kMmPerInch : 1.0;
+  double mm = 0.0;
   if (const auto* v = node.as_floating_point()) {
     if (!std::isfinite(v->get())) fail(node, table_name, key, "must be a finite number");
-    // A huge inch value overflows to infinity once converted to mm.
-    if (!std::isfinite(v->get() * factor)) {
-      fail(node, table_name, key, format_number(v->get()) + ": out of range");
-    }
-    return v->get() * factor;
-  }
-  if (const auto* v = node.as_integer()) return static_cast<double>(v->get()) * factor;
-  if (const auto* v = node.as_string()) {
+    mm = v->get() * factor;
+    if (!std::isfinite(mm)) fail(node, table_name, key, format_number(v->get()) + ": out of range");
+  } else if (const auto* i = node.as_integer()) {
+    mm = static_cast<double>(i->get()) * factor;
+  } else if (const auto* t = node.as_string()) {
     try {
-      return parse_length_mm(v->get(), units_, full_name(table_name, key));
+      mm = parse_length_mm(t->get(), units_, full_name(table_name, key));
     } catch (const InputError& e) {
       throw InputError(where(node) + e.what());
     }
+  } else {
+    fail(node, table_name, key, "must be a length: a number or a string such as \"0.3mm\"");
   }
-  fail(node, table_name, key, "must be a length: a number or a string such as \"0.3mm\"");
+  // Bounds every job length (and feed): a 1e308 diameter would make passes of infinite length.
+  if (!(std::abs(mm) <= kMaxJobLengthMm)) {
+    fail(node, table_name, key,
+         format_number(mm) + " mm: must be within +-" + format_number(kMaxJobLengthMm) + " mm");
+  }
+  return mm;
 }
 
 std::optional<double> TomlFields::length_mm(const toml::table& table, std::string_view table_name,

@@ -16,10 +16,6 @@ namespace {
 // different tool (common practice, no source; real dish angles are 0.5-3 deg, from memory).
 constexpr double kMaxDishDeg = 45.0;
 
-// Largest coordinate or patch extent accepted, mm (1 km). Far beyond any machine table, and small
-// enough that cell centres (origin + i * cell) keep sub-nanometre resolution in a double.
-constexpr double kMaxCoordinateMm = 1e6;
-
 [[noreturn]] void reject(const std::string& name, double value, const char* unit,
                          const std::string& allowed) {
   throw InputError(name + " " + format_number(value) + unit + ": " + allowed);
@@ -53,6 +49,9 @@ void validate_cutter(const Cutter& c, NameStyle style) {
   require_finite(value_name(style, "tool", "runout_phase_deg", "runout-phase"),
                  c.runout_phase_deg);
   if (c.diameter_mm <= 0.0) reject(diameter, c.diameter_mm, " mm", "must be > 0");
+  if (c.diameter_mm > kMaxJobLengthMm) {
+    reject(diameter, c.diameter_mm, " mm", "must be <= " + format_number(kMaxJobLengthMm) + " mm");
+  }
   const double big_r = c.radius_mm();
   if (c.shape == CutterShape::BullNose &&
       (c.corner_radius_mm <= 0.0 || c.corner_radius_mm > big_r)) {
@@ -92,17 +91,17 @@ void validate_patch(const Patch& p, NameStyle style) {
   require_finite(origin, p.origin_x_mm);
   require_finite(origin, p.origin_y_mm);
   require_finite(floor_z, p.floor_z_mm);
-  const std::string within = "must be within +-" + format_number(kMaxCoordinateMm) + " mm";
-  const std::string at_most = "must be <= " + format_number(kMaxCoordinateMm) + " mm";
-  if (std::abs(p.origin_x_mm) > kMaxCoordinateMm) {
+  const std::string within = "must be within +-" + format_number(kMaxJobLengthMm) + " mm";
+  const std::string at_most = "must be <= " + format_number(kMaxJobLengthMm) + " mm";
+  if (std::abs(p.origin_x_mm) > kMaxJobLengthMm) {
     reject(origin + "[0]", p.origin_x_mm, " mm", within);
   }
-  if (std::abs(p.origin_y_mm) > kMaxCoordinateMm) {
+  if (std::abs(p.origin_y_mm) > kMaxJobLengthMm) {
     reject(origin + "[1]", p.origin_y_mm, " mm", within);
   }
-  if (std::abs(p.floor_z_mm) > kMaxCoordinateMm) reject(floor_z, p.floor_z_mm, " mm", within);
-  if (p.size_x_mm > kMaxCoordinateMm) reject(size + "[0]", p.size_x_mm, " mm", at_most);
-  if (p.size_y_mm > kMaxCoordinateMm) reject(size + "[1]", p.size_y_mm, " mm", at_most);
+  if (std::abs(p.floor_z_mm) > kMaxJobLengthMm) reject(floor_z, p.floor_z_mm, " mm", within);
+  if (p.size_x_mm > kMaxJobLengthMm) reject(size + "[0]", p.size_x_mm, " mm", at_most);
+  if (p.size_y_mm > kMaxJobLengthMm) reject(size + "[1]", p.size_y_mm, " mm", at_most);
   if (p.size_x_mm <= 0.0) reject(size + "[0]", p.size_x_mm, " mm", "must be > 0");
   if (p.size_y_mm <= 0.0) reject(size + "[1]", p.size_y_mm, " mm", "must be > 0");
   if (p.cell_mm <= 0.0) reject(cell, p.cell_mm, " mm", "must be > 0");

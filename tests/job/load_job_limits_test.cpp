@@ -5,6 +5,7 @@
 
 #include "core/input_error.h"
 #include "job/job.h"
+#include "job/validate_cutter.h"
 #include "test_support.h"
 
 using namespace cuspmap;
@@ -59,11 +60,27 @@ TEST_CASE("parse_job: an inch length that overflows once converted is out of ran
   CHECK(error_of(job_text("", "", "in", "1e308")) == "job.toml:13:12: path.stepover 1e+308: out of range");
 }
 
-TEST_CASE("parse_job: patch origin beyond 1e6 mm is refused", "[job]") {
+TEST_CASE("parse_job: any length beyond 1e6 mm is refused where it is written", "[job]") {
   CHECK(error_of(job_text("origin = [2e6, 0]\n", "")) ==
-        "job.toml: patch.origin[0] 2e+06 mm: must be within +-1e+06 mm");
+        "job.toml:5:11: patch.origin 2e+06 mm: must be within +-1e+06 mm");
   CHECK(error_of(job_text("floor_z = -3e6\n", "")) ==
-        "job.toml: patch.floor_z -3e+06 mm: must be within +-1e+06 mm");
+        "job.toml:5:11: patch.floor_z -3e+06 mm: must be within +-1e+06 mm");
+  // issue 8 fuzz finding (tests/fuzz/regressions/fuzz_path): a 1e308 mm ball built rasters of
+  // infinite length.
+  std::string text = job_text("", "");
+  text.replace(text.find("diameter = 6"), 12, "diameter = 1e308");
+  CHECK(error_of(text) == "job.toml:7:12: tool.diameter 1e+308 mm: must be within +-1e+06 mm");
+}
+
+TEST_CASE("validate_patch: origin beyond 1e6 mm from flags is refused", "[job]") {
+  Patch patch;
+  patch.origin_x_mm = 2e6;
+  try {
+    validate_patch(patch, NameStyle::Flag);
+    FAIL("no error");
+  } catch (const InputError& e) {
+    CHECK(std::string(e.what()) == "--origin[0] 2e+06 mm: must be within +-1e+06 mm");
+  }
 }
 
 TEST_CASE("parse_job: stepover at or past the tool diameter leaves strips uncut", "[job]") {
