@@ -3,6 +3,7 @@
 // Method: ISO 25178-71:2012 record layout; locale-free numbers.
 #include "io/heightmap_sdf.h"
 
+#include <algorithm>
 #include <cmath>
 #include <map>
 #include <vector>
@@ -103,6 +104,19 @@ Heightfield decode_sdf(std::string_view text, const std::string& name) {
       profiles != std::floor(profiles)) {
     throw InputError(name + ": NumPoints and NumProfiles must be whole numbers >= 1");
   }
+  // Bounds checked in double before any integer conversion (a huge count would be UB to cast).
+  for (const char* key : {"NumPoints", "NumProfiles"}) {
+    const auto& [v, line] = keys[key];
+    if (v > kMaxSdfPoints) {
+      throw InputError(name + ":" + std::to_string(line) + ": " + key + " " + format_number(v) +
+                       " is out of range; SDF allows 1 to 65535");
+    }
+  }
+  if (points * profiles > static_cast<double>(kMaxHeightmapCells)) {
+    throw InputError(name + ": NumPoints x NumProfiles = " + format_number(points * profiles) +
+                     " cells is over the limit of " + std::to_string(kMaxHeightmapCells) +
+                     " cells");
+  }
   if (keys.count("Compression") && keys["Compression"].first != 0.0) {
     throw InputError(name + ":" + std::to_string(keys["Compression"].second) +
                      ": Compression must be 0 (compressed SDF is not read)");
@@ -117,7 +131,9 @@ Heightfield decode_sdf(std::string_view text, const std::string& name) {
   const long nx = static_cast<long>(points), ny = static_cast<long>(profiles);
   const double to_um = zscale * kUmPerMetre;
   std::vector<float> values;
-  values.reserve(static_cast<size_t>(nx * ny));
+  // Each value takes at least two characters (digit and separator): never reserve more than the
+  // text can hold, whatever the header declares.
+  values.reserve(std::min(static_cast<size_t>(nx * ny), text.size() / 2 + 1));
   bool closed = false;
   for (++l; l < lines.size() && !closed; ++l) {
     for (std::string_view tok : split_fields(lines[l])) {

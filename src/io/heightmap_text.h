@@ -4,11 +4,18 @@
 // Method: std::from_chars / std::to_chars (shortest representation that reads back exactly).
 #pragma once
 
+#include <cstdint>
 #include <string>
 #include <string_view>
 #include <vector>
 
 namespace cuspmap {
+
+/// Most cells a heightmap file may declare (XYZ, SDF, X3P), checked in double before any
+/// integer conversion or allocation: 2^28 cells = 1 GiB of float heights, a 16384 x 16384 scan,
+/// beyond the frames of common areal instruments (common practice, no source) and far inside
+/// int grid sides; a larger declaration is a damaged or hostile header, not a surface.
+inline constexpr std::int64_t kMaxHeightmapCells = std::int64_t{1} << 28;
 
 /// Parses one height token: a decimal number, or NaN / nan / BAD (ISO 25178-71's invalid
 /// point) / an empty field, which give NaN.

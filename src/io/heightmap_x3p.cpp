@@ -5,11 +5,13 @@
 
 #include <zip.h>
 
+#include <algorithm>
 #include <bit>
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
 #include <cstring>
+#include <memory>
 #include <pugixml.hpp>
 #include <sstream>
 #include <stdexcept>
@@ -63,19 +65,42 @@ void add_axis(pugi::xml_node axes, const char* name, const char* type, const cha
   add_text(a, "Offset", offset);
 }
 
-std::string read_entry(zip_t* za, const char* entry, const std::string& name) {
+// Closes a read-only archive on every path out of decode_x3p, throws included.
+struct ZipDiscard {
+  void operator()(zip_t* za) const { zip_discard(za); }
+};
+using ZipPtr = std::unique_ptr<zip_t, ZipDiscard>;
+
+// main.xml holds four short records; 16 MiB is far beyond any real one (common practice, no
+// source) and keeps a forged directory size from allocating gigabytes.
+constexpr zip_uint64_t kMaxMainXmlBytes = zip_uint64_t{16} << 20;
+// Entries are read in pieces of this size, so memory follows the bytes really inflated.
+constexpr zip_uint64_t kReadChunkBytes = zip_uint64_t{1} << 20;
+
+// Size the zip directory declares for an entry; throws when the entry is missing.
+zip_uint64_t entry_size(zip_t* za, const char* entry, const std::string& name) {
   zip_stat_t st;
   zip_stat_init(&st);
   if (zip_stat(za, entry, 0, &st) != 0 || !(st.valid & ZIP_STAT_SIZE)) {
-    zip_discard(za);
     throw InputError(name + ": X3P archive has no " + std::string(entry));
   }
-  std::string out(static_cast<size_t>(st.size), '\0');
-  zip_file_t* f = zip_fopen(za, entry, 0);
-  const zip_int64_t got = f ? zip_fread(f, out.data(), st.size) : -1;
-  if (f) zip_fclose(f);
-  if (got != static_cast<zip_int64_t>(st.size)) {
-    zip_discard(za);
+  return st.size;
+}
+
+// Reads an entry whose declared size the caller has bounded, chunk by chunk.
+std::string read_entry(zip_t* za, const char* entry, zip_uint64_t size, const std::string& name) {
+  std::unique_ptr<zip_file_t, int (*)(zip_file_t*)> f(zip_fopen(za, entry, 0), &zip_fclose);
+  std::string out;
+  bool ok = f != nullptr;
+  while (ok && out.size() < size) {
+    const size_t at = out.size();
+    const zip_uint64_t want = std::min<zip_uint64_t>(kReadChunkBytes, size - at);
+    out.resize(at + static_cast<size_t>(want));
+    const zip_int64_t got = zip_fread(f.get(), out.data() + at, want);
+    ok = got > 0;
+    out.resize(at + static_cast<size_t>(std::max<zip_int64_t>(got, 0)));
+  }
+  if (!ok || out.size() != size) {
     throw InputError(name + ": X3P entry " + std::string(entry) + " cannot be read (damaged zip)");
   }
   return out;
@@ -188,23 +213,24 @@ Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
   zip_error_t err;
   zip_error_init(&err);
   zip_source_t* src = zip_source_buffer_create(bytes.data(), bytes.size(), 0, &err);
-  zip_t* za = src ? zip_open_from_source(src, ZIP_RDONLY, &err) : nullptr;
+  ZipPtr za(src ? zip_open_from_source(src, ZIP_RDONLY, &err) : nullptr);
   if (!za) {
     if (src) zip_source_free(src);
     throw InputError(name + ": not an X3P file (not a zip archive)");
   }
-  const std::string xml = read_entry(za, "main.xml", name);
+  const zip_uint64_t xml_size = entry_size(za.get(), "main.xml", name);
+  if (xml_size > kMaxMainXmlBytes) {
+    throw InputError(name + ": X3P entry main.xml declares " + std::to_string(xml_size) +
+                     " bytes; at most " + std::to_string(kMaxMainXmlBytes) + " are allowed");
+  }
+  const std::string xml = read_entry(za.get(), "main.xml", xml_size, name);
   pugi::xml_document doc;
   const pugi::xml_parse_result parsed = doc.load_buffer(xml.data(), xml.size());
   if (!parsed) {
-    zip_discard(za);
     throw InputError(name + ": main.xml is not well-formed XML (" + parsed.description() + ")");
   }
   const pugi::xml_node root = doc.document_element();
-  auto fail = [&](const std::string& what) {
-    zip_discard(za);
-    throw InputError(name + ": main.xml " + what);
-  };
+  auto fail = [&](const std::string& what) { throw InputError(name + ": main.xml " + what); };
   const char* rn = std::strrchr(root.name(), ':');
   if (std::strcmp(rn ? rn + 1 : root.name(), "ISO5436_2") != 0)
     fail("root element is not ISO5436_2");
@@ -222,6 +248,10 @@ Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
       number_or(text_at(root, {"Record3", "MatrixDimension", "SizeZ"}), 1, name, "SizeZ");
   if (sx < 1 || sy < 1 || sx != std::floor(sx) || sy != std::floor(sy))
     fail("SizeX and SizeY must be whole numbers >= 1");
+  if (sx * sy > static_cast<double>(kMaxHeightmapCells)) {
+    fail("SizeX x SizeY = " + format_number(sx * sy) + " cells is over the limit of " +
+         std::to_string(kMaxHeightmapCells) + " cells");
+  }
   if (sz != 1) fail("SizeZ " + format_number(sz) + " is not 1 (layered data is not read)");
   const double inc_x =
       number_or(text_at(root, {"Record1", "Axes", "CX", "Increment"}), -1, name, "CX Increment");
@@ -252,14 +282,15 @@ Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
     fail("CZ DataType '" + type + "' is not I, L, F or D");
   const std::string expected_md5 =
       trimmed(text_at(root, {"Record3", "DataLink", "MD5ChecksumPointData"}));
-  const std::string data = read_entry(za, link.c_str(), name);
-  zip_discard(za);
   const long nx = static_cast<long>(sx), ny = static_cast<long>(sy);
-  if (data.size() != static_cast<size_t>(nx * ny) * item) {
-    throw InputError(name + ": " + link + " holds " + std::to_string(data.size()) +
-                     " bytes, SizeX x SizeY of type " + type + " needs " +
-                     std::to_string(static_cast<size_t>(nx * ny) * item));
+  const zip_uint64_t need = static_cast<zip_uint64_t>(nx * ny) * item;
+  const zip_uint64_t declared = entry_size(za.get(), link.c_str(), name);
+  if (declared != need) {
+    throw InputError(name + ": " + link + " holds " + std::to_string(declared) +
+                     " bytes, SizeX x SizeY of type " + type + " needs " + std::to_string(need));
   }
+  const std::string data = read_entry(za.get(), link.c_str(), need, name);
+  za.reset();
   if (!expected_md5.empty()) {
     std::string want = expected_md5;
     for (char& c : want) c = static_cast<char>(std::tolower(static_cast<unsigned char>(c)));

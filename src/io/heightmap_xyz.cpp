@@ -31,6 +31,10 @@ double smallest_gap(std::vector<double> v) {
   return gap;
 }
 
+// A scan fills most of its grid; a grid with more than 64 cells per point (under 2 % filled) is
+// a stray point far from the scan, not a surface (common practice, no source).
+constexpr double kMaxXyzCellsPerPoint = 64.0;
+
 }  // namespace
 
 std::string encode_xyz(const Heightfield& hf) {
@@ -87,12 +91,23 @@ Heightfield decode_xyz(std::string_view text, const std::string& name) {
   const double y0 = *std::min_element(ys.begin(), ys.end());
   const double x1 = *std::max_element(xs.begin(), xs.end());
   const double y1 = *std::max_element(ys.begin(), ys.end());
-  const long nx = std::lround((x1 - x0) / cell) + 1, ny = std::lround((y1 - y0) / cell) + 1;
-  constexpr long kMaxCells = 1L << 31;
-  if (nx * ny > kMaxCells) {
-    throw InputError(name + ": grid of " + std::to_string(nx) + " x " + std::to_string(ny) +
-                     " cells (cell " + format_number(cell) + " mm) is too large");
+  // Counts in double, bounded before any integer conversion (a far point would overflow lround
+  // and nx * ny).
+  const double nx_d = std::floor((x1 - x0) / cell + 0.5) + 1.0;
+  const double ny_d = std::floor((y1 - y0) / cell + 0.5) + 1.0;
+  const double cells_d = nx_d * ny_d;
+  const std::string grid = format_number(nx_d) + " x " + format_number(ny_d) + " cells (cell " +
+                           format_number(cell) + " mm)";
+  if (!(cells_d <= static_cast<double>(kMaxHeightmapCells))) {
+    throw InputError(name + ": grid of " + grid + " is over the limit of " +
+                     std::to_string(kMaxHeightmapCells) + " cells");
   }
+  if (cells_d > kMaxXyzCellsPerPoint * static_cast<double>(pts.size())) {
+    throw InputError(name + ": grid of " + grid + " for " + std::to_string(pts.size()) +
+                     " points; at most " + format_number(kMaxXyzCellsPerPoint) +
+                     " cells per point are allowed (is a point far off the scan?)");
+  }
+  const long nx = static_cast<long>(nx_d), ny = static_cast<long>(ny_d);
   Heightfield hf;
   hf.nx = static_cast<int>(nx);
   hf.ny = static_cast<int>(ny);

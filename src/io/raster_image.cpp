@@ -3,6 +3,8 @@
 // Method: Liang & Barsky 1984 parametric clipping, then Bresenham 1965 integer stepping.
 #include "io/raster_image.h"
 
+#include "core/clip_segment.h"
+
 #include <algorithm>
 #include <cmath>
 #include <cstdlib>
@@ -14,31 +16,6 @@ namespace {
 // ITU-R BT.601 luma, in integer thousandths so gray inputs map to themselves exactly.
 std::uint8_t luma(Color c) {
   return static_cast<std::uint8_t>((299 * c.r + 587 * c.g + 114 * c.b + 500) / 1000);
-}
-
-// Clips the parametric segment p0 + t (p1 - p0), t in [0, 1], to [lo, hi] on both axes.
-// Returns false when nothing is left; t0/t1 narrow to the visible part.
-bool clip_segment(double x0, double y0, double x1, double y1, double lo_x, double hi_x, double lo_y,
-                  double hi_y, double& t0, double& t1) {
-  const double dx = x1 - x0, dy = y1 - y0;
-  const double p[4] = {-dx, dx, -dy, dy};
-  const double q[4] = {x0 - lo_x, hi_x - x0, y0 - lo_y, hi_y - y0};
-  t0 = 0.0;
-  t1 = 1.0;
-  for (int k = 0; k < 4; ++k) {
-    if (p[k] == 0.0) {
-      if (q[k] < 0.0) return false;  // parallel to this edge and outside it
-      continue;
-    }
-    const double t = q[k] / p[k];
-    if (p[k] < 0.0) {
-      t0 = std::max(t0, t);
-    } else {
-      t1 = std::min(t1, t);
-    }
-    if (t0 > t1) return false;
-  }
-  return true;
 }
 
 }  // namespace

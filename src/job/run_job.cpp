@@ -35,7 +35,14 @@ std::string no_move_message(const Job& job) {
 // copies of the texture report (measured: a 400 MB grid peaked at 5.7 GB RSS, 14 grids).
 constexpr std::int64_t kInMemoryGrids = 16;
 
+// Largest floor streamed: 4 x the 200 x 200 mm at 2 um case (1e10 cells, ~2 min CPU); beyond
+// it a run would take hours, so it is refused by the in-memory grid check with its estimate.
+constexpr double kMaxStreamedCells = 4e10;
+
 bool should_stream(const Patch& patch, const RunOptions& options) {
+  std::int64_t nx = 0, ny = 0;
+  grid_dimensions(patch, nx, ny);
+  if (static_cast<double>(nx) * static_cast<double>(ny) > kMaxStreamedCells) return false;
   if (options.stream == StreamMode::Always) return true;
   if (options.stream == StreamMode::Never) return false;
   const std::int64_t limit = options.max_memory_bytes > 0 ? options.max_memory_bytes

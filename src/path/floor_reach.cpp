@@ -3,6 +3,8 @@
 // Method: unimodal p(r) (DESIGN.md "Geometry"); Liang & Barsky (1984) parametric line clipping.
 #include "path/floor_reach.h"
 
+#include "core/clip_segment.h"
+
 #include <algorithm>
 #include <cmath>
 #include <numbers>
@@ -29,24 +31,12 @@ bool move_reaches_floor(const Move& move, const Patch& patch, const Cutter& cutt
                       box.lo_mm.y() <= y_hi;
     return over && std::min(move.start_mm.z(), move.end_mm.z()) < z_limit;
   }
-  // Liang-Barsky: the parameter interval [t0, t1] where the segment lies in the grown box.
+  // The parameter interval [t0, t1] where the segment lies in the grown box.
   const Eigen::Vector3d d = move.end_mm - move.start_mm;
   double t0 = 0.0, t1 = 1.0;
-  const double p[4] = {-d.x(), d.x(), -d.y(), d.y()};
-  const double q[4] = {move.start_mm.x() - x_lo, x_hi - move.start_mm.x(),
-                       move.start_mm.y() - y_lo, y_hi - move.start_mm.y()};
-  for (int k = 0; k < 4; ++k) {
-    if (p[k] == 0.0) {
-      if (q[k] < 0.0) return false;  // parallel to this edge and outside it
-      continue;
-    }
-    const double t = q[k] / p[k];
-    if (p[k] < 0.0) {
-      t0 = std::max(t0, t);
-    } else {
-      t1 = std::min(t1, t);
-    }
-    if (t0 > t1) return false;
+  if (!clip_segment(move.start_mm.x(), move.start_mm.y(), move.end_mm.x(), move.end_mm.y(), x_lo,
+                    x_hi, y_lo, y_hi, t0, t1)) {
+    return false;
   }
   const double z0 = move.start_mm.z() + t0 * d.z(), z1 = move.start_mm.z() + t1 * d.z();
   return std::min(z0, z1) < z_limit;
