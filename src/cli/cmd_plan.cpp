@@ -17,6 +17,7 @@
 #include "io/plan_csv.h"
 #include "io/plan_svg.h"
 #include "job/job.h"
+#include "job/validate_cutter.h"
 
 namespace cuspmap {
 namespace {
@@ -132,6 +133,10 @@ PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
   if (xy.size() != 2) throw InputError("--size " + o.size + ": expected two lengths, e.g. 120x80");
   r.patch.size_x_mm = parse_positive_length(xy[0], units, "--size", "must be > 0");
   r.patch.size_y_mm = parse_positive_length(xy[1], units, "--size", "must be > 0");
+  if (std::max(r.patch.size_x_mm, r.patch.size_y_mm) > kMaxJobLengthMm) {
+    throw InputError("--size " + o.size + ": each side must be <= " +
+                     format_number(kMaxJobLengthMm) + " mm (1 km)");
+  }
   if (o.feed.empty())
     throw InputError("--feed is missing: give the cutting feed, e.g. 1500 (mm/min)");
   r.cut.feed_mm_per_min = parse_positive_length(o.feed, units, "--feed", "must be > 0 per minute");

@@ -200,6 +200,13 @@ CuspSetup read_setup(const StepoverOptions& o, const Given& given, LengthUnit un
       throw InputError("--surface-radius is required for --surface " + o.surface);
     }
     setup.surface_radius_mm = positive_length_mm(o.surface_radius, unit, "--surface-radius");
+    if (setup.surface == SurfaceKind::Concave &&
+        setup.surface_radius_mm <= setup.cutter.radius_mm()) {
+      throw InputError("--surface-radius " + format_number(setup.surface_radius_mm) +
+                       " mm: must be larger than the ball radius " +
+                       format_number(setup.cutter.radius_mm()) +
+                       " mm (a ball cannot follow a tighter concave surface)");
+    }
     if (given("--slope")) {
       throw InputError(
           "--slope applies to --surface flat only (a cylinder's slope changes "
@@ -226,6 +233,9 @@ void run_milling(const StepoverOptions& o, const Given& given, LengthUnit unit,
       single_mode(given, {"--stepover", "--target-scallop", "--target-ra", "--target-rz"});
   if (mode == "--stepover") {
     rep.cusp = cross_feed_cusp(setup, positive_length_mm(o.stepover, unit, "--stepover"));
+    if (rep.cusp.limit == CuspLimit::PassesDoNotOverlap) {
+      throw InputError(no_overlap_message(setup, rep.cusp.stepover_mm));
+    }
   } else {
     const FinishTarget t = target_kind(mode);
     const double target_um = target_value_um(o, mode, unit);

@@ -113,6 +113,10 @@ double parse_area_mm2(std::string_view text, LengthUnit units, std::string_view 
     throw InputError(name + " " + std::string(text) +
                      ": must be > 0 (an area such as 9600, 96cm2, 120x80 or 4.7inx3.1in)");
   }
+  if (!(area <= kMaxJobLengthMm * kMaxJobLengthMm)) {
+    throw InputError(name + " " + std::string(text) + ": must be <= " +
+                     format_number(kMaxJobLengthMm * kMaxJobLengthMm) + " mm2 (1 km2)");
+  }
   return area;
 }
 

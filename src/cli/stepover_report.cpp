@@ -9,6 +9,7 @@
 #include <sstream>
 
 #include "cusp/iso1302_grade.h"
+#include "cusp/scallop_curved.h"
 
 namespace cuspmap {
 namespace {
@@ -76,29 +77,6 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
   const CuspSetup& s = rep.setup;
   const Cutter& c = s.cutter;
   const double big_r = c.radius_mm(), rc = c.effective_corner_mm();
-  if (r.limit == CuspLimit::PassesDoNotOverlap) {
-    if (s.surface == SurfaceKind::Plane) {
-      std::string why = c.shape == CutterShape::Ball
-                            ? "the cusp would be deeper than the ball radius"
-                        : c.shape == CutterShape::BullNose
-                            ? "the cusp would be deeper than the corner radius " + length(rc, unit)
-                            : "a flat end mill leaves strips as high as the stock";
-      m.warnings.push_back("stepover " + length(r.stepover_mm, unit) + " >= tool diameter " +
-                           length(c.diameter_mm, unit) +
-                           ": neighbouring passes leave uncut strips (" + why +
-                           "); the heights shown are lower bounds");
-    } else {
-      m.warnings.push_back("stepover " + length(r.stepover_mm, unit) +
-                           " along the surface: neighbouring tool circles no longer meet; uncut "
-                           "strips remain and the heights shown are lower bounds");
-    }
-  }
-  if (r.limit == CuspLimit::ToolTooLargeForConcave) {
-    m.warnings.push_back("--surface-radius " + length(s.surface_radius_mm, unit) +
-                         " is not larger than the ball radius " + length(big_r, unit) +
-                         ": the ball cannot follow this concave surface (it leaves its own radius "
-                         "or gouges); no cusp is computed");
-  }
   if (r.profile_overhangs) {
     m.warnings.push_back(
         "on this slope part of the cusp leans over the surface; Ra and Rq are "
@@ -280,6 +258,20 @@ std::string stepover_table(const StepoverReport& rep) {
   for (const std::string& n : m.notes) out << "note: " << n << '\n';
   out << "caution: " << kCaution << '\n';
   return out.str();
+}
+
+std::string no_overlap_message(const CuspSetup& setup, double stepover_mm) {
+  const Cutter& c = setup.cutter;
+  const std::string head = "--stepover " + format_number(stepover_mm) + " mm: ";
+  if (setup.surface == SurfaceKind::Plane) {
+    return head + "must be < the tool diameter " + format_number(c.diameter_mm) +
+           " mm (wider passes leave uncut strips between them)";
+  }
+  const bool convex = setup.surface == SurfaceKind::Convex;
+  return head + "must be <= " +
+         format_number(curved_reach_mm(c.radius_mm(), setup.surface_radius_mm, convex)) +
+         " mm along this " + (convex ? "convex" : "concave") +
+         " surface (beyond it neighbouring tool circles no longer meet and leave uncut strips)";
 }
 
 std::string unreachable_message(const CuspSetup& setup, const std::string& flag,

@@ -43,6 +43,11 @@ std::string stepover_table(const StepoverReport& rep);
 std::string unreachable_message(const CuspSetup& setup, const std::string& flag,
                                 FinishTarget target, double target_um, const StepoverSolution& sol);
 
+/// One-line error for a --stepover whose neighbouring passes no longer overlap (uncut strips
+/// between them): names the stepover and the largest allowed (the diameter, or the reach of the
+/// tool circles along a cylinder).
+std::string no_overlap_message(const CuspSetup& setup, double stepover_mm);
+
 /// Conventions and examples shown at the end of `cuspmap stepover --help`.
 std::string stepover_help_footer();
 

@@ -5,6 +5,9 @@
 #include "path/gcode_block.h"
 
 #include <cmath>
+#include <string_view>
+
+#include "path/path_limits.h"
 
 namespace cuspmap {
 namespace {
@@ -187,6 +190,11 @@ class BlockSorter {
     v.text = w.text;
     if (w.letter == 'F' && !(w.value > 0.0)) fail(w.text, "feed rate must be > 0 (per minute, G94)");
     if (w.letter == 'S' && w.value < 0.0) fail(w.text, "spindle speed must be >= 0 rev/min");
+    if (std::string_view("XYZIJKR").find(w.letter) != std::string_view::npos &&
+        !(std::abs(w.value) <= kMaxGcodeCoordinate)) {
+      fail(w.text, "coordinates must lie within +-1000000 program units (1 km in mm); a larger "
+                   "number is a corrupt or mis-scaled program");
+    }
     if (w.letter == 'T' && (w.value < 0.0 || std::abs(w.value - std::round(w.value)) >
                                                  kCodeIntegerTolerance)) {
       fail(w.text, "a tool number is a whole number >= 0");

@@ -21,4 +21,9 @@ inline constexpr std::size_t kMaxGcodeLineChars = 4096;
 /// so comment-heavy programs fit while a runaway file stops in seconds, not minutes.
 inline constexpr long long kMaxGcodeLines = 40'000'000;
 
+/// Largest magnitude of a G-code coordinate or arc word (X Y Z I J K R), in the program's units:
+/// 1e6 (1 km in mm) matches the job file's length bound, so path lengths and cycle times stay
+/// finite and meaningful; a larger number is a corrupt or mis-scaled program.
+inline constexpr double kMaxGcodeCoordinate = 1e6;
+
 }  // namespace cuspmap

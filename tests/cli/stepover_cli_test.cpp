@@ -132,22 +132,30 @@ TEST_CASE("stepover: turning feed marks with --tool insert", "[cli]") {
   REQUIRE(j["tool"]["shape"] == "insert");
 }
 
-TEST_CASE("stepover: warnings outside the model, exit 0", "[cli]") {
-  const nlohmann::json flat = run_json({"--tool", "flat", "--diameter", "6", "--stepover", "7"});
-  REQUIRE(flat["within_model"] == false);
-  REQUIRE(flat["warnings"][0] ==
-          "stepover 7 mm >= tool diameter 6 mm: neighbouring passes leave uncut strips (a flat "
-          "end mill leaves strips as high as the stock); the heights shown are lower bounds");
-  const nlohmann::json bull = run_json(
-      {"--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--stepover", "11"});
-  REQUIRE(bull["warnings"][0].get<std::string>().find(
-              "the cusp would be deeper than the corner radius 1 mm") != std::string::npos);
-  const nlohmann::json cave = run_json(
-      {"--diameter", "6", "--surface", "concave", "--surface-radius", "2", "--stepover", "0.5"});
-  REQUIRE(cave["warnings"][0] ==
-          "--surface-radius 2 mm is not larger than the ball radius 3 mm: the ball cannot follow "
-          "this concave surface (it leaves its own radius or gouges); no cusp is computed");
-  REQUIRE(cave["effective_radius_mm"].is_null());
+TEST_CASE("stepover: passes that no longer overlap are refused, exit 2", "[cli]") {
+  // Issue 8: degenerate geometry is an input error, not a warning with lower-bound numbers.
+  const auto flat = run_cuspmap({"stepover", "--tool", "flat", "--diameter", "6", "--stepover", "7"});
+  REQUIRE(flat.exit_code == 2);
+  REQUIRE(flat.err ==
+          "cuspmap: error: --stepover 7 mm: must be < the tool diameter 6 mm (wider passes leave "
+          "uncut strips between them)\n");
+  REQUIRE(flat.out.empty());
+  // s = D exactly: neighbouring circles touch at one point; the strip between is uncut.
+  const auto touch = run_cuspmap({"stepover", "--diameter", "6", "--stepover", "6"});
+  REQUIRE(touch.exit_code == 2);
+  // Convex cylinder: reach 2 rho asin(R / (rho + R)) = 2*10*asin(3/13) = 4.6571 mm (Lin & Koren
+  // 1996 geometry, scallop_curved.h).
+  const auto vex = run_cuspmap({"stepover", "--diameter", "6", "--surface", "convex",
+                                "--surface-radius", "10", "--stepover", "5"});
+  REQUIRE(vex.exit_code == 2);
+  REQUIRE(vex.err.find("--stepover 5 mm: must be <= 4.657") != std::string::npos);
+  REQUIRE(vex.err.find("convex surface") != std::string::npos);
+  const auto cave = run_cuspmap({"stepover", "--diameter", "6", "--surface", "concave",
+                                 "--surface-radius", "2", "--stepover", "0.5"});
+  REQUIRE(cave.exit_code == 2);
+  REQUIRE(cave.err ==
+          "cuspmap: error: --surface-radius 2 mm: must be larger than the ball radius 3 mm (a "
+          "ball cannot follow a tighter concave surface)\n");
 }
 
 TEST_CASE("stepover: human table in mm and in inches", "[cli]") {
