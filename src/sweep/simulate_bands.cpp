@@ -67,7 +67,9 @@ void simulate_bands(const Cutter& cutter, const Toolpath& path, const CutSpec& c
   const SweepMode mode = sim.tooth_marks ? SweepMode::Teeth : SweepMode::Envelope;
   const double cell = setup.cell_mm, reach = setup.envelope.reach_mm;
   const double band_h = plan.band_rows * cell;
-  const int tile_rows_per_band = plan.band_rows / tiles.tile_rows;
+  // Rounded up: a single band of all ny rows need not be a whole number of tile rows, and its
+  // last, partial tile row must be swept too.
+  const int tile_rows_per_band = (plan.band_rows + tiles.tile_rows - 1) / tiles.tile_rows;
 
   // First level of the index: each move in the bands its reach box crosses (path order kept).
   std::vector<std::vector<int>> band_moves(plan.bands);
