@@ -103,3 +103,20 @@ TEST_CASE("simulate --npy: refused in one line when the --out disk cannot hold t
   CHECK(std::count(run.err.begin(), run.err.end(), '\n') == 1);
   CHECK(names_in(out).empty());  // nothing written
 }
+
+TEST_CASE("simulate --stream --npy: a run that fails mid-sweep leaves no height.npy or temp",
+          "[cli]") {
+  TempDir dir;
+  // The passes run 50 mm above the floor: no move reaches it, which is known only after pass 1
+  // has streamed every band into the temp height.npy.
+  std::string job = read_text(cuspmap::test::source_path(kJob));
+  job.replace(job.find("depth = 0"), 9, "depth = 50");
+  cuspmap::test::write_text(dir.file("job.toml"), job);
+  const std::string out = dir.file("out");
+  const auto run = run_cuspmap(
+      {"simulate", dir.file("job.toml"), "--out", out, "--stream", "--npy", "--max-memory", "4MiB"});
+  INFO(run.err);
+  CHECK(run.exit_code == 2);
+  CHECK(run.err.find("no move of the path reaches the patch") != std::string::npos);
+  CHECK(names_in(out).empty());
+}

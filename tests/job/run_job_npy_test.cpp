@@ -6,6 +6,7 @@
 #include <cmath>
 #include <optional>
 
+#include "core/input_error.h"
 #include "io/npy.h"
 #include "io/npy_band_writer.h"
 #include "io/simulation_pictures.h"
@@ -124,6 +125,29 @@ TEST_CASE("run_job: streamed centre traces are the in-memory floor's, so profile
   CHECK(qb.profile_png == qa.profile_png);
   CHECK(qb.profile_caption == qa.profile_caption);
   CHECK(qb.height_npy.empty());  // streamed: written band by band by the caller, never here
+}
+
+}  // namespace cuspmap
+
+namespace cuspmap {
+
+TEST_CASE("run_job: stream_begin can refuse a streamed run before any band is swept", "[job]") {
+  RunOptions streamed;
+  streamed.threads = 1;
+  streamed.stream = StreamMode::Always;
+  int bands = 0;
+  streamed.stream_begin = [](int nx, int ny) {
+    throw InputError("refused " + std::to_string(nx) + " x " + std::to_string(ny));
+  };
+  streamed.stream_band = [&](const Heightfield&, int) { ++bands; };
+  // 6 x 4 mm at 5 um: 1200 columns, 800 rows.
+  REQUIRE_THROWS_WITH(run_job(pump_cover_job(), streamed), "refused 1200 x 800");
+  CHECK(bands == 0);
+  // In memory the hooks are never called.
+  RunOptions mem = streamed;
+  mem.stream = StreamMode::Never;
+  CHECK_NOTHROW(run_job(pump_cover_job(), mem));
+  CHECK(bands == 0);
 }
 
 }  // namespace cuspmap
