@@ -140,8 +140,8 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   std::optional<NpyBandWriter> npy;
   if (o.npy) {
     ropt.stream_begin = [&](int nx, int ny) {
-      require_free_space("--npy: height.npy", npy_file_bytes(ny, nx), free_space_bytes(dir.path()),
-                         dir.path());
+      require_free_space("--npy: height.npy", npy_file_bytes(ny, nx),
+                         free_space_bytes(dir.path()), dir.path());
       npy.emplace(dir.path_of("height.npy"), nx, ny);
     };
     ropt.stream_band = [&](const Heightfield& band, int j0) { npy->append(band, j0); };
@@ -219,7 +219,7 @@ void setup_simulate(CLI::App& sub) {
   sub.add_flag("--tooth-marks", o->tooth_marks, "With --gcode: sweep tooth by tooth");
   sub.add_flag("--stream", o->stream,
                "Sweep in bands even when the grid fits the memory limit (automatic above it)");
-  // Reason for the flag: a streamed floor's .npy can be tens of GB; it is written only on request.
+  // Reason for the flag: a streamed floor's .npy can be tens of GB, so it is written on request.
   sub.add_flag("--npy", o->npy,
                "Also write height.npy when the floor is streamed (band by band; refused when the "
                "--out disk lacks room); in-memory runs always write it");

@@ -257,8 +257,8 @@ TEST_CASE("simulate --stream --npy: a signal while height.npy streams leaves no 
     const std::string out = dir.file("out" + std::to_string(sig));
     fs::create_directories(out);
     write_text(out + "/" + kForeignName, kForeignText);
-    const int ended_by =
-        interrupt_run(dir.file("job.toml"), out, sig, {"--stream", "--npy", "--max-memory", "4MiB"});
+    const int ended_by = interrupt_run(dir.file("job.toml"), out, sig,
+                                       {"--stream", "--npy", "--max-memory", "4MiB"});
     CHECK((ended_by == sig || ended_by == 0));
     check_folder_after(out);
   }

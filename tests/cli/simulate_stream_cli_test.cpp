@@ -113,8 +113,8 @@ TEST_CASE("simulate --stream --npy: a run that fails mid-sweep leaves no height.
   job.replace(job.find("depth = 0"), 9, "depth = 50");
   cuspmap::test::write_text(dir.file("job.toml"), job);
   const std::string out = dir.file("out");
-  const auto run = run_cuspmap(
-      {"simulate", dir.file("job.toml"), "--out", out, "--stream", "--npy", "--max-memory", "4MiB"});
+  const auto run = run_cuspmap({"simulate", dir.file("job.toml"), "--out", out, "--stream",
+                                "--npy", "--max-memory", "4MiB"});
   INFO(run.err);
   CHECK(run.exit_code == 2);
   CHECK(run.err.find("no move of the path reaches the patch") != std::string::npos);

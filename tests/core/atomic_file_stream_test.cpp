@@ -107,7 +107,7 @@ TEST_CASE("AtomicFileStream: SIGINT or SIGTERM mid-write removes the temp file",
       cuspmap::install_temp_cleanup_handlers();
       AtomicFileStream file(dir.file("height.npy"));
       file.append(std::string(4096, 'x'));
-      if (!has_temp(dir)) _exit(3);  // the temp must exist before the signal for the test to mean anything
+      if (!has_temp(dir)) _exit(3);  // no temp before the signal: the test would prove nothing
       raise(sig);
       _exit(4);  // not reached: the handler re-raises with the default action
     }
