@@ -1,8 +1,10 @@
 // `cuspmap simulate JOB.toml --out DIR` (or `--gcode FILE` with tool flags): runs the pipeline
-// and writes height.npy, height.png, shaded.png, profile.png and report.json (+ an HTML page).
+// and writes height.npy, height.png, shaded.png, profile.png and report.json (+ an HTML page);
+// a streamed floor writes height.npy only with --npy, band by band, after a free-space check.
 // cli/ holds no computation: flags -> job/ -> run_job -> io/ encoders -> OutputDir.
 #include <cstdio>
 #include <memory>
+#include <optional>
 #include <string>
 
 #include "cli/command.h"
@@ -10,10 +12,13 @@
 #include "cli/progress_bar.h"
 #include "cli/sim_flags.h"
 #include "cli/texture_flags.h"
+#include "core/free_space.h"
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "core/write_file_atomic.h"
 #include "io/html_report.h"
+#include "io/npy.h"
+#include "io/npy_band_writer.h"
 #include "io/simulation_pictures.h"
 #include "job/job.h"
 #include "job/run_job.h"
@@ -42,6 +47,7 @@ struct SimulateOptions {
   bool tooth_marks = false;
   bool units_given = false;
   bool stream = false;
+  bool npy = false;
 };
 
 // A Job from --gcode and the tool flags (no job file).
@@ -129,6 +135,17 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   ropt.texture = texture_options(o.texture, units);
   const auto range = parse_height_range(o.sim.range, units);
   OutputDir dir(o.out);  // created only once the inputs are known to be good
+  // A streamed floor is never held whole: with --npy its height.npy is written band by band as
+  // the first pass produces them, once the disk is known to have room for it.
+  std::optional<NpyBandWriter> npy;
+  if (o.npy) {
+    ropt.stream_begin = [&](int nx, int ny) {
+      require_free_space("--npy: height.npy", npy_file_bytes(ny, nx),
+                         free_space_bytes(dir.path()), dir.path());
+      npy.emplace(dir.path_of("height.npy"), nx, ny);
+    };
+    ropt.stream_band = [&](const Heightfield& band, int j0) { npy->append(band, j0); };
+  }
   JobRun run;
   {
     ProgressBar bar("sweep");
@@ -140,12 +157,18 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   print_stage(o.common.verbose, "texture", run.texture_s);
   StageTimer write;
   const SimulationPictures pics = render_simulation_pictures(run, units, range);
-  // A streamed floor was never held whole: its pictures show the block-mean overview, and
-  // neither the full-resolution height.npy nor the overview's profile traces are written.
-  if (!run.streamed) dir.write("height.npy", pics.height_npy);
+  // A streamed floor's pictures show the block-mean overview and its profile.png the centre
+  // traces copied at full resolution from the bands; its height.npy (only with --npy) is
+  // already on disk under a temp name and is published here.
+  if (!run.streamed) {
+    dir.write("height.npy", pics.height_npy);
+  } else if (npy) {
+    npy->commit();
+    dir.add_committed("height.npy");
+  }
   dir.write("height.png", pics.height_png);
   dir.write("shaded.png", pics.shaded_png);
-  if (!pics.profile_png.empty() && !run.streamed) dir.write("profile.png", pics.profile_png);
+  if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
   if (!o.report_html.empty()) {
     write_file_atomic(o.report_html,
                       render_html_report(simulation_html_report(job, run, pics, units)));
@@ -196,6 +219,10 @@ void setup_simulate(CLI::App& sub) {
   sub.add_flag("--tooth-marks", o->tooth_marks, "With --gcode: sweep tooth by tooth");
   sub.add_flag("--stream", o->stream,
                "Sweep in bands even when the grid fits the memory limit (automatic above it)");
+  // Reason for the flag: a streamed floor's .npy can be tens of GB, so it is written on request.
+  sub.add_flag("--npy", o->npy,
+               "Also write height.npy when the floor is streamed (band by band; refused when the "
+               "--out disk lacks room); in-memory runs always write it");
   add_sim_flags(sub, o->sim);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);

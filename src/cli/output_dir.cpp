@@ -22,13 +22,15 @@ OutputDir::OutputDir(std::string path) : path_(std::move(path)) {
 }
 
 void OutputDir::write(std::string_view name, std::string_view bytes) {
-  assert(!name.empty() && name.find('/') == std::string_view::npos && name != ".." &&
-         name != "." && "output names are chosen by cuspmap");
   write_file_atomic(path_of(name), bytes);
   written_.emplace_back(name);
 }
 
+void OutputDir::add_committed(std::string_view name) { written_.emplace_back(name); }
+
 std::string OutputDir::path_of(std::string_view name) const {
+  assert(!name.empty() && name.find('/') == std::string_view::npos && name != ".." &&
+         name != "." && "output names are chosen by cuspmap");
   return path_ + "/" + std::string(name);
 }
 

@@ -1,5 +1,6 @@
 // The --out folder of a command: created if missing, never wiped; files are written only under
-// names cuspmap chooses (never names taken from input files), each through write_file_atomic.
+// names cuspmap chooses (never names taken from input files), each through write_file_atomic
+// (or, for a file too large to hold, an AtomicFileStream on path_of(name)).
 #pragma once
 
 #include <string>
@@ -18,6 +19,10 @@ class OutputDir {
   /// Writes `bytes` to <folder>/<name> atomically. `name` must be a plain file name made by
   /// cuspmap (no '/', no "..", not empty): anything else is a programming error.
   void write(std::string_view name, std::string_view bytes);
+
+  /// Records a file published in the folder by a streamed writer (an AtomicFileStream opened
+  /// on path_of(name) and committed), so written() lists it. Same rules for `name` as write().
+  void add_committed(std::string_view name);
 
   /// Full path of a file in the folder.
   std::string path_of(std::string_view name) const;

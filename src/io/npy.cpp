@@ -85,9 +85,9 @@ std::vector<long> parse_shape(std::string_view v, const std::string& name) {
 
 }  // namespace
 
-std::string encode_npy(const Heightfield& hf) {
+std::string encode_npy_header(std::int64_t ny, std::int64_t nx) {
   std::string header = "{'descr': '<f4', 'fortran_order': False, 'shape': (" +
-                       std::to_string(hf.ny) + ", " + std::to_string(hf.nx) + "), }";
+                       std::to_string(ny) + ", " + std::to_string(nx) + "), }";
   const size_t preamble = kMagicLen + 2 + 2;
   const size_t total = preamble + header.size() + 1;
   header.append((kHeaderAlign - total % kHeaderAlign) % kHeaderAlign, ' ');
@@ -98,14 +98,28 @@ std::string encode_npy(const Heightfield& hf) {
   out += static_cast<char>(header.size() & 0xff);
   out += static_cast<char>((header.size() >> 8) & 0xff);
   out += header;
+  return out;
+}
+
+void append_npy_values(const float* z_um, std::int64_t count, std::string& out) {
   const size_t start = out.size();
-  out.resize(start + static_cast<size_t>(hf.cells()) * 4);
-  for (std::int64_t k = 0; k < hf.cells(); ++k) {
-    std::uint32_t bits = std::bit_cast<std::uint32_t>(hf.z_um.data()[k]);
-    for (int b = 0; b < 4; ++b)
-      out[start + static_cast<size_t>(k) * 4 + static_cast<size_t>(b)] =
-          static_cast<char>((bits >> (8 * b)) & 0xff);
+  out.resize(start + static_cast<size_t>(count) * 4);
+  char* p = out.data() + start;
+  for (std::int64_t k = 0; k < count; ++k) {
+    // Byte by byte: little-endian whatever the host's order.
+    const std::uint32_t bits = std::bit_cast<std::uint32_t>(z_um[k]);
+    for (int b = 0; b < 4; ++b) *p++ = static_cast<char>((bits >> (8 * b)) & 0xff);
   }
+}
+
+std::int64_t npy_file_bytes(std::int64_t ny, std::int64_t nx) {
+  return static_cast<std::int64_t>(encode_npy_header(ny, nx).size()) + 4 * ny * nx;
+}
+
+std::string encode_npy(const Heightfield& hf) {
+  std::string out = encode_npy_header(hf.ny, hf.nx);
+  out.reserve(out.size() + static_cast<size_t>(hf.cells()) * 4);
+  append_npy_values(hf.z_um.data(), hf.cells(), out);
   return out;
 }
 

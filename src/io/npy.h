@@ -6,6 +6,7 @@
 // Arrays": magic, version, little-endian header length, Python-literal header dict, data).
 #pragma once
 
+#include <cstdint>
 #include <string>
 #include <string_view>
 
@@ -18,6 +19,22 @@ namespace cuspmap {
 /// @param[in] hf heightfield (um); NaN cells are written as NaN
 /// @return the file's bytes
 std::string encode_npy(const Heightfield& hf);
+
+/// The part of encode_npy before the data: magic, version 1.0, header length and the dict
+/// {'descr': '<f4', 'fortran_order': False, 'shape': (ny, nx), } padded to 64 bytes.
+/// @param[in] ny, nx  rows (along Y) and columns (along X), >= 0
+/// @return the header bytes; encode_npy(hf) == encode_npy_header(hf.ny, hf.nx) + the values
+std::string encode_npy_header(std::int64_t ny, std::int64_t nx);
+
+/// Appends heights as the .npy data: little-endian float32, in the order given (row-major rows
+/// of a Heightfield, row 0 first), NaN kept.
+/// @param[in] z_um    `count` heights, um
+/// @param[in] count   number of values
+/// @param[out] out    bytes appended (4 per value)
+void append_npy_values(const float* z_um, std::int64_t count, std::string& out);
+
+/// Size of the file encode_npy writes for an ny x nx grid: header + 4 nx ny bytes.
+std::int64_t npy_file_bytes(std::int64_t ny, std::int64_t nx);
 
 /// Decodes a .npy holding a 1-D (one row) or 2-D float array.
 /// @param[in] bytes  the whole file

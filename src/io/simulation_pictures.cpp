@@ -25,11 +25,10 @@ std::string length_text(double mm, LengthUnit units) {
   return format_number(mm) + " mm";
 }
 
-// The longest finite run through the middle of the field in a direction, with its mean line.
-std::optional<ProfilePlotData> centre_profile(const Heightfield& hf, double direction_deg,
+// The longest finite run of the centre trace, with its mean line.
+std::optional<ProfilePlotData> centre_profile(const std::vector<ProfileTrace>& traces,
                                               double cutoff_mm, double lambda_s_um,
                                               const std::string& title) {
-  const std::vector<ProfileTrace> traces = extract_profiles(hf, direction_deg, 1, 0.0);
   if (traces.empty()) return std::nullopt;
   const ProfileTrace& trace = *std::max_element(
       traces.begin(), traces.end(),
@@ -54,13 +53,18 @@ std::optional<ProfilePlotData> centre_profile(const Heightfield& hf, double dire
 
 std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
   const ProfileReport& p = run.texture.profile;
+  const double along_deg = std::fmod(p.direction_deg + 90.0, 180.0);
+  // A streamed floor was never held: its centre traces were copied from the bands as they passed
+  // (the same samples extract_profiles reads from a whole floor); run.floor is only an overview.
+  const auto centre_runs = [&](int k, double deg) {
+    return run.streamed ? run.centre_traces[k] : extract_profiles(run.floor, deg, 1, 0.0);
+  };
   std::vector<ProfilePlotData> out;
-  if (auto across = centre_profile(run.floor, p.direction_deg, p.cutoff_mm, p.lambda_s_um,
+  if (auto across = centre_profile(centre_runs(0, p.direction_deg), p.cutoff_mm, p.lambda_s_um,
                                    "Across the lay, " + format_number(p.direction_deg) + " deg")) {
     out.push_back(std::move(*across));
   }
-  const double along_deg = std::fmod(p.direction_deg + 90.0, 180.0);
-  if (auto along = centre_profile(run.floor, along_deg, p.cutoff_mm, p.lambda_s_um,
+  if (auto along = centre_profile(centre_runs(1, along_deg), p.cutoff_mm, p.lambda_s_um,
                                   "Along the lay, " + format_number(along_deg) + " deg")) {
     out.push_back(std::move(*along));
   }
@@ -93,7 +97,9 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
   pics.profile_caption =
       "Centre traces across and along the lay; the smooth line is the ISO 16610-21 Gaussian mean "
       "line at the cut-off used; Ra and Rz of each trace are marked.";
-  pics.height_npy = encode_npy(run.floor);
+  // A streamed run's floor is the overview: its full-resolution .npy is written band by band
+  // (io/npy_band_writer.h) by the caller, never encoded here.
+  if (!run.streamed) pics.height_npy = encode_npy(run.floor);
 
   pics.facts.height_lo_um = height.lo_um;
   pics.facts.height_hi_um = height.hi_um;

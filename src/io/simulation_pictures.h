@@ -23,7 +23,8 @@ struct SimulationPictures {
   std::string height_png;              ///< height.png bytes
   std::string shaded_png;              ///< shaded.png bytes
   std::string profile_png;             ///< profile.png bytes
-  std::string height_npy;              ///< height.npy bytes (float32 um, rows along Y)
+  std::string height_npy;              ///< height.npy bytes (float32 um, rows along Y); empty
+                                       ///< when streamed (see io/npy_band_writer.h)
   ShadedImage shaded;                  ///< the shaded picture (for montages) and its light
   std::string height_caption;          ///< one line: range, scale, orientation
   std::string shaded_caption;          ///< one line: light, exaggeration
@@ -41,7 +42,8 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
                                               int cells_per_pixel = 0);
 
 /// Traces for profile.png: the centre trace across the lay and the one along it, each with its
-/// Gaussian mean line at the report's cut-off and its own Ra and Rz.
+/// Gaussian mean line at the report's cut-off and its own Ra and Rz. In memory they are read
+/// from run.floor; streamed, from run.centre_traces (the same samples, collected band by band).
 std::vector<ProfilePlotData> simulation_profiles(const JobRun& run);
 
 /// The HTML page of one simulation (inputs, results, pictures, filters, notes, cautions).

@@ -54,13 +54,17 @@ bool should_stream(const Patch& patch, const RunOptions& options) {
 void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
                   const RunOptions& options, JobRun& run, StageTimer& timer) {
   const BandPlan plan = plan_bands(run.patch, sim.max_memory_bytes);
+  if (options.stream_begin) options.stream_begin(plan.nx, plan.ny);
   StreamedTexture texture(plan.nx, plan.ny, run.patch.cell_mm, run.patch.origin_x_mm,
                           run.patch.origin_y_mm, lay_options(job, options),
                           sweep_threads(sim.threads));
   SimSpec pass = sim;
   if (sim.progress) pass.progress = [&](double f) { sim.progress(0.5 * f); };
   simulate_bands(job.cutter, run.built.path, cut, run.patch, pass, plan,
-                 [&](const Heightfield& band, int j0) { texture.add_first_pass(band, j0); },
+                 [&](const Heightfield& band, int j0) {
+                   texture.add_first_pass(band, j0);
+                   if (options.stream_band) options.stream_band(band, j0);
+                 },
                  &run.sweep);
   if (texture.reached() == 0) throw InputError(no_move_message(job));
   texture.finish_first_pass();
@@ -76,6 +80,7 @@ void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
   run.peak_grid_bytes = plan.band_bytes;
   run.overview_cells_per_pixel = texture.overview_cells_per_block();
   run.floor = texture.overview();
+  for (int k = 0; k < 2; ++k) run.centre_traces[k] = texture.centre_trace(k);
   run.max_scallop_um = texture.max_um();
   run.min_height_um = texture.min_um();
   run.texture = texture.report();

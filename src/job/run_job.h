@@ -3,11 +3,14 @@
 // report and stage timings. Method: DESIGN.md data flow (path -> sweep -> texture).
 #pragma once
 
+#include <array>
 #include <functional>
+#include <vector>
 
 #include "core/heightfield.h"
 #include "job/job.h"
 #include "path/build_toolpath.h"
+#include "sweep/simulate_bands.h"
 #include "sweep/simulate_floor.h"
 #include "texture/texture_report.h"
 
@@ -27,6 +30,13 @@ struct RunOptions {
   std::int64_t max_memory_bytes = 0;       ///< grid limit; 0 = half of physical memory
   std::function<void(double)> progress;    ///< sweep progress in [0, 1]; may be empty
   TextureOptions texture;                  ///< cut-off and direction overrides
+  /// Streamed runs only (in-memory runs never call it): called once with the grid's columns and
+  /// rows after the bands are planned and before any sweep; it may throw InputError to refuse
+  /// the run (e.g. a file that cannot fit). Empty = nothing to prepare.
+  std::function<void(int nx, int ny)> stream_begin;
+  /// Streamed runs only: every band of the first pass, rows in order from j0 = 0, at full
+  /// resolution (e.g. to write height.npy without holding the floor). Empty = not wanted.
+  BandSink stream_band;
 };
 
 /// Everything one simulation produced.
@@ -42,6 +52,9 @@ struct JobRun {
   int band_rows = 0;        ///< rows per band (streamed)
   std::int64_t peak_grid_bytes = 0;  ///< largest height grid held: the floor, or one band
   int overview_cells_per_pixel = 1;  ///< k of the overview (streamed)
+  /// Streamed: the runs of the centre trace across ([0]) and along ([1]) the lay, as
+  /// extract_profiles(floor, deg, 1, 0) gives them in memory, for profile.png; empty in memory.
+  std::array<std::vector<ProfileTrace>, 2> centre_traces;
   SweepStats sweep;         ///< sweep counters
   TextureReport texture;    ///< ISO profile and areal parameters
   double path_length_mm = 0.0;   ///< feed and rapid moves

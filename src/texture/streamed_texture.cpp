@@ -3,6 +3,7 @@
 // Inputs: bands, options; output: TextureReport. Method: see streamed_texture.h.
 #include "texture/streamed_texture.h"
 
+#include <algorithm>
 #include <cmath>
 
 #include "core/input_error.h"
@@ -53,6 +54,12 @@ StreamedTexture::StreamedTexture(int nx, int ny, double cell_mm, double origin_x
   }
   traces_.emplace(nx, ny, cell_mm, along_y, std::min(options.max_traces, kStreamMaxTraces),
                   kStreamTraceMaxMm);
+  // The picture's centre traces run the whole field (as in memory), up to the sample cap.
+  for (int k = 0; k < 2; ++k) {
+    const bool y = k == 0 ? along_y : !along_y;
+    const int length = std::min(y ? ny : nx, kStreamPictureTraceMaxSamples);
+    centre_[k].emplace(nx, ny, cell_mm, y, 1, length * cell_mm);
+  }
   warnings_.push_back("streamed mode: Sdr, Sal and Str need the whole field and are reported as "
                       "0; areal S/L filters are not applied");
 }
@@ -61,6 +68,7 @@ void StreamedTexture::add_first_pass(const Heightfield& band, int j0) {
   plane_.add_band(band, threads_);
   overview_.add_band(band, j0, threads_);
   traces_->add_band(band, j0);
+  for (auto& c : centre_) c->add_band(band, j0);
 }
 
 void StreamedTexture::finish_first_pass() {

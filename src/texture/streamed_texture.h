@@ -1,5 +1,6 @@
 // Texture report of a heightfield too large to hold, built from two passes over its bands:
-// pass 1 the plane, extremes, overview and profile traces; pass 2 the residual moments. Sa, Sq,
+// pass 1 the plane, extremes, overview, profile traces and the two full-length centre traces
+// profile.png draws; pass 2 the residual moments. Sa, Sq,
 // Sp, Sv, Sz, Ssk, Sku are exact (the same as texture_report's to float rounding); profile
 // parameters come from axis-aligned traces of bounded length; Sdr, Sal, Str and the S/L areal
 // filters need the whole field and are left out with a warning.
@@ -7,6 +8,7 @@
 // Method: ISO 25178-2:2012 §3.1.8, §4.1; ISO 4287/4288 via fill_profile_report.
 #pragma once
 
+#include <array>
 #include <cstdint>
 #include <optional>
 
@@ -17,6 +19,11 @@
 #include "texture/texture_report.h"
 
 namespace cuspmap {
+
+/// Longest centre trace kept for profile.png in streamed mode, samples: 8 MiB of doubles per
+/// trace, a 1 m side at 1 um; a longer side is drawn over its centred part (common practice, no
+/// source: a picture shows at most a few thousand samples' detail anyway).
+inline constexpr int kStreamPictureTraceMaxSamples = 1 << 20;
 
 /// Accumulates a streamed texture report over two passes of the same bands.
 class StreamedTexture {
@@ -35,6 +42,11 @@ class StreamedTexture {
   TextureReport report() const;
   /// Block-mean overview of the field (after pass 1).
   Heightfield overview() const { return overview_.result(); }
+  /// The runs of finite samples of the centre trace across the lay (k = 0, at the report's
+  /// direction_deg) and along it (k = 1, 90 deg further), as extract_profiles(floor, deg, 1, 0)
+  /// returns them in memory (after pass 1). Traces longer than kStreamPictureTraceMaxSamples
+  /// keep their centred part.
+  std::vector<ProfileTrace> centre_trace(int k) const { return centre_[k]->traces(0.0); }
   /// Cells per overview block side.
   int overview_cells_per_block() const { return overview_.cells_per_block(); }
   /// Lowest and highest finite raw heights, um (after pass 1).
@@ -55,6 +67,7 @@ class StreamedTexture {
   Plane solved_;
   BlockMeanOverview overview_;
   std::optional<TraceCollector> traces_;
+  std::array<std::optional<TraceCollector>, 2> centre_;  // across, along the lay (profile.png)
   ArealMoments moments_;
 };
 
