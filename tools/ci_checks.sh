@@ -11,9 +11,10 @@ stage_start=$SECONDS
 stage_done() { echo "ci_checks: $1 done in $((SECONDS - stage_start)) s"; stage_start=$SECONDS; }
 
 # -O1 -g1: the usual sanitizer setting; line tables for reports without full debug info cost.
-# Warnings are enforced by the normal -Werror build; here they stay warnings, because GCC 12's
-# -Wmaybe-uninitialized misfires on std::regex/std::function under -fsanitize=address.
-cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=None -DCMAKE_CXX_FLAGS="-O1 -g1" \
+# Warnings are enforced by the normal -Werror build; here they stay warnings, and GCC 12's
+# -Wmaybe-uninitialized, which misfires on std::regex/std::function under -fsanitize=address
+# (hundreds of lines of log), is off.
+cmake -S . -B build-asan -DCMAKE_BUILD_TYPE=None -DCMAKE_CXX_FLAGS="-O1 -g1 -Wno-maybe-uninitialized" \
   -DCUSPMAP_SANITIZE=ON -DCUSPMAP_WERROR=OFF >/dev/null
 cmake --build build-asan -j"$jobs"
 stage_done "sanitizer build"
