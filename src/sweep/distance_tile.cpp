@@ -1,0 +1,245 @@
+// Level-distance tile sweep: eligibility per tile, tile- and run-level pruning of the moves that
+// can be nearest, constant fills where the only nearest moves run parallel to the row, SIMD row
+// kernels elsewhere. Inputs: SweepSetup, moves, tile; output: the tile's cells (um, NaN =
+// unreached). Method: see distance_tile.h.
+#include "sweep/distance_tile.h"
+
+#include <algorithm>
+#include <array>
+#include <cmath>
+#include <limits>
+#include <numbers>
+
+#include "sweep/nearest_rows.h"
+
+namespace cuspmap {
+namespace {
+
+constexpr double kInf = std::numeric_limits<double>::infinity();
+constexpr double kUmPerMm = 1000.0;
+// Cells per run that shares one pruned candidate list: short enough that a raster at an angle
+// crosses about one pass per run (64 x 10 um = 0.64 mm), long enough to amortise the scalar
+// bound of each candidate over 64 SIMD lanes.
+constexpr int kRunCells = 64;
+// Relative slack on the pruning comparisons: the bounds are computed in double from the same
+// inputs, so 1e-12 covers their rounding (a few ulps) without keeping any real extra move.
+constexpr double kPruneSlack = 1e-12;
+
+double sq(double v) { return v * v; }
+
+// Squared distance from p to segment a-b (a == b allowed).
+double point_segment_d2(const Eigen::Vector2d& p, const Eigen::Vector2d& a,
+                        const Eigen::Vector2d& b) {
+  const Eigen::Vector2d ab = b - a;
+  const double len2 = ab.squaredNorm();
+  const double t = len2 > 0.0 ? std::clamp((p - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
+  return (p - (a + t * ab)).squaredNorm();
+}
+
+// True when the arc passes the direction v from its centre (v != 0).
+bool arc_covers(const PreparedMove& m, const Eigen::Vector2d& v) {
+  if (std::abs(m.sweep_rad) >= 2.0 * std::numbers::pi) return true;
+  const double mid = m.start_angle_rad + 0.5 * m.sweep_rad;
+  return v.dot(Eigen::Vector2d(std::cos(mid), std::sin(mid))) >=
+         v.norm() * std::cos(0.5 * std::abs(m.sweep_rad));
+}
+
+// Squared upper bound of the distance from every point of the convex hull of pts[0..n) to move
+// m: the distance to a convex set is convex, so for a line the largest value at the points
+// bounds it; for an arc any point P on the arc gives |x - P|, itself convex, tried at the ends
+// and at the arc point facing the points' centroid.
+double upper_d2(const PreparedMove& m, const Eigen::Vector2d* pts, int n) {
+  double best = 0.0;
+  if (m.kind == MoveKind::Line) {
+    for (int k = 0; k < n; ++k) best = std::max(best, point_segment_d2(pts[k], m.a_mm, m.b_mm));
+    return best;
+  }
+  auto via = [&](const Eigen::Vector2d& on_arc) {
+    double d2 = 0.0;
+    for (int k = 0; k < n; ++k) d2 = std::max(d2, (pts[k] - on_arc).squaredNorm());
+    return d2;
+  };
+  best = std::min(via(m.a_mm), via(m.b_mm));
+  Eigen::Vector2d centroid(0.0, 0.0);
+  for (int k = 0; k < n; ++k) centroid += pts[k] / n;
+  const Eigen::Vector2d v = centroid - m.centre_mm;
+  const double rho = v.norm();
+  if (rho > 0.0 && arc_covers(m, v)) {
+    best = std::min(best, via(m.centre_mm + v * (m.arc_radius_mm / rho)));
+  }
+  return best;
+}
+
+// A move prepared for one row: kernel parameters and the double values the bounds use.
+struct RowMove {
+  const PreparedMove* move = nullptr;
+  double ua = 0.0, du = 0.0, w = 0.0, dw = 0.0;  // lines: cell 0 of the row, step per cell
+  double vx = 0.0, vy = 0.0;                     // arcs: cell 0 minus centre
+};
+
+// Lower and upper bound of the squared distance over cells [n0, n1] of the row; `constant` is
+// set when the distance is the same for every one of those cells (a parallel line beside them).
+void run_bounds(const RowMove& r, const Eigen::Vector2d& p0, double cell, int n0, int n1,
+                double& lo2, double& hi2, bool& constant) {
+  const PreparedMove& m = *r.move;
+  constant = false;
+  if (m.kind == MoveKind::Line) {
+    const double u0 = r.ua + n0 * r.du, u1 = r.ua + n1 * r.du;
+    const double w0 = r.w + n0 * r.dw, w1 = r.w + n1 * r.dw;
+    const double length = m.length_xy_mm;
+    auto d2_at = [&](double u, double w) { return sq(w) + sq(std::max({0.0, -u, u - length})); };
+    hi2 = std::max(d2_at(u0, w0), d2_at(u1, w1));
+    const double w_lo = (w0 > 0.0) != (w1 > 0.0) ? 0.0 : std::min(std::abs(w0), std::abs(w1));
+    const double u_min = std::min(u0, u1), u_max = std::max(u0, u1);
+    const double t_lo = std::max({0.0, -u_max, u_min - length});
+    lo2 = sq(w_lo) + sq(t_lo);
+    constant = r.dw == 0.0 && u_min >= 0.0 && u_max <= length;
+    return;
+  }
+  const double x0 = r.vx + n0 * cell, x1 = r.vx + n1 * cell;
+  const double near_x = (x0 > 0.0) != (x1 > 0.0) ? 0.0 : std::min(std::abs(x0), std::abs(x1));
+  const double rho_min = std::hypot(near_x, r.vy);
+  const double rho_max = std::max(std::hypot(x0, r.vy), std::hypot(x1, r.vy));
+  const double ra = m.arc_radius_mm;
+  lo2 = ra >= rho_min && ra <= rho_max ? 0.0 : sq(std::min(std::abs(rho_min - ra), std::abs(rho_max - ra)));
+  const Eigen::Vector2d ends[2] = {p0 + Eigen::Vector2d(n0 * cell, 0.0),
+                                   p0 + Eigen::Vector2d(n1 * cell, 0.0)};
+  hi2 = upper_d2(m, ends, 2);
+}
+
+}  // namespace
+
+bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
+                   const std::vector<int>& tile_moves, const TileRect& tile, float* grid,
+                   int grid_row0, std::int64_t& visits) {
+  for (int k : tile_moves) {
+    const PreparedMove& m = moves[k];
+    if (m.vertical() || m.z0_mm != m.z1_mm || m.z0_mm != moves[tile_moves.front()].z0_mm) {
+      return false;
+    }
+  }
+  const int nx = setup.nx;
+  const double cell = setup.cell_mm, reach = setup.envelope.reach_mm;
+  auto row_of = [&](int j) { return grid + static_cast<std::int64_t>(j - grid_row0) * nx; };
+  if (tile_moves.empty()) {
+    for (int j = tile.j0; j < tile.j1; ++j) std::fill(row_of(j) + tile.i0, row_of(j) + tile.i1, kUnreached);
+    return true;
+  }
+  const double z_mm = moves[tile_moves.front()].z0_mm;
+  const double base_um = (z_mm + setup.axial_min_mm) * kUmPerMm;
+
+  // Tile level: every cell's nearest move is at most U away (U from the move that is nearest in
+  // the worst corner), so only moves within U of the tile can be nearest anywhere on it.
+  const double x_lo = (tile.i0 + 0.5) * cell, x_hi = (tile.i1 - 0.5) * cell;
+  const double y_lo = (tile.j0 + 0.5) * cell, y_hi = (tile.j1 - 0.5) * cell;
+  const Eigen::Vector2d corners[4] = {{x_lo, y_lo}, {x_hi, y_lo}, {x_lo, y_hi}, {x_hi, y_hi}};
+  double tile_u2 = kInf;
+  for (int k : tile_moves) {
+    const PreparedMove& m = moves[k];
+    tile_u2 = std::min(tile_u2, upper_d2(m, corners, 4));
+  }
+  const double tile_u = std::sqrt(tile_u2) * (1.0 + kPruneSlack);
+  std::vector<const PreparedMove*> kept;
+  kept.reserve(tile_moves.size());
+  for (int k : tile_moves) {
+    const PreparedMove& m = moves[k];
+    if (m.distance_to_box(x_lo, x_hi, y_lo, y_hi) <= std::min(tile_u, reach)) kept.push_back(&m);
+  }
+
+  std::vector<RowMove> row_moves(kept.size());
+  std::vector<int> chosen(kept.size());
+  std::vector<double> lo2(kept.size()), hi2(kept.size());
+  std::vector<char> constant(kept.size());
+  std::array<float, kRunCells> d2{};
+  const double reach2 = reach * reach;
+  for (int j = tile.j0; j < tile.j1; ++j) {
+    const double y = (j + 0.5) * cell;
+    const Eigen::Vector2d p0((tile.i0 + 0.5) * cell, y);
+    for (std::size_t c = 0; c < kept.size(); ++c) {
+      const PreparedMove& m = *kept[c];
+      RowMove& r = row_moves[c];
+      r.move = &m;
+      if (m.kind == MoveKind::Line) {
+        const Eigen::Vector2d rel = p0 - m.a_mm;
+        r.ua = rel.dot(m.dir);
+        r.w = rel.dot(m.perp);
+        r.du = cell * m.dir.x();
+        r.dw = cell * m.perp.x();
+      } else {
+        r.vx = p0.x() - m.centre_mm.x();
+        r.vy = p0.y() - m.centre_mm.y();
+      }
+    }
+    float* row = row_of(j) + tile.i0;
+    const int width = tile.i1 - tile.i0;
+    for (int n0 = 0; n0 < width; n0 += kRunCells) {
+      const int n1 = std::min(width, n0 + kRunCells) - 1;
+      double run_u2 = kInf;
+      for (std::size_t c = 0; c < kept.size(); ++c) {
+        bool is_const = false;
+        run_bounds(row_moves[c], p0, cell, n0, n1, lo2[c], hi2[c], is_const);
+        constant[c] = is_const;
+        run_u2 = std::min(run_u2, hi2[c]);
+      }
+      const double limit2 = std::min(run_u2, reach2) * (1.0 + kPruneSlack);
+      int count = 0;
+      bool all_constant = true;
+      double const_d2 = kInf;
+      for (std::size_t c = 0; c < kept.size(); ++c) {
+        if (lo2[c] > limit2) continue;
+        chosen[count++] = static_cast<int>(c);
+        all_constant = all_constant && constant[c];
+        if (constant[c]) const_d2 = std::min(const_d2, sq(row_moves[c].w));
+      }
+      const int cells = n1 - n0 + 1;
+      if (count == 0 || all_constant) {
+        // A run beside parallel passes only (or out of reach): one height for every cell.
+        const double h = setup.envelope.height_mm(std::sqrt(const_d2));
+        const float h_um = h < kInf ? static_cast<float>(base_um + kUmPerMm * h) : kUnreached;
+        std::fill(row + n0, row + n0 + cells, h_um);
+        visits += cells;
+        continue;
+      }
+      std::fill(d2.begin(), d2.begin() + cells, std::numeric_limits<float>::infinity());
+      for (int q = 0; q < count; ++q) {
+        const RowMove& r = row_moves[chosen[q]];
+        const PreparedMove& m = *r.move;
+        if (m.kind == MoveKind::Line) {
+          LineRow lr;
+          const double ua = r.ua + n0 * r.du;
+          lr.ua = static_cast<float>(ua);
+          lr.ub = static_cast<float>(ua - m.length_xy_mm);
+          lr.du = static_cast<float>(r.du);
+          lr.w = static_cast<float>(r.w + n0 * r.dw);
+          lr.dw = static_cast<float>(r.dw);
+          line_d2_min(lr, cells, d2.data());
+        } else {
+          ArcRow ar;
+          const double s = n0 * cell;
+          ar.vx = r.vx + s;
+          ar.vy = r.vy;
+          ar.ax = p0.x() + s - m.a_mm.x();
+          ar.ay = y - m.a_mm.y();
+          ar.bx = p0.x() + s - m.b_mm.x();
+          ar.by = y - m.b_mm.y();
+          ar.step = cell;
+          ar.radius = m.arc_radius_mm;
+          const double mid = m.start_angle_rad + 0.5 * m.sweep_rad;
+          ar.mid_x = std::cos(mid);
+          ar.mid_y = std::sin(mid);
+          ar.cos_half = std::abs(m.sweep_rad) >= 2.0 * std::numbers::pi
+                            ? -2.0
+                            : std::cos(0.5 * std::abs(m.sweep_rad));
+          arc_d2_min(ar, cells, d2.data());
+        }
+      }
+      visits += static_cast<std::int64_t>(cells) * count;
+      profile_heights(d2.data(), cells, static_cast<float>(base_um),
+                      static_cast<float>(setup.flat_mm), static_cast<float>(setup.corner_mm),
+                      static_cast<float>(reach2), row + n0);
+    }
+  }
+  return true;
+}
+
+}  // namespace cuspmap
