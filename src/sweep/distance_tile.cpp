@@ -70,6 +70,17 @@ double upper_d2(const PreparedMove& m, const Eigen::Vector2d* pts, int n) {
   return best;
 }
 
+// Squared distance from move m to the box: exact for lines, for arcs a lower bound (the arc's
+// bounding box to the box).
+double box_d2(const PreparedMove& m, double x_lo, double x_hi, double y_lo, double y_hi) {
+  if (m.kind == MoveKind::Arc) {
+    const double dx = std::max({x_lo - m.x_max_mm, 0.0, m.x_min_mm - x_hi});
+    const double dy = std::max({y_lo - m.y_max_mm, 0.0, m.y_min_mm - y_hi});
+    return dx * dx + dy * dy;
+  }
+  return sq(m.distance_to_box(x_lo, x_hi, y_lo, y_hi));
+}
+
 // A move prepared for one row: kernel parameters and the double values the bounds use.
 struct RowMove {
   const PreparedMove* move = nullptr;
@@ -138,23 +149,66 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
     const PreparedMove& m = moves[k];
     tile_u2 = std::min(tile_u2, upper_d2(m, corners, 4));
   }
-  const double tile_u = std::sqrt(tile_u2) * (1.0 + kPruneSlack);
+  const double tile_limit2 = std::min(tile_u2, reach * reach) * (1.0 + kPruneSlack);
   std::vector<const PreparedMove*> kept;
   kept.reserve(tile_moves.size());
   for (int k : tile_moves) {
     const PreparedMove& m = moves[k];
-    if (m.distance_to_box(x_lo, x_hi, y_lo, y_hi) <= std::min(tile_u, reach)) kept.push_back(&m);
+    if (box_d2(m, x_lo, x_hi, y_lo, y_hi) <= tile_limit2) kept.push_back(&m);
   }
 
   std::vector<RowMove> row_moves(kept.size());
-  std::vector<int> chosen(kept.size());
+  std::vector<int> row_chosen(kept.size()), chosen(kept.size());
   std::vector<double> lo2(kept.size()), hi2(kept.size());
   std::vector<char> constant(kept.size());
   std::array<float, kRunCells> d2{};
   const double reach2 = reach * reach;
+  // Moves of `from` (indices into row_moves) that can be nearest somewhere in cells [n0, n1]
+  // of the current row go to `to`; returns their count. `all_constant` tells whether each of
+  // them is a parallel line beside every one of those cells, const_d2 the least such distance.
+  const Eigen::Vector2d* p0_now = nullptr;
+  auto select = [&](const int* from, int from_count, int n0, int n1, int* to, bool& all_constant,
+                    double& const_d2) {
+    double u2 = kInf;
+    for (int q = 0; q < from_count; ++q) {
+      const int c = from[q];
+      bool is_const = false;
+      run_bounds(row_moves[c], *p0_now, cell, n0, n1, lo2[c], hi2[c], is_const);
+      constant[c] = is_const;
+      u2 = std::min(u2, hi2[c]);
+    }
+    const double limit2 = std::min(u2, reach2) * (1.0 + kPruneSlack);
+    int count = 0;
+    all_constant = true;
+    const_d2 = kInf;
+    for (int q = 0; q < from_count; ++q) {
+      const int c = from[q];
+      if (lo2[c] > limit2) continue;
+      to[count++] = c;
+      all_constant = all_constant && constant[c];
+      if (constant[c]) const_d2 = std::min(const_d2, sq(row_moves[c].w));
+    }
+    return count;
+  };
+  // Height of a constant run, remembered for the next run at the same distance.
+  double last_d2 = -1.0;
+  float last_h_um = 0.0f;
+  auto fill = [&](float* out, int cells, double const_d2) {
+    if (const_d2 != last_d2) {
+      const double h = setup.envelope.height_mm(std::sqrt(const_d2));
+      last_h_um = h < kInf ? static_cast<float>(base_um + kUmPerMm * h) : kUnreached;
+      last_d2 = const_d2;
+    }
+    fill_cells(last_h_um, cells, out);
+    visits += cells;
+  };
+  std::vector<int> all(kept.size());
+  for (std::size_t c = 0; c < kept.size(); ++c) all[c] = static_cast<int>(c);
+  const int width = tile.i1 - tile.i0;
   for (int j = tile.j0; j < tile.j1; ++j) {
     const double y = (j + 0.5) * cell;
     const Eigen::Vector2d p0((tile.i0 + 0.5) * cell, y);
+    p0_now = &p0;
     for (std::size_t c = 0; c < kept.size(); ++c) {
       const PreparedMove& m = *kept[c];
       RowMove& r = row_moves[c];
@@ -171,36 +225,26 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
       }
     }
     float* row = row_of(j) + tile.i0;
-    const int width = tile.i1 - tile.i0;
+    // Whole row first (a raster along X fills it at once), then runs from the row's survivors.
+    bool all_constant = false;
+    double const_d2 = kInf;
+    const int row_count = select(all.data(), static_cast<int>(all.size()), 0, width - 1,
+                                 row_chosen.data(), all_constant, const_d2);
+    if (row_count == 0 || all_constant) {
+      fill(row, width, const_d2);
+      continue;
+    }
     for (int n0 = 0; n0 < width; n0 += kRunCells) {
       const int n1 = std::min(width, n0 + kRunCells) - 1;
-      double run_u2 = kInf;
-      for (std::size_t c = 0; c < kept.size(); ++c) {
-        bool is_const = false;
-        run_bounds(row_moves[c], p0, cell, n0, n1, lo2[c], hi2[c], is_const);
-        constant[c] = is_const;
-        run_u2 = std::min(run_u2, hi2[c]);
-      }
-      const double limit2 = std::min(run_u2, reach2) * (1.0 + kPruneSlack);
-      int count = 0;
-      bool all_constant = true;
-      double const_d2 = kInf;
-      for (std::size_t c = 0; c < kept.size(); ++c) {
-        if (lo2[c] > limit2) continue;
-        chosen[count++] = static_cast<int>(c);
-        all_constant = all_constant && constant[c];
-        if (constant[c]) const_d2 = std::min(const_d2, sq(row_moves[c].w));
-      }
       const int cells = n1 - n0 + 1;
+      const int count =
+          select(row_chosen.data(), row_count, n0, n1, chosen.data(), all_constant, const_d2);
       if (count == 0 || all_constant) {
         // A run beside parallel passes only (or out of reach): one height for every cell.
-        const double h = setup.envelope.height_mm(std::sqrt(const_d2));
-        const float h_um = h < kInf ? static_cast<float>(base_um + kUmPerMm * h) : kUnreached;
-        std::fill(row + n0, row + n0 + cells, h_um);
-        visits += cells;
+        fill(row + n0, cells, const_d2);
         continue;
       }
-      std::fill(d2.begin(), d2.begin() + cells, std::numeric_limits<float>::infinity());
+      fill_cells(std::numeric_limits<float>::infinity(), cells, d2.data());
       for (int q = 0; q < count; ++q) {
         const RowMove& r = row_moves[chosen[q]];
         const PreparedMove& m = *r.move;

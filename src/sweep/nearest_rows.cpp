@@ -24,6 +24,10 @@ constexpr float kUnreachedF = std::numeric_limits<float>::quiet_NaN();
 
 }  // namespace
 
+CUSPMAP_CLONES void fill_cells(float value, int count, float* out) {
+  for (int n = 0; n < count; ++n) out[n] = value;
+}
+
 CUSPMAP_CLONES void line_d2_min(const LineRow& row, int count, float* d2) {
   const float ua = row.ua, ub = row.ub, du = row.du, w0 = row.w, dw = row.dw;
   for (int n = 0; n < count; ++n) {

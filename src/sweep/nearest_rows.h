@@ -45,6 +45,12 @@ void line_d2_min(const LineRow& row, int count, float* d2);
 /// @param[in,out] d2    running minimum, mm^2
 void arc_d2_min(const ArcRow& row, int count, float* d2);
 
+/// out[n] = value for n in [0, count): a run of one height (rows beside parallel passes).
+/// @param[in] value   height to write, um (NaN allowed)
+/// @param[in] count   cells, >= 0
+/// @param[out] out    the run
+void fill_cells(float value, int count, float* out);
+
 /// Heights of an untilted ball or undished bull-nose/flat at squared distances d2 from the
 /// nearest move: out[n] = base_um + 1000 (rc - sqrt(rc^2 - max(d - flat, 0)^2)), d = sqrt(d2),
 /// NaN (unreached) where d2 > reach2.

@@ -18,7 +18,7 @@ double point_box_distance(const Eigen::Vector2d& p, double x_lo, double x_hi, do
                           double y_hi) {
   const double dx = std::max({x_lo - p.x(), 0.0, p.x() - x_hi});
   const double dy = std::max({y_lo - p.y(), 0.0, p.y() - y_hi});
-  return std::hypot(dx, dy);
+  return std::sqrt(dx * dx + dy * dy);  // mm-sized values: hypot's overflow guard not needed
 }
 
 double point_segment_distance(const Eigen::Vector2d& p, const Eigen::Vector2d& a,
@@ -62,7 +62,7 @@ double PreparedMove::distance_to_box(double x_lo, double x_hi, double y_lo, doub
   if (kind == MoveKind::Arc) {
     const double dx = std::max({x_lo - x_max_mm, 0.0, x_min_mm - x_hi});
     const double dy = std::max({y_lo - y_max_mm, 0.0, y_min_mm - y_hi});
-    return std::hypot(dx, dy);
+    return std::sqrt(dx * dx + dy * dy);
   }
   if (segment_meets_box(a_mm, b_mm, x_lo, x_hi, y_lo, y_hi)) return 0.0;
   double d = std::min(point_box_distance(a_mm, x_lo, x_hi, y_lo, y_hi),
