@@ -81,6 +81,15 @@ double box_d2(const PreparedMove& m, double x_lo, double x_hi, double y_lo, doub
   return sq(m.distance_to_box(x_lo, x_hi, y_lo, y_hi));
 }
 
+// p(d) of the untilted ball / undished bull-nose / flat at d^2 = d2 <= R^2, mm, in the
+// cancellation-free form u^2 / (rc + sqrt(rc^2 - u^2)) of rc - sqrt(rc^2 - u^2).
+double profile_mm(const SweepSetup& s, double d2) {
+  if (s.corner_mm == 0.0) return 0.0;
+  const double u = std::clamp(std::sqrt(d2) - s.flat_mm, 0.0, s.corner_mm);
+  const double u2 = s.flat_mm == 0.0 ? std::min(d2, s.corner_mm * s.corner_mm) : u * u;
+  return u2 / (s.corner_mm + std::sqrt(s.corner_mm * s.corner_mm - u2));
+}
+
 // A move prepared for one row: kernel parameters and the double values the bounds use.
 struct RowMove {
   const PreparedMove* move = nullptr;
@@ -195,8 +204,8 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
   float last_h_um = 0.0f;
   auto fill = [&](float* out, int cells, double const_d2) {
     if (const_d2 != last_d2) {
-      const double h = setup.envelope.height_mm(std::sqrt(const_d2));
-      last_h_um = h < kInf ? static_cast<float>(base_um + kUmPerMm * h) : kUnreached;
+      last_h_um = const_d2 <= reach2 ? static_cast<float>(base_um + kUmPerMm * profile_mm(setup, const_d2))
+                                     : kUnreached;
       last_d2 = const_d2;
     }
     fill_cells(last_h_um, cells, out);
@@ -205,6 +214,24 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
   std::vector<int> all(kept.size());
   for (std::size_t c = 0; c < kept.size(); ++c) all[c] = static_cast<int>(c);
   const int width = tile.i1 - tile.i0;
+
+  // Every remaining move a line along X beside the whole width of the tile (a raster at angle
+  // 0): each row's distance is the least |w| of its moves, one constant per row.
+  const bool rows_parallel = std::all_of(kept.begin(), kept.end(), [&](const PreparedMove* m) {
+    if (m->kind != MoveKind::Line || m->perp.x() != 0.0) return false;
+    const double u0 = (x_lo - m->a_mm.x()) * m->dir.x(), u1 = (x_hi - m->a_mm.x()) * m->dir.x();
+    return std::min(u0, u1) >= 0.0 && std::max(u0, u1) <= m->length_xy_mm;
+  });
+  if (rows_parallel && !kept.empty()) {
+    for (int j = tile.j0; j < tile.j1; ++j) {
+      const double y = (j + 0.5) * cell;
+      double w2 = kInf;
+      for (const PreparedMove* m : kept) w2 = std::min(w2, sq((y - m->a_mm.y()) * m->perp.y()));
+      fill(row_of(j) + tile.i0, width, w2);
+    }
+    return true;
+  }
+
   for (int j = tile.j0; j < tile.j1; ++j) {
     const double y = (j + 0.5) * cell;
     const Eigen::Vector2d p0((tile.i0 + 0.5) * cell, y);
