@@ -90,6 +90,31 @@ double profile_mm(const SweepSetup& s, double d2) {
   return u2 / (s.corner_mm + std::sqrt(s.corner_mm * s.corner_mm - u2));
 }
 
+// Lower and upper bound of the squared distance from move m to the box with the given corners.
+// A line whose frame puts every corner beside it (0 <= u <= L) is exactly |w| away at each
+// corner; any other move takes box_d2 and upper_d2.
+void tile_bounds(const PreparedMove& m, const Eigen::Vector2d (&corners)[4], double& lo2,
+                 double& hi2) {
+  if (m.kind == MoveKind::Line && m.length_xy_mm > 0.0) {
+    double u_lo = kInf, u_hi = -kInf, w_lo = kInf, w_hi = -kInf;
+    for (const Eigen::Vector2d& c : corners) {
+      const Eigen::Vector2d rel = c - m.a_mm;
+      const double u = rel.dot(m.dir), w = rel.dot(m.perp);
+      u_lo = std::min(u_lo, u);
+      u_hi = std::max(u_hi, u);
+      w_lo = std::min(w_lo, w);
+      w_hi = std::max(w_hi, w);
+    }
+    if (u_lo >= 0.0 && u_hi <= m.length_xy_mm) {
+      lo2 = w_lo > 0.0 ? sq(w_lo) : (w_hi < 0.0 ? sq(w_hi) : 0.0);
+      hi2 = std::max(sq(w_lo), sq(w_hi));
+      return;
+    }
+  }
+  lo2 = box_d2(m, corners[0].x(), corners[3].x(), corners[0].y(), corners[3].y());
+  hi2 = upper_d2(m, corners, 4);
+}
+
 // A move prepared for one row: kernel parameters and the double values the bounds use.
 struct RowMove {
   const PreparedMove* move = nullptr;
@@ -127,6 +152,20 @@ void run_bounds(const RowMove& r, const Eigen::Vector2d& p0, double cell, int n0
   hi2 = upper_d2(m, ends, 2);
 }
 
+// Per-thread work lists, reused from tile to tile (no allocation per tile).
+struct Scratch {
+  std::vector<double> tile_lo2, lo2, hi2;
+  std::vector<const PreparedMove*> kept;
+  std::vector<RowMove> row_moves;
+  std::vector<int> row_chosen, chosen, all;
+  std::vector<char> constant;
+};
+
+Scratch& scratch() {
+  thread_local Scratch s;
+  return s;
+}
+
 }  // namespace
 
 bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
@@ -153,23 +192,31 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
   const double x_lo = (tile.i0 + 0.5) * cell, x_hi = (tile.i1 - 0.5) * cell;
   const double y_lo = (tile.j0 + 0.5) * cell, y_hi = (tile.j1 - 0.5) * cell;
   const Eigen::Vector2d corners[4] = {{x_lo, y_lo}, {x_hi, y_lo}, {x_lo, y_hi}, {x_hi, y_hi}};
+  Scratch& sc = scratch();
+  sc.tile_lo2.resize(tile_moves.size());
   double tile_u2 = kInf;
-  for (int k : tile_moves) {
-    const PreparedMove& m = moves[k];
-    tile_u2 = std::min(tile_u2, upper_d2(m, corners, 4));
+  for (std::size_t q = 0; q < tile_moves.size(); ++q) {
+    double hi2 = 0.0;
+    tile_bounds(moves[tile_moves[q]], corners, sc.tile_lo2[q], hi2);
+    tile_u2 = std::min(tile_u2, hi2);
   }
   const double tile_limit2 = std::min(tile_u2, reach * reach) * (1.0 + kPruneSlack);
-  std::vector<const PreparedMove*> kept;
-  kept.reserve(tile_moves.size());
-  for (int k : tile_moves) {
-    const PreparedMove& m = moves[k];
-    if (box_d2(m, x_lo, x_hi, y_lo, y_hi) <= tile_limit2) kept.push_back(&m);
+  std::vector<const PreparedMove*>& kept = sc.kept;
+  kept.clear();
+  for (std::size_t q = 0; q < tile_moves.size(); ++q) {
+    if (sc.tile_lo2[q] <= tile_limit2) kept.push_back(&moves[tile_moves[q]]);
   }
 
-  std::vector<RowMove> row_moves(kept.size());
-  std::vector<int> row_chosen(kept.size()), chosen(kept.size());
-  std::vector<double> lo2(kept.size()), hi2(kept.size());
-  std::vector<char> constant(kept.size());
+  std::vector<RowMove>& row_moves = sc.row_moves;
+  row_moves.resize(kept.size());
+  std::vector<int>& row_chosen = sc.row_chosen;
+  std::vector<int>& chosen = sc.chosen;
+  std::vector<double>& lo2 = sc.lo2;
+  std::vector<double>& hi2 = sc.hi2;
+  std::vector<char>& constant = sc.constant;
+  for (auto* v : {&row_chosen, &chosen}) v->resize(kept.size());
+  for (auto* v : {&lo2, &hi2}) v->resize(kept.size());
+  constant.resize(kept.size());
   std::array<float, kRunCells> d2{};
   const double reach2 = reach * reach;
   // Moves of `from` (indices into row_moves) that can be nearest somewhere in cells [n0, n1]
@@ -211,7 +258,8 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
     fill_cells(last_h_um, cells, out);
     visits += cells;
   };
-  std::vector<int> all(kept.size());
+  std::vector<int>& all = sc.all;
+  all.resize(kept.size());
   for (std::size_t c = 0; c < kept.size(); ++c) all[c] = static_cast<int>(c);
   const int width = tile.i1 - tile.i0;
 
