@@ -159,6 +159,7 @@ struct Scratch {
   std::vector<RowMove> row_moves;
   std::vector<int> row_chosen, chosen, all;
   std::vector<char> constant;
+  std::vector<float> heights;
 };
 
 Scratch& scratch() {
@@ -271,12 +272,18 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
     return std::min(u0, u1) >= 0.0 && std::max(u0, u1) <= m->length_xy_mm;
   });
   if (rows_parallel && !kept.empty()) {
+    // Heights of all rows first (independent square roots overlap), then the fills.
+    std::vector<float>& heights = sc.heights;
+    heights.resize(tile.j1 - tile.j0);
     for (int j = tile.j0; j < tile.j1; ++j) {
       const double y = (j + 0.5) * cell;
       double w2 = kInf;
       for (const PreparedMove* m : kept) w2 = std::min(w2, sq((y - m->a_mm.y()) * m->perp.y()));
-      fill(row_of(j) + tile.i0, width, w2);
+      heights[j - tile.j0] = w2 <= reach2 ? static_cast<float>(base_um + kUmPerMm * profile_mm(setup, w2))
+                                         : kUnreached;
     }
+    for (int j = tile.j0; j < tile.j1; ++j) fill_cells(heights[j - tile.j0], width, row_of(j) + tile.i0);
+    visits += static_cast<std::int64_t>(width) * (tile.j1 - tile.j0);
     return true;
   }
 
