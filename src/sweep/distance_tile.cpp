@@ -24,6 +24,9 @@ constexpr int kBlockCols = 64;
 // Relative slack on the pruning comparisons: the bounds are computed in double from the same
 // inputs, so 1e-12 covers their rounding (a few ulps) without keeping any real extra move.
 constexpr double kPruneSlack = 1e-12;
+// Grid size from which constant runs bypass the caches: twice the largest last-level cache of
+// common 2-socket-free servers (32 MiB); below it the grid may stay cached for the next stage.
+constexpr std::int64_t kStreamGridBytes = std::int64_t{64} << 20;
 
 double sq(double v) { return v * v; }
 
@@ -219,6 +222,9 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
                         : kUnreached;
   };
 
+  // Grids far beyond any cache take constant runs as streaming stores (no read of the line).
+  const bool stream = static_cast<std::int64_t>(setup.nx) * setup.ny * static_cast<std::int64_t>(sizeof(float)) >=
+                      kStreamGridBytes;
   Scratch& sc = scratch();
   sc.kept.clear();
   for (int k : tile_moves) sc.kept.push_back(&moves[k]);
@@ -249,7 +255,11 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
         sc.heights[j - tile.j0] = height_um(w2);
       }
       for (int j = tile.j0; j < tile.j1; ++j) {
-        fill_cells(sc.heights[j - tile.j0], fill_width, row_of(j) + b0);
+        if (stream) {
+          fill_cells_stream(sc.heights[j - tile.j0], fill_width, row_of(j) + b0);
+        } else {
+          fill_cells(sc.heights[j - tile.j0], fill_width, row_of(j) + b0);
+        }
       }
       visits += static_cast<std::int64_t>(fill_width) * (tile.j1 - tile.j0);
       if (whole_tile) break;
@@ -266,6 +276,7 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
     visits += static_cast<std::int64_t>(width) * (tile.j1 - tile.j0) *
               static_cast<std::int64_t>(kept->size());
   }
+  if (stream) stream_fence();
   return true;
 }
 

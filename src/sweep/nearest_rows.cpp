@@ -7,7 +7,12 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstdint>
 #include <limits>
+
+#if defined(__SSE2__)
+#include <immintrin.h>
+#endif
 
 #if defined(__x86_64__) && (defined(__GNUC__) || defined(__clang__)) && \
     !defined(__SANITIZE_ADDRESS__)
@@ -26,6 +31,24 @@ constexpr float kUnreachedF = std::numeric_limits<float>::quiet_NaN();
 
 CUSPMAP_CLONES void fill_cells(float value, int count, float* out) {
   for (int n = 0; n < count; ++n) out[n] = value;
+}
+
+void fill_cells_stream(float value, int count, float* out) {
+#if defined(__SSE2__)
+  int n = 0;
+  for (; n < count && (reinterpret_cast<std::uintptr_t>(out + n) & 15u) != 0; ++n) out[n] = value;
+  const __m128 lanes = _mm_set1_ps(value);
+  for (; n + 4 <= count; n += 4) _mm_stream_ps(out + n, lanes);
+  for (; n < count; ++n) out[n] = value;
+#else
+  fill_cells(value, count, out);
+#endif
+}
+
+void stream_fence() {
+#if defined(__SSE2__)
+  _mm_sfence();
+#endif
 }
 
 CUSPMAP_CLONES void line_d2_min(const LineRow& row, int count, float* d2) {

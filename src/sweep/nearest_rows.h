@@ -51,6 +51,14 @@ void arc_d2_min(const ArcRow& row, int count, float* d2);
 /// @param[out] out    the run
 void fill_cells(float value, int count, float* out);
 
+/// As fill_cells, with stores that bypass the caches (SSE2 non-temporal stores on x86-64,
+/// plain stores elsewhere): for grids far larger than the last-level cache, where a normal store
+/// would first read every line it writes. Call stream_fence() before other threads read them.
+void fill_cells_stream(float value, int count, float* out);
+
+/// Orders earlier fill_cells_stream stores before any later store (x86 sfence; no-op elsewhere).
+void stream_fence();
+
 /// Heights of an untilted ball or undished bull-nose/flat at squared distances d2 from the
 /// nearest move: out[n] = base_um + 1000 (rc - sqrt(rc^2 - max(d - flat, 0)^2)), d = sqrt(d2),
 /// NaN (unreached) where d2 > reach2.
