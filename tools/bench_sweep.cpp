@@ -108,23 +108,44 @@ void BM_SweepStageBall(benchmark::State& state) {
   const Job job = sized_ball_job(static_cast<double>(state.range(1)), state.range(0));
   const int threads = static_cast<int>(state.range(2));
   Heightfield hf = make_heightfield(job.patch, 0);
-  for (auto _ : state) {
-    const SweepSetup setup = sweep_setup(job.cutter, job.cut, job.patch);
+  // `general` switches the level-distance path off (the reference for the disagreement).
+  auto run = [&](Heightfield& out, bool general) {
+    SweepSetup setup = sweep_setup(job.cutter, job.cut, job.patch);
+    if (general) setup.level_distance = false;
     PreparedCounts counts;
     const std::vector<PreparedMove> moves =
         prepare_moves(job.path, job.cut, job.patch, setup.envelope.reach_mm,
                       setup.top_mm + kReachMarginMm, counts);
-    const TileGrid tiles = tile_grid(hf.nx, hf.ny);
+    const TileGrid tiles = tile_grid(out.nx, out.ny);
     const std::vector<std::vector<int>> bins =
         bin_moves(moves, tiles, setup.cell_mm, setup.envelope.reach_mm);
     std::vector<TileRect> rects(tiles.count());
     for (int t = 0; t < tiles.count(); ++t) rects[t] = tiles.rect(t);
-    sweep_tiles(setup, moves, bins, rects, SweepMode::Envelope, hf.z_um.data(), 0, threads, {});
+    sweep_tiles(setup, moves, bins, rects, SweepMode::Envelope, out.z_um.data(), 0, threads, {});
+  };
+  for (auto _ : state) {
+    run(hf, false);
     benchmark::DoNotOptimize(hf.z_um.data());
     benchmark::ClobberMemory();
   }
   state.counters["grid_cells_per_s"] = benchmark::Counter(
       static_cast<double>(hf.cells()), benchmark::Counter::kIsIterationInvariantRate);
+  // Largest disagreement with the general envelope kernels, cells with a profile slope <= 1
+  // (heights up to R (1 - 1/sqrt 2), every cusp of this job); NaN cells must match.
+  Heightfield general = make_heightfield(job.patch, 0);
+  run(general, true);
+  const double r_um = 1000.0 * job.cutter.radius_mm();
+  double worst_um = 0.0;
+  std::int64_t nan_mismatch = 0;
+  for (std::int64_t k = 0; k < hf.cells(); ++k) {
+    const float a = hf.z_um.data()[k], b = general.z_um.data()[k];
+    nan_mismatch += std::isnan(a) != std::isnan(b);
+    if (std::isfinite(a) && std::isfinite(b) && b <= r_um * (1.0 - std::sqrt(0.5))) {
+      worst_um = std::max(worst_um, static_cast<double>(std::abs(a - b)));
+    }
+  }
+  state.counters["max_diff_vs_general_um"] = worst_um;
+  state.counters["nan_mismatch"] = static_cast<double>(nan_mismatch);
 }
 BENCHMARK(BM_SweepStageBall)
     ->ArgsProduct({{12, 40}, {0, 30}, {1, 2}})

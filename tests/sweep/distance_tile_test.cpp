@@ -145,6 +145,43 @@ TEST_CASE("distance_tile: a grid past 64 MiB (streaming stores) agrees with the 
   REQUIRE(max_scaled_diff_um(fast.hf, general.hf, 3.0) <= kAgreeUm);
 }
 
+TEST_CASE("distance_tile: ball heights equal z + p(exact nearest distance) to float precision",
+          "[sweep]") {
+  // Oracle: the distance from each cell centre to every segment in double (point-segment
+  // distance, Eberly 2003), then p(d) = d^2 / (R + sqrt(R^2 - d^2)) (the ball of DESIGN.md
+  // "Geometry" without cancellation). A raster at 30 deg, so no row is a constant fill.
+  const Cutter ball = make_cutter(CutterShape::Ball);
+  const double r = 3.0;
+  const Patch patch = square_patch(3.0, 0.01);
+  PathSpec spec;
+  spec.stepover_mm = 0.3;
+  spec.angle_deg = 30.0;
+  spec.direction = RasterDirection::Zigzag;
+  const Toolpath path = raster_path(spec, CutSpec{}, patch, ball);
+  const Sweep fast = envelope(ball, path, patch, true);
+  // Float heights carry 24 bits: 1e-6 relative (16 ulps) plus 1e-6 um for the um-scale cells
+  // nearest a pass, where the float distance rounding (an ulp of a few mm) dominates.
+  constexpr double kRelative = 1e-6, kAbsoluteUm = 1e-6;
+  double worst = 0.0;
+  for (int j = 0; j < fast.hf.ny; ++j) {
+    for (int i = 0; i < fast.hf.nx; ++i) {
+      const Eigen::Vector2d p((i + 0.5) * patch.cell_mm, (j + 0.5) * patch.cell_mm);
+      double d2 = 1e300;
+      for (const Move& m : path.moves) {
+        const Eigen::Vector2d a = m.start_mm.head<2>(), b = m.end_mm.head<2>();
+        const Eigen::Vector2d ab = b - a;
+        const double len2 = ab.squaredNorm();
+        const double t = len2 > 0.0 ? std::clamp((p - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
+        d2 = std::min(d2, (p - (a + t * ab)).squaredNorm());
+      }
+      const double h_um = 1000.0 * d2 / (r + std::sqrt(r * r - d2));
+      const double err = std::abs(fast.hf.z_um(j, i) - h_um) / (kRelative * h_um + kAbsoluteUm);
+      worst = std::max(worst, err);
+    }
+  }
+  REQUIRE(worst <= 1.0);
+}
+
 TEST_CASE("distance_tile: a ball raster leaves the handbook scallop height", "[sweep]") {
   const Cutter ball = make_cutter(CutterShape::Ball);
   const double r = 3.0, step = 0.3;
