@@ -123,6 +123,7 @@ struct Scratch {
   std::vector<double> lo2;
   std::vector<const PreparedMove*> tile_kept, kept;
   std::vector<float> heights;
+  std::vector<double> key, heights_key;  // what `heights` were computed from
 };
 
 Scratch& scratch() {
@@ -232,13 +233,13 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
   prune(sc.kept, (tile.i0 + 0.5) * cell, (tile.i1 - 0.5) * cell, y_lo, y_hi, reach2, sc.lo2,
         sc.tile_kept);
 
+  const bool whole_tile =
+      rows_parallel(sc.tile_kept, (tile.i0 + 0.5) * cell, (tile.i1 - 0.5) * cell);
   // Blocks of columns, each with the moves that can be nearest in it.
   for (int b0 = tile.i0; b0 < tile.i1; b0 += kBlockCols) {
     const int b1 = std::min(tile.i1, b0 + kBlockCols);
     const int width = b1 - b0;
     const double x_lo = (b0 + 0.5) * cell, x_hi = (b1 - 0.5) * cell;
-    const bool whole_tile = rows_parallel(sc.tile_kept, (tile.i0 + 0.5) * cell,
-                                          (tile.i1 - 0.5) * cell);
     const std::vector<const PreparedMove*>* kept = &sc.tile_kept;
     if (!whole_tile) {
       prune(sc.tile_kept, x_lo, x_hi, y_lo, y_hi, reach2, sc.lo2, sc.kept);
@@ -247,12 +248,26 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
     const int fill_width = whole_tile ? tile.i1 - b0 : width;
     if (kept->empty() || whole_tile || rows_parallel(*kept, x_lo, x_hi)) {
       // One height per row: heights first (independent square roots overlap), then the fills.
-      sc.heights.resize(tile.j1 - tile.j0);
-      for (int j = tile.j0; j < tile.j1; ++j) {
-        const double y = (j + 0.5) * cell;
-        double w2 = kInf;
-        for (const PreparedMove* m : *kept) w2 = std::min(w2, sq((y - m->a_mm.y()) * m->perp.y()));
-        sc.heights[j - tile.j0] = height_um(w2);
+      // They depend only on the values in `key`, so the next tile of the same tile row (the
+      // usual next tile of a worker) reuses them.
+      std::vector<double>& key = sc.key;
+      key.assign({double(tile.j0), double(tile.j1), cell, base_um, setup.flat_mm,
+                  setup.corner_mm, reach2});
+      for (const PreparedMove* m : *kept) {
+        key.push_back(m->a_mm.y());
+        key.push_back(m->perp.y());
+      }
+      if (key != sc.heights_key) {
+        sc.heights.resize(tile.j1 - tile.j0);
+        for (int j = tile.j0; j < tile.j1; ++j) {
+          const double y = (j + 0.5) * cell;
+          double w2 = kInf;
+          for (const PreparedMove* m : *kept) {
+            w2 = std::min(w2, sq((y - m->a_mm.y()) * m->perp.y()));
+          }
+          sc.heights[j - tile.j0] = height_um(w2);
+        }
+        sc.heights_key.swap(key);
       }
       for (int j = tile.j0; j < tile.j1; ++j) {
         if (stream) {
