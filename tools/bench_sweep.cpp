@@ -206,7 +206,9 @@ void BM_StreamMinUpdate(benchmark::State& state) {
       rows(0, n);
     } else {
       std::vector<std::thread> pool;
-      for (int t = 0; t < threads; ++t) pool.emplace_back(rows, n * t / threads, n * (t + 1) / threads);
+      for (int t = 0; t < threads; ++t) {
+        pool.emplace_back(rows, n * t / threads, n * (t + 1) / threads);
+      }
       for (std::thread& th : pool) th.join();
     }
     benchmark::DoNotOptimize(z.data());

@@ -30,13 +30,11 @@ constexpr std::int64_t kStreamGridBytes = std::int64_t{64} << 20;
 
 double sq(double v) { return v * v; }
 
-// Squared distance from p to segment a-b (a == b allowed).
-double point_segment_d2(const Eigen::Vector2d& p, const Eigen::Vector2d& a,
-                        const Eigen::Vector2d& b) {
-  const Eigen::Vector2d ab = b - a;
-  const double len2 = ab.squaredNorm();
-  const double t = len2 > 0.0 ? std::clamp((p - a).dot(ab) / len2, 0.0, 1.0) : 0.0;
-  return (p - (a + t * ab)).squaredNorm();
+// Squared distance from p to the level line move m, in its frame (the row kernel's formula).
+double line_point_d2(const PreparedMove& m, const Eigen::Vector2d& p) {
+  const Eigen::Vector2d rel = p - m.a_mm;
+  const double u = rel.dot(m.dir), w = rel.dot(m.perp);
+  return sq(w) + sq(std::max({0.0, -u, u - m.length_xy_mm}));
 }
 
 // True when the arc passes the direction v from its centre (v != 0).
@@ -54,7 +52,7 @@ bool arc_covers(const PreparedMove& m, const Eigen::Vector2d& v) {
 double upper_d2(const PreparedMove& m, const Eigen::Vector2d* pts, int n) {
   double best = 0.0;
   if (m.kind == MoveKind::Line) {
-    for (int k = 0; k < n; ++k) best = std::max(best, point_segment_d2(pts[k], m.a_mm, m.b_mm));
+    for (int k = 0; k < n; ++k) best = std::max(best, line_point_d2(m, pts[k]));
     return best;
   }
   auto via = [&](const Eigen::Vector2d& on_arc) {
@@ -224,8 +222,9 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
   };
 
   // Grids far beyond any cache take constant runs as streaming stores (no read of the line).
-  const bool stream = static_cast<std::int64_t>(setup.nx) * setup.ny * static_cast<std::int64_t>(sizeof(float)) >=
-                      kStreamGridBytes;
+  const bool stream =
+      static_cast<std::int64_t>(setup.nx) * setup.ny * static_cast<std::int64_t>(sizeof(float)) >=
+      kStreamGridBytes;
   Scratch& sc = scratch();
   sc.kept.clear();
   for (int k : tile_moves) sc.kept.push_back(&moves[k]);
@@ -251,8 +250,8 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
       // They depend only on the values in `key`, so the next tile of the same tile row (the
       // usual next tile of a worker) reuses them.
       std::vector<double>& key = sc.key;
-      key.assign({double(tile.j0), double(tile.j1), cell, base_um, setup.flat_mm,
-                  setup.corner_mm, reach2});
+      key.assign({double(tile.j0), double(tile.j1), cell, base_um, setup.flat_mm, setup.corner_mm,
+                  reach2});
       for (const PreparedMove* m : *kept) {
         key.push_back(m->a_mm.y());
         key.push_back(m->perp.y());

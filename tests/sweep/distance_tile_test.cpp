@@ -43,8 +43,8 @@ Sweep envelope(const Cutter& cutter, const Toolpath& path, const Patch& patch, b
   out.level_distance = setup.level_distance;
   if (!allow_fast) setup.level_distance = false;
   PreparedCounts counts;
-  const std::vector<PreparedMove> moves = prepare_moves(
-      path, cut, patch, setup.envelope.reach_mm, setup.top_mm + kReachMarginMm, counts);
+  const std::vector<PreparedMove> moves = prepare_moves(path, cut, patch, setup.envelope.reach_mm,
+                                                        setup.top_mm + kReachMarginMm, counts);
   const TileGrid tiles = tile_grid(out.hf.nx, out.hf.ny);
   const auto bins = bin_moves(moves, tiles, setup.cell_mm, setup.envelope.reach_mm);
   std::vector<TileRect> rects(tiles.count());
@@ -210,8 +210,8 @@ TEST_CASE("distance_tile: heights do not depend on the thread count", "[sweep]")
   const Toolpath path = spiral_path(spiral, CutSpec{}, patch, bull);
   const Sweep one = envelope(bull, path, patch, true, 1);
   const Sweep three = envelope(bull, path, patch, true, 3);
-  REQUIRE(std::memcmp(one.hf.z_um.data(), three.hf.z_um.data(),
-                      sizeof(float) * one.hf.cells()) == 0);
+  REQUIRE(std::memcmp(one.hf.z_um.data(), three.hf.z_um.data(), sizeof(float) * one.hf.cells()) ==
+          0);
 }
 
 TEST_CASE("distance_tile: tilt and dish take the general envelope, unchanged", "[sweep]") {
