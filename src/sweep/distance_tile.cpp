@@ -121,6 +121,7 @@ struct Scratch {
   std::vector<double> lo2;
   std::vector<const PreparedMove*> tile_kept, kept;
   std::vector<float> heights;
+  std::vector<char> beside;
   std::vector<double> key, heights_key;  // what `heights` were computed from
 };
 
@@ -161,11 +162,19 @@ bool rows_parallel(const std::vector<const PreparedMove*>& kept, double x_lo, do
 }
 
 // Squared distances from cells [0, count) of the row starting at p0 to the nearest of `kept`.
-void row_d2(const std::vector<const PreparedMove*>& kept, const Eigen::Vector2d& p0, double cell,
-            int count, float* d2) {
+// `beside[q]` marks lines whose every cell of the block lies beside them (0 <= u <= L): their
+// distance is |w| alone.
+void row_d2(const std::vector<const PreparedMove*>& kept, const std::vector<char>& beside,
+            const Eigen::Vector2d& p0, double cell, int count, float* d2) {
   fill_cells(std::numeric_limits<float>::infinity(), count, d2);
-  for (const PreparedMove* mp : kept) {
-    const PreparedMove& m = *mp;
+  for (std::size_t q = 0; q < kept.size(); ++q) {
+    const PreparedMove& m = *kept[q];
+    if (beside[q]) {
+      const Eigen::Vector2d rel = p0 - m.a_mm;
+      band_d2_min(static_cast<float>(rel.dot(m.perp)), static_cast<float>(cell * m.perp.x()), count,
+                  d2);
+      continue;
+    }
     if (m.kind == MoveKind::Line) {
       // Offsets in double at the run's first cell, steps in float: the float sums stay within a
       // run of kBlockCols cells, so their rounding is an ulp of a few mm.
@@ -279,10 +288,22 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
       if (whole_tile) break;
       continue;
     }
+    sc.beside.resize(kept->size());
+    for (std::size_t q = 0; q < kept->size(); ++q) {
+      const PreparedMove& m = *(*kept)[q];
+      bool inside = m.kind == MoveKind::Line;
+      for (double cx : {x_lo, x_hi}) {
+        for (double cy : {y_lo, y_hi}) {
+          const double u = (Eigen::Vector2d(cx, cy) - m.a_mm).dot(m.dir);
+          inside = inside && u >= 0.0 && u <= m.length_xy_mm;
+        }
+      }
+      sc.beside[q] = inside;
+    }
     std::array<float, kBlockCols> d2{};
     for (int j = tile.j0; j < tile.j1; ++j) {
       const Eigen::Vector2d p0((b0 + 0.5) * cell, (j + 0.5) * cell);
-      row_d2(*kept, p0, cell, width, d2.data());
+      row_d2(*kept, sc.beside, p0, cell, width, d2.data());
       profile_heights(d2.data(), width, static_cast<float>(base_um),
                       static_cast<float>(setup.flat_mm), static_cast<float>(setup.corner_mm),
                       static_cast<float>(reach2), row_of(j) + b0);

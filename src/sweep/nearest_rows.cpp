@@ -64,6 +64,13 @@ CUSPMAP_CLONES void line_d2_min(const LineRow& row, int count, float* d2) {
   }
 }
 
+CUSPMAP_CLONES void band_d2_min(float w, float dw, int count, float* d2) {
+  for (int n = 0; n < count; ++n) {
+    const float v = w + static_cast<float>(n) * dw;
+    d2[n] = std::min(d2[n], v * v);
+  }
+}
+
 CUSPMAP_CLONES void arc_d2_min(const ArcRow& row, int count, float* d2) {
   const double vy2 = row.vy * row.vy, ay2 = row.ay * row.ay, by2 = row.by * row.by;
   const double mid_y_part = row.vy * row.mid_y;

@@ -37,6 +37,14 @@ struct ArcRow {
 /// @param[in,out] d2    running minimum, mm^2
 void line_d2_min(const LineRow& row, int count, float* d2);
 
+/// d2[n] = min(d2[n], (w + n dw)^2), n in [0, count): a line beside every one of the cells
+/// (their foot points fall within the segment), so only the across-move offset counts.
+/// @param[in] w         across-move offset of cell 0, mm
+/// @param[in] dw        across-move step per cell, mm
+/// @param[in] count     cells in the run, >= 0
+/// @param[in,out] d2    running minimum, mm^2
+void band_d2_min(float w, float dw, int count, float* d2);
+
 /// d2[n] = min(d2[n], squared distance from cell n to the arc), n in [0, count). A cell whose
 /// direction from the centre lies within the arc's angles is |rho - radius| from it, any other
 /// cell is nearest an end point.
