@@ -1,18 +1,23 @@
 // Speed of the sweep: cells per second of the envelope and tooth-resolved sweeps, the same job
 // through the brute-force stamping oracle (speed ratio and disagreement), and a stream-like
-// minimum-update kernel over as many cell updates as the envelope sweep does (the memory
-// bandwidth bound of any Z-map minimum update). Figures go to docs/performance.md.
+// kernel doing one minimum update per cell over the same grid (the memory-bandwidth bound of
+// any Z-map pass over the floor). Figures go to docs/performance.md.
 // Method: Google Benchmark; job sizes from the issue (12 x 12 mm at 10 um, 6 mm ball, 0.3 mm
 // stepover; 10 x 10 mm at 2 um, 3-flute flat end mill, fz 0.05 mm, 1 deg dish).
 #include <benchmark/benchmark.h>
 
 #include <algorithm>
 #include <cmath>
+#include <thread>
 #include <vector>
 
 #include "path/raster.h"
 #include "sweep/brute_force_stamp.h"
+#include "sweep/bin_moves.h"
+#include "sweep/prepare_moves.h"
 #include "sweep/simulate_floor.h"
+#include "sweep/sweep_setup.h"
+#include "sweep/sweep_tiles.h"
 
 namespace cuspmap {
 namespace {
@@ -24,20 +29,26 @@ struct Job {
   Toolpath path;
 };
 
-// 12 x 12 mm at 10 um, 6 mm ball, 0.3 mm stepover, zigzag, raster at `angle_deg`.
-Job ball_job(double angle_deg) {
+// size x size mm at `cell_mm`, 6 mm ball, 0.3 mm stepover, zigzag, raster at `angle_deg`
+// (12 x 12 mm at 10 um: the issue's job; 40 x 40 mm at 5 um: a 64 M-cell floor in main memory).
+Job ball_job(double angle_deg, double size_mm = 12.0, double cell_mm = 0.01) {
   Job j;
   j.cutter.shape = CutterShape::Ball;
   j.cutter.diameter_mm = 6.0;
   j.cutter.teeth = 2;
-  j.patch.size_x_mm = j.patch.size_y_mm = 12.0;
-  j.patch.cell_mm = 0.01;
+  j.patch.size_x_mm = j.patch.size_y_mm = size_mm;
+  j.patch.cell_mm = cell_mm;
   PathSpec spec;
   spec.stepover_mm = 0.3;
   spec.angle_deg = angle_deg;
   spec.direction = RasterDirection::Zigzag;
   j.path = raster_path(spec, j.cut, j.patch, j.cutter);
   return j;
+}
+
+// Benchmark argument `size` 12 is the 12 x 12 mm job at 10 um, 40 the 40 x 40 mm one at 5 um.
+Job sized_ball_job(double angle_deg, std::int64_t size) {
+  return size == 40 ? ball_job(angle_deg, 40.0, 0.005) : ball_job(angle_deg);
 }
 
 // size x size mm at `cell`, 6 mm 3-flute flat end mill, 1 deg dish, fz 0.05 mm at 10000 rpm,
@@ -79,13 +90,66 @@ void sweep(benchmark::State& state, const Job& job, bool teeth, int threads) {
   state.counters["cell_updates"] = static_cast<double>(stats.cell_updates);
 }
 
+// simulate_floor end to end (grid allocation and its NaN fill included).
 void BM_EnvelopeBall(benchmark::State& state) {
-  sweep(state, ball_job(static_cast<double>(state.range(0))), false,
-        static_cast<int>(state.range(1)));
+  sweep(state, sized_ball_job(static_cast<double>(state.range(1)), state.range(0)), false,
+        static_cast<int>(state.range(2)));
 }
 BENCHMARK(BM_EnvelopeBall)
-    ->ArgsProduct({{0, 30}, {1, 2}})
-    ->ArgNames({"angle_deg", "threads"})
+    ->ArgsProduct({{12, 40}, {0, 30}, {1, 2}})
+    ->ArgNames({"size_mm", "angle_deg", "threads"})
+    ->Unit(benchmark::kMillisecond)
+    ->MeasureProcessCPUTime()
+    ->UseRealTime();
+
+// The sweep alone into a grid allocated once (what the stream kernel below is compared with):
+// setup, move preparation, binning and the tile sweep, every cell written.
+void BM_SweepStageBall(benchmark::State& state) {
+  const Job job = sized_ball_job(static_cast<double>(state.range(1)), state.range(0));
+  const int threads = static_cast<int>(state.range(2));
+  Heightfield hf = make_heightfield(job.patch, 0);
+  // `general` switches the level-distance path off (the reference for the disagreement).
+  auto run = [&](Heightfield& out, bool general) {
+    SweepSetup setup = sweep_setup(job.cutter, job.cut, job.patch);
+    if (general) setup.level_distance = false;
+    PreparedCounts counts;
+    const std::vector<PreparedMove> moves =
+        prepare_moves(job.path, job.cut, job.patch, setup.envelope.reach_mm,
+                      setup.top_mm + kReachMarginMm, counts);
+    const TileGrid tiles = tile_grid(out.nx, out.ny);
+    const std::vector<std::vector<int>> bins =
+        bin_moves(moves, tiles, setup.cell_mm, setup.envelope.reach_mm);
+    std::vector<TileRect> rects(tiles.count());
+    for (int t = 0; t < tiles.count(); ++t) rects[t] = tiles.rect(t);
+    sweep_tiles(setup, moves, bins, rects, SweepMode::Envelope, out.z_um.data(), 0, threads, {});
+  };
+  for (auto _ : state) {
+    run(hf, false);
+    benchmark::DoNotOptimize(hf.z_um.data());
+    benchmark::ClobberMemory();
+  }
+  state.counters["grid_cells_per_s"] = benchmark::Counter(
+      static_cast<double>(hf.cells()), benchmark::Counter::kIsIterationInvariantRate);
+  // Largest disagreement with the general envelope kernels, cells with a profile slope <= 1
+  // (heights up to R (1 - 1/sqrt 2), every cusp of this job); NaN cells must match.
+  Heightfield general = make_heightfield(job.patch, 0);
+  run(general, true);
+  const double r_um = 1000.0 * job.cutter.radius_mm();
+  double worst_um = 0.0;
+  std::int64_t nan_mismatch = 0;
+  for (std::int64_t k = 0; k < hf.cells(); ++k) {
+    const float a = hf.z_um.data()[k], b = general.z_um.data()[k];
+    nan_mismatch += std::isnan(a) != std::isnan(b);
+    if (std::isfinite(a) && std::isfinite(b) && b <= r_um * (1.0 - std::sqrt(0.5))) {
+      worst_um = std::max(worst_um, static_cast<double>(std::abs(a - b)));
+    }
+  }
+  state.counters["max_diff_vs_general_um"] = worst_um;
+  state.counters["nan_mismatch"] = static_cast<double>(nan_mismatch);
+}
+BENCHMARK(BM_SweepStageBall)
+    ->ArgsProduct({{12, 40}, {0, 30}, {1, 2}})
+    ->ArgNames({"size_mm", "angle_deg", "threads"})
     ->Unit(benchmark::kMillisecond)
     ->MeasureProcessCPUTime()
     ->UseRealTime();
@@ -122,35 +186,40 @@ BENCHMARK(BM_BruteForceBall)
     ->MeasureProcessCPUTime()
     ->UseRealTime();
 
-// Stream-like bound: z = min(z, h_row) over a grid of `cells` floats, repeated until it has done
-// as many cell updates as the envelope sweep of ball_job(0) (read + write 4 bytes per update).
-// With the job's own grid (1.44 M cells, 5.8 MB) it runs from the last-level cache like the
-// sweep does; with 64 M cells (256 MB) from main memory.
+// Stream-like bound: exactly one z[i] = min(z[i], h_row) per cell over a grid of the job's own
+// size (12 x 12 mm at 10 um: 1200 x 1200 cells, 5.8 MB, cache-resident like the sweep; 40 x 40 mm
+// at 5 um: 8000 x 8000 cells, 256 MB, main memory), rows split between `threads` workers the way
+// the sweep splits tiles. Read + write 4 bytes per cell.
 void BM_StreamMinUpdate(benchmark::State& state) {
-  const Job job = ball_job(0.0);
-  SweepStats stats;
-  simulate_floor(job.cutter, job.path, job.cut, job.patch, SimSpec{}, &stats);
-  const std::int64_t cells = state.range(0);
-  const int nx = 1200;
-  const std::int64_t ny = cells / nx;
-  std::vector<float> z(static_cast<std::size_t>(nx * ny), 1e30f);
-  const std::int64_t rows_total = std::max<std::int64_t>(ny, stats.cell_updates / nx);
+  const int n = state.range(0) == 40 ? 8000 : 1200;
+  const int threads = static_cast<int>(state.range(1));
+  std::vector<float> z(static_cast<std::size_t>(n) * n, 1e30f);
+  auto rows = [&](int j0, int j1) {
+    for (int j = j0; j < j1; ++j) {
+      float* row = z.data() + static_cast<std::size_t>(j) * n;
+      const float h = static_cast<float>(j % 97);
+      for (int i = 0; i < n; ++i) row[i] = std::min(row[i], h);
+    }
+  };
   for (auto _ : state) {
-    for (std::int64_t k = 0; k < rows_total; ++k) {
-      float* row = z.data() + static_cast<std::size_t>((k % ny) * nx);
-      const float h = static_cast<float>(k % 97);
-      for (int i = 0; i < nx; ++i) row[i] = std::min(row[i], h);
+    if (threads == 1) {
+      rows(0, n);
+    } else {
+      std::vector<std::thread> pool;
+      for (int t = 0; t < threads; ++t) {
+        pool.emplace_back(rows, n * t / threads, n * (t + 1) / threads);
+      }
+      for (std::thread& th : pool) th.join();
     }
     benchmark::DoNotOptimize(z.data());
     benchmark::ClobberMemory();
   }
-  state.counters["cell_updates_per_s"] = benchmark::Counter(
-      static_cast<double>(rows_total * nx), benchmark::Counter::kIsIterationInvariantRate);
+  state.counters["grid_cells_per_s"] = benchmark::Counter(
+      static_cast<double>(n) * n, benchmark::Counter::kIsIterationInvariantRate);
 }
 BENCHMARK(BM_StreamMinUpdate)
-    ->Arg(1440000)
-    ->Arg(64 * 1024 * 1024)
-    ->ArgNames({"cells"})
+    ->ArgsProduct({{12, 40}, {1, 2}})
+    ->ArgNames({"size_mm", "threads"})
     ->Unit(benchmark::kMillisecond)
     ->MeasureProcessCPUTime()
     ->UseRealTime();

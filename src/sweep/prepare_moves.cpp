@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <numbers>
 
 namespace cuspmap {
@@ -18,7 +19,7 @@ double point_box_distance(const Eigen::Vector2d& p, double x_lo, double x_hi, do
                           double y_hi) {
   const double dx = std::max({x_lo - p.x(), 0.0, p.x() - x_hi});
   const double dy = std::max({y_lo - p.y(), 0.0, p.y() - y_hi});
-  return std::hypot(dx, dy);
+  return std::sqrt(dx * dx + dy * dy);  // mm-sized values: hypot's overflow guard not needed
 }
 
 double point_segment_distance(const Eigen::Vector2d& p, const Eigen::Vector2d& a,
@@ -62,7 +63,23 @@ double PreparedMove::distance_to_box(double x_lo, double x_hi, double y_lo, doub
   if (kind == MoveKind::Arc) {
     const double dx = std::max({x_lo - x_max_mm, 0.0, x_min_mm - x_hi});
     const double dy = std::max({y_lo - y_max_mm, 0.0, y_min_mm - y_hi});
-    return std::hypot(dx, dy);
+    return std::sqrt(dx * dx + dy * dy);
+  }
+  // Box corners in the move's frame: when all lie beside the segment (0 <= u <= L), the nearest
+  // point is straight across, so the distance is that of the w range from 0 (exact, no search).
+  double u_lo = std::numeric_limits<double>::infinity(), u_hi = -u_lo, w_lo = u_lo, w_hi = -u_lo;
+  for (const double cx : {x_lo, x_hi}) {
+    for (const double cy : {y_lo, y_hi}) {
+      const Eigen::Vector2d rel(cx - a_mm.x(), cy - a_mm.y());
+      const double u = rel.dot(dir), w = rel.dot(perp);
+      u_lo = std::min(u_lo, u);
+      u_hi = std::max(u_hi, u);
+      w_lo = std::min(w_lo, w);
+      w_hi = std::max(w_hi, w);
+    }
+  }
+  if (length_xy_mm > 0.0 && u_lo >= 0.0 && u_hi <= length_xy_mm) {
+    return w_lo > 0.0 ? w_lo : (w_hi < 0.0 ? -w_hi : 0.0);
   }
   if (segment_meets_box(a_mm, b_mm, x_lo, x_hi, y_lo, y_hi)) return 0.0;
   double d = std::min(point_box_distance(a_mm, x_lo, x_hi, y_lo, y_hi),

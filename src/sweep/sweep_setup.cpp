@@ -36,6 +36,11 @@ SweepSetup sweep_setup(const Cutter& cutter, const CutSpec& cut, const Patch& pa
   s.ny = static_cast<int>(ny);
   s.cell_mm = patch.cell_mm;
   s.top_mm = s.envelope.max_mm + axial_max + s.tilt_drop_mm;
+  // Undished profiles rise from the axis (argmin 0); runout turns that into a ring (q lowest at
+  // r = e) and tilt adds a term in the direction, so either needs the general envelope.
+  s.level_distance = s.runout_mm == 0.0 && s.tilt_drop_mm == 0.0 && s.envelope.non_decreasing();
+  s.flat_mm = cutter.flat_radius_mm();
+  s.corner_mm = cutter.effective_corner_mm();
   return s;
 }
 

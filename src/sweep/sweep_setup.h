@@ -31,6 +31,11 @@ struct SweepSetup {
   int ny = 0;                     ///< grid rows
   double cell_mm = 0.0;           ///< cell size
   double top_mm = 0.0;            ///< highest any cutter point reaches above its tip
+  /// The envelope height is z + p(distance to the nearest move) for level moves: untilted, no
+  /// runout, p non-decreasing in r (ball, undished bull-nose or flat). See distance_tile.h.
+  bool level_distance = false;
+  double flat_mm = 0.0;           ///< R - rc: where the corner starts (0 for a ball)
+  double corner_mm = 0.0;         ///< rc (R for a ball, 0 for a flat end)
 };
 
 /// A move whose lowest tip is this far above the highest any cutter point reaches still counts

@@ -8,6 +8,7 @@
 #include <limits>
 #include <optional>
 
+#include "sweep/distance_tile.h"
 #include "sweep/envelope_arc.h"
 #include "sweep/envelope_line.h"
 #include "sweep/row_span.h"
@@ -63,6 +64,11 @@ void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, LineT
 std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
                         const std::vector<int>& tile_moves, const TileRect& tile, SweepMode mode,
                         float* grid, int grid_row0) {
+  if (mode == SweepMode::Envelope && setup.level_distance) {
+    // Level moves at one height and a profile rising from the axis: nearest-move distance.
+    std::int64_t visits = 0;
+    if (distance_tile(setup, moves, tile_moves, tile, grid, grid_row0, visits)) return visits;
+  }
   const int nx = setup.nx;
   // Row j of the grid lives at grid + (j - grid_row0) nx.
   auto row_of = [&](int j) { return grid + static_cast<std::int64_t>(j - grid_row0) * nx; };

@@ -1,0 +1,117 @@
+// Row kernels of the level-distance sweep (see nearest_rows.h). Plain counted loops over
+// contiguous arrays that the compiler turns into SIMD lanes; each kernel is cloned for AVX-512,
+// AVX2 and the baseline and the loader picks the clone the CPU runs (GCC/Clang target_clones),
+// so a portable build still uses the wide units. Built with -fno-math-errno (CMakeLists.txt) so
+// that sqrt stays a lane instruction. Method: see nearest_rows.h.
+#include "sweep/nearest_rows.h"
+
+#include <algorithm>
+#include <cmath>
+#include <cstdint>
+#include <limits>
+
+#if defined(__SSE2__)
+#include <immintrin.h>
+#endif
+
+#if defined(__x86_64__) && (defined(__GNUC__) || defined(__clang__)) && \
+    !defined(__SANITIZE_ADDRESS__)
+#define CUSPMAP_CLONES __attribute__((target_clones("avx512f", "avx2", "default")))
+#else
+#define CUSPMAP_CLONES
+#endif
+
+namespace cuspmap {
+namespace {
+
+constexpr float kUmPerMm = 1000.0f;
+constexpr float kUnreachedF = std::numeric_limits<float>::quiet_NaN();
+
+}  // namespace
+
+CUSPMAP_CLONES void fill_cells(float value, int count, float* out) {
+  for (int n = 0; n < count; ++n) out[n] = value;
+}
+
+void fill_cells_stream(float value, int count, float* out) {
+#if defined(__SSE2__)
+  int n = 0;
+  for (; n < count && (reinterpret_cast<std::uintptr_t>(out + n) & 15u) != 0; ++n) out[n] = value;
+  const __m128 lanes = _mm_set1_ps(value);
+  for (; n + 4 <= count; n += 4) _mm_stream_ps(out + n, lanes);
+  for (; n < count; ++n) out[n] = value;
+#else
+  fill_cells(value, count, out);
+#endif
+}
+
+void stream_fence() {
+#if defined(__SSE2__)
+  _mm_sfence();
+#endif
+}
+
+CUSPMAP_CLONES void line_d2_min(const LineRow& row, int count, float* d2) {
+  const float ua = row.ua, ub = row.ub, du = row.du, w0 = row.w, dw = row.dw;
+  for (int n = 0; n < count; ++n) {
+    const float nf = static_cast<float>(n);
+    const float before = -(ua + nf * du);  // > 0 before the start
+    const float after = ub + nf * du;      // > 0 past the end
+    const float t = std::max(std::max(before, after), 0.0f);
+    const float w = w0 + nf * dw;
+    const float d = w * w + t * t;
+    d2[n] = std::min(d2[n], d);
+  }
+}
+
+CUSPMAP_CLONES void band_d2_min(float w, float dw, int count, float* d2) {
+  for (int n = 0; n < count; ++n) {
+    const float v = w + static_cast<float>(n) * dw;
+    d2[n] = std::min(d2[n], v * v);
+  }
+}
+
+CUSPMAP_CLONES void arc_d2_min(const ArcRow& row, int count, float* d2) {
+  const double vy2 = row.vy * row.vy, ay2 = row.ay * row.ay, by2 = row.by * row.by;
+  const double mid_y_part = row.vy * row.mid_y;
+  for (int n = 0; n < count; ++n) {
+    const double s = static_cast<double>(n) * row.step;
+    const double vx = row.vx + s;
+    const double rho = std::sqrt(vx * vx + vy2);
+    const double radial = rho - row.radius;
+    const double ax = row.ax + s, bx = row.bx + s;
+    const double ends = std::min(ax * ax + ay2, bx * bx + by2);
+    const bool inside = vx * row.mid_x + mid_y_part >= rho * row.cos_half;
+    const float d = static_cast<float>(inside ? radial * radial : ends);
+    d2[n] = std::min(d2[n], d);
+  }
+}
+
+CUSPMAP_CLONES void profile_heights(const float* d2, int count, float base_um, float flat_mm,
+                                    float corner_mm, float reach2, float* out) {
+  // rc - sqrt(rc^2 - u^2) written as u^2 / (rc + sqrt(rc^2 - u^2)): no cancellation, so the
+  // height keeps float's relative precision down to the pass itself (the difference form loses
+  // an ulp of rc, 1.2e-4 um at rc = 1 mm, against cusps of a few nm near a pass).
+  const float c2 = corner_mm * corner_mm;
+  if (corner_mm == 0.0f) {
+    // Flat end: level within the reach.
+    for (int n = 0; n < count; ++n) out[n] = d2[n] <= reach2 ? base_um : kUnreachedF;
+    return;
+  }
+  if (flat_mm == 0.0f) {
+    // Ball: u = d, so u^2 = d2 and no square root of d2 is needed.
+    for (int n = 0; n < count; ++n) {
+      const float u2 = std::min(d2[n], c2);
+      const float h = base_um + kUmPerMm * (u2 / (corner_mm + std::sqrt(c2 - u2)));
+      out[n] = d2[n] <= reach2 ? h : kUnreachedF;
+    }
+    return;
+  }
+  for (int n = 0; n < count; ++n) {
+    const float u = std::min(std::max(std::sqrt(d2[n]) - flat_mm, 0.0f), corner_mm);
+    const float h = base_um + kUmPerMm * (u * u / (corner_mm + std::sqrt(c2 - u * u)));
+    out[n] = d2[n] <= reach2 ? h : kUnreachedF;
+  }
+}
+
+}  // namespace cuspmap
