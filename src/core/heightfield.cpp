@@ -60,7 +60,7 @@ std::int64_t physical_memory_bytes() {
   return static_cast<std::int64_t>(pages) * page_size;
 }
 
-Heightfield make_heightfield(const Patch& patch, std::int64_t max_memory_bytes) {
+Heightfield make_heightfield(const Patch& patch, std::int64_t max_memory_bytes, GridFill fill) {
   std::int64_t limit = max_memory_bytes;
   if (limit <= 0) limit = physical_memory_bytes() / 2;
   std::int64_t nx = 0, ny = 0;
@@ -80,7 +80,11 @@ Heightfield make_heightfield(const Patch& patch, std::int64_t max_memory_bytes) 
   hf.cell_mm = patch.cell_mm;
   hf.origin_x_mm = patch.origin_x_mm;
   hf.origin_y_mm = patch.origin_y_mm;
-  hf.z_um = HeightGrid::Constant(hf.ny, hf.nx, kUnreached);
+  if (fill == GridFill::Unreached) {
+    hf.z_um = HeightGrid::Constant(hf.ny, hf.nx, kUnreached);
+  } else {
+    hf.z_um.resize(hf.ny, hf.nx);
+  }
   return hf;
 }
 

@@ -56,12 +56,22 @@ std::int64_t heightfield_bytes(const Patch& patch);
 /// Physical memory of this machine in bytes (sysconf), or 0 when it cannot be read.
 std::int64_t physical_memory_bytes();
 
-/// Allocates the grid for a patch, every cell kUnreached.
+/// What a new grid's cells hold.
+enum class GridFill {
+  Unreached,  ///< every cell kUnreached (NaN)
+  None,       ///< left unwritten: for a caller that writes every cell itself (the sweep's tiles
+              ///< cover the grid); saves a pass over the grid and lets its threads first-touch
+              ///< the pages
+};
+
+/// Allocates the grid for a patch.
 /// @param[in] patch             validated patch
 /// @param[in] max_memory_bytes  limit; 0 means half of physical memory
+/// @param[in] fill              kUnreached everywhere (default) or nothing
 /// @throws InputError with the estimate and the limit when the grid would exceed it, or when
 ///         a dimension exceeds 2^31 - 1 cells.
-Heightfield make_heightfield(const Patch& patch, std::int64_t max_memory_bytes);
+Heightfield make_heightfield(const Patch& patch, std::int64_t max_memory_bytes,
+                             GridFill fill = GridFill::Unreached);
 
 /// Counts the cells that hold a finite height.
 std::int64_t reached_cells(const Heightfield& hf);

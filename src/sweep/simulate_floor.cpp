@@ -14,7 +14,10 @@
 namespace cuspmap {
 Heightfield simulate_floor(const Cutter& cutter, const Toolpath& path, const CutSpec& cut,
                            const Patch& patch, const SimSpec& sim, SweepStats* stats) {
-  Heightfield hf = make_heightfield(patch, sim.max_memory_bytes);
+  // Every tile writes each of its cells (a height, or NaN where unreached) and the tiles cover
+  // the grid, so the grid is not filled first: one pass over memory fewer, and the sweep
+  // threads first-touch their own pages.
+  Heightfield hf = make_heightfield(patch, sim.max_memory_bytes, GridFill::None);
   const SweepSetup setup = sweep_setup(cutter, cut, patch);
   PreparedCounts counts;
   const std::vector<PreparedMove> moves = prepare_moves(path, cut, patch, setup.envelope.reach_mm,
