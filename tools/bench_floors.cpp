@@ -45,7 +45,6 @@ void run_streamed(benchmark::State& state, double size_mm, double cell_mm, doubl
     cells = static_cast<std::int64_t>(run.grid_nx) * run.grid_ny;
     moves = static_cast<std::int64_t>(run.built.path.moves.size());
     sa_um = run.texture.areal.parameters.sa_um;
-    benchmark::DoNotOptimize(sa_um);
   }
   state.counters["cells"] = static_cast<double>(cells);
   state.counters["moves"] = static_cast<double>(moves);
