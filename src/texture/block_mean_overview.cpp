@@ -31,16 +31,24 @@ void BlockMeanOverview::add_band(const Heightfield& band, int j0, int threads) {
   const int items = (out_nx_ + kColumnsPerItem - 1) / kColumnsPerItem;
   parallel_rows(items, threads, [&](int item) {
     const int b_lo = item * kColumnsPerItem, b_hi = std::min(out_nx_, b_lo + kColumnsPerItem);
-    const int i_lo = b_lo * k_, i_hi = std::min(nx_, b_hi * k_);
+    const int i_hi = std::min(nx_, b_hi * k_);
     for (int j = 0; j < band.ny; ++j) {
       const std::size_t out_row = static_cast<std::size_t>((j0 + j) / k_) * out_nx_;
       const float* z = band.z_um.data() + static_cast<std::int64_t>(j) * band.nx;
-      for (int i = i_lo; i < i_hi; ++i) {
-        const float v = z[i];
-        if (!std::isfinite(v)) continue;
-        const std::size_t o = out_row + static_cast<std::size_t>(i / k_);
-        sum_[o] += v;
-        ++count_[o];
+      // Block by block, the running sum in a register: the same additions in the same order
+      // as cell by cell, without a division per cell.
+      for (int b = b_lo; b < b_hi; ++b) {
+        const std::size_t o = out_row + static_cast<std::size_t>(b);
+        double sum = sum_[o];
+        int count = count_[o];
+        for (int i = b * k_, end = std::min(i_hi, (b + 1) * k_); i < end; ++i) {
+          const float v = z[i];
+          if (!std::isfinite(v)) continue;
+          sum += v;
+          ++count;
+        }
+        sum_[o] = sum;
+        count_[o] = count;
       }
     }
   });
