@@ -58,6 +58,14 @@ RunResult run_cuspmap(const std::vector<std::string>& args) {
   return result;
 }
 
+void require_input_error(const std::vector<std::string>& args, const std::string& line) {
+  const RunResult r = run_cuspmap(args);
+  CAPTURE(args, r.out);
+  REQUIRE(r.exit_code == 2);
+  REQUIRE(r.err == "cuspmap: error: " + line + "\n");
+  REQUIRE(r.out.empty());
+}
+
 TempDir::TempDir() {
   std::string templ = (std::filesystem::temp_directory_path() / "cuspmap-test-XXXXXX").string();
   if (mkdtemp(templ.data()) == nullptr) throw std::runtime_error("mkdtemp failed");

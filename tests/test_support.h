@@ -18,6 +18,10 @@ struct RunResult {
 /// Runs build/cuspmap with `args` (no shell), capturing stdout and stderr.
 RunResult run_cuspmap(const std::vector<std::string>& args);
 
+/// Runs cuspmap with `args` and REQUIREs the bad-input contract: exit 2, nothing on stdout, and
+/// exactly the stderr line "cuspmap: error: <line>".
+void require_input_error(const std::vector<std::string>& args, const std::string& line);
+
 /// A fresh empty folder under the system temp dir, removed when the object dies.
 class TempDir {
  public:

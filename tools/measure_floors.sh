@@ -49,8 +49,9 @@ TOML
 import json, sys
 r = json.load(open(sys.argv[1]))
 s, c, th, wall, user, sysc, rss = sys.argv[2:]
-m, _, sec = wall.rpartition(":")
-wall_s = float(sec) + 60 * float(m or 0) if ":" not in m else float(sec) + 60 * float(m.split(":")[1]) + 3600 * float(m.split(":")[0])
+wall_s = 0.0
+for part in wall.split(":"):  # m:ss.ss or h:mm:ss
+    wall_s = 60 * wall_s + float(part)
 n = round(float(s) / float(c)) ** 2
 def find(d, key):
     if isinstance(d, dict):

@@ -13,6 +13,11 @@ namespace cuspmap {
 inline constexpr double kMmPerInch = 25.4;
 /// Micrometres per millimetre.
 inline constexpr double kUmPerMm = 1000.0;
+/// Largest magnitude of any length a job, flag or program may give, mm (1 km): far beyond any
+/// machine table or tool, and small enough that sums of lengths (passes from -R to size + R,
+/// plunges from retract to depth) stay finite and cell centres keep sub-nanometre resolution in a
+/// double. Shared by job/, path/ (G-code words) and cli/.
+inline constexpr double kMaxJobLengthMm = 1e6;
 /// Micro-inches per micrometre (1 um = 39.37 uin, ISO 1302 tables round the same way).
 inline constexpr double kUinPerUm = 1.0 / (kMmPerInch * 1e-3);
 

@@ -10,8 +10,9 @@
 #include "finish/cusp_profile_heights.h"
 #include "path/raster.h"
 #include "sweep/simulate_floor.h"
-#include "texture/areal_parameters.h"
+#include "texture/areal_moments.h"
 #include "texture/fit_plane.h"
+#include "texture/streaming_areal.h"
 
 namespace cuspmap {
 
@@ -51,18 +52,23 @@ SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
   const Toolpath path = raster_path(spec, cut, patch, cutter);
   const Heightfield floor = simulate_floor(cutter, path, cut, patch, sim);
   assert(floor.ny == rows + 2 * guard_rows && "grid rows follow the half-cell-short size");
-  Heightfield window = floor;
+  Heightfield window;
+  window.nx = floor.nx;
   window.ny = rows;
+  window.cell_mm = floor.cell_mm;
+  window.origin_x_mm = floor.origin_x_mm;
   window.origin_y_mm = floor.origin_y_mm + guard_rows * cell_mm;
   window.z_um = floor.z_um.block(guard_rows, 0, rows, floor.nx);
-  const Heightfield residual = remove_plane(window, fit_plane(window));
-  const ArealParameters a = areal_parameters(residual);
+  // The height parameters need only the residuals' moments: no residual grid, no Sdr pass.
+  ArealMoments moments;
+  add_residual_band(window, fit_plane(window), 1, moments);
+  const AmplitudeParameters a = amplitude_parameters(moments);
   SurfaceHeights h;
-  h.sz_um = a.sz_um;
-  h.sv_um = a.sv_um;
-  h.sp_um = a.sp_um;
-  h.sa_um = a.sa_um;
-  h.ra_um = a.sa_um;
+  h.sz_um = a.total_um;
+  h.sv_um = a.valley_um;
+  h.sp_um = a.peak_um;
+  h.sa_um = a.mean_abs_um;
+  h.ra_um = a.mean_abs_um;
   return h;
 }
 

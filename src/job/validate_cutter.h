@@ -21,11 +21,6 @@ enum class NameStyle {
 /// per-tooth axial offsets not one per tooth, any NaN/inf (tilt direction and runout phase too).
 void validate_cutter(const Cutter& cutter, NameStyle style);
 
-/// Largest magnitude of any length a job or flag may give, mm (1 km): far beyond any machine
-/// table or tool, and small enough that sums of lengths (passes from -R to size + R, plunges from
-/// retract to depth) stay finite and cell centres keep sub-nanometre resolution in a double.
-inline constexpr double kMaxJobLengthMm = 1e6;
-
 /// Throws InputError when a patch size or cell is <= 0 or not finite, the cell is larger than
 /// the patch, or a size, origin or floor_z lies beyond +-1e6 mm (1 km).
 void validate_patch(const Patch& patch, NameStyle style);

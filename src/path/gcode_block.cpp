@@ -190,6 +190,7 @@ class BlockSorter {
     v.text = w.text;
     if (w.letter == 'F' && !(w.value > 0.0)) fail(w.text, "feed rate must be > 0 (per minute, G94)");
     if (w.letter == 'S' && w.value < 0.0) fail(w.text, "spindle speed must be >= 0 rev/min");
+    static_assert(kMaxGcodeCoordinate == 1e6, "the message below states the bound");
     if (std::string_view("XYZIJKR").find(w.letter) != std::string_view::npos &&
         !(std::abs(w.value) <= kMaxGcodeCoordinate)) {
       fail(w.text, "coordinates must lie within +-1000000 program units (1 km in mm); a larger "

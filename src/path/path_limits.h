@@ -5,6 +5,8 @@
 
 #include <cstddef>
 
+#include "core/units.h"
+
 namespace cuspmap {
 
 /// Most moves one toolpath may hold, built-in or read from G-code. A Move is about 100 bytes,
@@ -22,8 +24,8 @@ inline constexpr std::size_t kMaxGcodeLineChars = 4096;
 inline constexpr long long kMaxGcodeLines = 40'000'000;
 
 /// Largest magnitude of a G-code coordinate or arc word (X Y Z I J K R), in the program's units:
-/// 1e6 (1 km in mm) matches the job file's length bound, so path lengths and cycle times stay
-/// finite and meaningful; a larger number is a corrupt or mis-scaled program.
-inline constexpr double kMaxGcodeCoordinate = 1e6;
+/// the job files' length bound as a number, so path lengths and cycle times stay finite and
+/// meaningful; a larger number is a corrupt or mis-scaled program.
+inline constexpr double kMaxGcodeCoordinate = kMaxJobLengthMm;
 
 }  // namespace cuspmap

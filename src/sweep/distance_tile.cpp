@@ -10,13 +10,13 @@
 #include <limits>
 #include <numbers>
 
+#include "core/units.h"
 #include "sweep/nearest_rows.h"
 
 namespace cuspmap {
 namespace {
 
 constexpr double kInf = std::numeric_limits<double>::infinity();
-constexpr double kUmPerMm = 1000.0;
 // Columns per block that shares one pruned move list: narrow enough that a raster at an angle
 // keeps ~4 passes per block (64 x 10 um = 0.64 mm), wide enough that the scalar bounds of the
 // tile's moves cost little against 64 x 32 cells of SIMD work.

@@ -8,6 +8,7 @@
 #include <limits>
 #include <optional>
 
+#include "core/units.h"
 #include "sweep/distance_tile.h"
 #include "sweep/envelope_arc.h"
 #include "sweep/envelope_line.h"
@@ -19,7 +20,6 @@ namespace cuspmap {
 namespace {
 
 constexpr float kUnset = std::numeric_limits<float>::infinity();
-constexpr double kUmPerMm = 1000.0;
 
 // Highest cell of the tile (+inf while any is unreached). Eigen's maxCoeff runs in SIMD lanes;
 // the grid holds no NaN during the sweep, so lane order cannot change the result.

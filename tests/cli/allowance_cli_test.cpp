@@ -19,13 +19,6 @@ nlohmann::json json_of(const test::RunResult& r) {
   return nlohmann::json::parse(r.out);
 }
 
-void require_error(const std::vector<std::string>& args, const std::string& line) {
-  const test::RunResult r = run_cuspmap(args);
-  CAPTURE(r.out);
-  REQUIRE(r.exit_code == 2);
-  REQUIRE(r.err == "cuspmap: error: " + line + "\n");
-}
-
 }  // namespace
 
 TEST_CASE("cuspmap allowance: JSON carries the contract keys", "[cli]") {
@@ -104,7 +97,7 @@ TEST_CASE("cuspmap allowance: reads a simulate report", "[cli]") {
   REQUIRE(doc["area_mm2"].get<double>() == 1000.0);  // the simulated patch, 40 x 25 mm
   REQUIRE_NEAR(doc["volume_mm3"].get<double>(), 3.0e-3 * 1000.0, 1e-12);
   test::write_text(report, R"({"areal": {"Sz_um": 9.0}})");
-  require_error(
+  test::require_input_error(
       {"allowance", report},
       report + ": areal.Sv_um is missing: expected a report.json written by `cuspmap simulate`");
 }
@@ -162,27 +155,27 @@ TEST_CASE("cuspmap allowance: a job file is simulated and agrees with its report
 }
 
 TEST_CASE("cuspmap allowance: bad input exits 2 with one line", "[cli]") {
-  require_error({"allowance"},
+  test::require_input_error({"allowance"},
                 "allowance needs a job.toml, a simulate report.json, a heightmap file or "
                 "--stepover with the tool flags (--tool, --diameter)");
-  require_error({"allowance", "--diameter", "6", "--stepover", "7"},
+  test::require_input_error({"allowance", "--diameter", "6", "--stepover", "7"},
                 "--stepover 7 mm: must be > 0 and <= the tool diameter 6 mm");
-  require_error({"allowance", "--tool", "cone", "--diameter", "6", "--stepover", "1"},
+  test::require_input_error({"allowance", "--tool", "cone", "--diameter", "6", "--stepover", "1"},
                 "--tool cone: must be ball, bullnose or flat");
-  require_error({"allowance", "--stepover", "1"},
+  test::require_input_error({"allowance", "--stepover", "1"},
                 "--diameter is missing: give the cutter diameter");
-  require_error({"allowance", "--diameter", "6", "--stepover", "1", "--area", "-5"},
+  test::require_input_error({"allowance", "--diameter", "6", "--stepover", "1", "--area", "-5"},
                 "--area -5: must be > 0 (an area such as 9600, 96cm2, 120x80 or 4.7inx3.1in)");
-  require_error({"allowance", "--diameter", "6", "--stepover", "1", "--tolerance", "0"},
+  test::require_input_error({"allowance", "--diameter", "6", "--stepover", "1", "--tolerance", "0"},
                 "--tolerance 0: must be > 0 (the +- band, e.g. 0.05mm)");
-  require_error({"allowance", "--diameter", "6", "--stepover", "1", "--grits", "P400,P180"},
+  test::require_input_error({"allowance", "--diameter", "6", "--stepover", "1", "--grits", "P400,P180"},
                 "--grits 'P400,P180': P180 is not finer than P400; list grades coarse to fine");
-  require_error({"allowance", "--tool", "bullnose", "--diameter", "10", "--stepover", "1"},
+  test::require_input_error({"allowance", "--tool", "bullnose", "--diameter", "10", "--stepover", "1"},
                 "--corner-radius is missing: a bullnose tool needs its corner radius");
-  require_error(
+  test::require_input_error(
       {"allowance", "--tool", "flat", "--diameter", "10", "--stepover", "1", "--tilt", "3"},
       "--tilt 3 deg: must be within +-1 deg (the first-order tilt model's limit)");
-  require_error(
+  test::require_input_error(
       {"allowance", "--diameter", "6", "--stepover", "1", "--grit-table", "/nonexistent/g.toml"},
       "--grit-table /nonexistent/g.toml: cannot read the file");
 }

@@ -19,13 +19,6 @@ std::vector<std::string> bracket(std::vector<std::string> extra) {
   return args;
 }
 
-void require_error(const std::vector<std::string>& args, const std::string& line) {
-  const test::RunResult r = run_cuspmap(args);
-  CAPTURE(r.out);
-  REQUIRE(r.exit_code == 2);
-  REQUIRE(r.err == "cuspmap: error: " + line + "\n");
-}
-
 }  // namespace
 
 TEST_CASE("cuspmap plan: JSON carries options and the index of the best one", "[cli]") {
@@ -103,7 +96,7 @@ TEST_CASE("cuspmap plan: --simulate takes surfaces from a simulated window", "[c
   // The flat end tilted across the feed leaves a sawtooth (about s tan(tau)), not a level floor.
   REQUIRE(doc["options"][3]["scallop_um"].get<double>() > 0.5);
   // Without --simulate the closed form refuses a tilt across the feed.
-  require_error(
+  test::require_input_error(
       {"plan", "--tools", "flat:10", "--tilt", "0.05", "--tilt-toward", "90", "--size", "80x50",
        "--feed", "1500", "--machine-rate", "90", "--bench-rate", "45", "--target-ra", "0.8um"},
       "--tilt-toward 90 deg: the closed-form cusp of a tilted flat end takes the tilt "
@@ -111,30 +104,30 @@ TEST_CASE("cuspmap plan: --simulate takes surfaces from a simulated window", "[c
 }
 
 TEST_CASE("cuspmap plan: bad input exits 2 with one line", "[cli]") {
-  require_error({"plan", "--diameter", "6", "--feed", "1000", "--machine-rate", "1", "--bench-rate",
+  test::require_input_error({"plan", "--diameter", "6", "--feed", "1000", "--machine-rate", "1", "--bench-rate",
                  "1", "--target-ra", "1um"},
                 "--size is missing: give the floor size, e.g. 120x80");
-  require_error(bracket({}),
+  test::require_input_error(bracket({}),
                 "plan needs a finish spec: --target-ra or --target-scallop (or --sand always)");
-  require_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--bench-rate",
+  test::require_input_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--bench-rate",
                  "1", "--target-ra", "1um"},
                 "--machine-rate is missing: give the cost of one hour (any currency)");
-  require_error(bracket({"--target-ra", "0.8um", "--direction", "spiral"}),
+  test::require_input_error(bracket({"--target-ra", "0.8um", "--direction", "spiral"}),
                 "--direction spiral: must be one-way or zigzag");
-  require_error(bracket({"--target-ra", "0.8um", "--sand", "never"}),
+  test::require_input_error(bracket({"--target-ra", "0.8um", "--sand", "never"}),
                 "--sand never: must be when-needed or always");
-  require_error({"plan", "--tools", "ball", "--size", "80x50", "--feed", "1000", "--machine-rate",
+  test::require_input_error({"plan", "--tools", "ball", "--size", "80x50", "--feed", "1000", "--machine-rate",
                  "1", "--bench-rate", "1", "--target-ra", "1um"},
                 "--tools ball: expected shape:diameter or bullnose:diameter:corner (e.g. "
                 "ball:6mm,flat:0.5in,bullnose:10:1)");
-  require_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--machine-rate",
+  test::require_input_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--machine-rate",
                  "1", "--bench-rate", "1", "--target-ra", "1um", "--stepovers", "7,8"},
                 "--stepovers 7,8: none is <= the diameter of the 6 mm ball");
-  require_error({"plan", "--diameter", "6", "--size", "80", "--feed", "1000", "--machine-rate", "1",
+  test::require_input_error({"plan", "--diameter", "6", "--size", "80", "--feed", "1000", "--machine-rate", "1",
                  "--bench-rate", "1", "--target-ra", "1um"},
                 "--size 80: expected two lengths, e.g. 120x80");
-  require_error(bracket({"--target-ra", "-1um"}), "--target-ra -1 um: must be > 0");
-  require_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--machine-rate",
+  test::require_input_error(bracket({"--target-ra", "-1um"}), "--target-ra -1 um: must be > 0");
+  test::require_input_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--machine-rate",
                  "-4", "--bench-rate", "1", "--target-ra", "1um"},
                 "--machine-rate -4: must be >= 0 per hour");
 }

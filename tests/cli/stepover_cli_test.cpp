@@ -23,11 +23,7 @@ nlohmann::json run_json(Args args) {
 
 void require_bad(Args args, const std::string& line) {
   args.insert(args.begin(), "stepover");
-  const cuspmap::test::RunResult r = run_cuspmap(args);
-  CAPTURE(args);
-  REQUIRE(r.exit_code == 2);
-  REQUIRE(r.err == "cuspmap: error: " + line + "\n");
-  REQUIRE(r.out.empty());
+  cuspmap::test::require_input_error(args, line);
 }
 
 }  // namespace

@@ -40,6 +40,22 @@ Job ball_raster_job(double size_mm, double cell_mm, double diameter_mm, double s
 
 void check_rel(double a, double b, double rel) { REQUIRE_NEAR(a, b, rel * std::abs(b)); }
 
+// The streamed run's height parameters equal the in-memory run's: sums to summation-order
+// rounding, extremes to a float ulp, the highest and lowest heights exactly.
+void require_same_heights(const JobRun& in_memory, const JobRun& streamed) {
+  const ArealParameters& p = in_memory.texture.areal.parameters;
+  const ArealParameters& q = streamed.texture.areal.parameters;
+  CHECK(q.cells == p.cells);
+  check_rel(q.sa_um, p.sa_um, kSumOrderRel);
+  check_rel(q.sq_um, p.sq_um, kSumOrderRel);
+  check_rel(q.ssk, p.ssk, kSumOrderRel);
+  check_rel(q.sku, p.sku, kSumOrderRel);
+  check_rel(q.sp_um, p.sp_um, kFloatUlpRel);
+  check_rel(q.sv_um, p.sv_um, kFloatUlpRel);
+  CHECK(streamed.max_scallop_um == in_memory.max_scallop_um);
+  CHECK(streamed.min_height_um == in_memory.min_height_um);
+}
+
 }  // namespace
 
 TEST_CASE("run_job: streamed = in-memory when the rows are not a whole number of tiles", "[job]") {
@@ -57,14 +73,7 @@ TEST_CASE("run_job: streamed = in-memory when the rows are not a whole number of
     const JobRun b = run_job(job, streamed);
     CAPTURE(limit, b.bands);
     REQUIRE(b.streamed);
-    const ArealParameters& p = a.texture.areal.parameters;
-    const ArealParameters& q = b.texture.areal.parameters;
-    CHECK(q.cells == p.cells);
-    check_rel(q.sa_um, p.sa_um, kSumOrderRel);
-    check_rel(q.sq_um, p.sq_um, kSumOrderRel);
-    check_rel(q.sp_um, p.sp_um, kFloatUlpRel);
-    check_rel(q.sv_um, p.sv_um, kFloatUlpRel);
-    CHECK(b.max_scallop_um == a.max_scallop_um);
+    require_same_heights(a, b);
   }
 }
 
@@ -83,17 +92,7 @@ TEST_CASE("run_job: streamed and in-memory runs give the same height parameters"
   CHECK(b.peak_grid_bytes <= streamed.max_memory_bytes / 4);
   CHECK(b.grid_nx == a.floor.nx);
   CHECK(b.grid_ny == a.floor.ny);
-  const ArealParameters& p = a.texture.areal.parameters;
-  const ArealParameters& q = b.texture.areal.parameters;
-  CHECK(q.cells == p.cells);
-  check_rel(q.sa_um, p.sa_um, kSumOrderRel);
-  check_rel(q.sq_um, p.sq_um, kSumOrderRel);
-  check_rel(q.ssk, p.ssk, kSumOrderRel);
-  check_rel(q.sku, p.sku, kSumOrderRel);
-  check_rel(q.sp_um, p.sp_um, kFloatUlpRel);
-  check_rel(q.sv_um, p.sv_um, kFloatUlpRel);
-  CHECK(b.max_scallop_um == a.max_scallop_um);
-  CHECK(b.min_height_um == a.min_height_um);
+  require_same_heights(a, b);
   // Profiles: columns across the lay (fewer of them, so Ra and, with RSm on a table boundary,
   // the cut-off may differ).
   CHECK(b.texture.profile.direction_deg == 90.0);
