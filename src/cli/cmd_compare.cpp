@@ -12,7 +12,7 @@
 #include "cli/sim_flags.h"
 #include "cli/texture_flags.h"
 #include "core/input_error.h"
-#include "io/compare_report.h"
+#include "report/compare_report.h"
 #include "job/vary_job.h"
 
 namespace cuspmap {

@@ -9,7 +9,7 @@
 #include "cli/comparison_run.h"
 #include "core/stage_timer.h"
 #include "finish/choose_strategy.h"
-#include "io/html_report.h"
+#include "report/html_report.h"
 #include "job/demo_jobs.h"
 
 namespace cuspmap {

@@ -13,9 +13,9 @@
 #include "finish/finishing_cautions.h"
 #include "finish/plan_stepover.h"
 #include "finish/simulated_cusp_heights.h"
-#include "io/html_report.h"
+#include "report/html_report.h"
 #include "io/plan_csv.h"
-#include "io/plan_svg.h"
+#include "report/plan_svg.h"
 #include "job/job.h"
 #include "job/validate_cutter.h"
 

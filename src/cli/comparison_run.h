@@ -7,7 +7,7 @@
 #include <vector>
 
 #include "cli/output_dir.h"
-#include "io/compare_report.h"
+#include "report/compare_report.h"
 #include "job/run_job.h"
 
 namespace cuspmap {

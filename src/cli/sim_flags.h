@@ -8,7 +8,7 @@
 #include <string>
 
 #include "core/units.h"
-#include "io/height_image.h"
+#include "report/height_image.h"
 
 namespace cuspmap {
 

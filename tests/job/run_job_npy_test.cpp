@@ -9,7 +9,7 @@
 #include "core/input_error.h"
 #include "io/npy.h"
 #include "io/npy_band_writer.h"
-#include "io/simulation_pictures.h"
+#include "report/simulation_pictures.h"
 #include "job/run_job.h"
 #include "test_support.h"
 

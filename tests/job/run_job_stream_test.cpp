@@ -7,7 +7,7 @@
 #include <cstring>
 
 #include "cusp/cusp_profile_stats.h"
-#include "io/reduce_blocks.h"
+#include "report/reduce_blocks.h"
 #include "job/run_job.h"
 #include "sweep/simulate_bands.h"
 #include "texture/block_mean_overview.h"

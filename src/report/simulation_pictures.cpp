@@ -1,7 +1,7 @@
 // Pictures of one simulation (height, shaded relief, profiles), its .npy, and its HTML page.
 // Inputs: JobRun (um over mm cells); outputs: encoded PNG/.npy bytes and captions.
 // Method: io/height_image, io/shaded_image (Lambert), texture/ ISO 16610-21 mean line.
-#include "io/simulation_pictures.h"
+#include "report/simulation_pictures.h"
 
 #include <algorithm>
 #include <cmath>

@@ -7,9 +7,9 @@
 #include <string>
 #include <vector>
 
-#include "io/html_report.h"
+#include "report/html_report.h"
 #include "io/raster_image.h"
-#include "io/simulation_pictures.h"
+#include "report/simulation_pictures.h"
 #include "job/job.h"
 #include "job/run_job.h"
 

@@ -1,5 +1,5 @@
 // Tests for io/profile_plot: size, axes, the Ra band at mean +- Ra, the Rz bar of length Rz.
-#include "io/profile_plot.h"
+#include "report/profile_plot.h"
 
 #include <numbers>
 
@@ -39,7 +39,7 @@ bool near_color(const Image& img, int x0, int x1, double y, Color c, int rows) {
 
 }  // namespace
 
-TEST_CASE("render_profile_plot: two stacked panels of the requested size with axes", "[io]") {
+TEST_CASE("render_profile_plot: two stacked panels of the requested size with axes", "[report]") {
   ProfilePlotOptions o;
   const ProfilePlot plot = render_profile_plot({sample(true), sample(false)}, o);
   REQUIRE(plot.image.width == o.width_px);
@@ -64,7 +64,7 @@ TEST_CASE("render_profile_plot: two stacked panels of the requested size with ax
   REQUIRE(plot.panels[1].top_px > o.panel_height_px);
 }
 
-TEST_CASE("render_profile_plot: Ra band lines at mean +- Ra, Rz bar spans Rz", "[io]") {
+TEST_CASE("render_profile_plot: Ra band lines at mean +- Ra, Rz bar spans Rz", "[report]") {
   const ProfilePlotData p = sample(true);
   const ProfilePlot plot = render_profile_plot({p}, ProfilePlotOptions{});
   const PlotFrame& f = plot.panels[0];
@@ -87,7 +87,7 @@ TEST_CASE("render_profile_plot: Ra band lines at mean +- Ra, Rz bar spans Rz", "
   REQUIRE_NEAR(bottom - top, p.rz_um / (f.z_hi - f.z_lo) * (f.height_px - 1), 1.0);
 }
 
-TEST_CASE("render_profile_plot: inches change the axis scale; bad input throws", "[io]") {
+TEST_CASE("render_profile_plot: inches change the axis scale; bad input throws", "[report]") {
   ProfilePlotOptions o;
   o.units = LengthUnit::Inch;
   const ProfilePlot plot = render_profile_plot({sample(true)}, o);

@@ -1,11 +1,11 @@
 // Tests for io/legend: the gray ramp of the height legend, scale bar lengths (1-2-5).
-#include "io/legend.h"
+#include "report/legend.h"
 
 #include "test_support.h"
 
 using namespace cuspmap;
 
-TEST_CASE("render_height_legend: ramp rows run linearly from 254 at the top to 0", "[io]") {
+TEST_CASE("render_height_legend: ramp rows run linearly from 254 at the top to 0", "[report]") {
   HeightLegendSpec spec;
   spec.lo_um = -1.5;
   spec.hi_um = 2.5;
@@ -21,7 +21,7 @@ TEST_CASE("render_height_legend: ramp rows run linearly from 254 at the top to 0
   REQUIRE(img.height > top + 128 + 16);
 }
 
-TEST_CASE("render_height_legend: labels differ with the range and the unit", "[io]") {
+TEST_CASE("render_height_legend: labels differ with the range and the unit", "[report]") {
   HeightLegendSpec a;
   a.lo_um = 0.0;
   a.hi_um = 1.0;
@@ -38,7 +38,7 @@ TEST_CASE("render_height_legend: labels differ with the range and the unit", "[i
   REQUIRE_NEAR(height_in_display_unit(1.0, LengthUnit::Inch), 39.3700787, 1e-6);
 }
 
-TEST_CASE("choose_scale_bar: the longest 1-2-5 length that fits, in mm or inches", "[io]") {
+TEST_CASE("choose_scale_bar: the longest 1-2-5 length that fits, in mm or inches", "[report]") {
   // 0.05 mm per pixel, 100 px -> at most 5 mm -> 5 mm = 100 px.
   ScaleBar bar = choose_scale_bar(0.05, 100, LengthUnit::Millimetre);
   REQUIRE_NEAR(bar.length_mm, 5.0, 1e-12);
@@ -54,7 +54,7 @@ TEST_CASE("choose_scale_bar: the longest 1-2-5 length that fits, in mm or inches
   REQUIRE(bar.label == "0.2 in");
 }
 
-TEST_CASE("draw_scale_bar: the body is exactly length_px black pixels wide", "[io]") {
+TEST_CASE("draw_scale_bar: the body is exactly length_px black pixels wide", "[report]") {
   Image img = make_image(200, 60, 1, kWhite);
   const ScaleBar bar = choose_scale_bar(0.01, 150, LengthUnit::Millimetre);  // 1 mm = 100 px
   REQUIRE(bar.length_px == 100);

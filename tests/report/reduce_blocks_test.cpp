@@ -1,18 +1,18 @@
 // Tests for io/reduce_blocks: block mean / minimum, NaN cells ignored, partial edge blocks.
-#include "io/reduce_blocks.h"
+#include "report/reduce_blocks.h"
 
 #include "test_support.h"
 
 using namespace cuspmap;
 
-TEST_CASE("cells_per_pixel_for: ceil of the longest side over the limit", "[io]") {
+TEST_CASE("cells_per_pixel_for: ceil of the longest side over the limit", "[report]") {
   REQUIRE(cells_per_pixel_for(1000, 200, 1000) == 1);
   REQUIRE(cells_per_pixel_for(1001, 200, 1000) == 2);
   REQUIRE(cells_per_pixel_for(300, 3000, 1000) == 3);
   REQUIRE(cells_per_pixel_for(10, 10, 0) == 10);
 }
 
-TEST_CASE("reduce_blocks: mean and minimum of 2 x 2 blocks with a partial edge", "[io]") {
+TEST_CASE("reduce_blocks: mean and minimum of 2 x 2 blocks with a partial edge", "[report]") {
   // 3 rows x 5 columns (row 0 first):
   //   1 2 | 3 4 | 5
   //   3 4 | N 6 | 7      N = NaN (not reached)

@@ -1,10 +1,10 @@
 // Tests for io/html_report and io/base64: escaping, RFC 4648 vectors and round trip, sections,
 // best-of-column marks, cautions, embedded pictures.
-#include "io/html_report.h"
+#include "report/html_report.h"
 
 #include <random>
 
-#include "io/base64.h"
+#include "report/base64.h"
 #include "test_support.h"
 
 using namespace cuspmap;
@@ -61,13 +61,13 @@ HtmlReport sample() {
 
 }  // namespace
 
-TEST_CASE("html_escape: the five HTML special characters become entities", "[io]") {
+TEST_CASE("html_escape: the five HTML special characters become entities", "[report]") {
   REQUIRE(html_escape("<a href=\"x\">&'</a>") ==
           "&lt;a href=&quot;x&quot;&gt;&amp;&#39;&lt;/a&gt;");
   REQUIRE(html_escape("\xC2\xB5m 3") == "\xC2\xB5m 3");  // UTF-8 passes unchanged
 }
 
-TEST_CASE("base64_encode: RFC 4648 sec. 10 test vectors", "[io]") {
+TEST_CASE("base64_encode: RFC 4648 sec. 10 test vectors", "[report]") {
   // RFC 4648, "The Base16, Base32, and Base64 Data Encodings", 2006, section 10.
   REQUIRE(base64_encode("") == "");
   REQUIRE(base64_encode("f") == "Zg==");
@@ -78,7 +78,7 @@ TEST_CASE("base64_encode: RFC 4648 sec. 10 test vectors", "[io]") {
   REQUIRE(base64_encode("foobar") == "Zm9vYmFy");
 }
 
-TEST_CASE("base64_encode: random binary data round-trips", "[io]") {
+TEST_CASE("base64_encode: random binary data round-trips", "[report]") {
   std::mt19937 rng(4648);
   for (int n = 0; n < 70; ++n) {
     std::string bytes(static_cast<std::size_t>(n), '\0');
@@ -90,7 +90,7 @@ TEST_CASE("base64_encode: random binary data round-trips", "[io]") {
   }
 }
 
-TEST_CASE("render_html_report: every section present, text escaped, pictures embedded", "[io]") {
+TEST_CASE("render_html_report: every section present, text escaped, pictures embedded", "[report]") {
   const std::string html = render_html_report(sample());
   REQUIRE(html.rfind("<!DOCTYPE html>", 0) == 0);
   REQUIRE(html.find("<meta charset=\"utf-8\">") != std::string::npos);
@@ -113,7 +113,7 @@ TEST_CASE("render_html_report: every section present, text escaped, pictures emb
 }
 
 TEST_CASE("render_html_report: best value per column marked by class and symbol, ties too",
-          "[io]") {
+          "[report]") {
   const std::string html = render_html_report(sample());
   // Ra: lowest 0.29 twice (tie); path length: highest 1200 once; the name column is not ranked.
   REQUIRE(count(html, "<td class=\"num best\">") == 3);
@@ -124,7 +124,7 @@ TEST_CASE("render_html_report: best value per column marked by class and symbol,
           std::string::npos);
 }
 
-TEST_CASE("render_html_report: safety cautions and the reading guide are always there", "[io]") {
+TEST_CASE("render_html_report: safety cautions and the reading guide are always there", "[report]") {
   HtmlReport bare;
   bare.title = "t";
   const std::string html = render_html_report(bare);

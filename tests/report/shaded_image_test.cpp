@@ -1,7 +1,7 @@
 // Tests for io/shaded_image: Lambert's cosine law (Lambert, Photometria, 1760; Foley, van Dam et
 // al., Computer Graphics: Principles and Practice, sec. 16.1: diffuse brightness = cos of the
 // angle between surface normal and light), auto exaggeration, orientation, unreached cells.
-#include "io/shaded_image.h"
+#include "report/shaded_image.h"
 
 #include <numbers>
 
@@ -40,7 +40,7 @@ int level(double brightness) { return static_cast<int>(std::lround(254.0 * brigh
 
 }  // namespace
 
-TEST_CASE("render_shaded_image: a flat floor has the Lambert value sin(elevation)", "[io]") {
+TEST_CASE("render_shaded_image: a flat floor has the Lambert value sin(elevation)", "[report]") {
   const Heightfield hf = field(8, 6, 0.01, [](int, int) { return 3.0; });
   for (double el : {30.0, 45.0, 90.0}) {
     CAPTURE(el);
@@ -56,7 +56,7 @@ TEST_CASE("render_shaded_image: a flat floor has the Lambert value sin(elevation
 }
 
 TEST_CASE("render_shaded_image: a plane tilted towards the light is brighter than one tilted away",
-          "[io]") {
+          "[report]") {
   // z rises 2 um per 0.01 mm cell along +X: slope 0.2. Its normal leans towards -X.
   const Heightfield hf = field(9, 5, 0.01, [](int i, int) { return 2.0 * i; });
   ShadedImageOptions toward;
@@ -81,7 +81,7 @@ TEST_CASE("render_shaded_image: a plane tilted towards the light is brighter tha
 }
 
 TEST_CASE("render_shaded_image: auto exaggeration aims the 95th-percentile slope at 30 deg",
-          "[io]") {
+          "[report]") {
   const Heightfield hf = field(9, 5, 0.01, [](int i, int) { return 2.0 * i; });
   ShadedImageOptions o;
   o.light_azimuth_deg = 180.0;
@@ -94,7 +94,7 @@ TEST_CASE("render_shaded_image: auto exaggeration aims the 95th-percentile slope
   }
 }
 
-TEST_CASE("render_shaded_image: scallops 0.2 um deep become clearly visible", "[io]") {
+TEST_CASE("render_shaded_image: scallops 0.2 um deep become clearly visible", "[report]") {
   // Cusp ridges across Y, period 0.3 mm, 0.2 um peak to valley: true slopes ~0.002, invisible
   // without exaggeration (gray 179 vs 180); auto exaggeration must spread them over > 100 levels.
   const double period_mm = 0.3, depth_um = 0.2, cell = 0.005;
@@ -119,7 +119,7 @@ TEST_CASE("render_shaded_image: scallops 0.2 um deep become clearly visible", "[
 }
 
 TEST_CASE("render_shaded_image: unreached cells are white and the top row is the highest Y",
-          "[io]") {
+          "[report]") {
   // Rows j >= 4 of 6 are unreached: they are the top two image rows.
   const Heightfield hf = field(4, 6, 0.01, [](int, int j) { return j >= 4 ? std::nan("") : 1.0; });
   const ShadedImage img = render_shaded_image(hf, ShadedImageOptions{});
@@ -130,7 +130,7 @@ TEST_CASE("render_shaded_image: unreached cells are white and the top row is the
   }
 }
 
-TEST_CASE("render_shaded_image: forced cells per pixel and bad options", "[io]") {
+TEST_CASE("render_shaded_image: forced cells per pixel and bad options", "[report]") {
   const Heightfield hf = field(10, 7, 0.02, [](int i, int) { return 0.1 * i; });
   ShadedImageOptions o;
   o.cells_per_pixel = 3;
@@ -147,7 +147,7 @@ TEST_CASE("render_shaded_image: forced cells per pixel and bad options", "[io]")
                          Catch::Message("exaggeration -2: must be a finite number > 0"));
 }
 
-TEST_CASE("shaded_image_caption: states the light and the exaggeration", "[io]") {
+TEST_CASE("shaded_image_caption: states the light and the exaggeration", "[report]") {
   const Heightfield hf = field(9, 5, 0.01, [](int i, int) { return 2.0 * i; });
   ShadedImageOptions o;
   o.exaggeration = 12.5;

@@ -1,11 +1,11 @@
 // Self-contained HTML report page: escaped text, base64 PNGs, best-of-column marks, print CSS.
 // Inputs: HtmlReport (strings, numbers, PNG bytes); output: UTF-8 HTML text.
 // Method: HTML5 + CSS Paged Media (break-inside/page-break-inside), RFC 4648 data: URIs.
-#include "io/html_report.h"
+#include "report/html_report.h"
 
 #include <cmath>
 
-#include "io/base64.h"
+#include "report/base64.h"
 
 namespace cuspmap {
 namespace {

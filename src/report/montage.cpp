@@ -1,14 +1,14 @@
 // Montage of labelled pictures on a shared scale with one scale bar.
 // Inputs: tiles (image, mm per px, label lines); output: gray or RGB Image.
 // Method: box-filter shrink to the coarsest scale; io/legend scale bar (1-2-5 lengths).
-#include "io/montage.h"
+#include "report/montage.h"
 
 #include <algorithm>
 #include <cmath>
 #include <stdexcept>
 
-#include "io/legend.h"
-#include "io/text_render.h"
+#include "report/legend.h"
+#include "report/text_render.h"
 
 namespace cuspmap {
 namespace {

@@ -1,11 +1,11 @@
 // Comparison outputs for several simulations: JSON, CSV, terminal table, montage, HTML page.
 // Inputs: CompareRow (Job + JobRun + pictures); outputs: text/bytes, heights um, lengths mm.
-#include "io/compare_report.h"
+#include "report/compare_report.h"
 
 #include <algorithm>
 #include <cstdio>
 
-#include "io/montage.h"
+#include "report/montage.h"
 #include "io/texture_json.h"
 
 namespace cuspmap {

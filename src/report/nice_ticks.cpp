@@ -1,7 +1,7 @@
 // 1-2-5 tick steps, ticks in a range, scale-bar lengths and fixed-point labels.
 // Inputs: ranges in any one unit; outputs: values in that unit, strings.
 // Method: Heckbert 1990 nice numbers; std::to_chars for locale-free formatting.
-#include "io/nice_ticks.h"
+#include "report/nice_ticks.h"
 
 #include <algorithm>
 #include <array>

@@ -1,15 +1,15 @@
 // Heightfield -> grayscale height picture (+Y up, black = low, white = not reached) + legend.
 // Inputs: heights in um on cells of cell_mm; outputs: gray Image, range used, um per level.
 // Method: linear quantisation to 255 levels (0..254) after NaN-aware block reduction.
-#include "io/height_image.h"
+#include "report/height_image.h"
 
 #include <algorithm>
 #include <cmath>
 #include <limits>
 
 #include "core/input_error.h"
-#include "io/legend.h"
-#include "io/nice_ticks.h"
+#include "report/legend.h"
+#include "report/nice_ticks.h"
 
 namespace cuspmap {
 namespace {

@@ -1,7 +1,7 @@
 // RFC 4648 base64 encoder (standard alphabet, padded, unwrapped).
 // Inputs: bytes; output: ASCII text of length 4 ceil(n / 3).
 // Method: RFC 4648 sec. 4, 24-bit groups to four 6-bit indices.
-#include "io/base64.h"
+#include "report/base64.h"
 
 namespace cuspmap {
 namespace {

@@ -6,13 +6,13 @@
 #include <numbers>
 
 #include "core/write_file_atomic.h"
-#include "io/height_image.h"
-#include "io/html_report.h"
-#include "io/montage.h"
-#include "io/nice_ticks.h"
+#include "report/height_image.h"
+#include "report/html_report.h"
+#include "report/montage.h"
+#include "report/nice_ticks.h"
 #include "io/png.h"
-#include "io/profile_plot.h"
-#include "io/shaded_image.h"
+#include "report/profile_plot.h"
+#include "report/shaded_image.h"
 #include "test_support.h"
 
 using namespace cuspmap;

@@ -1,7 +1,7 @@
 // Tests for io/montage: tiles placed at the layout, labels drawn, shared scale, scale bar length.
-#include "io/montage.h"
+#include "report/montage.h"
 
-#include "io/legend.h"
+#include "report/legend.h"
 #include "test_support.h"
 
 using namespace cuspmap;
@@ -19,7 +19,7 @@ MontageTile tile(int w, int h, double mm_per_px, std::uint8_t level,
 
 }  // namespace
 
-TEST_CASE("render_montage: tiles at their cells, labels in the band under each", "[io]") {
+TEST_CASE("render_montage: tiles at their cells, labels in the band under each", "[report]") {
   std::vector<MontageTile> tiles = {
       tile(80, 60, 0.05, 40, {"raster zigzag", "ball 6 mm", "stepover 0.3 mm"}),
       tile(80, 60, 0.05, 120, {"raster one-way"}),
@@ -55,7 +55,7 @@ TEST_CASE("render_montage: tiles at their cells, labels in the band under each",
   REQUIRE(ink_in_band(0) > ink_in_band(1));
 }
 
-TEST_CASE("render_montage: scale bar length in pixels = length / mm per pixel", "[io]") {
+TEST_CASE("render_montage: scale bar length in pixels = length / mm per pixel", "[report]") {
   std::vector<MontageTile> tiles = {tile(120, 50, 0.02, 128, {"a"}),
                                     tile(120, 50, 0.02, 128, {"b"})};
   MontageOptions o;
@@ -72,7 +72,7 @@ TEST_CASE("render_montage: scale bar length in pixels = length / mm per pixel", 
   REQUIRE_NEAR(run * layout.mm_per_px, 1.0, 1e-9);
 }
 
-TEST_CASE("render_montage: finer tiles are shrunk to the shared coarsest scale", "[io]") {
+TEST_CASE("render_montage: finer tiles are shrunk to the shared coarsest scale", "[report]") {
   // Tile b is at 0.025 mm/px, twice as fine as a: it is shrunk by 2 to 40 x 30.
   MontageTile a = tile(40, 30, 0.05, 10, {"a"});
   MontageTile b = tile(80, 60, 0.025, 10, {"b"});

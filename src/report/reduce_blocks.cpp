@@ -1,7 +1,7 @@
 // NaN-aware k x k block mean / minimum of a float grid.
 // Inputs: grid, block side k; output: the reduced grid (same row convention).
 // Method: box-filter decimation (Gonzalez & Woods 2008, sec. 2.4); sums in double.
-#include "io/reduce_blocks.h"
+#include "report/reduce_blocks.h"
 
 #include <algorithm>
 #include <cmath>

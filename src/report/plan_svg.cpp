@@ -1,7 +1,7 @@
 // SVG chart of a stepover plan: total, machine and bench cost against stepover (log axis) per
 // tool, spec misses hollow, the best option ringed. Pure text encoder. O(options).
 // Method: SVG 1.1 (W3C, 2011); 1-2-5 tick series on both axes.
-#include "io/plan_svg.h"
+#include "report/plan_svg.h"
 
 #include <algorithm>
 #include <array>
@@ -10,7 +10,7 @@
 #include <limits>
 
 #include "core/units.h"
-#include "io/html_report.h"
+#include "report/html_report.h"
 
 namespace cuspmap {
 namespace {

@@ -1,16 +1,16 @@
 // Stacked profile plots with mean line, Ra band, Rz bar, nice ticks, units and a key.
 // Inputs: x mm, z um (plain vectors), Ra/Rz um, cut-off mm; output: RGB Image + panel frames.
 // Method: Heckbert 1990 1-2-5 ticks; linear data-to-pixel maps; Bresenham polylines.
-#include "io/profile_plot.h"
+#include "report/profile_plot.h"
 
 #include <algorithm>
 #include <cmath>
 #include <limits>
 #include <stdexcept>
 
-#include "io/legend.h"
-#include "io/nice_ticks.h"
-#include "io/text_render.h"
+#include "report/legend.h"
+#include "report/nice_ticks.h"
+#include "report/text_render.h"
 
 namespace cuspmap {
 namespace {

@@ -1,7 +1,7 @@
 // Tests of the plan encoders: the SVG chart parses as XML (pugixml) with one set of series per
 // tool, a marker per option and the best ringed, labels escaped; the CSV has one row per option
 // with RFC 4180 quoting and the best flagged.
-#include "io/plan_svg.h"
+#include "report/plan_svg.h"
 
 #include <pugixml.hpp>
 
@@ -42,7 +42,7 @@ int count(const pugi::xml_node& root, const char* name) {
 
 }  // namespace
 
-TEST_CASE("encode_plan_svg: well-formed chart with series per tool and the best ringed", "[io]") {
+TEST_CASE("encode_plan_svg: well-formed chart with series per tool and the best ringed", "[report]") {
   const PlanResult plan = small_plan(0.8);
   REQUIRE(plan.best.has_value());
   const std::string svg = encode_plan_svg(plan, PlanSvgOptions{});
@@ -62,7 +62,7 @@ TEST_CASE("encode_plan_svg: well-formed chart with series per tool and the best 
 }
 
 TEST_CASE("encode_plan_svg: says so when nothing meets the spec or there is nothing to draw",
-          "[io]") {
+          "[report]") {
   const PlanResult none = small_plan(0.01);
   REQUIRE_FALSE(none.best.has_value());
   const std::string svg = encode_plan_svg(none, PlanSvgOptions{});
@@ -74,7 +74,7 @@ TEST_CASE("encode_plan_svg: says so when nothing meets the spec or there is noth
   REQUIRE(empty.load_string(encode_plan_svg(PlanResult{}, PlanSvgOptions{}).c_str()));
 }
 
-TEST_CASE("encode_plan_csv: one row per option, quoted fields, best flagged", "[io]") {
+TEST_CASE("encode_plan_csv: one row per option, quoted fields, best flagged", "[report]") {
   const PlanResult plan = small_plan(0.8);
   const std::string csv = encode_plan_csv(plan);
   std::vector<std::string> lines;

@@ -1,7 +1,7 @@
 // Rasterises stb_easy_font's axis-aligned quads into an Image at an integer scale.
 // Inputs: ASCII text, position (px, y down), scale; output: pixels set in the image.
 // Method: stb_easy_font v1.1 glyph segments (public domain), filled as rectangles.
-#include "io/text_render.h"
+#include "report/text_render.h"
 
 #include <stb_easy_font.h>
 

@@ -1,7 +1,7 @@
 // Lambert-shaded relief of a heightfield with automatic vertical exaggeration.
 // Inputs: heights um on cells of cell_mm, light azimuth/elevation deg; output: gray Image.
 // Method: Lambert 1760 cosine law; central-difference normals; nearest-rank percentile.
-#include "io/shaded_image.h"
+#include "report/shaded_image.h"
 
 #include <algorithm>
 #include <cmath>
@@ -10,9 +10,9 @@
 
 #include "core/input_error.h"
 #include "core/units.h"
-#include "io/legend.h"
-#include "io/nice_ticks.h"
-#include "io/reduce_blocks.h"
+#include "report/legend.h"
+#include "report/nice_ticks.h"
+#include "report/reduce_blocks.h"
 
 namespace cuspmap {
 namespace {

@@ -1,5 +1,5 @@
 // Tests for io/text_render: ink stays inside the measured box, scaling, non-ASCII handling.
-#include "io/text_render.h"
+#include "report/text_render.h"
 
 #include <algorithm>
 
@@ -30,7 +30,7 @@ Ink ink(const Image& img) {
 
 }  // namespace
 
-TEST_CASE("draw_text: ink lies inside the measured box", "[io]") {
+TEST_CASE("draw_text: ink lies inside the measured box", "[report]") {
   for (int scale : {1, 2, 3}) {
     CAPTURE(scale);
     Image img = make_image(300, 100, 1, kWhite);
@@ -47,14 +47,14 @@ TEST_CASE("draw_text: ink lies inside the measured box", "[io]") {
   }
 }
 
-TEST_CASE("draw_text: scale s multiplies the ink area by s^2", "[io]") {
+TEST_CASE("draw_text: scale s multiplies the ink area by s^2", "[report]") {
   Image a = make_image(200, 60, 1, kWhite), b = make_image(200, 60, 1, kWhite);
   draw_text(a, 0, 0, "Rz 12", {1, kBlack});
   draw_text(b, 0, 0, "Rz 12", {3, kBlack});
   REQUIRE(ink(b).count == 9 * ink(a).count);
 }
 
-TEST_CASE("draw_text: bytes outside printable ASCII draw as '?'", "[io]") {
+TEST_CASE("draw_text: bytes outside printable ASCII draw as '?'", "[report]") {
   Image a = make_image(100, 30, 1, kWhite), b = make_image(100, 30, 1, kWhite);
   draw_text(a, 0, 0, "\xC2\xB5m", {1, kBlack});  // UTF-8 micro sign: two bytes
   draw_text(b, 0, 0, "??m", {1, kBlack});

@@ -10,7 +10,7 @@
 #include "core/heightfield.h"
 #include "core/units.h"
 #include "io/raster_image.h"
-#include "io/reduce_blocks.h"
+#include "report/reduce_blocks.h"
 
 namespace cuspmap {
 

@@ -1,9 +1,9 @@
 // Tests for io/height_image: exact gray levels of a linear ramp, +Y up, NaN marking, fixed
 // range clamping, block downsampling, legend placement.
-#include "io/height_image.h"
+#include "report/height_image.h"
 
 #include "core/input_error.h"
-#include "io/legend.h"
+#include "report/legend.h"
 #include "test_support.h"
 
 using namespace cuspmap;
@@ -33,7 +33,7 @@ HeightImageOptions no_legend() {
 }  // namespace
 
 TEST_CASE("render_height_image: a linear ramp maps to the exact gray ramp, top row = highest Y",
-          "[io]") {
+          "[report]") {
   // z = 0.5 j um for rows j = 0..254: auto range 0..127 um, 0.5 um per level, so row j has gray
   // level j; image row r shows heightfield row 254 - r (the picture is seen from above, +Y up).
   const Heightfield hf = field(5, 255, [](int, int j) { return 0.5 * j; });
@@ -53,7 +53,7 @@ TEST_CASE("render_height_image: a linear ramp maps to the exact gray ramp, top r
 }
 
 TEST_CASE("render_height_image: one high cell at the top-right of the patch is drawn top-right",
-          "[io]") {
+          "[report]") {
   // 4 x 3 field, all 0 except the cell with the highest X and highest Y:
   //   row j=2 (top):    0 0 0 9   -> image row 0
   //   row j=1:          0 0 0 0
@@ -66,7 +66,7 @@ TEST_CASE("render_height_image: one high cell at the top-right of the patch is d
 }
 
 TEST_CASE("render_height_image: unreached cells are pure white, heights stay within 0..254",
-          "[io]") {
+          "[report]") {
   Heightfield hf = field(6, 4, [](int i, int j) { return i + 10.0 * j; });
   hf.z_um(1, 2) = kUnreached;
   const HeightImage img = render_height_image(hf, no_legend());
@@ -82,7 +82,7 @@ TEST_CASE("render_height_image: unreached cells are pure white, heights stay wit
   REQUIRE(none.hi_um == 0.0);
 }
 
-TEST_CASE("render_height_image: a fixed range clamps heights outside it and counts them", "[io]") {
+TEST_CASE("render_height_image: a fixed range clamps heights outside it and counts them", "[report]") {
   // Heights 0..30 um across X, fixed range 10..20 um: cells below 10 -> 0, above 20 -> 254.
   const Heightfield hf = field(31, 2, [](int i, int) { return double(i); });
   HeightImageOptions o = no_legend();
@@ -102,7 +102,7 @@ TEST_CASE("render_height_image: a fixed range clamps heights outside it and coun
                                         "high end above the low end"));
 }
 
-TEST_CASE("render_height_image: large grids are block-reduced by mean or minimum", "[io]") {
+TEST_CASE("render_height_image: large grids are block-reduced by mean or minimum", "[report]") {
   // 10 x 10 cells, max 4 pixels -> k = 3, a 4 x 4 map; the last block row/column holds 1 cell.
   const Heightfield hf = field(10, 10, [](int i, int j) { return i + 100.0 * j; });
   HeightImageOptions o = no_legend();
@@ -124,7 +124,7 @@ TEST_CASE("render_height_image: large grids are block-reduced by mean or minimum
 }
 
 TEST_CASE("render_height_image: the legend sits right of the framed map and shows the ramp",
-          "[io]") {
+          "[report]") {
   const Heightfield hf = field(50, 40, [](int i, int j) { return 0.1 * i + 0.2 * j; });
   const HeightImage bare = render_height_image(hf, no_legend());
   HeightImageOptions o;
@@ -159,7 +159,7 @@ TEST_CASE("render_height_image: the legend sits right of the framed map and show
   REQUIRE(ink > 200);
 }
 
-TEST_CASE("height_image_caption: states the range, the gray step and the pixel size", "[io]") {
+TEST_CASE("height_image_caption: states the range, the gray step and the pixel size", "[report]") {
   const Heightfield hf = field(5, 255, [](int, int j) { return 0.5 * j; });
   const HeightImage img = render_height_image(hf, no_legend());
   REQUIRE(height_image_caption(img, LengthUnit::Millimetre) ==

@@ -1,11 +1,11 @@
 // Tests for io/nice_ticks: 1-2-5 steps (Heckbert, Graphics Gems I, 1990), ticks, labels.
-#include "io/nice_ticks.h"
+#include "report/nice_ticks.h"
 
 #include "test_support.h"
 
 using namespace cuspmap;
 
-TEST_CASE("nice_step: smallest 1-2-5 step giving at most the wanted intervals", "[io]") {
+TEST_CASE("nice_step: smallest 1-2-5 step giving at most the wanted intervals", "[report]") {
   // span / max = raw; step is the next 1-2-5 value >= raw (Heckbert 1990).
   REQUIRE_NEAR(nice_step(10.0, 10), 1.0, 1e-12);  // raw 1
   REQUIRE_NEAR(nice_step(10.0, 6), 2.0, 1e-12);   // raw 1.67
@@ -15,7 +15,7 @@ TEST_CASE("nice_step: smallest 1-2-5 step giving at most the wanted intervals", 
   REQUIRE_NEAR(nice_step(0.0, 5), 1.0, 1e-12);    // degenerate
 }
 
-TEST_CASE("nice_ticks: multiples of the step inside the range", "[io]") {
+TEST_CASE("nice_ticks: multiples of the step inside the range", "[report]") {
   const std::vector<double> t = nice_ticks(-0.33, 1.27, 8);  // raw 0.2 -> step 0.2
   REQUIRE(t.size() == 8u);
   REQUIRE_NEAR(t.front(), -0.2, 1e-12);
@@ -25,7 +25,7 @@ TEST_CASE("nice_ticks: multiples of the step inside the range", "[io]") {
   REQUIRE(nice_ticks(2.0, 2.0, 5) == std::vector<double>{2.0});
 }
 
-TEST_CASE("nice_length_at_most: the largest 1-2-5 length not above the limit", "[io]") {
+TEST_CASE("nice_length_at_most: the largest 1-2-5 length not above the limit", "[report]") {
   REQUIRE_NEAR(nice_length_at_most(3.7), 2.0, 1e-12);
   REQUIRE_NEAR(nice_length_at_most(5.0), 5.0, 1e-12);
   REQUIRE_NEAR(nice_length_at_most(0.0999), 0.05, 1e-12);
@@ -33,7 +33,7 @@ TEST_CASE("nice_length_at_most: the largest 1-2-5 length not above the limit", "
   REQUIRE(nice_length_at_most(-1.0) == 0.0);
 }
 
-TEST_CASE("format_fixed / format_significant: locale-free labels", "[io]") {
+TEST_CASE("format_fixed / format_significant: locale-free labels", "[report]") {
   REQUIRE(format_fixed(0.25, 2) == "0.25");
   REQUIRE(format_fixed(-0.0001, 2) == "0.00");
   REQUIRE(format_fixed(1200.0, 0) == "1200");

@@ -1,14 +1,14 @@
 // Height legend (gray ramp, 1-2-5 labels, "not reached" swatch) and scale bars.
 // Inputs: range in um, display unit, sizes in px; outputs: gray legend image, drawn scale bar.
 // Method: Heckbert 1990 nice numbers; uin = um x 39.37 (core/units.h kUinPerUm).
-#include "io/legend.h"
+#include "report/legend.h"
 
 #include <algorithm>
 #include <cmath>
 #include <vector>
 
-#include "io/nice_ticks.h"
-#include "io/text_render.h"
+#include "report/nice_ticks.h"
+#include "report/text_render.h"
 
 namespace cuspmap {
 namespace {

@@ -9,10 +9,10 @@
 #include <vector>
 
 #include "core/units.h"
-#include "io/height_image.h"
-#include "io/html_report.h"
-#include "io/profile_plot.h"
-#include "io/shaded_image.h"
+#include "report/height_image.h"
+#include "report/html_report.h"
+#include "report/profile_plot.h"
+#include "report/shaded_image.h"
 #include "io/simulate_report.h"
 #include "job/run_job.h"
 
