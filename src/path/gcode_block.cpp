@@ -105,8 +105,18 @@ class BlockSorter {
     }
   }
 
-  void read_past(const std::string& word, const char* what) {
-    b_.read_past.push_back(word + ": " + what);
+  // Codes read past are named canonically ("M8" for "M08"), so each warns once.
+  void read_past(const GcodeWord& w, const char* what) {
+    const int tenths = static_cast<int>(std::lround(w.value * 10.0));
+    std::string code(1, w.letter);
+    code += std::to_string(tenths / 10);
+    if (tenths % 10 != 0) {
+      code += '.';
+      code += std::to_string(tenths % 10);
+    }
+    code += ": ";
+    code += what;
+    b_.read_past.push_back(std::move(code));
   }
 
   void g_code(const GcodeWord& w) {
@@ -152,7 +162,7 @@ class BlockSorter {
       case 610: case 611: case 640:
         claim(kPathControl, w.text);
         b_.path_control = true;
-        read_past(w.text, "path blending (exact stop / tolerance) does not change the "
+        read_past(w, "path blending (exact stop / tolerance) does not change the "
                           "programmed path");
         return;
       case 900: case 910: claim(kDistance, w.text); b_.distance = t == 900 ? 1 : -1; return;
@@ -176,7 +186,7 @@ class BlockSorter {
         return;
       case 281: case 301:
         claim(kNonModal, w.text);
-        read_past(w.text, "stores a machine home position; no motion");
+        read_past(w, "stores a machine home position; no motion");
         return;
       case 530: b_.machine_coords = true; return;
       case 100: claim(kNonModal, w.text); b_.set_offsets = true; return;
@@ -212,7 +222,7 @@ class BlockSorter {
         claim(kMStop, w.text);
         b_.stop = GcodeStop::Pause;
         b_.stop_word = w.text;
-        read_past(w.text, "program pause; not counted in cycle_time_s");
+        read_past(w, "program pause; not counted in cycle_time_s");
         return;
       case 2: case 30:
         claim(kMStop, w.text);
@@ -226,22 +236,22 @@ class BlockSorter {
       case 6: claim(kMToolChange, w.text); b_.tool_change = true; return;
       case 7: case 8: case 9:
         claim(kMCoolant, w.text);
-        read_past(w.text, "coolant");
+        read_past(w, "coolant");
         return;
-      case 19: read_past(w.text, "spindle orient"); return;
+      case 19: read_past(w, "spindle orient"); return;
       case 48: case 49: case 50: case 51: case 52: case 53:
         claim(kMOverride, w.text);
-        read_past(w.text, "feed/speed override switch; programmed feeds are used");
+        read_past(w, "feed/speed override switch; programmed feeds are used");
         return;
       case 62: case 63: case 64: case 65: case 66: case 67: case 68:
         b_.output_words = true;
-        read_past(w.text, "digital/analog output or input wait");
+        read_past(w, "digital/analog output or input wait");
         return;
-      case 70: case 71: case 72: case 73: read_past(w.text, "modal state save/restore"); return;
+      case 70: case 71: case 72: case 73: read_past(w, "modal state save/restore"); return;
       case 98: claim(kMStop, w.text); b_.call_program = true; return;
       case 99: claim(kMStop, w.text); b_.return_program = true; return;
       default:
-        read_past(w.text, m >= 100 && m <= 199 ? "user M-code" : "M-code cuspmap does not know; "
+        read_past(w, m >= 100 && m <= 199 ? "user M-code" : "M-code cuspmap does not know; "
                                                                   "assumed to move nothing");
     }
   }

@@ -87,8 +87,9 @@ void GcodeControlFlow::oword(const GcodeOWord& o, std::size_t line) {
   } else if (k == "while") {
     if (program_.keyword_at(label, line) == "dowhile") {
       if (condition(o, line) != 0.0) pc_ = program_.previous(label, line, {"do"}) + 1;
-    } else if (condition(o, line) == 0.0) {
-      pc_ = require_next(o, line, {"endwhile"}, "'endwhile'") + 1;
+    } else {
+      const std::size_t end = require_next(o, line, {"endwhile"}, "'endwhile'");
+      if (condition(o, line) == 0.0) pc_ = end + 1;
     }
   } else if (k == "endwhile") {
     const std::size_t head = program_.previous(label, line, {"while"});

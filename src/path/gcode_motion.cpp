@@ -132,19 +132,22 @@ void GcodeInterpreter::arc(const GcodeBlock& b, const std::string& word,
   const std::string plane_at = plane_line_ > 0 && plane_line_ != line_
                                    ? " (plane selected on line " + std::to_string(plane_line_) + ")"
                                    : "";
+  // Centre letters in alphabetical order for messages (I/J, I/K, J/K).
+  const char first = std::min(offset_letter(ax.u), offset_letter(ax.v));
+  const char second = std::max(offset_letter(ax.u), offset_letter(ax.v));
   const GcodeValue& off_w = b[offset_letter(ax.w)];
   if (off_w.present) {
     fail(off_w.text, std::string(1, offset_letter(ax.w)) + " has no use in a " + plane_word_ +
-                         plane_name + " arc" + plane_at + ": " + offset_letter(ax.u) + " and " +
-                         offset_letter(ax.v) + " give its centre");
+                         plane_name + " arc" + plane_at + ": " + first + " and " + second +
+                         " give its centre");
   }
   const GcodeValue& ou = b[offset_letter(ax.u)];
   const GcodeValue& ov = b[offset_letter(ax.v)];
   const bool has_offsets = ou.present || ov.present;
   if (b['R'].present && has_offsets) fail(b['R'].text, "give either R or I/J/K for an arc, not both");
   if (!b['R'].present && !has_offsets) {
-    fail(word, std::string("an arc needs its centre (") + offset_letter(ax.u) + "/" +
-                   offset_letter(ax.v) + ") or its radius (R)");
+    fail(word, std::string("an arc needs its centre (") + first + "/" + second +
+                   ") or its radius (R)");
   }
   const double feed = feed_mm_per_min(word);
   check_spindle(word);
@@ -157,8 +160,8 @@ void GcodeInterpreter::arc(const GcodeBlock& b, const std::string& word,
     if (b['R'].value == 0.0) fail(b['R'].text, "an arc radius must not be 0");
     const ArcCentre c = arc_centre_from_radius(start, end, b['R'].value * unit_mm(), ccw, tol_mm);
     if (c.status == ArcCentreStatus::EndAtStart) {
-      fail(b['R'].text, "an R-form arc cannot end where it starts; program a full circle with "
-                        "I/J/K");
+      fail(b['R'].text, std::string("an R-form arc cannot end where it starts; program a full "
+                                    "circle with ") + first + "/" + second);
     }
     if (c.status == ArcCentreStatus::RadiusTooSmall) {
       fail(b['R'].text, "radius " + format_number(std::abs(b['R'].value * unit_mm())) +
@@ -168,8 +171,7 @@ void GcodeInterpreter::arc(const GcodeBlock& b, const std::string& word,
     centre = c.centre_mm;
   } else {
     if (arc_absolute_ && !(ou.present && ov.present)) {
-      fail(word, std::string("absolute arc centres (G90.1) need both ") + offset_letter(ax.u) +
-                     " and " + offset_letter(ax.v));
+      fail(word, std::string("absolute arc centres (G90.1) need both ") + first + " and " + second);
     }
     const Eigen::Vector2d uv(ou.value * unit_mm(), ov.value * unit_mm());
     const Eigen::Vector2d abs_uv(uv.x() + origin_mm_[ax.u], uv.y() + origin_mm_[ax.v]);

@@ -142,10 +142,15 @@ TEST_CASE("read_gcode_text: G92 and G10 L2/L20 offsets move the program's origin
       "G21 G10 L2 P1 X0 Y0 Z0\nG10 L2 P2 X100 Y0 Z0\nG54 G90 G0 X0 Y0 Z5\nG55 G0 X1\n");
   REQUIRE(l2.path.moves.size() == 1);
   CHECK(l2.path.moves[0].end_mm == Eigen::Vector3d(101, 0, 5));
-  // G10 L20: the current point (X10) is X0 in G55, so G55 X1 is X11 of the first system.
-  const BuiltPath l20 = read("G21 G90 G0 X10 Y0 Z5\nG10 L20 P2 X0\nG55 G0 X1\n");
+  // G10 L20: the current point (X10 Y0 Z5) is X0 Y0 Z5 in G55, so G55 X1 is X11 of the first
+  // system. An axis whose G55 offset the program never sets stays unknown (refused).
+  const BuiltPath l20 = read("G21 G90 G0 X10 Y0 Z5\nG10 L20 P2 X0 Y0 Z5\nG55 G0 X1\n");
   REQUIRE(l20.path.moves.size() == 1);
   CHECK(l20.path.moves[0].end_mm == Eigen::Vector3d(11, 0, 5));
+  CHECK(error_of("G21 G90 G0 X10 Y0 Z5\nG10 L20 P2 X0\nG55 G0 X1\n") ==
+        "part.nc:3: 'G55': the program switches work coordinate systems ('G54' before) and their "
+        "offsets are not set in the program (G10 L2): cuspmap reads one system per program "
+        "otherwise");
 }
 
 TEST_CASE("read_gcode_text: dwell by X or P, lines after M30, block delete", "[path]") {

@@ -121,7 +121,7 @@ TEST_CASE("read_gcode_text: the start position is unknown until set absolutely",
   REQUIRE(b.path.moves.size() == 1);
   require_point(b.path.moves[0].start_mm, 1, 2, 5);
   // issue_16: a feed move from an unknown start warns and the path begins at its end point.
-  const BuiltPath feed = read("G21 G90\nG0 Z5\nG1 X1 F100\nY2\n");
+  const BuiltPath feed = read("G21 G90\nG0 Z5\nG1 X1 Y0 F100\nY2\n");
   REQUIRE(feed.path.moves.size() == 1);
   require_point(feed.path.moves[0].start_mm, 1, 0, 5);
   REQUIRE(!feed.warnings.empty());
