@@ -64,21 +64,6 @@ cuspmap::Patch bench_patch() {
   return patch;
 }
 
-void BM_ReadGcodeText(benchmark::State& state) {
-  const std::string program = finishing_program();
-  const cuspmap::Cutter cutter;
-  std::size_t moves = 0;
-  for (auto _ : state) {
-    const cuspmap::BuiltPath b =
-        cuspmap::read_gcode_text(program, "bench.nc", cuspmap::CutSpec{}, bench_patch(), cutter);
-    moves = b.path.moves.size();
-    benchmark::DoNotOptimize(b.path.moves.data());
-  }
-  state.counters["lines"] = kLines;
-  state.counters["moves"] = static_cast<double>(moves);
-  state.SetBytesProcessed(static_cast<int64_t>(state.iterations() * program.size()));
-}
-BENCHMARK(BM_ReadGcodeText)->Unit(benchmark::kMillisecond);
 
 void BM_ReadGcodeFile(benchmark::State& state) {
   const std::string program = finishing_program();
@@ -133,7 +118,8 @@ std::string macro_16k_program() {
          "o3 endwhile\nG0 Z2\nM30\n";
 }
 
-void read_16k(benchmark::State& state, const std::string& program) {
+// Reads `program` from memory once per iteration; counts its moves and bytes.
+void read_from_memory(benchmark::State& state, const std::string& program) {
   const cuspmap::Cutter cutter;
   std::size_t moves = 0;
   for (auto _ : state) {
@@ -146,10 +132,16 @@ void read_16k(benchmark::State& state, const std::string& program) {
   state.SetBytesProcessed(static_cast<int64_t>(state.iterations() * program.size()));
 }
 
-void BM_Read16kMovesFlat(benchmark::State& state) { read_16k(state, flat_16k_program()); }
+void BM_ReadGcodeText(benchmark::State& state) {
+  read_from_memory(state, finishing_program());
+  state.counters["lines"] = kLines;
+}
+BENCHMARK(BM_ReadGcodeText)->Unit(benchmark::kMillisecond);
+
+void BM_Read16kMovesFlat(benchmark::State& state) { read_from_memory(state, flat_16k_program()); }
 BENCHMARK(BM_Read16kMovesFlat)->Unit(benchmark::kMillisecond);
 
-void BM_Read16kMovesParametric(benchmark::State& state) { read_16k(state, macro_16k_program()); }
+void BM_Read16kMovesParametric(benchmark::State& state) { read_from_memory(state, macro_16k_program()); }
 BENCHMARK(BM_Read16kMovesParametric)->Unit(benchmark::kMillisecond);
 
 }  // namespace

@@ -10,20 +10,16 @@
 #include "core/input_error.h"
 #include "path/gcode_interpreter.h"
 #include "path/gcode_reader.h"
-#include "path/path_test_geometry.h"
-#include "test_support.h"
+#include "path/gcode_test_support.h"
 
 namespace cuspmap {
 namespace {
 
 BuiltPath read(const std::string& text, const GcodeReadOptions& options = {}) {
-  return read_gcode_text(text, "part.nc", CutSpec{}, test::test_patch(), test::test_ball(),
-                         options);
+  return test::read_part(text, options);
 }
 
-std::string error_of(const std::string& text) {
-  return test::input_error_of([&] { read(text); });
-}
+std::string error_of(const std::string& text) { return test::part_error(text); }
 
 bool has_warning(const BuiltPath& b, const std::string& text) {
   for (const PathWarning& w : b.warnings) {
