@@ -48,6 +48,7 @@ struct SimulateOptions {
   bool units_given = false;
   bool stream = false;
   bool npy = false;
+  std::string block_delete = "on";
 };
 
 // A Job from --gcode and the tool flags (no job file).
@@ -127,6 +128,7 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
     throw InputError("give either a job file or --gcode FILE (with --tool and --diameter)");
   }
   Job job = o.gcode.empty() ? load_job(o.job_file) : gcode_job(o);
+  job.path.block_delete = o.block_delete == "on";
   const LengthUnit units = units_flag_given ? o.common.length_unit() : job.units;
   RunOptions ropt;
   ropt.threads = o.sim.threads;
@@ -217,6 +219,11 @@ void setup_simulate(CLI::App& sub) {
       ->capture_default_str();
   sub.add_option("--rpm", o->rpm, "With --gcode: spindle speed, rev/min")->capture_default_str();
   sub.add_flag("--tooth-marks", o->tooth_marks, "With --gcode: sweep tooth by tooth");
+  // Reason for the flag: a controller's block delete switch decides whether '/' lines run.
+  sub.add_option("--block-delete", o->block_delete,
+                 "G-code block delete switch: on skips lines starting with '/', off runs them")
+      ->check(CLI::IsMember({"on", "off"}))
+      ->capture_default_str();
   sub.add_flag("--stream", o->stream,
                "Sweep in bands even when the grid fits the memory limit (automatic above it)");
   // Reason for the flag: a streamed floor's .npy can be tens of GB, so it is written on request.

@@ -15,7 +15,11 @@ namespace cuspmap {
 
 BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
                          const Cutter& cutter) {
-  if (spec.kind == PathKind::Gcode) return read_gcode_file(spec.file, cut, patch, cutter);
+  if (spec.kind == PathKind::Gcode) {
+    GcodeReadOptions options;
+    options.block_delete = spec.block_delete;
+    return read_gcode_file(spec.file, cut, patch, cutter, options);
+  }
   BuiltPath built;
   built.spindle = cut.spindle;
   switch (spec.kind) {

@@ -1,6 +1,8 @@
 // One block (line) of an RS-274 program sorted into what it asks for: the G-codes of each modal
-// group, the M-codes, and the value words (X Y Z I J K R F S T P Q H). Rejects, with the word
-// and why, every code the reader does not support and every repeat the standard forbids.
+// group, the M-codes, and the value words (X Y Z I J K R F S T P Q H L D). Codes that move
+// nothing are listed to be read past; codes that change the geometry or its timing in ways a
+// floor simulation cannot model are refused with the word and why, as is every repeat the
+// standard forbids.
 // Method: RS274NGC v3 (Kramer, Proctor & Messina 2000) §3.3.5 item repeats, §3.4 modal groups
 // (Table 4), §3.5 G-codes (Table 5), §3.6 M-codes; G90.1/G91.1 and the G2/G3 P word as common
 // controls extend it.
@@ -9,6 +11,7 @@
 #include <array>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include "path/gcode_lexer.h"
 
@@ -21,6 +24,7 @@ enum class GcodeMotion {
   Linear,  ///< G1
   ArcCw,   ///< G2
   ArcCcw,  ///< G3
+  Cycle,   ///< a canned cycle G73, G74, G81-G86, G89 (GcodeBlock::cycle says which)
 };
 
 /// Arc planes (modal group 2).
@@ -64,7 +68,20 @@ struct GcodeBlock {
   int distance = 0;                            ///< G90 -> +1, G91 -> -1, absent 0
   int arc_distance = 0;                        ///< G90.1 -> +1, G91.1 -> -1, absent 0
   int units = 0;                               ///< G21 (mm) -> +1, G20 (inch) -> -1, absent 0
-  bool dwell = false;                          ///< G4 (non-modal): ignored, with its P time
+  int cycle = 0;                               ///< canned cycle number (81 for G81), 0 = none
+  bool dwell = false;                          ///< G4 (non-modal): ignored, with its P or X time
+  int home = 0;                                ///< G28 -> 28, G30 -> 30, absent 0
+  bool machine_coords = false;                 ///< G53 on the line
+  bool set_offsets = false;                    ///< G10 on the line (L2 / L20 used)
+  int origin_offset = 0;                       ///< G92 -> 920, G92.1 -> 921, G92.2, G92.3
+  int cutter_comp = 0;                         ///< G40 -> 40, G41 -> 41, G42 -> 42, absent 0
+  std::string cutter_comp_word;                ///< e.g. "G41"
+  int retract_mode = 0;                        ///< G98 -> 98, G99 -> 99, absent 0
+  bool call_program = false;                   ///< M98 on the line
+  bool return_program = false;                 ///< M99 on the line
+  bool output_words = false;                   ///< M62-M68 on the line (their P/Q/L words)
+  std::vector<std::string> read_past;          ///< codes that move nothing, as "M8: coolant"
+
   int work_offset_tenths = 0;                  ///< G54..G59.3 x 10 (540..593), 0 = absent
   std::string work_offset_word;                ///< e.g. "G55"
   bool path_control = false;                   ///< G61/G61.1/G64 on the line (P, Q allowed)
@@ -73,7 +90,7 @@ struct GcodeBlock {
   bool tool_change = false;                    ///< M6
   GcodeStop stop = GcodeStop::None;            ///< M0/M1/M60 or M2/M30
   std::string stop_word;                       ///< e.g. "M30"
-  // Value words, indexed by letter - 'A'. Only X Y Z I J K R F S T P Q H can be present.
+  // Value words, indexed by letter - 'A'. Only X Y Z I J K R F S T P Q H L D can be present.
   std::array<GcodeValue, 26> values;
   /// The value word for a letter.
   const GcodeValue& operator[](char letter) const { return values[letter - 'A']; }
@@ -86,13 +103,13 @@ struct GcodeBlock {
 /// @param[in]  line   a lexed line of kind Words
 /// @param[in]  file, line_number  for messages
 /// @param[out] block  reset and filled
-/// @throws InputError "<file>:<n>: '<word>': <why>" for: unsupported G-codes (cutter radius
-///         compensation G41/G42, canned cycles G81-G89, G93/G95 feed modes, homing G28/G30,
-///         G10/G53/G92 coordinate changes, probing, splines, unknown codes), unsupported
-///         M-codes (M98/M99 subprograms, unknown codes), letters other than
-///         F G H I J K M P Q R S T X Y Z (A B C U V W axes included), two G-codes of one modal
-///         group, two M-codes of one group, a letter repeated, non-integer M/T codes, G codes
-///         not a multiple of 0.1, negative S/T/F.
+/// @throws InputError "<file>:<n>: '<word>': <why>" for: G-codes that change the geometry or
+///         its timing beyond what cuspmap models (G93/G95 feed modes, G87/G88/G76 cycles,
+///         probing, splines, threading, scaling, rotation, polar coordinates, unknown codes),
+///         letters other than D F G H I J K L M P Q R S T X Y Z (A B C U V W axes included), two
+///         G-codes of one modal group (except G80 beside a motion code: G80 is dropped), two
+///         M-codes of one group, a letter repeated, non-integer M/T codes, G codes not a
+///         multiple of 0.1, negative S/T/F.
 void sort_gcode_block(const GcodeLine& line, std::string_view file, long long line_number,
                       GcodeBlock& block);
 

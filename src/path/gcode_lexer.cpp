@@ -1,10 +1,8 @@
 // Lexer for one RS-274 line (see gcode_lexer.h): spaces ignored outside comments, letters in
-// any case, numbers with optional sign and decimal point, read with std::from_chars.
-// Method: RS274NGC v3 (Kramer, Proctor & Messina 2000) §3.3, §3.3.1, §3.3.2.1, §3.3.4.
+// any case, values read by path/gcode_expression (numbers with std::from_chars).
+// Method: RS274NGC v3 (Kramer, Proctor & Messina 2000) §3.3, §3.3.1-3.3.4.
 #include "path/gcode_lexer.h"
 
-#include <charconv>
-#include <cmath>
 #include <cstdio>
 
 #include "core/input_error.h"
@@ -16,6 +14,7 @@ bool is_space(char c) { return c == ' ' || c == '\t' || c == '\v' || c == '\f'; 
 bool is_digit(char c) { return c >= '0' && c <= '9'; }
 bool is_letter(char c) { return (c >= 'A' && c <= 'Z') || (c >= 'a' && c <= 'z'); }
 char upper(char c) { return (c >= 'a' && c <= 'z') ? static_cast<char>(c - 'a' + 'A') : c; }
+char lower(char c) { return (c >= 'A' && c <= 'Z') ? static_cast<char>(c - 'A' + 'a') : c; }
 
 std::string byte_name(char c) {
   char buf[8];
@@ -26,32 +25,43 @@ std::string byte_name(char c) {
 // Lexes one line; holds the cursor and the context for messages.
 class LineLexer {
  public:
-  LineLexer(std::string_view line, std::string_view file, long long line_number)
-      : s_(line), file_(file), line_number_(line_number) {}
+  LineLexer(std::string_view line, std::string_view file, long long line_number,
+            const GcodeParameters* parameters)
+      : s_(line), file_(file), line_number_(line_number) {
+    ctx_.parameters = parameters;
+    ctx_.file = file;
+    ctx_.line = line_number;
+  }
 
-  void run(GcodeLine& out) {
+  void run(bool block_delete, GcodeLine& out) {
     out.kind = GcodeLineKind::Blank;
     out.words.clear();
+    out.assignments.clear();
+    out.slash = out.message = false;
     skip_spaces();
     if (i_ == s_.size()) return;
-    if (s_[i_] == '/') {  // block delete: the rest of the line is not read (§3.3 item 1)
-      out.kind = GcodeLineKind::Deleted;
-      return;
+    if (s_[i_] == '/') {  // block delete (§3.3 item 1): skipped only with the switch on
+      out.slash = true;
+      if (block_delete) {
+        out.kind = GcodeLineKind::Deleted;
+        return;
+      }
+      ++i_;
     }
-    if (s_[i_] == '%') {
+    if (i_ < s_.size() && s_[i_] == '%') {
       ++i_;
       skip_spaces();
       if (i_ != s_.size()) fail("%", "a % sign must stand alone on its line");
       out.kind = GcodeLineKind::Percent;
       return;
     }
-    bool first_item = true;  // a line number may only come before every word
+    bool first_item = true;  // a line number or O-word may only come before every word
     while (i_ < s_.size()) {
       const char c = s_[i_];
       if (is_space(c)) {
         ++i_;
       } else if (c == '(') {
-        skip_comment();
+        skip_comment(out);
       } else if (c == ';') {
         break;  // comment to the end of the line
       } else if (is_letter(c)) {
@@ -60,7 +70,7 @@ class LineLexer {
         if (letter == 'N') {
           read_line_number(first_item);
         } else if (letter == 'O') {
-          read_program_number(first_item, out);
+          read_oword(first_item, out);
           return;
         } else {
           out.words.push_back(read_word(letter));
@@ -68,9 +78,8 @@ class LineLexer {
         }
         first_item = false;
       } else if (c == '#') {
-        fail("#", "parameters and macros (#) are not supported; post the program with numbers");
-      } else if (c == '[') {
-        fail("[", "expressions ([ ]) are not supported; post the program with numbers");
+        read_assignment(out);
+        first_item = false;
       } else if (c == '%') {
         fail("%", "a % sign must stand alone on its line");
       } else if (static_cast<unsigned char>(c) < 0x20 || static_cast<unsigned char>(c) >= 0x7F) {
@@ -78,7 +87,7 @@ class LineLexer {
                           "byte " + byte_name(c) + " at column " + std::to_string(i_ + 1) +
                               ": not G-code text");
       } else {
-        fail(std::string(1, c), "unexpected character: words are a letter and a number");
+        fail(std::string(1, c), "unexpected character: words are a letter and a value");
       }
     }
   }
@@ -93,9 +102,18 @@ class LineLexer {
   }
 
   // Comments: no nesting, must close on the same line (§3.3.4). Any byte may appear inside.
-  void skip_comment() {
+  // "(MSG," "(DEBUG," and "(PRINT," comments are operator messages (common controls).
+  void skip_comment(GcodeLine& out) {
     for (std::size_t j = i_ + 1; j < s_.size(); ++j) {
       if (s_[j] == ')') {
+        std::string head;
+        for (std::size_t k = i_ + 1; k < j && head.size() < 7; ++k) {
+          if (!is_space(s_[k])) head.push_back(upper(s_[k]));
+        }
+        if (head.rfind("MSG,", 0) == 0 || head.rfind("DEBUG,", 0) == 0 ||
+            head.rfind("PRINT,", 0) == 0) {
+          out.message = true;
+        }
         i_ = j + 1;
         return;
       }
@@ -128,56 +146,117 @@ class LineLexer {
     }
   }
 
-  // "O1234" alone is a program number; O-words with anything after them are control flow.
-  void read_program_number(bool first_item, GcodeLine& out) {
-    std::string text = "O";
-    const int digits = read_digits(text);
+  // "O1234" alone is a program number; "O1234 keyword [..]" or "O<name> keyword" a control line.
+  void read_oword(bool first_item, GcodeLine& out) {
+    GcodeOWord& o = out.oword;
+    o.label.clear();
+    o.keyword.clear();
+    o.args.clear();
+    o.text.assign(1, 'O');
     skip_spaces();
-    while (i_ < s_.size() && s_[i_] == '(') {
-      skip_comment();
+    if (i_ < s_.size() && s_[i_] == '<') {
+      while (i_ < s_.size() && s_[i_] != '>') {
+        if (!is_space(s_[i_])) o.label.push_back(lower(s_[i_]));
+        ++i_;
+      }
+      if (i_ == s_.size()) fail(o.text + o.label, "an O-word name needs its closing '>'");
+      o.label.push_back('>');
+      ++i_;
+    } else {
+      read_digits(o.label);
+      // Leading zeros do not change the number: O0100 and O100 are one label (M98 P100).
+      while (o.label.size() > 1 && o.label[0] == '0') o.label.erase(0, 1);
+    }
+    o.text += o.label;
+    if (!first_item) fail(o.text, "an O-word must come first on its line");
+    if (o.label.empty() || o.label == "<>") fail(o.text, "an O-word needs a number or a <name>");
+    skip_spaces();
+    while (i_ < s_.size() && is_letter(s_[i_])) o.keyword.push_back(lower(s_[i_++]));
+    if (o.keyword.empty()) {
+      while (i_ < s_.size() && s_[i_] == '(') {
+        skip_comment(out);
+        skip_spaces();
+      }
+      if (i_ != s_.size() && s_[i_] != ';') {
+        fail(o.text, "an O-word is a program number alone on its line or a control keyword "
+                     "(sub, call, if, while, do, repeat, ...)");
+      }
+      out.kind = GcodeLineKind::ProgramNumber;
+      return;
+    }
+    static constexpr std::string_view kKeywords[] = {
+        "sub", "endsub", "call", "if", "elseif", "else", "endif", "while", "endwhile", "do",
+        "repeat", "endrepeat", "return", "break", "continue"};
+    bool known = false;
+    for (std::string_view k : kKeywords) known = known || k == o.keyword;
+    o.text += ' ' + o.keyword;
+    if (!known) {
+      fail(o.text, "unknown O-word keyword: use sub, endsub, call, return, if, elseif, else, "
+                   "endif, while, endwhile, do, repeat, endrepeat, break or continue");
+    }
+    for (;;) {
       skip_spaces();
+      if (i_ == s_.size() || s_[i_] == ';') break;
+      if (s_[i_] == '(') {
+        skip_comment(out);
+        continue;
+      }
+      std::string text;
+      o.args.push_back(read_gcode_real(s_, i_, ctx_, text));
     }
-    const bool alone = i_ == s_.size() || s_[i_] == ';';
-    if (!first_item || digits == 0 || !alone) {
-      fail(text, "O-word subprograms and control flow are not supported; only a program number "
-                 "(O1234) alone on its line is allowed");
-    }
-    out.kind = GcodeLineKind::ProgramNumber;
-    out.words.clear();
+    out.kind = GcodeLineKind::OWord;
   }
 
-  // A real number after a letter (§3.3.2.1): [+|-] digits [. digits], at least one digit.
+  // "#ref = value" (§3.3.3): the value is read with the parameters as they were before the line.
+  void read_assignment(GcodeLine& out) {
+    GcodeValueContext ctx = ctx_;
+    ctx.word_start = i_;
+    std::string text;
+    GcodeAssignment a;
+    a.target = read_gcode_parameter_ref(s_, i_, ctx, text);
+    skip_spaces();
+    if (i_ == s_.size() || s_[i_] != '=') {
+      fail(text, "a parameter outside a word must be set: #n=value (RS274NGC v3 section 3.3.3)");
+    }
+    ++i_;
+    a.value = read_gcode_real(s_, i_, ctx, text);
+    if (a.target.number == 0 && ctx_.parameters) fail(text, "parameter #0 cannot be set");
+    out.assignments.push_back(std::move(a));
+  }
+
+  // A letter and its real value (§3.3.2): a number, #parameter, [expression] or function[..].
   GcodeWord read_word(char letter) {
     GcodeWord word;
     word.letter = letter;
     word.text.push_back(letter);
+    const std::size_t letter_at = i_ - 1;
     skip_spaces();
-    if (i_ < s_.size() && (s_[i_] == '+' || s_[i_] == '-')) word.text.push_back(s_[i_++]);
-    int digits = read_digits(word.text);
-    if (i_ < s_.size() && s_[i_] == '.') {
-      word.text.push_back(s_[i_++]);
-      digits += read_digits(word.text);
-    }
-    if (digits == 0) {
-      if (i_ < s_.size() && (s_[i_] == '#' || s_[i_] == '[')) {
-        fail(word.text + s_[i_], "parameters and expressions are not supported; post the "
-                                 "program with numbers");
+    bool value_follows = false;
+    if (i_ < s_.size()) {
+      const char c = s_[i_];
+      value_follows = is_digit(c) || c == '.' || c == '+' || c == '-' || c == '#' || c == '[';
+      if (is_letter(c)) {  // a unary function such as SIN[30] is a real value (§3.3.2.2)
+        std::size_t j = i_;
+        while (j < s_.size() && is_letter(s_[j])) ++j;
+        skip_spaces_from(j);
+        value_follows = j < s_.size() && s_[j] == '[' && j - i_ >= 2;
       }
-      fail(word.text, std::string("the letter ") + letter + " needs a number after it");
     }
-    const char* first = word.text.data() + 1;
-    const char* last = word.text.data() + word.text.size();
-    if (*first == '+') ++first;  // from_chars takes no '+'
-    const auto [ptr, ec] = std::from_chars(first, last, word.value);
-    if (ec != std::errc() || ptr != last || !std::isfinite(word.value)) {
-      fail(word.text, "number out of range");
-    }
+    if (!value_follows) fail(word.text, std::string("the letter ") + letter + " needs a number after it");
+    GcodeValueContext ctx = ctx_;
+    ctx.word_start = letter_at;
+    word.value = read_gcode_real(s_, i_, ctx, word.text);
     return word;
+  }
+
+  void skip_spaces_from(std::size_t& j) const {
+    while (j < s_.size() && is_space(s_[j])) ++j;
   }
 
   std::string_view s_;
   std::string_view file_;
   long long line_number_;
+  GcodeValueContext ctx_;
   std::size_t i_ = 0;
 };
 
@@ -199,8 +278,8 @@ void throw_gcode_error(std::string_view file, long long line, std::string_view w
 }
 
 void lex_gcode_line(std::string_view line, std::string_view file, long long line_number,
-                    GcodeLine& out) {
-  LineLexer(line, file, line_number).run(out);
+                    const GcodeParameters* parameters, bool block_delete, GcodeLine& out) {
+  LineLexer(line, file, line_number, parameters).run(block_delete, out);
 }
 
 }  // namespace cuspmap

@@ -1,9 +1,10 @@
-// Reads the user's RS-274 finishing program into Moves: G0/G1 lines (Z changes become ramps),
-// G2/G3 arcs and helices kept as arcs (I/J or R form, full circles, P turns), modal state,
-// inch/mm, absolute/incremental, spindle direction; refuses anything else with file:line, the
-// word and why. Inputs: a file (streamed, never slurped); outputs mm, mm/min. Cost O(bytes).
+// Reads the user's RS-274 program into Moves as a controller runs it: modal state, parameters
+// and expressions, O-word and M98 subprograms and loops, offsets, canned cycles as plunges;
+// reads past codes that move nothing (one warning each) and refuses, with file:line, the word
+// and why, what a floor simulation cannot model. Inputs: a file (held in memory to jump between
+// lines); outputs mm, mm/min. Cost O(bytes + lines run).
 // Method: RS274NGC v3 (Kramer, Proctor & Messina, NIST IR 6556, 2000) §3.3-3.8, Table 8 order
-// of execution; G90.1/G91.1 and the G2/G3 P word as common controls extend it.
+// of execution; G90.1/G91.1, the G2/G3 P word, O-words and M98/M99 as common controls extend it.
 #pragma once
 
 #include <string>
@@ -12,6 +13,7 @@
 #include "core/heightfield.h"
 #include "path/build_toolpath.h"
 #include "path/move.h"
+#include "path/path_limits.h"
 #include "path/path_spec.h"
 #include "tool/cutter.h"
 
@@ -21,48 +23,51 @@ namespace cuspmap {
 /// closing warning so a program that rapids across the floor everywhere gives a short report.
 inline constexpr int kMaxRapidWarnings = 20;
 
-/// Reads a G-code program file.
+/// How the program is read.
+struct GcodeReadOptions {
+  /// The block delete switch (RS274NGC v3 §3.3 item 1): on, lines starting with '/' are skipped;
+  /// off, they run. On is the state the NIST interpreter starts in, and what controls ship with
+  /// (from memory).
+  bool block_delete = true;
+  /// Most lines run, loops and calls counted again (kMaxGcodeLinesRun; fuzzing sets fewer).
+  long long max_lines_run = kMaxGcodeLinesRun;
+};
+
+/// Reads a G-code program file. docs/gcode.md lists what is read, warned and refused.
 ///
-/// What is read (RS274NGC v3 section in brackets): G0, G1, G2, G3 (§3.5.1-3; centre format with
-/// I/J incremental by default, absolute after G90.1, back with G91.1; radius format with the
-/// sign rule of §3.5.3.1; full circles in centre format; a P word on G2/G3 adds P - 1 turns),
-/// G17 (G18/G19 may be selected, but an arc in them is refused), G20/G21 (1 in = 25.4 mm
-/// exactly), G90/G91, G94, F (length units per minute), S, M3/M4/M5, comments "( )" and ";",
-/// N line numbers, an O program number alone on its line, '%' lines (§3.1: a leading '%'
-/// needs a closing '%' or M2/M30; the program ends at the closing one), block delete '/' (the
-/// line is skipped, as with the switch on), numbers without a decimal point at face value
-/// (X10 = 10 units). No-ops: M0, M1, M60, M6 and T (one warning: the job's [tool] is used
-/// throughout), M7-M9, M48/M49, G4 with its P time (one warning: not counted in cycle time),
-/// G40, G43 (with H), G49, G54-G59.3 (one system per program), G61, G61.1, G64 (with P, Q),
-/// G80, G98, G99. M2/M30 end the program: later lines are not read (§3.6.1).
+/// Read (RS274NGC v3 section in brackets): G0-G3 (§3.5.1-3) in any plane G17/G18/G19 (G17 arcs
+/// stay arcs; G18/G19 arcs become chords within kPlaneArcChordToleranceMm), helices, full circles
+/// by I/J/K alone, P turns, R and centre formats; a motion mode with no axis words moves nothing;
+/// G80 beside a motion code is dropped; G20/G21 (feeds keep their physical rate), G90/G91,
+/// G90.1/G91.1, G94, G4 P or X (seconds); G54-G59.3 with offsets set by G10 L2/L20, G92/G92.1-3;
+/// G28/G30/G53 as retracts (warning); canned cycles G73, G74, G81-G86, G89 as plunges; numbered
+/// and named parameters, [..] expressions (§3.3.2-3.3.3); O-word sub/call/return, if/elseif/
+/// else, while/do/repeat/break/continue; M98/M99 subprograms of the same file; F, S, M3/M4/M5.
+/// Read past with one warning per code: coolant, outputs, orient, overrides, path blending,
+/// user and unknown M-codes, messages, M6 and T, G4 times, pauses.
+/// Start position: unknown on every axis until an absolute word sets it; a move from an unknown
+/// start is not emitted (a feed move warns): the path begins at its end point.
+/// Feed: F must be set before the first G1/G2/G3. Spindle: M3/M4 at the first feed move set
+/// BuiltPath::spindle, one direction per program. Lines after the first M2/M30 (subprograms
+/// excepted) and block-delete lines are counted in one warning each. A program whose feed moves
+/// go below patch.floor_z warns with the Z they imply.
+/// Limits: kMaxGcodeLineChars per line, kMaxGcodeLines lines, kMaxGcodeLinesRun lines run,
+/// kMaxPathMoves moves, kMaxGcodeCallDepth nested calls.
 ///
-/// Start position: unknown on every axis until an absolute (G90) word sets it. A G0 whose
-/// start is not fully known is a positioning move from an unknown place: it is not emitted
-/// (nothing to sweep from). A G1/G2/G3 with an unknown start axis, or a G91 word on an unknown
-/// axis, is an error ("position of Z unknown").
-/// Units: G21 (mm) until G20/G21 appears; a warning says so when the first move comes first.
-/// Feed: F must be set before the first G1/G2/G3 (error otherwise). Rapids carry
-/// cut.rapid_mm_per_min and rapid = true; moves above the floor are kept (the sweep skips them
-/// quickly; path length and cycle time need them). Zero-length lines are dropped.
-/// Spindle: the M3/M4 in force at the first feed move sets BuiltPath::spindle (cw = M3); with
-/// no M3/M4 before it, cut.spindle is used and a warning says so; a change of direction between
-/// feed moves is an error (one direction per simulated program); feed moves under M5 warn once.
-/// Warnings: each rapid that reaches the floor (path/floor_reach.h), with its line number, except
-/// a rapid straight up (a retract), which only leaves the floor as the previous move left it.
-/// Limits: kMaxGcodeLineChars per line, kMaxGcodeLines lines, kMaxPathMoves moves.
-///
-/// @param[in] path    G-code file; its name as given starts every message
-/// @param[in] cut     rapid rate, fallback spindle direction, rpm (a differing S warns once)
-/// @param[in] patch   floor region and floor Z (rapid warnings)
-/// @param[in] cutter  validated cutter (its reach, for rapid warnings)
+/// @param[in] path     G-code file; its name as given starts every message
+/// @param[in] cut      rapid rate, fallback spindle direction, rpm (a differing S warns once)
+/// @param[in] patch    floor region and floor Z (rapid and floor warnings)
+/// @param[in] cutter   validated cutter (its reach, for rapid warnings)
+/// @param[in] options  block delete switch
 /// @return moves in program order with their line numbers, warnings, spindle direction
 /// @throws InputError "<file>:<line>: '<word>': <why>" on the first unsupported or malformed
 ///         item, an unreadable file, an empty program or one without moves.
 BuiltPath read_gcode_file(const std::string& path, const CutSpec& cut, const Patch& patch,
-                          const Cutter& cutter);
+                          const Cutter& cutter, const GcodeReadOptions& options = {});
 
 /// As read_gcode_file, from text in memory (tests, benchmarks); `name` stands for the file.
 BuiltPath read_gcode_text(std::string_view text, const std::string& name, const CutSpec& cut,
-                          const Patch& patch, const Cutter& cutter);
+                          const Patch& patch, const Cutter& cutter,
+                          const GcodeReadOptions& options = {});
 
 }  // namespace cuspmap

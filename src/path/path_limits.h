@@ -23,6 +23,9 @@ inline constexpr std::size_t kMaxGcodeLineChars = 4096;
 /// so comment-heavy programs fit while a runaway file stops in seconds, not minutes.
 inline constexpr long long kMaxGcodeLines = 40'000'000;
 
+/// Most lines one G-code program may run, counting each pass of a loop or call again: 2.5x the
+/// line limit, so a loop that never ends stops with a message within a minute or so.
+inline constexpr long long kMaxGcodeLinesRun = 100'000'000;
 /// Largest magnitude of a G-code coordinate or arc word (X Y Z I J K R), in the program's units:
 /// the job files' length bound as a number, so path lengths and cycle times stay finite and
 /// meaningful; a larger number is a corrupt or mis-scaled program.

@@ -48,6 +48,7 @@ struct PathSpec {
   double advance_mm = 0.0;                         ///< trochoidal advance per loop (0 = a tenth of the tool diameter)
   std::vector<Eigen::Vector2d> boundary_mm;        ///< offset: closed polygon (empty = the patch rectangle)
   std::string file;                                ///< gcode: program path
+  bool block_delete = true;                        ///< gcode: block delete switch ('/' lines skipped)
 };
 
 }  // namespace cuspmap

@@ -66,9 +66,8 @@ TEST_CASE("simulate: malformed G-code programs exit 2 and write nothing", "[cli]
        "RS274NGC v3 allows 0.002 mm difference\n"},
       {"Hello, world\n", "part.nc:1: 'H': the letter H needs a number after it\n"},
       {"", "part.nc:1: empty file: no G-code program in it\n"},
-      {"G21 G90\nG0 Z5\nG1 X1 F100\n",
-       "part.nc:3: 'G1': position of X unknown: a feed move needs a known start; give X, Y and Z "
-       "in absolute (G90) words on an earlier move\n"},
+      // issue_16: a feed move from an unknown start now warns; a bad expression is refused.
+      {"G21 G90 G0 X0 Y0 Z5\nG1 X[1/0] F100\n", "part.nc:2: 'X[1/0]': division by zero\n"},
   };
   for (const Case& c : cases) {
     CAPTURE(c.program);
@@ -106,6 +105,29 @@ TEST_CASE("simulate: a G-code floor program writes the report, patch from its ex
   REQUIRE(report["size_mm"].size() == 2);
   CHECK(std::abs(report["size_mm"][0].get<double>() - 4.5) < 1e-9);
   CHECK(std::abs(report["size_mm"][1].get<double>() - 1.0) < 1e-9);
+}
+
+TEST_CASE("simulate: --block-delete off runs the '/' lines, on skips them", "[cli]") {
+  // RS274NGC v3 section 3.3 item 1: with the switch on, a line starting with '/' is skipped.
+  test::TempDir dir;
+  test::write_text(dir.file("part.nc"),
+                   "G21 G90 M3 S10000\nG0 X0 Y0 Z2\nG1 Z0 F600\nX4\n/Y1\nG0 Z2\nM30\n");
+  double length_mm[2] = {0, 0};
+  for (int off = 0; off < 2; ++off) {
+    const std::string out = dir.file(off ? "off" : "on");
+    const test::RunResult r = test::run_cuspmap(
+        {"simulate", "--gcode", dir.file("part.nc"), "--diameter", "6", "--cell", "0.05", "--out",
+         out, "--block-delete", off ? "off" : "on"});
+    REQUIRE(r.exit_code == 0);
+    CHECK(r.out.find(off ? "warning: 1 block-delete line ('/') run: block delete is off"
+                         : "warning: 1 block-delete line ('/') skipped") != std::string::npos);
+    length_mm[off] = nlohmann::json::parse(test::read_text(out + "/report.json"))["path_length_mm"];
+  }
+  CHECK(std::abs(length_mm[1] - length_mm[0] - 1.0) < 1e-9);  // the Y1 feed move, derived
+  const test::RunResult bad = test::run_cuspmap(
+      {"simulate", "--gcode", dir.file("part.nc"), "--diameter", "6", "--out", dir.file("x"),
+       "--block-delete", "maybe"});
+  CHECK(bad.exit_code == 2);
 }
 
 }  // namespace cuspmap

@@ -72,13 +72,19 @@ TEST_CASE("read_gcode_file: fixtures of tests/data/gcode", "[path]") {
         test::data_path("gcode/cutter_comp.nc") +
             ":7: 'G41': cutter radius compensation is not supported; post the program with "
             "compensation off");
-  CHECK(file_error(test::data_path("gcode/peck_drill.nc")) ==
-        test::data_path("gcode/peck_drill.nc") +
-            ":6: 'G83': canned cycles are not supported; post the program with the cycles "
-            "expanded into G0/G1 moves");
-  CHECK(file_error(test::data_path("gcode/macro_pocket.nc")) ==
-        test::data_path("gcode/macro_pocket.nc") +
-            ":3: '#': parameters and macros (#) are not supported; post the program with numbers");
+  // issue_16: canned cycles and parameters are read now. G83 peck drill from Z5, R1 to Z-8
+  // (RS274NGC v3 §3.5.16.3, modelled as one plunge): rapid to R, feed 9 mm, rapid back to Z5
+  // (G98), then the G0 Z20 of the next line.
+  const BuiltPath peck = read_gcode_file(test::data_path("gcode/peck_drill.nc"), CutSpec{},
+                                         test::test_patch(), test::test_ball());
+  REQUIRE(peck.path.moves.size() == 4);
+  CHECK(peck.path.moves[1].end_mm == Eigen::Vector3d(10, 10, -8));
+  REQUIRE_NEAR(path_length_mm(peck.path, false), 9.0, 1e-12);
+  // #100 = 12.5, then G1 X#100 from (0, 0, 5): one 12.5 mm move (RS274NGC v3 §3.3.3).
+  const BuiltPath macro = read_gcode_file(test::data_path("gcode/macro_pocket.nc"), CutSpec{},
+                                          test::test_patch(), test::test_ball());
+  REQUIRE(macro.path.moves.size() == 1);
+  REQUIRE_NEAR(path_length_mm(macro.path, false), 12.5, 1e-12);
   // A valid inch program: 0.5 in = 12.7 mm stepover lines and one arc.
   const BuiltPath b = read_gcode_file(test::data_path("gcode/cover_plate_inch.nc"), CutSpec{},
                                       test::test_patch(), test::test_ball());

@@ -66,13 +66,16 @@ TEST_CASE("read_gcode_text: G91 adds to the position, G90 sets it", "[path]") {
 
 TEST_CASE("read_gcode_text: G20 reads inches, 1 in = 25.4 mm exactly, feed in in/min", "[path]") {
   // 1 in = 25.4 mm exactly (international yard and pound agreement, 1959).
-  const BuiltPath b = read("G20 G90 G0 X0 Y0 Z0\nG1 X1 Y0.5 F10\nG21 X2\n");
-  REQUIRE(b.path.moves.size() == 2);
+  const BuiltPath b = read("G20 G90 G0 X0 Y0 Z0\nG1 X1 Y0.5 F10\nG21 X2\nF100 X3\n");
+  REQUIRE(b.path.moves.size() == 3);
   require_point(b.path.moves[0].end_mm, 25.4, 12.7, 0);
   CHECK(b.path.moves[0].feed_mm_per_min == 254.0);
-  // RS274NGC v3 §2.1.2.5: feed is in current length units per minute, so after G21 F10 is 10 mm/min.
+  // issue_16: a feed set before a G20/G21 change keeps its physical rate (the canonical machining
+  // functions of RS274NGC v3 §4 hold the feed as a rate, not as a number of units).
   require_point(b.path.moves[1].end_mm, 2, 12.7, 0);
-  CHECK(b.path.moves[1].feed_mm_per_min == 10.0);
+  CHECK(b.path.moves[1].feed_mm_per_min == 254.0);
+  // RS274NGC v3 §2.1.2.5: a new F is in the current length units per minute (mm after G21).
+  CHECK(b.path.moves[2].feed_mm_per_min == 100.0);
 }
 
 TEST_CASE("read_gcode_text: numbers without a decimal point are read at face value", "[path]") {
@@ -117,12 +120,15 @@ TEST_CASE("read_gcode_text: the start position is unknown until set absolutely",
   const BuiltPath b = read("G21 G90 G0 Z5\nG0 X1 Y2\nG0 Z1\n");
   REQUIRE(b.path.moves.size() == 1);
   require_point(b.path.moves[0].start_mm, 1, 2, 5);
-  CHECK(error_of("G21 G90\nG0 Z5\nG1 X1 F100\n") ==
-        "part.nc:3: 'G1': position of X unknown: a feed move needs a known start; give X, Y and "
-        "Z in absolute (G90) words on an earlier move");
-  CHECK(error_of("G21 G90 G0 X0 Y0\nG2 X1 Y1 R1 F100\n") ==
-        "part.nc:2: 'G2': position of Z unknown: a feed move needs a known start; give X, Y and "
-        "Z in absolute (G90) words on an earlier move");
+  // issue_16: a feed move from an unknown start warns and the path begins at its end point.
+  const BuiltPath feed = read("G21 G90\nG0 Z5\nG1 X1 Y0 F100\nY2\n");
+  REQUIRE(feed.path.moves.size() == 1);
+  require_point(feed.path.moves[0].start_mm, 1, 0, 5);
+  REQUIRE(!feed.warnings.empty());
+  CHECK(feed.warnings[0].line == 3);
+  CHECK(feed.warnings[0].message ==
+        "G1 from an unknown start (X not yet set): the path begins at its end point, as after a "
+        "rapid");
   CHECK(error_of("G21 G91 G0 X1\n") ==
         "part.nc:1: 'X1': position of X unknown: an incremental (G91) move needs an earlier "
         "absolute X");
@@ -177,13 +183,23 @@ TEST_CASE("read_gcode_text: no-op codes are accepted and noted once", "[path]") 
       "T1 M6\nM3 S10000 M8\nG43 H1 G0 X0 Y0 Z1\nG4 P0.5\nG1 Z0 F100\nM1\nG61 X1\nT2 M6\nM9 M5\n"
       "G4 P1\n");
   CHECK(b.path.moves.size() == 2);
-  REQUIRE(b.warnings.size() == 2);
+  // issue_16: codes that move nothing are read past with one warning per code, in line order.
+  REQUIRE(b.warnings.size() == 7);
   CHECK(b.warnings[0].message ==
+        "G64 read past (path blending (exact stop / tolerance) does not change the programmed "
+        "path): it moves nothing");
+  CHECK(b.warnings[1].message ==
         "tool change (M6) ignored: every move is simulated with the job's [tool]");
-  CHECK(b.warnings[1].message == "dwell (G4) ignored: dwell times are not counted in cycle_time_s");
-  CHECK(error_of("G54\nG55 G0 X0 Y0 Z0\n") ==
-        "part.nc:2: 'G55': the program switches work coordinate systems ('G54' before): cuspmap "
-        "reads one system per program");
+  CHECK(b.warnings[2].message == "M8 read past (coolant): it moves nothing");
+  CHECK(b.warnings[3].message == "dwell (G4) ignored: dwell times are not counted in cycle_time_s");
+  CHECK(b.warnings[4].message ==
+        "M1 read past (program pause; not counted in cycle_time_s): it moves nothing");
+  CHECK(b.warnings[5].line == 8);
+  CHECK(b.warnings[6].message == "M9 read past (coolant): it moves nothing");
+  CHECK(error_of("G54 G0 X0 Y0 Z0\nG55 G0 X1\n") ==
+        "part.nc:2: 'G55': the program switches work coordinate systems ('G54' before) and their "
+        "offsets are not set in the program (G10 L2): cuspmap reads one system per program "
+        "otherwise");
 }
 
 TEST_CASE("read_gcode_text: an S word that differs from [cut] rpm warns once", "[path]") {
