@@ -40,12 +40,11 @@ TEST_CASE("stepover: issue_13 a tilted bull-nose leaves its flat rim's ellipse, 
   REQUIRE_NEAR(j["scallop_height_um"].get<double>(), h_um, 1e-3 * h_um);
   REQUIRE(j["tool"]["tilt_deg"] == 0.02);
   REQUIRE(any_contains(j["notes"], "ellipses"));
-  // Inverse: a bare 0.3 is um; the stepover found leaves that cusp.
-  const nlohmann::json inv =
-      run_json({"stepover", "--tool", "bullnose", "--diameter", "10", "--corner-radius", "1",
-                "--tilt", "0.02", "--tilt-toward", "90", "--target-scallop", "0.3"});
+  // Inverse, flat end tilted across the feed: a saw-tooth h = s tan(tau) (derived), so a bare
+  // 0.3 (um) gives s = 0.3 um / tan(0.02 deg).
+  const nlohmann::json inv = run_json({"stepover", "--tool", "flat", "--diameter", "10", "--tilt",
+                                       "0.02", "--tilt-toward", "90", "--target-scallop", "0.3"});
   REQUIRE_NEAR(inv["scallop_height_um"].get<double>(), 0.3, 1e-6);
-  // Saw-tooth across the feed: h = s tan(tau) (derived), so s = 0.3 um / tan(0.02 deg).
   REQUIRE_NEAR(inv["stepover_mm"].get<double>(), 0.3e-3 / tan_deg(0.02), 1e-6);
   cuspmap::test::require_input_error(
       {"stepover", "--tool", "flat", "--diameter", "10", "--tilt", "0.1", "--slope", "5",
@@ -138,7 +137,7 @@ TEST_CASE("plan: issue_13 a bull-nose meeting Ra with wide ridges is cautioned",
   const nlohmann::json j =
       run_json({"plan", "--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--size",
                 "80x50", "--feed", "1500", "--machine-rate", "90", "--bench-rate", "45",
-                "--stepovers", "2,5,8.5", "--target-ra", "0.8um"});
+                "--stepovers", "2,5,8.4", "--target-ra", "0.8um"});
   REQUIRE(j["best"] == 2);
   REQUIRE(any_contains(j["cautions"], "Ra hides these ridges"));
 }

@@ -27,6 +27,7 @@ TEST_CASE("iso1302_grade: smallest grade at or above the Ra", "[cusp]") {
   REQUIRE(cuspmap::iso1302_grade(3.3)->label() == "N9");
   REQUIRE(cuspmap::iso1302_grade(12.6)->label() == "N10");  // 500 uin = 12.7 um
   REQUIRE(cuspmap::iso1302_grade(12.8)->label() == "N11");
-  REQUIRE_FALSE(cuspmap::iso1302_grade(50.1).has_value());
+  REQUIRE(cuspmap::iso1302_grade(50.1)->label() == "N12");  // 2000 uin = 50.8 um
+  REQUIRE_FALSE(cuspmap::iso1302_grade(50.9).has_value());
   REQUIRE_FALSE(cuspmap::iso1302_grade(-1.0).has_value());
 }
