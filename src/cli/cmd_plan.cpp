@@ -4,15 +4,22 @@
 #include <algorithm>
 #include <cstdio>
 #include <memory>
+#include <optional>
+#include <string>
+#include <utility>
+#include <vector>
 
 #include "cli/command.h"
 #include "cli/finish_flags.h"
 #include "cli/output_dir.h"
+#include "core/height_units.h"
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "finish/finishing_cautions.h"
+#include "finish/plan_range_edge.h"
 #include "finish/plan_stepover.h"
 #include "finish/simulated_cusp_heights.h"
+#include "finish/wide_ridges.h"
 #include "report/html_report.h"
 #include "io/plan_csv.h"
 #include "report/plan_svg.h"
@@ -40,6 +47,7 @@ struct PlanOptions {
   std::string target_scallop;  // height
   std::string tolerance;       // length (+-)
   std::string sand = "when-needed";
+  std::string job;        // --job FILE: tool, floor, feed and sweep of a raster job
   std::string out;        // --out DIR
   bool simulate = false;  // --simulate: surfaces from a simulated window, not the closed form
 };
@@ -59,10 +67,11 @@ std::vector<std::string> split(std::string_view text, char sep) {
   return items;
 }
 
-// A height (Ra or cusp target): a length like every other, bare numbers in --units (as
-// `stepover` reads them), so "0.8um" or "32uin" is the usual way to write it.
-double parse_height_um(const std::string& text, LengthUnit units, const char* what) {
-  const double um = parse_length_mm(text, units, what) * kUmPerMm;
+// A target height, as `stepover` reads it: bare numbers in um (--units mm) or uin (--units in),
+// suffixes as for any length, and ISO 1302:1992 grades for Ra ("N6").
+double target_height_um(const std::string& text, LengthUnit units, const char* what) {
+  const double um = std::string_view(what) == "--target-ra" ? parse_ra_target_um(text, units, what)
+                                                            : parse_height_um(text, units, what);
   if (!(um > 0.0))
     throw InputError(std::string(what) + " " + format_number(um) + " um: must be > 0");
   return um;
@@ -125,8 +134,8 @@ std::vector<PlanTool> tools_from_flags(const PlanOptions& o, LengthUnit units) {
   return tools;
 }
 
-PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
-  PlanRequest r;
+// The tool, floor, feed and pass direction from the flags.
+void floor_from_flags(const PlanOptions& o, LengthUnit units, PlanRequest& r) {
   r.tools = tools_from_flags(o, units);
   if (o.size.empty()) throw InputError("--size is missing: give the floor size, e.g. 120x80");
   std::vector<std::string> xy = split(o.size, o.size.find('x') != std::string::npos ? 'x' : ',');
@@ -150,6 +159,57 @@ PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
   } else {
     throw InputError("--direction " + o.direction + ": must be one-way or zigzag");
   }
+}
+
+// The tool, floor, feed and pass direction of a raster job, so that each option is swept as
+// `simulate` sweeps that job (tooth marks when it asks for them). The window's passes run along
+// X, so the tilt direction is taken relative to the job's raster angle.
+void floor_from_job(const PlanOptions& o, const Job& job, LengthUnit units, PlanRequest& r) {
+  const std::pair<const char*, const std::string*> from_job[] = {{"--tools", &o.tools},
+                                                                 {"--diameter", &o.tool.diameter},
+                                                                 {"--size", &o.size},
+                                                                 {"--feed", &o.feed}};
+  for (const auto& [flag, value] : from_job) {
+    if (!value->empty()) {
+      throw InputError(std::string(flag) + " " + *value + ": --job " + o.job +
+                       " gives the tool, floor and feed; drop " + flag + " or --job");
+    }
+  }
+  if (job.path.kind != PathKind::Raster || job.patch_from_program) {
+    throw InputError("--job " + o.job +
+                     ": plan varies the stepover of a raster over a given patch; this job's "
+                     "path is " +
+                     describe_path(job.path, units));
+  }
+  Cutter cutter = job.cutter;
+  cutter.tilt_toward_deg -= job.path.angle_deg;
+  PlanTool tool{describe_tool(cutter, units), cutter, {}};
+  r.tools.push_back(tool);
+  if (!o.stepovers.empty()) {
+    for (const std::string& s : split(o.stepovers, ',')) {
+      const double mm = parse_positive_length(s, units, "--stepovers", "must be > 0");
+      if (mm <= cutter.diameter_mm) r.tools.front().stepovers_mm.push_back(mm);
+    }
+    if (r.tools.front().stepovers_mm.empty()) {
+      throw InputError("--stepovers " + o.stepovers + ": none is <= the diameter of the " +
+                       tool.label);
+    }
+  }
+  r.patch.size_x_mm = job.patch.size_x_mm;
+  r.patch.size_y_mm = job.patch.size_y_mm;
+  r.cut = job.cut;
+  r.direction = job.path.direction;
+}
+
+PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
+  PlanRequest r;
+  std::optional<Job> job;
+  if (o.job.empty()) {
+    floor_from_flags(o, units, r);
+  } else {
+    job = load_job(o.job);
+    floor_from_job(o, *job, units, r);
+  }
   if (!(o.pass_overhead_s >= 0.0)) {
     throw InputError("--pass-overhead " + format_number(o.pass_overhead_s) + ": must be >= 0 s");
   }
@@ -157,9 +217,11 @@ PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
   PlanSpec& spec = r.spec;
   spec.machine_rate_per_hour = parse_rate(o.machine_rate, "--machine-rate");
   spec.bench_rate_per_hour = parse_rate(o.bench_rate, "--bench-rate");
-  if (!o.target_ra.empty()) spec.target_ra_um = parse_height_um(o.target_ra, units, "--target-ra");
+  if (!o.target_ra.empty()) {
+    spec.target_ra_um = target_height_um(o.target_ra, units, "--target-ra");
+  }
   if (!o.target_scallop.empty()) {
-    spec.target_scallop_um = parse_height_um(o.target_scallop, units, "--target-scallop");
+    spec.target_scallop_um = target_height_um(o.target_scallop, units, "--target-scallop");
   }
   if (o.sand == "when-needed") {
     spec.sanding = SandingMode::WhenNeeded;
@@ -180,7 +242,14 @@ PlanRequest request_from_flags(const PlanOptions& o, LengthUnit units) {
   const GritChoice g = grit_choice_from_flags(o.grits);
   spec.grit_table = g.table;
   spec.grits = g.sequence;
-  if (!o.simulate) {
+  if (job) {
+    // The job's own sweep: envelope or tooth by tooth, at its spindle speed and feed.
+    const RasterDirection direction = r.direction;
+    const WindowSweep sweep{job->sim.tooth_marks, job->cut};
+    r.simulate = [direction, sweep](const Cutter& cutter, double stepover_mm) {
+      return simulated_cusp_heights(cutter, stepover_mm, direction, sweep);
+    };
+  } else if (!o.simulate) {
     for (const PlanTool& t : r.tools) require_tilt_along_feed(t.cutter, "add --simulate");
   } else {
     const RasterDirection direction = r.direction;
@@ -205,6 +274,16 @@ constexpr const char* kClosedFormBasis =
 constexpr const char* kSimulatedBasis =
     "simulated window per option (revolving envelope, whole periods, plane removed, ISO 25178-2 "
     "Sz/Sv/Sp/Sa; Ra taken as Sa)";
+constexpr const char* kJobBasis =
+    "simulated window per option, swept as `simulate` sweeps the job (tooth by tooth when it asks "
+    "for tooth marks, at its rpm and feed; whole periods, plane removed, ISO 25178-2 "
+    "Sz/Sv/Sp/Sa; Ra taken as Sa)";
+
+// Where each option's surface comes from.
+const char* surface_basis(const PlanRequest& r, const PlanOptions& o) {
+  if (!o.job.empty()) return kJobBasis;
+  return r.simulate ? kSimulatedBasis : kClosedFormBasis;
+}
 
 nlohmann::json option_json(const PlanOption& p) {
   nlohmann::json j = {
@@ -235,19 +314,60 @@ nlohmann::json option_json(const PlanOption& p) {
   return j;
 }
 
+std::string length_text(double mm, LengthUnit u) {
+  return u == LengthUnit::Inch ? format_number(mm / kMmPerInch) + " in" : format_number(mm) + " mm";
+}
+
 std::string best_message(const PlanResult& plan, LengthUnit u) {
   if (!plan.best) {
     return "no option meets the spec: loosen the target or tolerance, add finer grades, or try "
            "other tools and stepovers";
   }
   const PlanOption& b = plan.options[*plan.best];
-  const std::string step = u == LengthUnit::Inch ? format_number(b.stepover_mm / kMmPerInch) + " in"
-                                                 : format_number(b.stepover_mm) + " mm";
+  const std::string step = length_text(b.stepover_mm, u);
   return "best: " + b.tool + " at " + step + ", cost " + fixed(b.cost, 2) + " (machine " +
-         fixed(b.machine_cost, 2) + " + bench " + fixed(b.bench_cost, 2) + "); " + b.reason;
+         fixed(b.machine_cost, 2) + " + bench " + fixed(b.bench_cost, 2) + "); " + b.reason +
+         "; machined cusp " + height_text(b.surface.sz_um, u);
 }
 
-nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
+// What the table alone does not say about the best option: it lies at an end of the stepovers
+// tried (notes), or meets an Ra target with ridges Ra does not see (cautions).
+struct PlanRemarks {
+  std::vector<std::string> notes, cautions;
+  std::optional<RangeEdge> edge;
+};
+
+PlanRemarks plan_remarks(const PlanResult& plan, LengthUnit u) {
+  PlanRemarks m;
+  if (!plan.best) return m;
+  const PlanOption& b = plan.options[*plan.best];
+  m.edge = plan_range_edge(plan);
+  if (m.edge) {
+    std::string next;
+    for (const double s : m.edge->next_stepovers_mm) {
+      next += (next.empty() ? "" : ",") +
+              format_number(u == LengthUnit::Inch ? s / kMmPerInch : s) +
+              (u == LengthUnit::Inch ? "in" : "mm");
+    }
+    std::string line = "the cheapest option is the " +
+                       std::string(m.edge->at_smallest ? "smallest" : "largest") +
+                       " stepover tried for " + b.tool + " (" + length_text(b.stepover_mm, u) +
+                       "): the optimum may lie outside the range";
+    line += next.empty() ? " only if passes could be wider than the diameter, which leave uncut "
+                           "strips"
+                         : "; try --stepovers " + next;
+    m.notes.push_back(line);
+  }
+  if (b.surface.sz_um > 0.0 &&
+      ridges_hidden_by_ra(b.stepover_mm, b.surface.sz_um, b.surface.ra_um)) {
+    m.cautions.push_back(
+        wide_ridges_caution(height_text(b.surface.sz_um, u), length_text(b.stepover_mm, u)));
+  }
+  return m;
+}
+
+nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, LengthUnit u,
+                             const char* basis) {
   nlohmann::json options = nlohmann::json::array();
   for (const PlanOption& p : plan.options) options.push_back(option_json(p));
   nlohmann::json spec = {
@@ -259,7 +379,9 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
       r.spec.target_scallop_um ? nlohmann::json(*r.spec.target_scallop_um) : nlohmann::json();
   spec["tolerance_um"] =
       r.spec.tolerance_um ? nlohmann::json(*r.spec.tolerance_um) : nlohmann::json();
-  std::vector<std::string> cautions = plan_cautions();
+  const PlanRemarks remarks = plan_remarks(plan, u);
+  std::vector<std::string> cautions = remarks.cautions;
+  for (const std::string& c : plan_cautions()) cautions.push_back(c);
   nlohmann::json doc = {
       {"options", options},
       {"message", best_message(plan, u)},
@@ -276,16 +398,22 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
        {{"machine",
          "raster path built over the floor: moves at their feed, rapids at the "
          "rapid rate, plus the per-pass overhead"},
-        {"surface", r.simulate ? kSimulatedBasis : kClosedFormBasis},
+        {"surface", basis},
         {"bench", "sanding time of the grit sequence (docs/finishing.md)"},
         {"grit_table", r.spec.grit_table.source}}},
       {"cautions", cautions},
   };
   doc["best"] = plan.best ? nlohmann::json(*plan.best) : nlohmann::json();
+  doc["notes"] = remarks.notes;
+  doc["range_edge"] = nlohmann::json();
+  if (remarks.edge) {
+    doc["range_edge"] = {{"at", remarks.edge->at_smallest ? "smallest" : "largest"},
+                         {"next_stepovers_mm", remarks.edge->next_stepovers_mm}};
+  }
   return doc;
 }
 
-void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
+void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, const char* basis) {
   const double unit = u == LengthUnit::Inch ? kMmPerInch : 1.0;
   const char* lu = u == LengthUnit::Inch ? "in" : "mm";
   std::printf(
@@ -339,9 +467,12 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
   }
   for (const std::string& m : misses) std::printf("  misses: %s\n", m.c_str());
   std::printf("\n%s\n", best_message(plan, u).c_str());
-  std::printf("Costs are in the currency of the rates. Surfaces: %s.\n",
-              r.simulate ? kSimulatedBasis : kClosedFormBasis);
-  print_cautions(plan_cautions());
+  const PlanRemarks remarks = plan_remarks(plan, u);
+  for (const std::string& n : remarks.notes) std::printf("note: %s\n", n.c_str());
+  std::printf("Costs are in the currency of the rates. Surfaces: %s.\n", basis);
+  std::vector<std::string> cautions = remarks.cautions;
+  for (const std::string& c : plan_cautions()) cautions.push_back(c);
+  print_cautions(cautions);
 }
 
 void run_plan(const PlanOptions& o) {
@@ -350,7 +481,8 @@ void run_plan(const PlanOptions& o) {
   StageTimer timer;
   const PlanResult plan = plan_stepover(request);
   print_stage(o.common.verbose, "plan", timer.lap());
-  const nlohmann::json doc = plan_document(request, plan, units);
+  const char* basis = surface_basis(request, o);
+  const nlohmann::json doc = plan_document(request, plan, units, basis);
   if (!o.out.empty()) {
     OutputDir dir(o.out);
     dir.write("plan.json", doc.dump(2) + "\n");
@@ -363,7 +495,7 @@ void run_plan(const PlanOptions& o) {
   if (o.common.json) {
     print_json(doc);
   } else {
-    print_table(request, plan, units);
+    print_table(request, plan, units, basis);
     if (!o.out.empty())
       std::printf("\nWrote plan.json, plan.csv and plan.svg to %s\n", o.out.c_str());
   }
@@ -393,7 +525,8 @@ void setup_plan(CLI::App& sub) {
       ->capture_default_str();
   sub.add_option("--machine-rate", o->machine_rate, "Cost of one machine hour (any currency)");
   sub.add_option("--bench-rate", o->bench_rate, "Cost of one bench (sanding) hour, same currency");
-  sub.add_option("--target-ra", o->target_ra, "Finished Ra at most this, e.g. 0.8um or 32uin");
+  sub.add_option("--target-ra", o->target_ra,
+                 "Finished Ra at most this: 0.8 (um; uin with --units in), 32uin, N6");
   sub.add_option(
       "--target-scallop", o->target_scallop,
       "Finished peak-to-valley at most this (cusp, or the last grade's scratches), e.g. 4um");
@@ -406,6 +539,12 @@ void setup_plan(CLI::App& sub) {
       ->capture_default_str();
   add_grit_flags(sub, o->grits);
   sub.add_option("--out", o->out, "Folder for plan.json, plan.csv and plan.svg");
+  // Reason: a job's sweep (tooth marks, rpm, tilt direction) is what `simulate` and `allowance`
+  // use for it; plan must price that same surface, not a closed form or envelope (issue 13).
+  sub.add_option("--job", o->job,
+                 "Plan the stepover of this raster job.toml: its tool, floor, feed and sweep "
+                 "(tooth marks as it asks); implies --simulate")
+      ->type_name("FILE");
   sub.add_flag("--simulate", o->simulate,
                "Take each option's surface from a simulated window (tilt in any direction, dish, "
                "runout) instead of the closed form");

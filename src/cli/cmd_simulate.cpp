@@ -95,7 +95,8 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
   std::printf("%s\n", job.name.c_str());
   std::printf("  tool    %s\n  path    %s, %zu moves\n", describe_tool(job.cutter, units).c_str(),
               describe_path(job.path, units).c_str(), run.built.path.moves.size());
-  std::printf("  Ra %s (%s)  Rz %s  cut-off %s mm\n", height_text(rough.a_um, units).c_str(),
+  std::printf("  Ra %s (ISO 1302:1992 %s)  Rz %s  cut-off %s mm\n",
+              height_text(rough.a_um, units).c_str(),
               run.texture.profile.iso1302_grade.c_str(), height_text(rough.z_um, units).c_str(),
               format_number(run.texture.profile.cutoff_mm).c_str());
   std::printf("  Sa %s  Sz %s  highest point above nominal %s\n",

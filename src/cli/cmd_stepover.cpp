@@ -8,10 +8,12 @@
 #include <iostream>
 #include <optional>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "cli/command.h"
 #include "cli/stepover_report.h"
+#include "core/height_units.h"
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "core/units.h"
@@ -26,9 +28,11 @@ namespace {
 // Flag values as typed; parsed in the callback so that every error names the value.
 struct StepoverOptions {
   std::string tool = "ball";
-  std::string diameter, corner_radius, dish, surface = "flat", surface_radius, slope;
+  std::string diameter, corner_radius, dish, tilt, tilt_toward;
+  std::string surface = "flat", surface_radius, slope;
   std::string feed_per_tooth, teeth, stepover, target_scallop, target_ra, target_rz;
   std::string nose_radius, feed_per_rev;
+  bool both_directions = false;
   CommonOptions common;
 };
 
@@ -49,8 +53,10 @@ double positive_length_mm(const std::string& text, LengthUnit unit, const char* 
   return mm;
 }
 
+// A target height: bare numbers in um (--units mm) or uin (--units in); Ra also takes N-grades.
 double positive_height_um(const std::string& text, LengthUnit unit, const char* flag) {
-  const double um = parse_length_mm(text, unit, flag) * kUmPerMm;
+  const double um = std::string_view(flag) == "--target-ra" ? parse_ra_target_um(text, unit, flag)
+                                                            : parse_height_um(text, unit, flag);
   if (!(um > 0.0))
     throw InputError(std::string(flag) + " " + format_number(um) + " um: must be > 0");
   return um;
@@ -168,6 +174,11 @@ Cutter read_cutter(const StepoverOptions& o, const Given& given, LengthUnit unit
       if (c.dish_deg >= 0.0) c.dish_deg = 0.0;  // a negative dish still fails validation
     }
   }
+  if (given("--tilt")) c.tilt_deg = parse_angle_deg(o.tilt, "--tilt");
+  if (given("--tilt-toward")) {
+    c.tilt_toward_deg = parse_angle_deg(o.tilt_toward, "--tilt-toward");
+    if (!given("--tilt")) note_ignored(given, {"--tilt-toward"}, "no --tilt given", rep);
+  }
   if (given("--teeth")) {
     const double z = parse_number(o.teeth, "--teeth");
     if (z != std::floor(z) || z < 1.0 || z > 1000.0) {
@@ -215,6 +226,11 @@ CuspSetup read_setup(const StepoverOptions& o, const Given& given, LengthUnit un
   } else {
     throw InputError("--surface '" + o.surface + "': allowed surfaces are flat, convex, concave");
   }
+  if (setup.cutter.tilt_deg != 0.0 && (setup.surface != SurfaceKind::Plane || given("--slope"))) {
+    throw InputError("--tilt " + format_number(setup.cutter.tilt_deg) +
+                     " deg: a tilted cutter's cusp is modelled on a level floor only (--surface "
+                     "flat, no --slope)");
+  }
   if (given("--slope")) {
     setup.slope_deg = parse_angle_deg(o.slope, "--slope");
     if (!(std::abs(setup.slope_deg) < 90.0)) {
@@ -257,6 +273,13 @@ void run_milling(const StepoverOptions& o, const Given& given, LengthUnit unit,
         rep.feed_mark_per_rev = feed_mark(radius, per_rev);
     }
   }
+  rep.both_directions = o.both_directions;
+  const double corner = setup.cutter.effective_corner_mm();
+  if (o.both_directions && rep.inverse && corner > 0.0) {
+    // The same target along the feed: the feed per tooth whose marks meet it.
+    const StepoverSolution along = inverse_feed_mark(corner, rep.target, rep.target_um);
+    if (along.reachable) rep.feed_per_tooth_max_mm = along.stepover_mm;
+  }
 }
 
 void run_stepover(const StepoverOptions& o, const CLI::App& app) {
@@ -295,7 +318,13 @@ void setup_stepover(CLI::App& sub) {
   sub.add_option("--diameter", opts->diameter, "End-mill diameter D")->type_name("LENGTH");
   sub.add_option("--corner-radius", opts->corner_radius, "Bull-nose corner radius, 0 < rc <= D/2")
       ->type_name("LENGTH");
-  sub.add_option("--dish", opts->dish, "End-face dish angle, >= 0 (no effect on the cusp)")
+  sub.add_option("--dish", opts->dish, "End-face dish angle, >= 0 (matters only when tilted)")
+      ->type_name("ANGLE");
+  // Tram error is the usual reason a flat or bull-nose end mill leaves cusps at all (issue 13).
+  sub.add_option("--tilt", opts->tilt, "Axis tilt (tram error), |tilt| <= 1 deg: level floor only")
+      ->type_name("ANGLE");
+  sub.add_option("--tilt-toward", opts->tilt_toward,
+                 "Direction of the end face's lowest point, deg from the feed, ccw (default 0)")
       ->type_name("ANGLE");
   sub.add_option("--surface", opts->surface, "flat | convex | concave (cylinders: ball only)")
       ->type_name("KIND")
@@ -306,9 +335,11 @@ void setup_stepover(CLI::App& sub) {
       ->type_name("ANGLE");
   sub.add_option("--stepover", opts->stepover, "Stepover: plan view on planes, along cylinders")
       ->type_name("LENGTH");
-  sub.add_option("--target-scallop", opts->target_scallop, "Target cusp height, e.g. 5um, 0.2thou")
+  sub.add_option("--target-scallop", opts->target_scallop,
+                 "Target cusp height, e.g. 5 (um; uin with --units in), 0.2thou")
       ->type_name("HEIGHT");
-  sub.add_option("--target-ra", opts->target_ra, "Target Ra of the ideal profile, e.g. 0.8um")
+  sub.add_option("--target-ra", opts->target_ra,
+                 "Target Ra of the ideal profile: 0.8 (um; 32 = uin with --units in), N6")
       ->type_name("HEIGHT");
   sub.add_option("--target-rz", opts->target_rz, "Target Rz of the ideal profile, e.g. 4um")
       ->type_name("HEIGHT");
@@ -316,6 +347,10 @@ void setup_stepover(CLI::App& sub) {
       ->type_name("LENGTH");
   sub.add_option("--teeth", opts->teeth, "Teeth: adds the once-per-revolution mark (runout)")
       ->type_name("N");
+  // Reason: a print's Ra may be checked across and along the lay, and an areal Sa sees both;
+  // the stepover alone then does not decide the finish (issue 13).
+  sub.add_flag("--both-directions", opts->both_directions,
+               "The target holds along the feed too: gives the largest --feed-per-tooth for it");
   sub.add_option("--nose-radius", opts->nose_radius, "Turning insert nose radius r")
       ->type_name("LENGTH");
   sub.add_option("--feed-per-rev", opts->feed_per_rev, "Turning feed per revolution f")

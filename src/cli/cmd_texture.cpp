@@ -53,7 +53,7 @@ void print_table(const HeightmapFile& file, const TextureReport& r, const std::s
               format_number(p.cutoff_mm).c_str(), p.cutoff_rule.c_str(),
               format_number(p.lambda_s_um).c_str(), format_number(p.evaluation_length_mm).c_str(),
               p.sampling_lengths, format_number(p.cutoff_mm).c_str());
-  height_row("Ra", q.a_um, "ISO 1302 " + p.iso1302_grade);
+  height_row("Ra", q.a_um, "ISO 1302:1992 " + p.iso1302_grade);
   height_row("Rq", q.q_um);
   height_row("Rz", q.z_um, "mean of " + std::to_string(p.sampling_lengths) + " sampling lengths");
   height_row("Rp", q.p_um);

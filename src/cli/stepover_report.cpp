@@ -7,9 +7,11 @@
 #include <charconv>
 #include <cmath>
 #include <sstream>
+#include <utility>
 
 #include "cusp/iso1302_grade.h"
 #include "cusp/scallop_curved.h"
+#include "finish/wide_ridges.h"
 
 namespace cuspmap {
 namespace {
@@ -48,6 +50,10 @@ std::string shape_words(const CuspSetup& s, LengthUnit unit) {
   t += length(c.diameter_mm, unit);
   if (c.shape == CutterShape::BullNose) t += " rc " + length(c.corner_radius_mm, unit);
   if (c.dish_deg > 0.0) t += " dish " + sig(c.dish_deg) + " deg";
+  if (c.tilt_deg != 0.0) {
+    t += " tilted " + sig(c.tilt_deg) + " deg toward " + sig(c.tilt_toward_deg) +
+         " deg from the feed";
+  }
   if (s.surface == SurfaceKind::Plane) {
     t += s.slope_deg == 0.0 ? ", level floor" : ", floor sloped " + sig(s.slope_deg) + " deg";
   } else {
@@ -62,8 +68,22 @@ std::string target_name(FinishTarget t) {
 }
 
 struct Messages {
-  std::vector<std::string> warnings, notes;
+  std::vector<std::string> warnings, notes, cautions;
 };
+
+// The mark along the feed (per tooth, or once per revolution when runout may make that one
+// deeper) that is larger than the cross-feed cusp, with its words; none when the cusp is larger.
+std::optional<std::pair<double, std::string>> larger_feed_mark(const StepoverReport& rep) {
+  if (!rep.feed_mark) return std::nullopt;
+  double um = rep.feed_mark->scallop_um;
+  std::string what = "per tooth";
+  if (rep.feed_mark_per_rev && rep.feed_mark_per_rev->scallop_um > um) {
+    um = rep.feed_mark_per_rev->scallop_um;
+    what = "once per revolution, as runout leaves it";
+  }
+  if (!(um > rep.cusp.scallop_um)) return std::nullopt;
+  return std::make_pair(um, what);
+}
 
 // Warning and note lines for the result (units of the human table; JSON uses mm).
 Messages collect(const StepoverReport& rep, LengthUnit unit) {
@@ -92,7 +112,12 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
                    length(2.0 * (big_r - rc), unit) + "), so no cross-feed cusp forms") +
         "; real marks come from the rim, dish, tilt and runout: see `cuspmap simulate`");
   }
-  if (c.dish_deg > 0.0) {
+  if (c.tilt_deg != 0.0) {
+    m.notes.push_back(
+        "tilt: first-order model p(r) - tan(tilt) v.n (valid to |tilt| <= 1 deg); the cusp lies "
+        "between the tilted lowest rings' projections across the feed (ellipses), one-way and "
+        "zigzag alike; marks along the feed need `cuspmap simulate`");
+  } else if (c.dish_deg > 0.0) {
     m.notes.push_back(
         "the dish does not change the cross-feed cusp of a straight pass (the "
         "lowest ring sweeps every chord); its rim marks need `cuspmap simulate`");
@@ -108,6 +133,32 @@ Messages collect(const StepoverReport& rep, LengthUnit unit) {
     m.notes.push_back(
         "the ball is treated as a full sphere: valid where the cusp lies on its "
         "lower half (near the crown, or with the axis along the surface normal)");
+  }
+  if (const auto along = larger_feed_mark(rep)) {
+    m.warnings.push_back(
+        "the feed mark along the feed (" + height(along->first, unit) + ", " + along->second +
+        ") is larger than the cross-feed cusp " + height(r.scallop_um, unit) + " this stepover " +
+        (rep.inverse ? "is designed for" : "leaves") +
+        ": an areal finish (Sa) or one checked in both directions is set by the larger mark" +
+        (rep.both_directions ? "" : "; add --both-directions to design for it"));
+  }
+  if (rep.feed_per_tooth_max_mm) {
+    const double fz_max = *rep.feed_per_tooth_max_mm;
+    const std::string limit = "feed per tooth <= " + length(fz_max, unit) + " meets the target " +
+                              target_name(rep.target) + " " + height(rep.target_um, unit) +
+                              " along the feed too";
+    if (rep.feed_per_tooth_mm && *rep.feed_per_tooth_mm > fz_max) {
+      m.warnings.push_back("--feed-per-tooth " + length(*rep.feed_per_tooth_mm, unit) +
+                           " misses the target along the feed, whatever the stepover: " + limit);
+    } else {
+      m.notes.push_back(limit + (rep.teeth_given ? " (with runout: per revolution, i.e. fz <= " +
+                                                       length(fz_max / c.teeth, unit) + ")"
+                                                 : ""));
+    }
+  }
+  if (r.scallop_um > 0.0 && ridges_hidden_by_ra(r.stepover_mm, r.scallop_um, r.stats.ra_um)) {
+    m.cautions.push_back(
+        wide_ridges_caution(height(r.scallop_um, unit), length(r.stepover_mm, unit)));
   }
   if (rep.feed_per_tooth_mm) {
     if (c.shape == CutterShape::Flat) {
@@ -160,7 +211,9 @@ nlohmann::json stepover_json(const StepoverReport& rep) {
     j["tool"] = {{"shape", shape},
                  {"diameter_mm", c.diameter_mm},
                  {"corner_radius_mm", c.effective_corner_mm()},
-                 {"dish_deg", c.dish_deg}};
+                 {"dish_deg", c.dish_deg},
+                 {"tilt_deg", c.tilt_deg},
+                 {"tilt_toward_deg", c.tilt_toward_deg}};
     if (rep.teeth_given) j["tool"]["teeth"] = c.teeth;
     const SurfaceKind k = rep.setup.surface;
     j["surface"] = {{"kind", k == SurfaceKind::Plane    ? "flat"
@@ -204,7 +257,10 @@ nlohmann::json stepover_json(const StepoverReport& rep) {
   j["within_model"] = r.limit == CuspLimit::None;
   j["warnings"] = m.warnings;
   j["notes"] = m.notes;
-  j["cautions"] = nlohmann::json::array({kCaution});
+  j["cautions"] = m.cautions;
+  j["cautions"].push_back(kCaution);
+  j["both_directions"] = rep.both_directions;
+  if (rep.feed_per_tooth_max_mm) j["feed_per_tooth_max_mm"] = *rep.feed_per_tooth_max_mm;
   return j;
 }
 
@@ -237,10 +293,13 @@ std::string stepover_table(const StepoverReport& rep) {
   row("Rq", height(r.stats.rq_um, u), height(r.stats_approx.rq_um, u));
   row("Rz", height(r.stats.rz_um, u), height(r.stats_approx.rz_um, u));
   const auto grade = r.stats.ra_um > 0.0 ? iso1302_grade(r.stats.ra_um) : std::nullopt;
-  row("ISO 1302 grade",
-      grade ? grade->label() + " (Ra up to " +
-                  (u == LengthUnit::Inch ? sig(grade->ra_um * kUinPerUm) + " uin, " : "") +
-                  sig(grade->ra_um) + " um)"
+  // The grade with both columns of the ISO 1302:1992 table (N6: Ra 0.8 um = 32 uin).
+  const auto grade_ra = [u](const RoughnessGrade& g) {
+    return u == LengthUnit::Inch ? sig(g.ra_uin) + " uin = " + sig(g.ra_um) + " um"
+                                 : sig(g.ra_um) + " um = " + sig(g.ra_uin) + " uin";
+  };
+  row("ISO 1302:1992 grade",
+      grade ? grade->label() + " (Ra up to " + grade_ra(*grade) + ")"
             : (r.stats.ra_um > 0.0 ? "coarser than N12" : "none (no ideal cusp)"),
       "");
   row("effective radius",
@@ -256,6 +315,7 @@ std::string stepover_table(const StepoverReport& rep) {
   const Messages m = collect(rep, u);
   for (const std::string& w : m.warnings) out << "warning: " << w << '\n';
   for (const std::string& n : m.notes) out << "note: " << n << '\n';
+  for (const std::string& c : m.cautions) out << "caution: " << c << '\n';
   out << "caution: " << kCaution << '\n';
   return out.str();
 }
@@ -306,8 +366,9 @@ std::string stepover_help_footer() {
   return "Conventions: heights are along the surface normal. --slope tilts a flat floor across\n"
          "the pass and takes the stepover in plan view. --surface convex|concave is a cylinder\n"
          "whose axis runs along the feed; its stepover is measured along the surface.\n"
-         "Lengths take the suffixes mm, um, in, thou, uin; bare numbers use --units. Heights\n"
-         "(--target-*) are lengths too: write 5um or 0.2thou (a bare 5 means 5 mm).\n"
+         "Lengths take the suffixes mm, um, in, thou, uin, and fractions (1/4, 1-1/4in); bare\n"
+         "numbers use --units. Bare heights (--target-*) are um, or uin with --units in (Ra 32\n"
+         "on an inch print is 32 uin); --target-ra also takes ISO 1302:1992 grades (N6 = 0.8 um).\n"
          "Ra, Rq, Rz are those of the ideal periodic profile (ISO 4287 over whole periods); the\n"
          "exact arc profile comes first, the parabolic small-stepover form beside it\n"
          "(Ra = 4h/(9 sqrt 3), Rq = 2h/(3 sqrt 5), Rz = h). --json prints one object in mm/um;\n"
@@ -315,7 +376,9 @@ std::string stepover_help_footer() {
          "corner), 0 (sharp corner on a slope) or null (a flat face finishes the floor).\n"
          "Examples:\n"
          "  cuspmap stepover --tool ball --diameter 6 --stepover 0.5\n"
-         "  cuspmap stepover --tool ball --diameter 0.25in --target-scallop 0.4thou --units in\n"
+         "  cuspmap stepover --tool ball --diameter 1/4 --target-ra 32 --units in\n"
+         "  cuspmap stepover --tool bullnose --diameter 10 --corner-radius 1 --tilt 0.02 "
+         "--stepover 6\n"
          "  cuspmap stepover --tool bullnose --diameter 10 --corner-radius 1 --slope 20 "
          "--target-ra 0.8um\n"
          "  cuspmap stepover --tool ball --diameter 6 --surface concave --surface-radius 20 \\\n"

@@ -30,6 +30,10 @@ struct StepoverReport {
   std::optional<double> feed_per_tooth_mm;  ///< --feed-per-tooth, mm
   std::optional<CuspResult> feed_mark;      ///< feed-per-tooth marks (ball, bull-nose corner)
   std::optional<CuspResult> feed_mark_per_rev;  ///< marks once per revolution (runout), fz * teeth
+  bool both_directions = false;                 ///< --both-directions: the target holds along the
+                                                ///< feed too
+  std::optional<double> feed_per_tooth_max_mm;  ///< largest fz whose feed mark meets the target
+                                                ///< (both directions, inverse, ball/bull-nose)
   std::vector<std::string> notes;               ///< notes gathered while reading flags
 };
 

@@ -1,5 +1,6 @@
 // Unit-suffix parsing for lengths (-> mm) and angles (-> deg), locale-independent.
 // Inputs: strings from flags and job files; outputs: finite doubles in core units.
+// Fractions as inch shops write them ("1/4", "1-1/4in") are read as their value.
 // Method: std::from_chars (no strtod/locale), exact inch factor 25.4 mm.
 #include "core/units.h"
 
@@ -32,6 +33,55 @@ double scaled(double value, double factor, std::string_view text, std::string_vi
   return out;
 }
 
+bool is_digit(char c) { return c >= '0' && c <= '9'; }
+
+// An unsigned decimal at p (no sign, no exponent sign games): the fraction parts "3" and "8".
+const char* unsigned_part(const char* p, const char* end, double& out, std::string_view text,
+                          std::string_view what) {
+  if (p == end || !is_digit(*p)) {
+    throw InputError(std::string(what) + " '" + std::string(text) +
+                     "': not a number (fractions are written 1/4 or 1-1/4)");
+  }
+  const auto [next, ec] = std::from_chars(p, end, out);
+  if (ec != std::errc() || !std::isfinite(out)) throw out_of_range(text, what);
+  return next;
+}
+
+// Fractional input as inch shops write it: "1/4" or the mixed "1-1/4" (whole number, hyphen,
+// fraction), after `value` was read up to `ptr`. Folds the fraction into `value` and returns
+// where the suffix starts; leaves both alone when no fraction follows.
+const char* read_fraction(double& value, const char* ptr, const char* end, std::string_view text,
+                          std::string_view what) {
+  double numerator = value, whole = 0.0;
+  bool mixed = false;
+  const char* p = ptr;
+  if (p + 1 < end && *p == '-' && is_digit(p[1])) {
+    // "1-1/4" only when a '/' follows the second number: "0.1-0.5" stays a bad suffix.
+    double second = 0.0;
+    const char* q = unsigned_part(p + 1, end, second, text, what);
+    if (q == end || *q != '/') return ptr;
+    if (value != std::floor(value)) {
+      throw InputError(std::string(what) + " '" + std::string(text) +
+                       "': the whole part of a mixed fraction must be a whole number");
+    }
+    whole = value;
+    numerator = second;
+    mixed = true;
+    p = q;
+  }
+  if (p == end || *p != '/') return ptr;
+  double denominator = 0.0;
+  const char* q = unsigned_part(p + 1, end, denominator, text, what);
+  if (!(denominator > 0.0)) {
+    throw InputError(std::string(what) + " '" + std::string(text) +
+                     "': a fraction needs a denominator > 0");
+  }
+  const double fraction = numerator / denominator;
+  // "-1-1/4" is -(1 + 1/4): the fraction takes the whole part's sign.
+  value = mixed ? whole + std::copysign(fraction, whole) : fraction;
+  return q;
+}
+
 // Splits "12.5mm" into the number 12.5 and the suffix "mm"; throws on a malformed number.
 std::pair<double, std::string_view> split_number(std::string_view text, std::string_view what) {
   const std::string_view s = trim(text);
@@ -49,7 +99,8 @@ std::pair<double, std::string_view> split_number(std::string_view text, std::str
   if (!std::isfinite(value)) {
     throw InputError(std::string(what) + " '" + std::string(text) + "': must be a finite number");
   }
-  return {value, trim(std::string_view(ptr, static_cast<size_t>(s.data() + s.size() - ptr)))};
+  const char* rest = read_fraction(value, ptr, s.data() + s.size(), text, what);
+  return {value, trim(std::string_view(rest, static_cast<size_t>(s.data() + s.size() - rest)))};
 }
 
 }  // namespace

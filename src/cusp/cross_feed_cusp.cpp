@@ -13,6 +13,7 @@
 #include "cusp/scallop_bullnose.h"
 #include "cusp/scallop_curved.h"
 #include "cusp/scallop_plane.h"
+#include "cusp/scallop_tilted.h"
 
 namespace cuspmap {
 namespace {
@@ -69,6 +70,11 @@ void approximate_on_plane(const Cutter& c, double slope_deg, CuspResult& r) {
 CuspResult cross_feed_cusp(const CuspSetup& setup, double stepover_mm) {
   assert(stepover_mm > 0.0 && "stepover must be positive");
   const Cutter& c = setup.cutter;
+  if (c.tilt_deg != 0.0) {
+    assert(setup.surface == SurfaceKind::Plane && setup.slope_deg == 0.0 &&
+           "a tilted cutter's cusp is modelled on a level floor");
+    return scallop_tilted(c, stepover_mm);
+  }
   if (setup.surface == SurfaceKind::Plane) {
     CuspResult r = exact_on_plane(c, stepover_mm, setup.slope_deg);
     approximate_on_plane(c, setup.slope_deg, r);

@@ -10,6 +10,7 @@
 #include <cmath>
 #include <limits>
 #include <numbers>
+#include <utility>
 
 #include "core/units.h"
 
@@ -158,6 +159,16 @@ ProfileStats arc_cusp_stats(double radius_mm, double half_chord_mm, double flat_
   pieces.push_back(
       {half_flat, half_flat + half_chord_mm, 0.0, arc(half_flat + half_chord_mm), arc});
   return periodic_profile_stats(pieces, 1.0, 0.0);
+}
+
+CuspArcPiece graph_piece(double u0_mm, double u1_mm, std::function<double(double)> height_mm) {
+  CuspArcPiece p;
+  p.u0_mm = u0_mm;
+  p.u1_mm = u1_mm;
+  p.n0_mm = height_mm(u0_mm);
+  p.n1_mm = height_mm(u1_mm);
+  p.height_mm = std::move(height_mm);
+  return p;
 }
 
 ProfileStats periodic_profile_stats(const std::vector<CuspArcPiece>& pieces, double kx, double kn) {

@@ -44,6 +44,9 @@ struct CuspArcPiece {
   std::function<double(double)> height_mm;  ///< n(u) for u in [u0, u1]; empty for a wall
 };
 
+/// A graph piece n(u) over [u0, u1] with its end heights n(u0), n(u1) filled in.
+CuspArcPiece graph_piece(double u0_mm, double u1_mm, std::function<double(double)> height_mm);
+
 /// Ra, Rq, Rz over one period of a profile given as pieces in order, whose position along the
 /// nominal surface is x = kx * u + kn * n (kx = 1, kn = 0 when u already is that position; a
 /// plane of slope a measured through plan-view u has kx = 1/cos a, kn = tan a).

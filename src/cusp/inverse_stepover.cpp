@@ -88,8 +88,12 @@ StepoverSolution inverse_stepover(const CuspSetup& setup, FinishTarget target, d
   const Cutter& c = setup.cutter;
   const double big_r = c.radius_mm();
   double s_lo = 0.0, s_hi = 2.0 * big_r;
+  // A tilted face leaves a cusp at any stepover (scallop_tilted.h) and has no closed inverse.
+  const bool tilted = c.tilt_deg != 0.0;
   if (setup.surface == SurfaceKind::Plane) {
-    if (setup.slope_deg == 0.0 && c.shape != CutterShape::Ball) s_lo = 2.0 * c.flat_radius_mm();
+    if (setup.slope_deg == 0.0 && c.shape != CutterShape::Ball && !tilted) {
+      s_lo = 2.0 * c.flat_radius_mm();
+    }
   } else {
     const bool convex = setup.surface == SurfaceKind::Convex;
     if (!convex && setup.surface_radius_mm <= big_r) return sol;  // the ball cannot follow it
@@ -103,7 +107,9 @@ StepoverSolution inverse_stepover(const CuspSetup& setup, FinishTarget target, d
   if (!(target_um < sol.max_target_um)) return sol;
   sol.reachable = true;
   double s = -1.0;
-  if (target != FinishTarget::Ra) s = closed_form_for_height(setup, target_um / kUmPerMm);
+  if (target != FinishTarget::Ra && !tilted) {
+    s = closed_form_for_height(setup, target_um / kUmPerMm);
+  }
   if (!(s > 0.0)) s = solve_increasing(exact, s_lo, s_top, target_um);
   sol.stepover_mm = s;
   sol.cusp = cross_feed_cusp(setup, s);

@@ -76,17 +76,6 @@ class SlopedSection {
   double contact_y_, contact_z_;
 };
 
-// Graph piece of the profile on [u0, u1] given by a residual function (vertical mm).
-CuspArcPiece graph_piece(double u0, double u1, std::function<double(double)> normal_height) {
-  CuspArcPiece p;
-  p.u0_mm = u0;
-  p.u1_mm = u1;
-  p.n0_mm = normal_height(u0);
-  p.n1_mm = normal_height(u1);
-  p.height_mm = std::move(normal_height);
-  return p;
-}
-
 CuspArcPiece wall_piece(double u, double n0, double n1) { return {u, u, n0, n1, {}}; }
 
 }  // namespace

@@ -17,7 +17,7 @@
 namespace cuspmap {
 
 SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
-                                      RasterDirection direction) {
+                                      RasterDirection direction, const WindowSweep& sweep) {
   assert(stepover_mm > 0.0 && stepover_mm <= cutter.diameter_mm && "validated by the caller");
   // Cells per period: odd, at least kCellsPerPeriod, and kCellsPerArc across the arcs that lie
   // beyond a level band (bull-nose).
@@ -28,6 +28,14 @@ SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
     const double wanted = kCellsPerArc * 0.5 * stepover_mm / arc_mm;
     cells =
         std::max(cells, static_cast<int>(std::min<double>(kMaxCellsPerPeriod, std::ceil(wanted))));
+  }
+  // Tooth marks: cells no wider than a fraction of the feed per tooth, so the marks along the
+  // passes are resolved as finely as the cusps across them.
+  const double feed_per_rev_mm = sweep.cut.feed_mm_per_min / sweep.cut.rpm;
+  if (sweep.tooth_marks) {
+    const double tooth_cell_mm = feed_per_rev_mm / (cutter.teeth * kCellsPerToothMark);
+    cells = std::max(cells, static_cast<int>(std::min<double>(
+                                kMaxCellsPerPeriod, std::ceil(stepover_mm / tooth_cell_mm))));
   }
   if (cells % 2 == 0) ++cells;
   // The window sits between two guard bands of whole periods at least R + s wide, so every
@@ -41,14 +49,22 @@ SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
   patch.cell_mm = cell_mm;
   // Half a cell short of whole cells, so ceil(size / cell) gives exactly that many cells.
   patch.size_y_mm = (rows + 2 * guard_rows - 0.5) * cell_mm;
-  patch.size_x_mm = (kWindowCellsAlong - 0.5) * cell_mm;
+  int cells_along = kWindowCellsAlong;
+  if (sweep.tooth_marks) {
+    cells_along = std::max(
+        cells_along, static_cast<int>(std::ceil(kWindowRevolutions * feed_per_rev_mm / cell_mm)));
+  }
+  patch.size_x_mm = (cells_along - 0.5) * cell_mm;
   PathSpec spec;
   spec.kind = PathKind::Raster;
   spec.stepover_mm = stepover_mm;
   spec.direction = direction;
-  CutSpec cut;
+  CutSpec cut = sweep.cut;
+  cut.depth_mm = 0.0;  // heights above the tip plane; the plane is removed anyway
   SimSpec sim;
-  sim.threads = 1;  // a small window: threads would cost more than they save
+  sim.tooth_marks = sweep.tooth_marks;
+  sim.threads = sweep.tooth_marks ? 0 : 1;  // a small envelope window: threads cost more than
+                                            // they save; tooth by tooth the window is larger
   const Toolpath path = raster_path(spec, cut, patch, cutter);
   const Heightfield floor = simulate_floor(cutter, path, cut, patch, sim);
   assert(floor.ny == rows + 2 * guard_rows && "grid rows follow the half-cell-short size");

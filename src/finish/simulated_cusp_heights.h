@@ -25,14 +25,28 @@ inline constexpr int kCellsPerArc = 20;
 inline constexpr int kMaxCellsPerPeriod = 2001;
 /// Cells along the passes: the envelope of straight passes does not vary along them.
 inline constexpr int kWindowCellsAlong = 12;
+/// Tooth-resolved windows: revolutions of feed along the passes (whole periods of the marks a
+/// runout or tilt repeats once per revolution), and cells per feed per tooth (the marks' spacing).
+inline constexpr int kWindowRevolutions = 4;
+inline constexpr int kCellsPerToothMark = 8;
+
+/// How the window is swept: the revolving envelope, or tooth by tooth as a job asks
+/// ([sim] tooth_marks) at its spindle speed and feed, so `plan` and `simulate` agree.
+struct WindowSweep {
+  bool tooth_marks = false;  ///< tooth-resolved sweep (true) or revolving envelope (false)
+  CutSpec cut;               ///< rpm, feed, spindle direction (tooth-resolved sweep only)
+};
 
 /// Simulates the window and returns its height parameters; Ra is taken as Sa of the window
 /// (equal for a texture extruded along the feed, as the revolving envelope of straight passes
-/// is).
+/// is; with tooth marks the areal Sa of the window).
 /// @param[in] cutter       validated cutter (tilt, dish, runout all simulated)
 /// @param[in] stepover_mm  > 0, <= D
 /// @param[in] direction    one-way or zigzag (matters for a tilted cutter)
+/// @param[in] sweep        envelope (default) or tooth-resolved at the job's rpm and feed: the
+///                         window then spans kWindowRevolutions of feed along the passes with
+///                         cells no wider than the feed per tooth / kCellsPerToothMark
 SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
-                                      RasterDirection direction);
+                                      RasterDirection direction, const WindowSweep& sweep = {});
 
 }  // namespace cuspmap

@@ -158,7 +158,7 @@ TEST_CASE("stepover: human table in mm and in inches", "[cli]") {
   const auto mm = run_cuspmap({"stepover", "--diameter", "6", "--stepover", "0.5"});
   REQUIRE(mm.exit_code == 0);
   REQUIRE(mm.out.find("scallop height      10.43 um") != std::string::npos);
-  REQUIRE(mm.out.find("ISO 1302 grade      N8 (Ra up to 3.2 um)") != std::string::npos);
+  REQUIRE(mm.out.find("ISO 1302:1992 grade N8 (Ra up to 3.2 um = 125 uin)") != std::string::npos);
   REQUIRE(mm.out.find("caution: ") != std::string::npos);
   const auto in =
       run_cuspmap({"stepover", "--units", "in", "--diameter", "0.25", "--stepover", "0.02"});

@@ -17,11 +17,17 @@ TEST_CASE("iso1302_grade: the N1-N12 table", "[cusp]") {
 
 TEST_CASE("iso1302_grade: smallest grade at or above the Ra", "[cusp]") {
   REQUIRE(cuspmap::iso1302_grade(0.0)->label() == "N1");
-  REQUIRE(cuspmap::iso1302_grade(0.81)->label() == "N7");
+  // ISO 1302:1992 prints 32 uin beside N6: 32 uin = 0.8128 um is N6 (issue_13: was N7).
+  REQUIRE(cuspmap::iso1302_grade(0.81)->label() == "N6");
+  REQUIRE(cuspmap::iso1302_grade(32.0 / 39.37007874015748)->label() == "N6");
+  REQUIRE(cuspmap::iso1302_grade(32.0 / 39.37007874015748)->ra_uin == 32.0);
+  REQUIRE(cuspmap::iso1302_grade(0.82)->label() == "N7");
   REQUIRE(cuspmap::iso1302_grade(0.8000000001)->label() == "N6");  // rounding, not a real excess
   REQUIRE(cuspmap::iso1302_grade(2.677)->label() == "N8");
   REQUIRE(cuspmap::iso1302_grade(3.3)->label() == "N9");
-  REQUIRE(cuspmap::iso1302_grade(12.6)->label() == "N11");
-  REQUIRE_FALSE(cuspmap::iso1302_grade(50.1).has_value());
+  REQUIRE(cuspmap::iso1302_grade(12.6)->label() == "N10");  // 500 uin = 12.7 um
+  REQUIRE(cuspmap::iso1302_grade(12.8)->label() == "N11");
+  REQUIRE(cuspmap::iso1302_grade(50.1)->label() == "N12");  // 2000 uin = 50.8 um
+  REQUIRE_FALSE(cuspmap::iso1302_grade(50.9).has_value());
   REQUIRE_FALSE(cuspmap::iso1302_grade(-1.0).has_value());
 }

@@ -91,6 +91,17 @@ direction = "zigzag"
   CHECK(job.path.direction == RasterDirection::Zigzag);
 }
 
+TEST_CASE("parse_job: issue_13 fractional inch strings", "[job]") {
+  // Strings take the flags' length rules, fractions included; 1 in = 25.4 mm exactly.
+  std::string text = kRasterJob;
+  const std::string key = "diameter = ";
+  const auto at = text.find(key);
+  REQUIRE(at != std::string::npos);
+  text.replace(at, text.find('\n', at) - at, "diameter = \"1/4in\"");
+  const Job job = parse_job(text, "j.toml", ".");
+  REQUIRE_NEAR(job.cutter.diameter_mm, 6.35, 1e-12);
+}
+
 TEST_CASE("parse_job: a key that does not apply to the shape is listed as ignored", "[job]") {
   std::string text = kRasterJob;
   text.replace(text.find("diameter = 6"), 12, "diameter = 6\ndish_deg = 1");

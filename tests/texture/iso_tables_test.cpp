@@ -2,6 +2,7 @@
 // its source in tests/data/*.toml.
 #include <toml++/toml.h>
 
+#include "core/iso1302_table.h"
 #include "test_support.h"
 #include "texture/iso1302_grade.h"
 #include "texture/iso4288_cutoff.h"
@@ -68,6 +69,9 @@ TEST_CASE("iso1302_grade: grade numbers and measured values", "[texture]") {
     const int n = static_cast<int>(row["n"].value<int64_t>().value());
     CAPTURE(n, row["source"].value<std::string>().value());
     REQUIRE_NEAR(iso1302_grade_ra_um(n), num(row, "ra_um"), 1e-12);
+    const auto parsed = iso1302_row(std::string("N").append(std::to_string(n)));
+    REQUIRE(parsed.has_value());
+    REQUIRE(parsed->ra_uin == num(row, "ra_uin"));
     const std::string expected = std::string("N").append(std::to_string(n));
     REQUIRE(iso1302_grade(num(row, "ra_um")) == expected);
   }
