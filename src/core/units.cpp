@@ -137,14 +137,6 @@ double parse_length_mm(std::string_view text, LengthUnit bare_unit, std::string_
                    "': unknown unit; allowed suffixes are mm, um, in, thou, uin");
 }
 
-double parse_roughness_um(std::string_view text, LengthUnit bare_unit, std::string_view what) {
-  const auto [value, suffix] = split_number(text, what);
-  if (suffix.empty()) {
-    return bare_unit == LengthUnit::Inch ? scaled(value, 1.0 / kUinPerUm, text, what) : value;
-  }
-  return parse_length_mm(text, bare_unit, what) * kUmPerMm;
-}
-
 double parse_positive_length_mm(std::string_view text, LengthUnit bare_unit,
                                 std::string_view what) {
   const double mm = parse_length_mm(text, bare_unit, what);

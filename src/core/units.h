@@ -44,12 +44,6 @@ double parse_length_mm(std::string_view text, LengthUnit bare_unit, std::string_
 /// @throws InputError "<what> <text>: must be > 0" otherwise.
 double parse_positive_length_mm(std::string_view text, LengthUnit bare_unit, std::string_view what);
 
-/// Parses a roughness value (Ra, Rz, a cusp) into micrometres: "0.8um", "32uin", "0.0008mm";
-/// a bare number is um with LengthUnit::Millimetre and uin (micro-inches, the trade's unit for
-/// roughness callouts: 32, 63, 125) with LengthUnit::Inch.
-/// @throws InputError as parse_length_mm.
-double parse_roughness_um(std::string_view text, LengthUnit bare_unit, std::string_view what);
-
 /// Parses an angle "1.5", "1.5deg" or "1.5°" into degrees (bare numbers are degrees).
 /// @throws InputError on malformed numbers, NaN/inf or a suffix other than deg.
 double parse_angle_deg(std::string_view text, std::string_view what);

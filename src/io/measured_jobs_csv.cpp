@@ -10,6 +10,7 @@
 #include <map>
 #include <sstream>
 
+#include "core/height_units.h"
 #include "core/input_error.h"
 #include "job/validate_cutter.h"
 
@@ -125,7 +126,7 @@ std::vector<MeasuredJob> parse_measured_jobs(std::string_view text, const std::s
     row.name = get("name").empty() ? "row " + std::to_string(line_no) : get("name");
     const std::string ra = get("measured_ra");
     if (ra.empty()) throw InputError(at + ": measured_ra is empty");
-    row.measured_ra_um = parse_roughness_um(ra, unit, at + ": measured_ra");
+    row.measured_ra_um = parse_height_um(ra, unit, at + ": measured_ra");
     if (!(row.measured_ra_um > 0.0)) {
       throw InputError(at + ": measured_ra " + ra + ": must be > 0");
     }
