@@ -3,6 +3,7 @@
 // option that meets the spec; table or --json on stdout, plan.json/plan.csv/plan.svg with --out.
 #include <algorithm>
 #include <cstdio>
+#include <limits>
 #include <memory>
 
 #include "cli/command.h"
@@ -10,6 +11,7 @@
 #include "cli/output_dir.h"
 #include "core/input_error.h"
 #include "core/stage_timer.h"
+#include "cusp/kinematic_limits.h"
 #include "finish/finishing_cautions.h"
 #include "finish/plan_stepover.h"
 #include "finish/simulated_cusp_heights.h"
@@ -231,7 +233,8 @@ nlohmann::json option_json(const PlanOption& p) {
       {"meets_spec", p.meets_spec},
       {"reason", p.reason},
   };
-  j["grits"] = p.allowance ? grits_json(p.allowance->grits) : nlohmann::json::array();
+  j["grits"] = p.sanded ? grits_json(p.allowance->grits) : nlohmann::json::array();
+  j["caution"] = fine_ra_caution(p.surface.ra_um);
   return j;
 }
 
@@ -320,6 +323,7 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
     const PlanOption& p = plan.options[k];
     const bool best = plan.best && *plan.best == k;
     std::string sanding = "-";
+    if (!p.sanded && p.allowance && !p.allowance->grits.needed) sanding = "not needed";
     if (p.sanded) {
       const auto& steps = p.allowance->grits.steps;
       sanding = steps.front().grit + (steps.size() > 1 ? "-" + steps.back().grit : "");
@@ -338,6 +342,13 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u) {
     }
   }
   for (const std::string& m : misses) std::printf("  misses: %s\n", m.c_str());
+  double finest_ra_um = std::numeric_limits<double>::infinity();
+  for (const PlanOption& p : plan.options) finest_ra_um = std::min(finest_ra_um, p.surface.ra_um);
+  if (!fine_ra_caution(finest_ra_um).empty()) {
+    std::printf("  caution: options with a machined Ra below %s predict a finish finer than "
+                "milling usually measures: expect the real surface to be rougher\n",
+                height_text(kFineRaCautionUm, u).c_str());
+  }
   std::printf("\n%s\n", best_message(plan, u).c_str());
   std::printf("Costs are in the currency of the rates. Surfaces: %s.\n",
               r.simulate ? kSimulatedBasis : kClosedFormBasis);

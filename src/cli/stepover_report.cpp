@@ -8,6 +8,7 @@
 #include <cmath>
 #include <sstream>
 
+#include "cusp/kinematic_limits.h"
 #include "cusp/iso1302_grade.h"
 #include "cusp/scallop_curved.h"
 
@@ -205,6 +206,10 @@ nlohmann::json stepover_json(const StepoverReport& rep) {
   j["warnings"] = m.warnings;
   j["notes"] = m.notes;
   j["cautions"] = nlohmann::json::array({kCaution});
+  if (const std::string fine = fine_ra_caution(r.stats.ra_um); !fine.empty()) {
+    j["cautions"].push_back(fine);
+  }
+  j["model"] = kKinematicBestCase;
   return j;
 }
 
@@ -257,6 +262,10 @@ std::string stepover_table(const StepoverReport& rep) {
   for (const std::string& w : m.warnings) out << "warning: " << w << '\n';
   for (const std::string& n : m.notes) out << "note: " << n << '\n';
   out << "caution: " << kCaution << '\n';
+  if (const std::string fine = fine_ra_caution(r.stats.ra_um); !fine.empty()) {
+    out << "caution: " << fine << '\n';
+  }
+  out << "model: " << kKinematicBestCase << '\n';
   return out.str();
 }
 
