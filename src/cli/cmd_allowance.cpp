@@ -12,6 +12,7 @@
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "finish/cusp_profile_heights.h"
+#include "cusp/kinematic_limits.h"
 #include "finish/finishing_cautions.h"
 #include "finish/sanding_allowance.h"
 #include "io/read_heightmap.h"
@@ -37,6 +38,7 @@ struct AllowanceOptions {
   std::string stepover;   // analytic case
   std::string area;       // --area
   std::string tolerance;  // --tolerance (+-, length)
+  std::string target_ra;  // --target-ra (height): no sanding when the marks already meet it
 };
 
 // The marks to sand and where they came from.
@@ -119,7 +121,9 @@ Marks marks_from_heightmap(const AllowanceOptions& o, LengthUnit units) {
     read.z_units = o.z_units;
   }
   const HeightmapFile file = read_heightmap(o.input, read);
-  const TextureReport r = texture_report(file.field, texture_options(o.texture, units));
+  std::string side_note;
+  const TextureOptions topt = texture_options_for_file(o.texture, units, o.input, side_note);
+  const TextureReport r = texture_report(file.field, topt);
   Marks m;
   m.heights = heights_of(r);
   m.patch_area_mm2 = r.size_x_mm * r.size_y_mm;
@@ -168,6 +172,13 @@ std::string verdict_text(const Allowance& a) {
          "; program the stock and check the dimension after sanding";
 }
 
+// The sanding cautions, with the fine-Ra caution first when the predicted Ra draws it.
+std::vector<std::string> allowance_cautions(double ra_um) {
+  std::vector<std::string> c = sanding_cautions();
+  if (const std::string fine = fine_ra_caution(ra_um); !fine.empty()) c.insert(c.begin(), fine);
+  return c;
+}
+
 void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
                  const std::string& area_note, LengthUnit u) {
   std::printf("Sanding allowance: %s\n\n", m.description.c_str());
@@ -190,21 +201,39 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
   std::printf("  whole grit sequence                     %s mm^3  %s in^3\n",
               fixed(a.sequence_volume_mm3, 2).c_str(), fixed(a.sequence_volume_in3, 5).c_str());
   std::printf("\nGrit sequence (%s)\n", g.table.source.c_str());
-  std::printf("  %-6s %12s %12s %10s\n", "grit", "scratches", "remove", "time");
-  for (const GritStep& s : a.grits.steps) {
-    std::printf("  %-6s %12s %12s %10s\n", s.grit.c_str(), height_text(s.scratch_um, u).c_str(),
-                height_text(s.remove_um, u).c_str(), duration_text(s.time_s).c_str());
+  if (!a.grits.needed) {
+    std::printf("  %s: stock 0, program the floor on nominal\n", a.grits.verdict.c_str());
+    if (!a.grits.finer_grit.empty()) {
+      std::printf("  for a finer finish than machined, finish with %s or finer (the grades given "
+                  "leave it rougher)\n",
+                  a.grits.finer_grit.c_str());
+    }
+  } else {
+    std::printf("  %-6s %12s %12s %10s %12s\n", "grit", "scratches", "remove", "time", "Ra after");
+    for (const GritStep& s : a.grits.steps) {
+      std::printf("  %-6s %12s %12s %10s %12s\n", s.grit.c_str(),
+                  height_text(s.scratch_um, u).c_str(), height_text(s.remove_um, u).c_str(),
+                  duration_text(s.time_s).c_str(), height_text(s.ra_after_um, u).c_str());
+    }
+    std::printf("  %-6s %12s %12s %10s\n", "total", "",
+                height_text(a.grits.total_remove_um, u).c_str(),
+                duration_text(a.grits.total_time_s).c_str());
+    for (const std::string& name : a.grits.skipped) {
+      std::printf("  skipped %s: its scratches are deeper than the marks\n", name.c_str());
+    }
   }
-  std::printf("  %-6s %12s %12s %10s\n", "total", "",
-              height_text(a.grits.total_remove_um, u).c_str(),
-              duration_text(a.grits.total_time_s).c_str());
-  for (const std::string& name : a.grits.skipped) {
-    std::printf("  skipped %s: its scratches are deeper than the marks\n", name.c_str());
+  if (a.grits.needed) {
+    std::printf("Predicted Ra: machined %s, after %s %s (estimate: the Ra the last grade leaves on "
+                "its own, from the grade table)\n",
+                height_text(m.heights.ra_um, u).c_str(), a.grits.steps.back().grit.c_str(),
+                height_text(a.grits.final_ra_um, u).c_str());
+  } else {
+    std::printf("Predicted Ra: %s as machined, unsanded\n", height_text(m.heights.ra_um, u).c_str());
   }
-  std::printf(
-      "Leftover Ra after %s: about %s (estimate: the Ra that grade leaves on its own, "
-      "from the grade table)\n",
-      a.grits.steps.back().grit.c_str(), height_text(a.grits.final_ra_um, u).c_str());
+  if (const std::string c = fine_ra_caution(m.heights.ra_um); !c.empty()) {
+    std::printf("  caution: %s\n", c.c_str());
+  }
+  std::printf("%s\n", kKinematicBestCase);
   if (a.tolerance_um) std::printf("\nTolerance check: %s\n", verdict_text(a).c_str());
   print_cautions(sanding_cautions());
 }
@@ -246,8 +275,15 @@ void run_allowance(const AllowanceOptions& o) {
     tolerance_um = t_mm * kUmPerMm;
   }
   print_stage(o.common.verbose, "marks", timer.lap());
-  const Allowance a =
-      sanding_allowance(marks.heights, grits.table, grits.sequence, area_mm2, tolerance_um);
+  std::optional<double> target_ra_um;
+  if (!o.target_ra.empty()) {
+    target_ra_um = parse_length_mm(o.target_ra, units, "--target-ra") * kUmPerMm;
+    if (!(*target_ra_um > 0.0)) {
+      throw InputError("--target-ra " + o.target_ra + ": must be > 0 (e.g. 0.8um)");
+    }
+  }
+  const Allowance a = sanding_allowance(marks.heights, grits.table, grits.sequence, area_mm2,
+                                        tolerance_um, target_ra_um);
   print_stage(o.common.verbose, "allowance", timer.lap());
   if (!o.common.json) {
     print_human(a, marks, grits, area_note, units);
@@ -279,14 +315,21 @@ void run_allowance(const AllowanceOptions& o) {
       {"skipped_grits", a.grits.skipped},
       {"sanding_time_s", a.grits.total_time_s},
       {"final_ra_um", a.grits.final_ra_um},
+      {"sanding_needed", a.grits.needed},
+      {"verdict", a.grits.verdict},
+      {"finer_grit", a.grits.finer_grit},
+      {"target_ra_um", target_ra_um ? nlohmann::json(*target_ra_um) : nlohmann::json()},
+      {"model", kKinematicBestCase},
       {"final_scratch_um", a.grits.final_scratch_um},
       {"basis",
        {{"grit_table", grits.table.source},
-        {"final_ra", "Ra the last grade leaves on its own, from the grade table"},
+        {"final_ra",
+         "Ra the last grade leaves on its own, from the grade table; the machined Ra when no "
+         "sanding is needed (never above it)"},
         {"model",
          "marks vanish at the deepest valley; each grade erases the scratches "
          "of the one before (docs/finishing.md)"}}},
-      {"cautions", sanding_cautions()},
+      {"cautions", allowance_cautions(marks.heights.ra_um)},
   };
   doc["tolerance"] = nullptr;
   if (a.tolerance_um) {
@@ -314,6 +357,9 @@ void setup_allowance(CLI::App& sub) {
                  "Area to sand: 9600 (mm^2, in^2 with --units in), 96cm2 or 120x80; default the "
                  "simulated patch, else 100 cm^2");
   sub.add_option("--tolerance", o->tolerance, "+- dimensional tolerance to check (length)");
+  // Reason for the flag: a floor that already meets its Ra callout needs no sanding and no stock.
+  sub.add_option("--target-ra", o->target_ra,
+                 "Finished Ra wanted, e.g. 0.8um: no sanding when the marks already meet it");
   add_grit_flags(sub, o->grits);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);

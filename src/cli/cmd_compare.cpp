@@ -80,13 +80,13 @@ void run_compare(const CompareOptions& o) {
   ropt.texture = texture_options(o.texture, units);
   const std::optional<HeightRange> range = parse_height_range(o.sim.range, units);
   OutputDir dir(o.out);
-  const std::vector<CompareRow> rows = run_comparison(jobs, ropt, range, units, o.common.verbose);
-  const nlohmann::json doc = write_comparison(dir, rows, units, o.report_html);
+  const Comparison comparison = run_comparison(jobs, ropt, range, units, o.common.verbose);
+  const nlohmann::json doc = write_comparison(dir, comparison, units, o.report_html);
   if (o.common.json) {
     print_json(doc);
     return;
   }
-  std::fputs(compare_table_text(rows, units).c_str(), stdout);
+  std::fputs(compare_table_text(comparison.rows, comparison.basis, units).c_str(), stdout);
   std::printf("wrote %zu files to %s/\n", dir.written().size(), dir.path().c_str());
   std::printf("Before cutting: prove the chosen program on the machine as its maker instructs "
               "(guards, workholding, rotating tools); follow local codes and licensed practice.\n");

@@ -34,7 +34,9 @@ void run_demo(const DemoOptions& o) {
   }
   RunOptions ropt;
   ropt.threads = o.threads;
-  const std::vector<CompareRow> rows = run_comparison(jobs, ropt, std::nullopt, units, o.common.verbose);
+  const Comparison comparison =
+      run_comparison(jobs, ropt, std::nullopt, units, o.common.verbose);
+  const std::vector<CompareRow>& rows = comparison.rows;
   std::vector<StrategyScore> scores;
   for (const CompareRow& r : rows) {
     scores.push_back({r.job.name, r.run.texture.profile.roughness.a_um,
@@ -43,7 +45,7 @@ void run_demo(const DemoOptions& o) {
   const StrategyChoice choice = choose_strategy(scores, kDemoTargetRaUm);
   const std::string summary = "Target Ra " + format_number(kDemoTargetRaUm) +
                               " um (invented print callout). Choice: " + choice.reason;
-  nlohmann::json doc = write_comparison(dir, rows, units, dir.path_of("report.html"), {summary});
+  nlohmann::json doc = write_comparison(dir, comparison, units, dir.path_of("report.html"), {summary});
   doc["target_ra_um"] = kDemoTargetRaUm;
   doc["choice"] = choice.best ? nlohmann::json(*choice.best) : nlohmann::json(nullptr);
   doc["meets_target"] = choice.meets;
@@ -56,7 +58,7 @@ void run_demo(const DemoOptions& o) {
     return;
   }
   std::printf("cuspmap demo: the floor of an aluminium pump cover (invented), finished four ways\n\n");
-  std::fputs(compare_table_text(rows, units).c_str(), stdout);
+  std::fputs(compare_table_text(rows, comparison.basis, units).c_str(), stdout);
   std::printf("\n%s\n", summary.c_str());
   for (size_t k = 0; k < rows.size(); ++k) {
     std::printf("  %zu. %-44s %s\n", k + 1, rows[k].job.name.c_str(),

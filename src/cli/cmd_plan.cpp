@@ -3,6 +3,7 @@
 // option that meets the spec; table or --json on stdout, plan.json/plan.csv/plan.svg with --out.
 #include <algorithm>
 #include <cstdio>
+#include <limits>
 #include <memory>
 #include <optional>
 #include <string>
@@ -15,6 +16,7 @@
 #include "core/height_units.h"
 #include "core/input_error.h"
 #include "core/stage_timer.h"
+#include "cusp/kinematic_limits.h"
 #include "finish/finishing_cautions.h"
 #include "finish/plan_range_edge.h"
 #include "finish/plan_stepover.h"
@@ -310,7 +312,8 @@ nlohmann::json option_json(const PlanOption& p) {
       {"meets_spec", p.meets_spec},
       {"reason", p.reason},
   };
-  j["grits"] = p.allowance ? grits_json(p.allowance->grits) : nlohmann::json::array();
+  j["grits"] = p.sanded ? grits_json(p.allowance->grits) : nlohmann::json::array();
+  j["caution"] = fine_ra_caution(p.surface.ra_um);
   return j;
 }
 
@@ -448,6 +451,7 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, con
     const PlanOption& p = plan.options[k];
     const bool best = plan.best && *plan.best == k;
     std::string sanding = "-";
+    if (!p.sanded && p.allowance && !p.allowance->grits.needed) sanding = "not needed";
     if (p.sanded) {
       const auto& steps = p.allowance->grits.steps;
       sanding = steps.front().grit + (steps.size() > 1 ? "-" + steps.back().grit : "");
@@ -466,6 +470,13 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, con
     }
   }
   for (const std::string& m : misses) std::printf("  misses: %s\n", m.c_str());
+  double finest_ra_um = std::numeric_limits<double>::infinity();
+  for (const PlanOption& p : plan.options) finest_ra_um = std::min(finest_ra_um, p.surface.ra_um);
+  if (!fine_ra_caution(finest_ra_um).empty()) {
+    std::printf("  caution: options with a machined Ra below %s predict a finish finer than "
+                "milling usually measures: expect the real surface to be rougher\n",
+                height_text(kFineRaCautionUm, u).c_str());
+  }
   std::printf("\n%s\n", best_message(plan, u).c_str());
   const PlanRemarks remarks = plan_remarks(plan, u);
   for (const std::string& n : remarks.notes) std::printf("note: %s\n", n.c_str());

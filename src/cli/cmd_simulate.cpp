@@ -16,6 +16,7 @@
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "core/write_file_atomic.h"
+#include "cusp/kinematic_limits.h"
 #include "report/html_report.h"
 #include "io/npy.h"
 #include "io/npy_band_writer.h"
@@ -99,6 +100,9 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
               height_text(rough.a_um, units).c_str(),
               run.texture.profile.iso1302_grade.c_str(), height_text(rough.z_um, units).c_str(),
               format_number(run.texture.profile.cutoff_mm).c_str());
+  if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) {
+    std::printf("  caution: %s\n", fine.c_str());
+  }
   std::printf("  Sa %s  Sz %s  highest point above nominal %s\n",
               height_text(areal.sa_um, units).c_str(), height_text(areal.sz_um, units).c_str(),
               height_text(run.max_scallop_um, units).c_str());
@@ -117,6 +121,7 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
                 run.overview_cells_per_pixel, run.overview_cells_per_pixel);
   }
   for (const std::string& k : job.ignored_keys) std::printf("  ignored: %s\n", k.c_str());
+  std::printf("  model: %s\n", kKinematicBestCase);
   std::printf("  wrote %zu files to %s/\n", dir.written().size(), dir.path().c_str());
   std::printf(
       "  Before cutting: prove the program on the machine as its maker instructs (guards, "
@@ -181,6 +186,9 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   files.push_back("report.json");
   nlohmann::json report =
       simulate_report_json(job, run, pics.facts, files, write_s, total.seconds());
+  report["model"] = kKinematicBestCase;
+  const std::string fine = fine_ra_caution(run.texture.profile.roughness.a_um);
+  report["cautions"] = fine.empty() ? nlohmann::json::array() : nlohmann::json::array({fine});
   report["memory"] = {{"mode", run.streamed ? "streamed" : "in-memory"},
                       {"peak_grid_bytes", run.peak_grid_bytes}};
   if (run.streamed) {

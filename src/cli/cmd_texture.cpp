@@ -88,7 +88,8 @@ void print_table(const HeightmapFile& file, const TextureReport& r, const std::s
 
 void run_texture(const TextureCliOptions& o) {
   const LengthUnit unit = o.common.length_unit();
-  const TextureOptions topt = texture_options(o.texture, unit);
+  std::string side_note;
+  const TextureOptions topt = texture_options_for_file(o.texture, unit, o.file, side_note);
   HeightmapReadOptions ropt;
   if (!o.cell.empty()) ropt.cell_mm = parse_positive_length_mm(o.cell, unit, "--cell");
   if (!o.z_units.empty()) {
@@ -98,7 +99,8 @@ void run_texture(const TextureCliOptions& o) {
   StageTimer timer;
   const HeightmapFile file = read_heightmap(o.file, ropt);
   print_stage(o.common.verbose, "read", timer.lap());
-  const TextureReport report = texture_report(file.field, topt);
+  TextureReport report = texture_report(file.field, topt);
+  if (!side_note.empty()) report.warnings.push_back(side_note);
   print_stage(o.common.verbose, "texture", timer.lap());
   if (!o.export_path.empty()) {
     write_file_atomic(o.export_path, encode_heightmap(file.field, o.export_path));

@@ -8,13 +8,14 @@
 #include "cli/progress_bar.h"
 #include "core/write_file_atomic.h"
 #include "io/png.h"
+#include "job/common_profile_basis.h"
 
 namespace cuspmap {
 
-std::vector<CompareRow> run_comparison(const std::vector<Job>& jobs, RunOptions options,
-                                       std::optional<HeightRange> range, LengthUnit units,
-                                       bool verbose) {
-  std::vector<CompareRow> rows;
+Comparison run_comparison(const std::vector<Job>& jobs, RunOptions options,
+                          std::optional<HeightRange> range, LengthUnit units, bool verbose) {
+  Comparison comparison;
+  std::vector<CompareRow>& rows = comparison.rows;
   {
     ProgressBar bar("simulate");
     for (size_t k = 0; k < jobs.size(); ++k) {
@@ -24,6 +25,13 @@ std::vector<CompareRow> run_comparison(const std::vector<Job>& jobs, RunOptions 
       print_stage(verbose, "texture", rows.back().run.texture_s);
     }
   }
+  std::vector<JobRun*> runs;
+  std::vector<std::string> names;
+  for (size_t k = 0; k < rows.size(); ++k) {
+    runs.push_back(&rows[k].run);
+    names.push_back("row " + std::to_string(k + 1));
+  }
+  comparison.basis = common_profile_basis(runs, options.texture, names);
   if (!range) {
     HeightRange shared{std::numeric_limits<double>::infinity(),
                        -std::numeric_limits<double>::infinity()};
@@ -34,12 +42,13 @@ std::vector<CompareRow> run_comparison(const std::vector<Job>& jobs, RunOptions 
     if (shared.hi_um > shared.lo_um) range = shared;
   }
   for (CompareRow& row : rows) row.pictures = render_simulation_pictures(row.run, units, range);
-  return rows;
+  return comparison;
 }
 
-nlohmann::json write_comparison(OutputDir& dir, const std::vector<CompareRow>& rows,
+nlohmann::json write_comparison(OutputDir& dir, const Comparison& comparison,
                                 LengthUnit units, const std::string& html_path,
                                 const std::vector<std::string>& html_notes) {
+  const std::vector<CompareRow>& rows = comparison.rows;
   for (size_t k = 0; k < rows.size(); ++k) {
     const std::string stem = std::to_string(k + 1) + "_" + safe_file_stem(rows[k].job.name);
     dir.write(stem + "_height.png", rows[k].pictures.height_png);
@@ -50,11 +59,11 @@ nlohmann::json write_comparison(OutputDir& dir, const std::vector<CompareRow>& r
   }
   const std::string montage = encode_png(compare_montage(rows, units));
   dir.write("montage.png", montage);
-  const nlohmann::json doc = compare_json(rows);
+  const nlohmann::json doc = compare_json(rows, comparison.basis);
   dir.write("compare.csv", compare_csv(rows));
   dir.write("compare.json", doc.dump(2) + "\n");
   if (!html_path.empty()) {
-    HtmlReport page = compare_html_report(rows, montage, units);
+    HtmlReport page = compare_html_report(rows, comparison.basis, montage, units);
     page.notes.insert(page.notes.end(), html_notes.begin(), html_notes.end());
     write_file_atomic(html_path, render_html_report(page));
   }

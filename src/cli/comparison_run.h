@@ -12,16 +12,23 @@
 
 namespace cuspmap {
 
-/// Simulates every job (progress bar on a terminal) and renders its pictures; height.png of all
-/// jobs share `range`, or the overall min..max when it is empty.
-std::vector<CompareRow> run_comparison(const std::vector<Job>& jobs, RunOptions options,
+/// The compared rows and the basis their profile parameters share.
+struct Comparison {
+  std::vector<CompareRow> rows;  ///< one per job, in order
+  ProfileBasis basis;            ///< common cut-off and direction rule, or why not
+};
+
+/// Simulates every job (progress bar on a terminal), puts their profile parameters on one basis
+/// (job/common_profile_basis.h) and renders their pictures; height.png of all jobs share
+/// `range`, or the overall min..max when it is empty.
+Comparison run_comparison(const std::vector<Job>& jobs, RunOptions options,
                                        std::optional<HeightRange> range, LengthUnit units,
                                        bool verbose);
 
 /// Writes <n>_<name>_height.png / _shaded.png / _profile.png, montage.png, compare.csv,
 /// compare.json and, when html_path is not empty, the HTML page (extra notes appended).
 /// @return compare.json's document
-nlohmann::json write_comparison(OutputDir& dir, const std::vector<CompareRow>& rows,
+nlohmann::json write_comparison(OutputDir& dir, const Comparison& comparison,
                                 LengthUnit units, const std::string& html_path,
                                 const std::vector<std::string>& html_notes = {});
 

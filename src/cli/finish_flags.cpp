@@ -150,7 +150,8 @@ nlohmann::json grits_json(const GritSequence& sequence) {
                      {"remove_um", s.remove_um},
                      {"removal_mm3_per_min", s.removal_mm3_per_min},
                      {"volume_mm3", s.volume_mm3},
-                     {"time_s", s.time_s}});
+                     {"time_s", s.time_s},
+                     {"Ra_after_um", s.ra_after_um}});
   }
   return steps;
 }

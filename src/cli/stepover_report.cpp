@@ -9,6 +9,7 @@
 #include <sstream>
 #include <utility>
 
+#include "cusp/kinematic_limits.h"
 #include "cusp/iso1302_grade.h"
 #include "cusp/scallop_curved.h"
 #include "finish/wide_ridges.h"
@@ -259,6 +260,10 @@ nlohmann::json stepover_json(const StepoverReport& rep) {
   j["notes"] = m.notes;
   j["cautions"] = m.cautions;
   j["cautions"].push_back(kCaution);
+  if (const std::string fine = fine_ra_caution(r.stats.ra_um); !fine.empty()) {
+    j["cautions"].push_back(fine);
+  }
+  j["model"] = kKinematicBestCase;
   j["both_directions"] = rep.both_directions;
   if (rep.feed_per_tooth_max_mm) j["feed_per_tooth_max_mm"] = *rep.feed_per_tooth_max_mm;
   return j;
@@ -317,6 +322,10 @@ std::string stepover_table(const StepoverReport& rep) {
   for (const std::string& n : m.notes) out << "note: " << n << '\n';
   for (const std::string& c : m.cautions) out << "caution: " << c << '\n';
   out << "caution: " << kCaution << '\n';
+  if (const std::string fine = fine_ra_caution(r.stats.ra_um); !fine.empty()) {
+    out << "caution: " << fine << '\n';
+  }
+  out << "model: " << kKinematicBestCase << '\n';
   return out.str();
 }
 

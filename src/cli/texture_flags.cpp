@@ -2,6 +2,7 @@
 #include "cli/texture_flags.h"
 
 #include "core/input_error.h"
+#include "io/simulate_sidecar.h"
 
 namespace cuspmap {
 void add_texture_flags(CLI::App& sub, TextureFlags& flags) {
@@ -50,6 +51,28 @@ TextureOptions texture_options(const TextureFlags& o, LengthUnit unit) {
   }
   if (!o.s_filter.empty()) t.s_filter_mm = parse_positive_length_mm(o.s_filter, unit, "--s-filter");
   if (!o.l_filter.empty()) t.l_filter_mm = parse_positive_length_mm(o.l_filter, unit, "--l-filter");
+  return t;
+}
+
+TextureOptions texture_options_for_file(const TextureFlags& flags, LengthUnit unit,
+                                        const std::string& file, std::string& note) {
+  TextureOptions t = texture_options(flags, unit);
+  note.clear();
+  // The spectrum cannot see the lay of a dished flat's rim arcs; simulate knew it from the path.
+  const SimulateSidecar side = read_simulate_sidecar(file);
+  std::string taken;
+  if (flags.lay.empty() && side.lay_deg) {
+    t.lay_deg = side.lay_deg;
+    taken = "lay " + format_number(*side.lay_deg) + " deg";
+  }
+  if (flags.cutoff == "auto" && side.cutoff_mm) {
+    t.cutoff_mm = *side.cutoff_mm;
+    taken += (taken.empty() ? "" : ", ") + ("cut-off " + format_number(*side.cutoff_mm) + " mm");
+  }
+  if (!taken.empty()) {
+    note = taken + " from " + side.file + ", as simulate measured this floor (--lay/--cutoff "
+           "override)";
+  }
   return t;
 }
 

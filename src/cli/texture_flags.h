@@ -27,4 +27,11 @@ void add_texture_flags(CLI::App& sub, TextureFlags& flags);
 /// @throws InputError naming the flag and value when one is malformed or out of range.
 TextureOptions texture_options(const TextureFlags& flags, LengthUnit unit);
 
+/// texture_options() for a heightmap file: where the flags leave them open (--lay not given,
+/// --cutoff auto), the lay and fixed cut-off `simulate` used, from the report.json beside the
+/// file, so `texture`/`allowance` on a simulated height.npy measure it as `simulate` did.
+/// @param[out] note  one line naming what was taken from report.json, or empty
+TextureOptions texture_options_for_file(const TextureFlags& flags, LengthUnit unit,
+                                        const std::string& file, std::string& note);
+
 }  // namespace cuspmap

@@ -25,6 +25,26 @@ GritSequence grit_sequence(const SurfaceHeights& marks, const GritTable& table,
     assert(grit != nullptr && "the caller validates grade names against the table");
     grades.push_back(grit);
   }
+  GritSequence result;
+  const Grit& last = *grades.back();
+  if (marks.ra_um <= last.ra_um) {
+    // Every grade ends at its own Ra: a machined surface already this fine gains nothing.
+    result.needed = false;
+    result.final_ra_um = marks.ra_um;
+    result.final_scratch_um = marks.sz_um;
+    result.verdict = "no sanding needed: the machined Ra " + format_number(marks.ra_um) +
+                     " um is already at or below the Ra " + last.name + " leaves (" +
+                     format_number(last.ra_um) + " um)";
+    for (const Grit& g : table.grits) {  // coarse to fine: the first that beats the machined Ra
+      if (g.ra_um < marks.ra_um) {
+        result.finer_grit = g.name;
+        break;
+      }
+    }
+    return result;
+  }
+  result.verdict = "sanding " + last.name + " leaves Ra " + format_number(last.ra_um) +
+                   " um, finer than the machined " + format_number(marks.ra_um) + " um";
   // Start with the coarsest grade whose scratches are no deeper than the marks it erases.
   std::size_t first = grades.size() - 1;
   for (std::size_t k = 0; k < grades.size(); ++k) {
@@ -33,7 +53,6 @@ GritSequence grit_sequence(const SurfaceHeights& marks, const GritTable& table,
       break;
     }
   }
-  GritSequence result;
   for (std::size_t k = 0; k < first; ++k) result.skipped.push_back(grades[k]->name);
 
   double previous_scratch_um = 0.0;
@@ -50,6 +69,7 @@ GritSequence grit_sequence(const SurfaceHeights& marks, const GritTable& table,
     step.remove_um = from_above_um + 0.5 * grit.scratch_um;
     step.volume_mm3 = step.remove_um / kUmPerMm * area_mm2;
     step.time_s = step.volume_mm3 / grit.removal_mm3_per_min * kSecondsPerMinute;
+    step.ra_after_um = grit.ra_um;
     result.deepest_below_valleys_um += grit.scratch_um;
     result.total_remove_um += step.remove_um;
     result.total_volume_mm3 += step.volume_mm3;
@@ -57,7 +77,6 @@ GritSequence grit_sequence(const SurfaceHeights& marks, const GritTable& table,
     previous_scratch_um = grit.scratch_um;
     result.steps.push_back(step);
   }
-  const Grit& last = *grades.back();
   result.final_scratch_um = last.scratch_um;
   result.final_ra_um = last.ra_um;
   result.mean_below_valleys_um = result.deepest_below_valleys_um - 0.5 * last.scratch_um;

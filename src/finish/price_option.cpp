@@ -56,26 +56,40 @@ PlanOption price_option(const std::string& tool, const Cutter& cutter, double st
     option.meets_spec = true;
     option.reason = "meets the finish spec as machined: no sanding";
   } else {
-    Allowance allowance =
-        sanding_allowance(surface, spec.grit_table, spec.grits, spec.area_mm2, spec.tolerance_um);
-    option.sanded = true;
-    option.bench_time_s = allowance.grits.total_time_s;
-    option.removed_volume_mm3 = allowance.grits.total_volume_mm3;
-    option.final_ra_um = allowance.grits.final_ra_um;
-    option.final_peak_to_valley_um = allowance.grits.final_scratch_um;
-    const bool finish_ok =
-        meets_targets(spec, option.final_ra_um, option.final_peak_to_valley_um,
-                      ("after " + allowance.grits.steps.back().grit).c_str(), why);
-    if (!finish_ok) {
-      option.reason = why + ": add finer grades";
-    } else if (!allowance.within_tolerance) {
-      option.reason = "sanding changes the dimension by up to " +
-                      um_text(allowance.dimension_change_um) + " > tolerance +-" +
-                      format_number(*allowance.tolerance_um) + " um";
+    // No target passed: the spec verdict is made here, on the finish the option ends with.
+    Allowance allowance = sanding_allowance(surface, spec.grit_table, spec.grits, spec.area_mm2,
+                                            spec.tolerance_um, std::nullopt);
+    if (!allowance.grits.needed) {
+      // Sanding would end no finer than machined: the option ends as machined.
+      option.final_ra_um = surface.ra_um;
+      option.final_peak_to_valley_um = surface.sz_um;
+      option.meets_spec = machined_ok;
+      option.reason = machined_ok ? allowance.grits.verdict
+                                  : why + "; " + allowance.grits.verdict +
+                                        (allowance.grits.finer_grit.empty()
+                                             ? ": use a finer stepover"
+                                             : ": add " + allowance.grits.finer_grit + " or finer");
     } else {
-      option.meets_spec = true;
-      option.reason = "meets the finish spec after sanding " + allowance.grits.steps.front().grit +
-                      " to " + allowance.grits.steps.back().grit;
+      option.sanded = true;
+      option.bench_time_s = allowance.grits.total_time_s;
+      option.removed_volume_mm3 = allowance.grits.total_volume_mm3;
+      option.final_ra_um = allowance.grits.final_ra_um;
+      option.final_peak_to_valley_um = allowance.grits.final_scratch_um;
+      const bool finish_ok =
+          meets_targets(spec, option.final_ra_um, option.final_peak_to_valley_um,
+                        ("after " + allowance.grits.steps.back().grit).c_str(), why);
+      if (!finish_ok) {
+        option.reason = why + ": add finer grades";
+      } else if (!allowance.within_tolerance) {
+        option.reason = "sanding changes the dimension by up to " +
+                        um_text(allowance.dimension_change_um) + " > tolerance +-" +
+                        format_number(*allowance.tolerance_um) + " um";
+      } else {
+        option.meets_spec = true;
+        option.reason = "meets the finish spec after sanding " +
+                        allowance.grits.steps.front().grit + " to " +
+                        allowance.grits.steps.back().grit;
+      }
     }
     option.allowance = std::move(allowance);
   }
@@ -89,7 +103,14 @@ std::optional<std::size_t> cheapest_option(const std::vector<PlanOption>& option
   std::optional<std::size_t> best;
   for (std::size_t k = 0; k < options.size(); ++k) {
     if (!options[k].meets_spec) continue;
-    if (!best || options[k].cost < options[*best].cost) best = k;
+    if (!best) {
+      best = k;
+      continue;
+    }
+    const PlanOption& o = options[k];
+    const PlanOption& b = options[*best];
+    // Equal cost: the finer finish the option ends with wins.
+    if (o.cost < b.cost || (o.cost == b.cost && o.final_ra_um < b.final_ra_um)) best = k;
   }
   return best;
 }

@@ -46,7 +46,8 @@ struct PlanOption {
   SurfaceHeights surface;              ///< machined surface heights, um
   bool simulated = false;              ///< surface from a simulated heightfield (else closed form)
   bool sanded = false;                 ///< the option includes sanding
-  std::optional<Allowance> allowance;  ///< sanding detail when sanded
+  std::optional<Allowance> allowance;  ///< sanding detail when sanding was considered (its
+                                       ///< grits.needed is false when it was not worth doing)
   double bench_time_s = 0.0;           ///< sanding time over the area, s (0 when not sanded)
   double removed_volume_mm3 = 0.0;     ///< volume sanded off, mm^3
   double final_ra_um = 0.0;            ///< Ra of the finished surface, um
@@ -76,8 +77,9 @@ PlanOption price_option(const std::string& tool, const Cutter& cutter, double st
                         const MachineTime& machine, const SurfaceHeights& surface, bool simulated,
                         const PlanSpec& spec);
 
-/// Index of the cheapest option that meets the spec (the first on equal cost), or empty when
-/// none does.
+/// Index of the cheapest option that meets the spec (on equal cost the one that ends with the
+/// finer Ra, then the first), or empty when none does. Options are judged by the finish they end
+/// with (final_ra_um: sanded, or as machined when sanding would not make it finer).
 std::optional<std::size_t> cheapest_option(const std::vector<PlanOption>& options);
 
 }  // namespace cuspmap

@@ -48,14 +48,18 @@ struct Allowance {
   GritSequence grits;                  ///< the sanding sequence over area_mm2
 };
 
-/// Computes the allowance.
+/// Computes the allowance. When sanding is not needed (the machined Ra meets `target_ra_um`, or
+/// the last grade would leave it no finer: GritSequence::needed), nothing is sanded: stock,
+/// volumes and dimension change are 0 and the sequence is empty.
 /// @param[in] marks         machined surface heights, um (finite, >= 0)
 /// @param[in] table         grades available
 /// @param[in] sequence      grade names, coarse to fine, non-empty (validated by the caller)
 /// @param[in] area_mm2      area for volumes and times, mm^2, >= 0
 /// @param[in] tolerance_um  +- tolerance on the sanded dimension, um (> 0), or empty
+/// @param[in] target_ra_um  finished Ra wanted, um (> 0), or empty
 Allowance sanding_allowance(const SurfaceHeights& marks, const GritTable& table,
                             const std::vector<std::string>& sequence, double area_mm2,
-                            std::optional<double> tolerance_um);
+                            std::optional<double> tolerance_um,
+                            std::optional<double> target_ra_um);
 
 }  // namespace cuspmap

@@ -48,6 +48,8 @@ nlohmann::json profile_json(const ProfileReport& p) {
   j["traces"] = p.traces;
   j["direction"] = p.direction;
   j["direction_deg"] = p.direction_deg;
+  j["lay_deg"] = p.lay_deg;
+  j["lay_source"] = p.lay_source;
   j["cutoff_rule"] = p.cutoff_rule;
   j["periodic"] = p.periodic;
   j["acf_peak"] = p.acf_peak;

@@ -5,6 +5,7 @@
 #include <algorithm>
 #include <cstdio>
 
+#include "cusp/kinematic_limits.h"
 #include "report/montage.h"
 #include "io/texture_json.h"
 
@@ -38,8 +39,10 @@ std::string display_unit(const CompareColumn& c, LengthUnit units) {
 
 const std::vector<CompareColumn>& compare_columns() {
   static const std::vector<CompareColumn> columns = {
-      {"Ra", "Ra_um", true, [](const CompareRow& r) { return r.run.texture.profile.roughness.a_um; }},
-      {"Rz", "Rz_um", true, [](const CompareRow& r) { return r.run.texture.profile.roughness.z_um; }},
+      {"Ra", "Ra_um", true, [](const CompareRow& r) { return r.run.texture.profile.roughness.a_um; },
+       true},
+      {"Rz", "Rz_um", true, [](const CompareRow& r) { return r.run.texture.profile.roughness.z_um; },
+       true},
       {"Sa", "Sa_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sa_um; }},
       {"Sz", "Sz_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sz_um; }},
       {"cusp", "max_scallop_um", true, [](const CompareRow& r) { return r.run.max_scallop_um; }},
@@ -51,9 +54,14 @@ const std::vector<CompareColumn>& compare_columns() {
   return columns;
 }
 
-std::vector<size_t> best_rows(const std::vector<CompareRow>& rows) {
-  std::vector<size_t> best;
+std::vector<std::optional<size_t>> best_rows(const std::vector<CompareRow>& rows,
+                                             const ProfileBasis& basis) {
+  std::vector<std::optional<size_t>> best;
   for (const CompareColumn& c : compare_columns()) {
+    if (c.profile && !basis.rankable()) {
+      best.emplace_back();
+      continue;
+    }
     size_t b = 0;
     for (size_t k = 1; k < rows.size(); ++k) {
       if (c.value(rows[k]) < c.value(rows[b])) b = k;
@@ -63,7 +71,13 @@ std::vector<size_t> best_rows(const std::vector<CompareRow>& rows) {
   return best;
 }
 
-nlohmann::json compare_json(const std::vector<CompareRow>& rows) {
+std::string profile_direction_text(const ProfileReport& p) {
+  if (p.direction == "angle") return "at " + format_number(p.direction_deg) + " deg";
+  if (p.lay_source == "none") return "along X (no lay)";
+  return p.direction + " " + format_number(p.direction_deg) + " deg";
+}
+
+nlohmann::json compare_json(const std::vector<CompareRow>& rows, const ProfileBasis& basis) {
   nlohmann::json out;
   out["rows"] = nlohmann::json::array();
   for (const CompareRow& row : rows) {
@@ -72,16 +86,34 @@ nlohmann::json compare_json(const std::vector<CompareRow>& rows) {
     j["Sv_um"] = row.run.texture.areal.parameters.sv_um;
     j["depth_to_clear_um"] = row.run.texture.areal.parameters.sz_um;
     j["cutoff_mm"] = row.run.texture.profile.cutoff_mm;
+    j["direction"] = row.run.texture.profile.direction;
+    j["direction_deg"] = row.run.texture.profile.direction_deg;
+    j["lay_source"] = row.run.texture.profile.lay_source;
+    j["s_filter_mm"] = row.run.texture.areal.s_filter_mm;
+    j["l_filter_mm"] = row.run.texture.areal.l_filter_mm;
     j["iso1302_grade"] = row.run.texture.profile.iso1302_grade;
+    j["cautions"] = nlohmann::json::array();
+    if (const std::string fine = fine_ra_caution(row.run.texture.profile.roughness.a_um);
+        !fine.empty()) {
+      j["cautions"].push_back(fine);
+    }
     j["tool"] = describe_tool(row.job.cutter, LengthUnit::Millimetre);
     j["path"] = describe_path(row.job.path, LengthUnit::Millimetre);
     j["tooth_marks"] = row.job.sim.tooth_marks;
     out["rows"].push_back(j);
   }
-  const std::vector<size_t> best = best_rows(rows);
+  const std::vector<std::optional<size_t>> best = best_rows(rows, basis);
   nlohmann::json b = nlohmann::json::object();
-  for (size_t k = 0; k < best.size(); ++k) b[compare_columns()[k].key] = best[k];
+  for (size_t k = 0; k < best.size(); ++k) {
+    b[compare_columns()[k].key] = best[k] ? nlohmann::json(*best[k]) : nlohmann::json();
+  }
   out["best"] = b;
+  out["model"] = kKinematicBestCase;
+  out["basis"] = {{"cutoff_mm", basis.cutoff_mm},
+                  {"cutoff_rule", basis.cutoff_rule},
+                  {"ranked", basis.rankable()},
+                  {"reasons", basis.reasons},
+                  {"notes", basis.notes}};
   return out;
 }
 
@@ -97,22 +129,30 @@ std::string compare_csv(const std::vector<CompareRow>& rows) {
   };
   std::string csv = "name,job";
   for (const CompareColumn& c : compare_columns()) csv.append(",").append(c.key);
+  csv.append(",cutoff_mm,direction,direction_deg");
   csv.push_back('\n');
   for (const CompareRow& row : rows) {
     csv.append(quote(row.job.name)).append(",").append(quote(row.job.source));
     for (const CompareColumn& c : compare_columns()) {
       csv.append(",").append(format_number(c.value(row)));
     }
+    const ProfileReport& p = row.run.texture.profile;
+    csv.append(",").append(format_number(p.cutoff_mm));
+    csv.append(",").append(quote(p.lay_source == "none" ? "along X (no lay)" : p.direction));
+    csv.append(",").append(format_number(p.direction_deg));
     csv.push_back('\n');
   }
   return csv;
 }
 
-std::string compare_table_text(const std::vector<CompareRow>& rows, LengthUnit units) {
-  const std::vector<size_t> best = best_rows(rows);
+std::string compare_table_text(const std::vector<CompareRow>& rows, const ProfileBasis& basis,
+                               LengthUnit units) {
+  const std::vector<std::optional<size_t>> best = best_rows(rows, basis);
+  const char* length_unit = units == LengthUnit::Inch ? "in" : "mm";
   std::string out;
   char buf[256];
-  std::snprintf(buf, sizeof buf, "%-3s %-44s", "#", "job");
+  std::snprintf(buf, sizeof buf, "%-3s %-44s %11s %-17s", "#", "job",
+                (std::string("cut-off ") + length_unit).c_str(), " direction");
   out += buf;
   for (const CompareColumn& c : compare_columns()) {
     std::snprintf(buf, sizeof buf, " %11s", (std::string(c.title) + " " + display_unit(c, units)).c_str());
@@ -122,17 +162,41 @@ std::string compare_table_text(const std::vector<CompareRow>& rows, LengthUnit u
   for (size_t r = 0; r < rows.size(); ++r) {
     std::string name = rows[r].job.name;
     if (name.size() > 44) name = name.substr(0, 41) + "...";
-    std::snprintf(buf, sizeof buf, "%-3zu %-44s", r + 1, name.c_str());
+    const ProfileReport& p = rows[r].run.texture.profile;
+    const double cutoff = units == LengthUnit::Inch ? p.cutoff_mm / kMmPerInch : p.cutoff_mm;
+    std::snprintf(buf, sizeof buf, "%-3zu %-44s %11s  %-16s", r + 1, name.c_str(),
+                  format_number(cutoff).c_str(), profile_direction_text(p).c_str());
     out += buf;
     for (size_t k = 0; k < compare_columns().size(); ++k) {
-      const std::string v = format_number(display_value(compare_columns()[k], rows[r], units)) +
-                            (best[k] == r ? "*" : " ");
+      const CompareColumn& c = compare_columns()[k];
+      // "!" marks a predicted Ra finer than milling usually measures (cusp/kinematic_limits.h).
+      const bool fine = std::string(c.key) == "Ra_um" && !fine_ra_caution(c.value(rows[r])).empty();
+      const std::string v = format_number(display_value(c, rows[r], units)) + (fine ? "!" : "") +
+                            (best[k] && *best[k] == r ? "*" : " ");
       std::snprintf(buf, sizeof buf, " %11s", v.c_str());
       out += buf;
     }
     out += "\n";
   }
   out += "* best (lowest) value in its column\n";
+  bool any_fine = false;
+  for (const CompareRow& row : rows) {
+    any_fine = any_fine || !fine_ra_caution(row.run.texture.profile.roughness.a_um).empty();
+  }
+  if (any_fine) {
+    out += "! predicted Ra below 0.2 um, finer than milling usually measures: expect the real "
+           "surface to be rougher\n";
+  }
+  out += std::string(kKinematicBestCase) + "\n";
+  if (basis.rankable()) {
+    out += "Ra and Rz of every row: cut-off " + length_text(basis.cutoff_mm, units) + " (" +
+           basis.cutoff_rule + "), traced " + rows.front().run.texture.profile.direction +
+           " each row's lay\n";
+  } else {
+    out += "Ra and Rz not ranked: the rows do not share one basis\n";
+  }
+  for (const std::string& why : basis.reasons) out += "  " + why + "\n";
+  for (const std::string& note : basis.notes) out += "  " + note + "\n";
   return out;
 }
 
@@ -156,18 +220,20 @@ Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units) {
   return render_montage(tiles, opt);
 }
 
-HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const std::string& montage_png,
-                               LengthUnit units) {
+HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const ProfileBasis& basis,
+                               const std::string& montage_png, LengthUnit units) {
   HtmlReport r;
   r.title = "Finishing strategies compared";
   r.subtitle = "cuspmap 0.1.0 - compare, " + std::to_string(rows.size()) + " jobs";
   HtmlTable t;
   t.caption = "Predicted surface and cost per job (best value per column marked)";
-  t.columns = {"#", "job"};
-  t.best = {BestIs::None, BestIs::None};
+  t.columns = {"#", "job", std::string("cut-off (") + (units == LengthUnit::Inch ? "in" : "mm") +
+                               ")",
+               "direction"};
+  t.best = {BestIs::None, BestIs::None, BestIs::None, BestIs::None};
   for (const CompareColumn& c : compare_columns()) {
     t.columns.push_back(std::string(c.title) + " (" + display_unit(c, units) + ")");
-    t.best.push_back(BestIs::Lowest);
+    t.best.push_back(c.profile && !basis.rankable() ? BestIs::None : BestIs::Lowest);
   }
   for (size_t k = 0; k < rows.size(); ++k) {
     const CompareRow& row = rows[k];
@@ -175,7 +241,12 @@ HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const std::s
                         describe_tool(row.job.cutter, units) + "; " +
                             describe_path(row.job.path, units) + "; " +
                             (row.job.sim.tooth_marks ? "tooth by tooth" : "envelope")});
-    std::vector<HtmlCell> cells = {{std::to_string(k + 1)}, {row.job.name}};
+    const ProfileReport& p = row.run.texture.profile;
+    std::vector<HtmlCell> cells = {
+        {std::to_string(k + 1)},
+        {row.job.name},
+        {format_number(units == LengthUnit::Inch ? p.cutoff_mm / kMmPerInch : p.cutoff_mm)},
+        {profile_direction_text(p)}};
     for (const CompareColumn& c : compare_columns()) {
       const double v = display_value(c, row, units);
       cells.push_back({format_number(v), v});
@@ -183,7 +254,27 @@ HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const std::s
     t.rows.push_back(std::move(cells));
     r.filters.push_back(std::to_string(k + 1) + ": ISO 16610-21 Gaussian lambda-c " +
                         length_text(row.run.texture.profile.cutoff_mm, units) + " (" +
-                        row.run.texture.profile.cutoff_rule + "), least-squares plane removed");
+                        row.run.texture.profile.cutoff_rule + "), traced " +
+                        profile_direction_text(row.run.texture.profile) +
+                        "; areal: least-squares plane removed" +
+                        (row.run.texture.areal.s_filter_mm > 0
+                             ? ", S-filter " + length_text(row.run.texture.areal.s_filter_mm, units)
+                             : std::string()) +
+                        (row.run.texture.areal.l_filter_mm > 0
+                             ? ", L-filter " + length_text(row.run.texture.areal.l_filter_mm, units)
+                             : std::string()));
+  }
+  if (basis.rankable()) {
+    r.notes.push_back("Ra and Rz of every row on one basis: cut-off " +
+                      length_text(basis.cutoff_mm, units) + " (" + basis.cutoff_rule + ")");
+  } else {
+    r.notes.push_back("Ra and Rz are not ranked: the rows do not share one basis");
+  }
+  for (const std::string& why : basis.reasons) r.notes.push_back(why);
+  for (const std::string& note : basis.notes) r.notes.push_back(note);
+  for (size_t k = 0; k < rows.size(); ++k) {
+    const std::string fine = fine_ra_caution(rows[k].run.texture.profile.roughness.a_um);
+    if (!fine.empty()) r.notes.push_back(std::to_string(k + 1) + ": " + fine);
   }
   r.tables.push_back(std::move(t));
   r.images.push_back({montage_png, "shaded floors side by side",

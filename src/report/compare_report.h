@@ -4,12 +4,14 @@
 #pragma once
 
 #include <nlohmann/json.hpp>
+#include <optional>
 #include <string>
 #include <vector>
 
 #include "report/html_report.h"
 #include "io/raster_image.h"
 #include "report/simulation_pictures.h"
+#include "job/common_profile_basis.h"
 #include "job/job.h"
 #include "job/run_job.h"
 
@@ -28,28 +30,39 @@ struct CompareColumn {
   const char* key;       ///< JSON/CSV key (unit-suffixed)
   bool lower_is_better;  ///< all compared columns are "lower is better" except none today
   double (*value)(const CompareRow&);  ///< the number, in the key's unit
+  bool profile = false;  ///< a profile parameter: ranked only on a common ProfileBasis
 };
 
 /// The compared columns, in display order.
 const std::vector<CompareColumn>& compare_columns();
 
-/// Index of the best row per column (lowest value; first on ties).
-std::vector<size_t> best_rows(const std::vector<CompareRow>& rows);
+/// Index of the best row per column (lowest value; first on ties); empty for a profile column
+/// when the basis is not common (its values cannot be ranked).
+std::vector<std::optional<size_t>> best_rows(const std::vector<CompareRow>& rows,
+                                             const ProfileBasis& basis);
 
-/// compare.json: {rows[{name, job, Ra_um, ...}], best{key: row index}, cutoff_mm per row ...}.
-nlohmann::json compare_json(const std::vector<CompareRow>& rows);
+/// How a row's profile was traced, one short phrase: "across 90 deg", "along X (no lay)",
+/// "at 30 deg".
+std::string profile_direction_text(const ProfileReport& p);
 
-/// compare.csv: header line then one line per row; numbers with 6 significant digits.
+/// compare.json: {rows[{name, job, Ra_um, ..., cutoff_mm, direction, direction_deg}],
+/// best{key: row index or null}, basis{cutoff_mm, cutoff_rule, ranked, reasons[], notes[]}}.
+nlohmann::json compare_json(const std::vector<CompareRow>& rows, const ProfileBasis& basis);
+
+/// compare.csv: header line then one line per row; numbers with 6 significant digits; the
+/// cut-off and direction of each row's profile after the numbers.
 std::string compare_csv(const std::vector<CompareRow>& rows);
 
-/// Terminal table in the display unit, best value per column marked with '*'.
-std::string compare_table_text(const std::vector<CompareRow>& rows, LengthUnit units);
+/// Terminal table in the display unit with each row's cut-off and trace direction, best value
+/// per ranked column marked with '*', and the basis (or why a column is not ranked) below.
+std::string compare_table_text(const std::vector<CompareRow>& rows, const ProfileBasis& basis,
+                               LengthUnit units);
 
 /// Shaded floors side by side on one scale, each labelled (path, tool, stepover, feed).
 Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units);
 
 /// The HTML page: inputs per job, the table with best values marked, the montage, cautions.
-HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const std::string& montage_png,
-                               LengthUnit units);
+HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const ProfileBasis& basis,
+                               const std::string& montage_png, LengthUnit units);
 
 }  // namespace cuspmap

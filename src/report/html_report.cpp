@@ -5,6 +5,7 @@
 
 #include <cmath>
 
+#include "cusp/kinematic_limits.h"
 #include "report/base64.h"
 
 namespace cuspmap {
@@ -211,8 +212,9 @@ std::vector<std::string> standard_cautions() {
       "titanium dust especially) and harmful to breathe: use dust extraction and respiratory "
       "protection, keep sparks and flames away, and never collect light-alloy dust together with "
       "sparks from grinding steel.",
-      "These figures are predictions from a model, not measurements: check the first part before "
-      "relying on them.",
+      std::string(kKinematicBestCase) +
+          " These figures are predictions from a model, not measurements: check the first part "
+          "before relying on them.",
       "Follow local codes, the machine maker's instructions and licensed practice; they take "
       "precedence over anything in this report.",
   };

@@ -6,6 +6,7 @@
 #include <algorithm>
 #include <cmath>
 
+#include "cusp/kinematic_limits.h"
 #include "io/npy.h"
 #include "io/png.h"
 #include "texture/evaluate_profiles.h"
@@ -61,11 +62,12 @@ std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
   };
   std::vector<ProfilePlotData> out;
   if (auto across = centre_profile(centre_runs(0, p.direction_deg), p.cutoff_mm, p.lambda_s_um,
-                                   "Across the lay, " + format_number(p.direction_deg) + " deg")) {
+                                   "Centre trace across, " + format_number(p.direction_deg) +
+                                       " deg")) {
     out.push_back(std::move(*across));
   }
   if (auto along = centre_profile(centre_runs(1, along_deg), p.cutoff_mm, p.lambda_s_um,
-                                  "Along the lay, " + format_number(along_deg) + " deg")) {
+                                  "Centre trace along, " + format_number(along_deg) + " deg")) {
     out.push_back(std::move(*along));
   }
   return out;
@@ -95,8 +97,9 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
     pics.profile_png = encode_png(render_profile_plot(profiles, popt).image);
   }
   pics.profile_caption =
-      "Centre traces across and along the lay; the smooth line is the ISO 16610-21 Gaussian mean "
-      "line at the cut-off used; Ra and Rz of each trace are marked.";
+      "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
+      "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
+      "the table gives the mean of several parallel traces across the lay.";
   // A streamed run's floor is the overview: its full-resolution .npy is written band by band
   // (io/npy_band_writer.h) by the caller, never encoded here.
   if (!run.streamed) pics.height_npy = encode_npy(run.floor);
@@ -155,6 +158,7 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
                    std::to_string(p.sampling_lengths) + " sampling lengths, " +
                    std::to_string(p.traces) + " traces)",
                "Areal: least-squares plane removed (F-operator)"};
+  if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) r.notes.push_back(fine);
   for (const std::string& w : run.texture.warnings) r.notes.push_back(w);
   for (const PathWarning& w : run.built.warnings) {
     r.notes.push_back((w.line > 0 ? "line " + std::to_string(w.line) + ": " : "") + w.message);

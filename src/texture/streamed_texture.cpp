@@ -114,6 +114,10 @@ TextureReport StreamedTexture::report() const {
   ProfileReport& p = report.profile;
   p.direction = direction_label_;
   p.direction_deg = direction_deg_;
+  p.lay_source = options_.direction == ProfileDirection::Angle ? "not used"
+                 : options_.lay_deg                              ? "known"
+                                                                 : "none";
+  p.lay_deg = options_.lay_deg ? wrap_180(*options_.lay_deg) : 0.0;
   const double shortest_cutoff =
       options_.cutoff_mm > 0.0 ? options_.cutoff_mm : kStandardCutoffsMm.front();
   const std::vector<ProfileTrace> traces = traces_->traces(2.0 * shortest_cutoff);

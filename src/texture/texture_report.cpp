@@ -58,23 +58,29 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
   return a;
 }
 
-double trace_direction(const TextureOptions& o, const ArealReport& areal, std::string& label,
+double trace_direction(const TextureOptions& o, const ArealReport& areal, ProfileReport& p,
                        std::vector<std::string>& warnings) {
   if (o.direction == ProfileDirection::Angle) {
-    label = "angle";
+    p.direction = "angle";
+    p.lay_source = "not used";
     return wrap_180(o.direction_deg);
   }
-  label = o.direction == ProfileDirection::Across ? "across" : "along";
+  p.direction = o.direction == ProfileDirection::Across ? "across" : "along";
   double lay = 0.0;
   if (o.lay_deg) {
     lay = *o.lay_deg;
+    p.lay_source = "known";
   } else if (areal.spatial.lay_strength >= kMinLayStrength) {
     lay = areal.spatial.lay_deg;
+    p.lay_source = "detected";
   } else {
     warnings.push_back("no dominant lay (strength " + format_number(areal.spatial.lay_strength) +
                        "): profiles traced along X");
+    p.lay_source = "none";
+    p.lay_deg = 0.0;
     return 0.0;
   }
+  p.lay_deg = wrap_180(lay);
   return wrap_180(o.direction == ProfileDirection::Across ? lay + 90.0 : lay);
 }
 
@@ -137,7 +143,7 @@ TextureReport texture_report(const Heightfield& hf, const TextureOptions& option
   report.areal = areal_side(hf, options, report.warnings);
 
   ProfileReport& p = report.profile;
-  p.direction_deg = trace_direction(options, report.areal, p.direction, report.warnings);
+  p.direction_deg = trace_direction(options, report.areal, p, report.warnings);
   const double shortest_cutoff =
       options.cutoff_mm > 0.0 ? options.cutoff_mm : kStandardCutoffsMm.front();
   const std::vector<ProfileTrace> traces =

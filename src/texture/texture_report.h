@@ -60,6 +60,12 @@ struct ProfileReport {
   int traces = 0;              ///< traces averaged
   std::string direction;       ///< "across", "along" or "angle"
   double direction_deg = 0.0;  ///< trace direction used, deg from +X, [0, 180)
+  double lay_deg = 0.0;        ///< lay the direction was taken from, deg from +X, [0, 180)
+  /// Where the lay came from: "known" (the path's passes or --lay), "detected" (power
+  /// spectrum), "none" (no dominant lay: traced along X whatever the rule) or "not used"
+  /// (direction given as an angle). Rows compared "across the lay" share a rule only when none
+  /// is "none".
+  std::string lay_source;
   std::string cutoff_rule;     ///< "RSm (periodic)", "Ra (non-periodic)" or "fixed"
   bool periodic = false;       ///< the autocorrelation test's verdict
   double acf_peak = 0.0;       ///< its score (>= 0.5 periodic)

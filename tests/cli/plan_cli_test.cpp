@@ -49,12 +49,12 @@ TEST_CASE("cuspmap plan: JSON carries options and the index of the best one", "[
 TEST_CASE("cuspmap plan: no option meeting the spec is a valid answer: best null, exit 0",
           "[cli]") {
   const test::RunResult r =
-      run_cuspmap(bracket({"--target-ra", "0.05um", "--sand", "always", "--json"}));
+      run_cuspmap(bracket({"--target-scallop", "0.00001um", "--sand", "always", "--json"}));
   REQUIRE(r.exit_code == 0);
   const nlohmann::json doc = nlohmann::json::parse(r.out);
   REQUIRE(doc["best"].is_null());
   REQUIRE(doc["message"].get<std::string>().rfind("no option meets the spec", 0) == 0);
-  const test::RunResult human = run_cuspmap(bracket({"--target-ra", "0.05um", "--sand", "always"}));
+  const test::RunResult human = run_cuspmap(bracket({"--target-scallop", "0.00001um", "--sand", "always"}));
   REQUIRE(human.exit_code == 0);
   REQUIRE(human.out.find("no option meets the spec") != std::string::npos);
 }
@@ -130,6 +130,27 @@ TEST_CASE("cuspmap plan: bad input exits 2 with one line", "[cli]") {
   test::require_input_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--machine-rate",
                  "-4", "--bench-rate", "1", "--target-ra", "1um"},
                 "--machine-rate -4: must be >= 0 per hour");
+}
+
+TEST_CASE("cuspmap plan: issue_13: --sand always never ends rougher than machined", "[cli]") {
+  // The flat end mill with 0.05 deg tilt leaves marks far finer than P400's Ra 0.35 um (default
+  // table, from memory): sanding them would make the floor worse, so those options end as
+  // machined, with no bench time.
+  const test::RunResult r = run_cuspmap(bracket({"--sand", "always", "--json"}));
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json doc = nlohmann::json::parse(r.out);
+  int unsanded = 0;
+  for (const auto& o : doc["options"]) {
+    CAPTURE(o["tool"], o["stepover_mm"]);
+    REQUIRE(o["final_ra_um"].get<double>() <= o["ra_um"].get<double>() + 1e-12);
+    if (!o["sanded"].get<bool>()) {
+      ++unsanded;
+      REQUIRE(o["bench_time_s"] == 0.0);
+      REQUIRE(o["grits"].empty());
+    }
+  }
+  REQUIRE(unsanded > 0);
 }
 
 }  // namespace cuspmap

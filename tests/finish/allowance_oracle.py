@@ -100,10 +100,19 @@ def main():
         scratch = {g: 0.07 * FEPA_P[g] for g in seq}
         first = next((i for i, g in enumerate(seq) if scratch[g] <= ref["sz"]), len(seq) - 1)
         used = seq[first:]
+        # Issue 13: no sanding when the machined Ra is at or below the last grade's own Ra
+        # (0.01 x particle size): nothing used, stock 0, final Ra = machined Ra.
+        if ref["ra"] <= 0.01 * FEPA_P[seq[-1]]:
+            used = []
         got = [g["grit"] for g in doc["grits"]]
         print(f"  {'ok ' if got == used else 'BAD'} grades: cuspmap {got}  reference {used}")
         if got != used:
             failures.append("grades")
+            continue
+        if not used:
+            close("stock_valleys_nominal_um", doc["stock_valleys_nominal_um"], 0.0, failures, 0.0)
+            close("stock_mean_nominal_um", doc["stock_mean_nominal_um"], 0.0, failures, 0.0)
+            close("final_ra_um", doc["final_ra_um"], doc["marks"]["ra_um"], failures, 0.0)
             continue
         prev = None
         for g, step_doc in zip(used, doc["grits"]):

@@ -25,6 +25,7 @@ SurfaceHeights marks(double sz_um, double sv_um) {
   h.sz_um = sz_um;
   h.sv_um = sv_um;
   h.sp_um = sz_um - sv_um;
+  h.ra_um = 0.2566 * sz_um;  // ideal cusp profile Ra = 4h/(9 sqrt 3) (DESIGN.md)
   return h;
 }
 
@@ -79,11 +80,35 @@ TEST_CASE("grit_sequence: grades whose scratches are deeper than the marks are s
   REQUIRE(seq.skipped == std::vector<std::string>{"A"});
   REQUIRE(seq.steps.front().grit == "B");
   REQUIRE_NEAR(seq.steps.front().remove_um, 1.7 + 2.0, 1e-12);
-  // No marks at all: only the last grade runs, removing half its own scratch depth.
+  // Sz 2 um (Ra 0.51 um): only the last grade runs, removing Sv plus half its own scratches.
+  const GritSequence fine = grit_sequence(marks(2.0, 0.7), t, t.sequence, 100.0);
+  REQUIRE(fine.steps.size() == 1);
+  REQUIRE(fine.steps.front().grit == "C");
+  REQUIRE_NEAR(fine.total_remove_um, 0.7 + 1.0, 1e-12);
+  REQUIRE(fine.steps.front().ra_after_um == 0.25);
+}
+
+TEST_CASE("grit_sequence: issue_13: no sanding when the last grade would leave it rougher",
+          "[finish]") {
+  const GritTable t = abc_table();
+  // No marks at all (Ra 0): every grade ends at its own Ra, rougher than machined.
   const GritSequence smooth = grit_sequence(marks(0.0, 0.0), t, t.sequence, 100.0);
-  REQUIRE(smooth.steps.size() == 1);
-  REQUIRE(smooth.steps.front().grit == "C");
-  REQUIRE_NEAR(smooth.total_remove_um, 1.0, 1e-12);
+  REQUIRE_FALSE(smooth.needed);
+  REQUIRE(smooth.steps.empty());
+  REQUIRE(smooth.total_remove_um == 0.0);
+  REQUIRE(smooth.mean_below_valleys_um == 0.0);
+  REQUIRE(smooth.final_ra_um == 0.0);
+  REQUIRE(smooth.finer_grit.empty());  // nothing in the table beats Ra 0
+  // Ra 0.3 um on a sequence that stops at B (Ra 0.5): no sanding, and C (Ra 0.25) is offered.
+  SurfaceHeights m = marks(1.2, 0.4);
+  m.ra_um = 0.3;
+  const GritSequence ab = grit_sequence(m, t, {"A", "B"}, 100.0);
+  REQUIRE_FALSE(ab.needed);
+  REQUIRE(ab.finer_grit == "C");
+  REQUIRE(ab.final_ra_um == 0.3);
+  REQUIRE(ab.verdict ==
+          "no sanding needed: the machined Ra 0.3 um is already at or below the Ra B leaves "
+          "(0.5 um)");
 }
 
 TEST_CASE("default_grit_table: FEPA P-grade sizes and the labelled fractions", "[finish]") {

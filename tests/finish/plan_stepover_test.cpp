@@ -88,7 +88,12 @@ TEST_CASE("plan_stepover: the best option always meets the spec", "[finish]") {
   }
   REQUIRE(cheaper_miss);  // the choice really passed over cheaper options that miss the spec
   r.spec.target_ra_um = 0.05;
-  r.spec.sanding = SandingMode::Always;  // P400 leaves 0.35 um: nothing meets 0.05 um
+  r.spec.sanding = SandingMode::Always;  // P400 leaves 0.35 um: sanding cannot reach 0.05 um
+  for (const PlanOption& o : plan_stepover(r).options) {
+    // Only options machined finer than the target meet it, unsanded (issue 13).
+    if (o.meets_spec) REQUIRE((!o.sanded && o.surface.ra_um <= 0.05));
+  }
+  r.spec.target_scallop_um = 1e-6;  // no machined floor nor any scratch is this flat
   REQUIRE_FALSE(plan_stepover(r).best.has_value());
 }
 
@@ -115,9 +120,13 @@ TEST_CASE("issue_7: a one-way flat-end raster at 0.020 in plus sanding beats a f
   const PlanResult plan = plan_stepover(r);
   REQUIRE(plan.best.has_value());
   REQUIRE(plan.options[*plan.best].tool == "1/2 in flat");
-  // At equal stepover the passes cost the same machine time; the flat's marks are tiny, so it
-  // wins on the bench: it only runs the last grade.
-  REQUIRE(plan.options[*plan.best].allowance->grits.steps.size() == 1);
+  // At equal stepover the passes cost the same machine time; the flat's marks are tiny (Ra far
+  // below the 0.35 um P400 leaves), so it wins on the bench: sanding would only make it
+  // rougher, so even with --sand always it is not sanded (issue 13) and ends as machined.
+  const PlanOption& best = plan.options[*plan.best];
+  REQUIRE_FALSE(best.sanded);
+  REQUIRE(best.bench_time_s == 0.0);
+  REQUIRE(best.final_ra_um == best.surface.ra_um);
 }
 
 }  // namespace cuspmap

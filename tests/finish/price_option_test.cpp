@@ -142,4 +142,26 @@ TEST_CASE("cheapest_option: optimum moves to finer stepovers as the bench rate r
   REQUIRE(distinct >= 3);  // the optimum really moves, not a flat answer
 }
 
+TEST_CASE("price_option: issue_13: --sand always never ends rougher than machined", "[finish]") {
+  PlanSpec spec = base_spec();
+  spec.sanding = SandingMode::Always;
+  // Ball D6 at 0.1 mm: Ra ~ 0.11 um (handbook cusp x 4/(9 sqrt 3)), finer than the 0.35 um P400
+  // leaves (default table, from memory): the option ends as machined, with no bench time.
+  const PlanOption fine = price_all(spec, {0.1}).front();
+  REQUIRE_FALSE(fine.sanded);
+  REQUIRE(fine.bench_time_s == 0.0);
+  REQUIRE(fine.final_ra_um == fine.surface.ra_um);
+  REQUIRE(fine.meets_spec);
+  REQUIRE(fine.reason.rfind("no sanding needed", 0) == 0);
+  // At 1.5 mm the marks are coarser than P400's: sanded, ending at P400's Ra.
+  const PlanOption coarse = price_all(spec, {1.5}).front();
+  REQUIRE(coarse.sanded);
+  REQUIRE(coarse.final_ra_um < coarse.surface.ra_um);
+  // Judged by the finish they end with: with free machine time the fine option ends finer.
+  spec.machine_rate_per_hour = 0.0;
+  spec.bench_rate_per_hour = 0.0;
+  const std::vector<PlanOption> both = price_all(spec, {1.5, 0.1});
+  REQUIRE(cheapest_option(both) == std::optional<std::size_t>(1));
+}
+
 }  // namespace cuspmap

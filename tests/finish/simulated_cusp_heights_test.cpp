@@ -25,8 +25,8 @@ void require_agreement(const Cutter& cutter, double stepover_mm) {
   REQUIRE_NEAR(sim.sp_um, exact.sp_um, kSimulatedRel * exact.sp_um);
   REQUIRE_NEAR(sim.sa_um, exact.ra_um, kSimulatedRel * exact.ra_um);
   const GritTable t = default_grit_table();
-  const Allowance a = sanding_allowance(exact, t, t.sequence, 10000.0, std::nullopt);
-  const Allowance b = sanding_allowance(sim, t, t.sequence, 10000.0, std::nullopt);
+  const Allowance a = sanding_allowance(exact, t, t.sequence, 10000.0, std::nullopt, std::nullopt);
+  const Allowance b = sanding_allowance(sim, t, t.sequence, 10000.0, std::nullopt, std::nullopt);
   REQUIRE_NEAR(b.depth_to_clear_um, a.depth_to_clear_um, kSimulatedRel * a.depth_to_clear_um);
   REQUIRE_NEAR(b.mean_removal_um, a.mean_removal_um, kSimulatedRel * a.mean_removal_um);
   REQUIRE_NEAR(b.stock_mean_nominal_um, a.stock_mean_nominal_um,
