@@ -13,12 +13,14 @@
 namespace cuspmap {
 
 /// Simulates every job (progress bar on a terminal) and renders its pictures; height.png of all
-/// jobs share `range`, or the overall min..max when it is empty.
+/// jobs share `range`, or the overall min..max when it is empty; height_own.png shows each floor
+/// on its own range.
 std::vector<CompareRow> run_comparison(const std::vector<Job>& jobs, RunOptions options,
                                        std::optional<HeightRange> range, LengthUnit units,
                                        bool verbose);
 
-/// Writes <n>_<name>_height.png / _shaded.png / _profile.png, montage.png, compare.csv,
+/// Writes <n>_<name>_height.png (shared scale) / _height_own.png (own range) / _shaded.png /
+/// _detail.png / _detail_shaded.png / _profile.png, montage.png, compare.csv,
 /// compare.json and, when html_path is not empty, the HTML page (extra notes appended).
 /// @return compare.json's document
 nlohmann::json write_comparison(OutputDir& dir, const std::vector<CompareRow>& rows,
