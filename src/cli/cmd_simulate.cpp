@@ -176,6 +176,10 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   }
   dir.write("height.png", pics.height_png);
   dir.write("shaded.png", pics.shaded_png);
+  if (pics.has_detail) {
+    dir.write("detail.png", pics.detail_png);
+    dir.write("detail_shaded.png", pics.detail_shaded_png);
+  }
   if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
   if (!o.report_html.empty()) {
     write_file_atomic(o.report_html,
@@ -189,6 +193,12 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   report["model"] = kKinematicBestCase;
   const std::string fine = fine_ra_caution(run.texture.profile.roughness.a_um);
   report["cautions"] = fine.empty() ? nlohmann::json::array() : nlohmann::json::array({fine});
+  if (pics.has_detail) {
+    const DetailWindow& w = pics.detail;
+    report["detail"] = {{"x0_mm", w.x0_mm},         {"y0_mm", w.y0_mm},
+                        {"size_x_mm", w.size_x_mm}, {"size_y_mm", w.size_y_mm},
+                        {"Sq_um", w.sq_um},         {"zoom", pics.detail_shaded.zoom}};
+  }
   report["memory"] = {{"mode", run.streamed ? "streamed" : "in-memory"},
                       {"peak_grid_bytes", run.peak_grid_bytes}};
   if (run.streamed) {

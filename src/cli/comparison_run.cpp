@@ -41,7 +41,11 @@ Comparison run_comparison(const std::vector<Job>& jobs, RunOptions options,
     }
     if (shared.hi_um > shared.lo_um) range = shared;
   }
-  for (CompareRow& row : rows) row.pictures = render_simulation_pictures(row.run, units, range);
+  // Every floor on the shared scale (to compare heights) and on its own range (so a shallow
+  // floor's marks show beside a deep one's).
+  for (CompareRow& row : rows) {
+    row.pictures = render_simulation_pictures(row.run, units, range, 0, /*own_range_too=*/true);
+  }
   return comparison;
 }
 
@@ -52,7 +56,14 @@ nlohmann::json write_comparison(OutputDir& dir, const Comparison& comparison,
   for (size_t k = 0; k < rows.size(); ++k) {
     const std::string stem = std::to_string(k + 1) + "_" + safe_file_stem(rows[k].job.name);
     dir.write(stem + "_height.png", rows[k].pictures.height_png);
+    if (!rows[k].pictures.height_own_png.empty()) {
+      dir.write(stem + "_height_own.png", rows[k].pictures.height_own_png);
+    }
     dir.write(stem + "_shaded.png", rows[k].pictures.shaded_png);
+    if (rows[k].pictures.has_detail) {
+      dir.write(stem + "_detail.png", rows[k].pictures.detail_png);
+      dir.write(stem + "_detail_shaded.png", rows[k].pictures.detail_shaded_png);
+    }
     if (!rows[k].pictures.profile_png.empty()) {
       dir.write(stem + "_profile.png", rows[k].pictures.profile_png);
     }

@@ -20,12 +20,14 @@ struct Comparison {
 
 /// Simulates every job (progress bar on a terminal), puts their profile parameters on one basis
 /// (job/common_profile_basis.h) and renders their pictures; height.png of all jobs share
-/// `range`, or the overall min..max when it is empty.
+/// `range`, or the overall min..max when it is empty; height_own.png shows each floor on its own
+/// range.
 Comparison run_comparison(const std::vector<Job>& jobs, RunOptions options,
                                        std::optional<HeightRange> range, LengthUnit units,
                                        bool verbose);
 
-/// Writes <n>_<name>_height.png / _shaded.png / _profile.png, montage.png, compare.csv,
+/// Writes <n>_<name>_height.png (shared scale) / _height_own.png (own range) / _shaded.png /
+/// _detail.png / _detail_shaded.png / _profile.png, montage.png, compare.csv,
 /// compare.json and, when html_path is not empty, the HTML page (extra notes appended).
 /// @return compare.json's document
 nlohmann::json write_comparison(OutputDir& dir, const Comparison& comparison,

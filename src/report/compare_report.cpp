@@ -7,6 +7,7 @@
 
 #include "cusp/kinematic_limits.h"
 #include "report/montage.h"
+#include "report/nice_ticks.h"
 #include "io/texture_json.h"
 
 namespace cuspmap {
@@ -201,7 +202,7 @@ std::string compare_table_text(const std::vector<CompareRow>& rows, const Profil
 }
 
 Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units) {
-  std::vector<MontageTile> tiles;
+  std::vector<MontageTile> tiles, details;
   for (size_t r = 0; r < rows.size(); ++r) {
     const CompareRow& row = rows[r];
     MontageTile t;
@@ -212,12 +213,32 @@ Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units) {
                      "feed " + length_text(row.job.cut.feed_mm_per_min, units) + "/min, " +
                          format_number(row.job.cut.rpm) + " rpm"};
     tiles.push_back(std::move(t));
+    if (!row.pictures.has_detail) continue;
+    const DetailWindow& w = row.pictures.detail;
+    MontageTile d;
+    d.image = row.pictures.detail_shaded.image;
+    d.mm_per_px = row.pictures.detail_shaded.mm_per_px;
+    d.label_lines = {std::to_string(r + 1) + ". detail, x " + length_text(w.x0_mm, units) + " to " +
+                         length_text(w.x0_mm + w.size_x_mm, units),
+                     "y " + length_text(w.y0_mm, units) + " to " +
+                         length_text(w.y0_mm + w.size_y_mm, units),
+                     "exaggerated x " + format_significant(row.pictures.detail_shaded.exaggeration, 3)};
+    details.push_back(std::move(d));
   }
   MontageOptions opt;
   opt.units = units;
   opt.columns = std::min<int>(4, static_cast<int>(std::max<size_t>(1, rows.size())));
-  opt.title = "Shaded floors on one scale (light from the upper left)";
-  return render_montage(tiles, opt);
+  opt.title = "Shaded floors on one scale (light from the upper left); orange: detail windows";
+  const Image overview = render_montage(tiles, opt);
+  if (details.empty()) return overview;
+  opt.title = "Details at native resolution, on one scale: each where its floor's marks are deepest";
+  const Image detail = render_montage(details, opt);
+  // The two sheets one above the other, on one white page.
+  Image page = make_image(std::max(overview.width, detail.width), overview.height + detail.height,
+                          std::max(overview.channels, detail.channels), kWhite);
+  blit(overview, page, 0, 0);
+  blit(detail, page, 0, overview.height);
+  return page;
 }
 
 HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const ProfileBasis& basis,
@@ -277,12 +298,23 @@ HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const Profil
     if (!fine.empty()) r.notes.push_back(std::to_string(k + 1) + ": " + fine);
   }
   r.tables.push_back(std::move(t));
-  r.images.push_back({montage_png, "shaded floors side by side",
-                      "Shaded relief of each floor on one scale; light from the upper left; "
-                      "vertical exaggeration chosen per floor so its marks show."});
+  r.images.push_back({montage_png, "shaded floors and details side by side",
+                      "Top: shaded relief of each floor on one scale, light from the upper left, "
+                      "vertical exaggeration chosen per floor so its marks show; the orange square "
+                      "is the detail window. Bottom: each detail window at native resolution, on "
+                      "one scale of its own (see the scale bars)."});
   for (const CompareRow& row : rows) {
-    r.images.push_back({row.pictures.height_png, "height map of " + row.job.name,
+    r.images.push_back({row.pictures.height_png, "height map of " + row.job.name + ", shared scale",
                         row.job.name + ": " + row.pictures.height_caption});
+    if (!row.pictures.height_own_png.empty()) {
+      r.images.push_back({row.pictures.height_own_png,
+                          "height map of " + row.job.name + ", own range",
+                          row.job.name + ": " + row.pictures.height_own_caption});
+    }
+    if (row.pictures.has_detail) {
+      r.images.push_back({row.pictures.detail_png, "detail of " + row.job.name,
+                          row.job.name + ": " + row.pictures.detail_caption});
+    }
   }
   return r;
 }

@@ -1,6 +1,7 @@
 // The comparison of several simulated jobs: rows of Ra, Rz, Sa, Sz, cusp, path length, cycle time
 // and sanding figures, the best value per column, as JSON, CSV, a terminal table, a labelled
-// montage of the shaded floors on one scale, and an HTML page. Heights um, lengths mm, times s.
+// montage of the shaded floors on one scale over their native-resolution details, and an HTML
+// page. Heights um, lengths mm, times s.
 #pragma once
 
 #include <nlohmann/json.hpp>
@@ -58,7 +59,8 @@ std::string compare_csv(const std::vector<CompareRow>& rows);
 std::string compare_table_text(const std::vector<CompareRow>& rows, const ProfileBasis& basis,
                                LengthUnit units);
 
-/// Shaded floors side by side on one scale, each labelled (path, tool, stepover, feed).
+/// Shaded floors side by side on one scale, each labelled (path, tool, stepover, feed), with
+/// their detail windows outlined; below them the detail reliefs on one (finer) scale.
 Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units);
 
 /// The HTML page: inputs per job, the table with best values marked, the montage, cautions.

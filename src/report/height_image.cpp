@@ -10,6 +10,7 @@
 #include "core/input_error.h"
 #include "report/legend.h"
 #include "report/nice_ticks.h"
+#include "report/text_render.h"
 
 namespace cuspmap {
 namespace {
@@ -55,19 +56,22 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
   }
 
   out.cells_per_pixel = cells_per_pixel_for(hf.nx, hf.ny, options.max_pixels);
-  out.mm_per_px = out.cells_per_pixel * hf.cell_mm;
+  out.zoom = out.cells_per_pixel == 1 ? std::max(options.zoom, 1) : 1;
+  out.mm_per_px = out.cells_per_pixel * hf.cell_mm / out.zoom;
   const HeightGrid blocks = reduce_blocks(hf.z_um, out.cells_per_pixel, options.downsample);
-  out.map_width_px = static_cast<int>(blocks.cols());
-  out.map_height_px = static_cast<int>(blocks.rows());
+  const int zoom = out.zoom;
+  out.map_width_px = static_cast<int>(blocks.cols()) * zoom;
+  out.map_height_px = static_cast<int>(blocks.rows()) * zoom;
   Image map = make_image(out.map_width_px, out.map_height_px, 1, kWhite);
   for (int r = 0; r < out.map_height_px; ++r) {
-    const int block_row = out.map_height_px - 1 - r;  // image top = highest Y
+    const int block_row = static_cast<int>(blocks.rows()) - 1 - r / zoom;  // top = highest Y
     for (int c = 0; c < out.map_width_px; ++c) {
-      const int level = height_gray_level(blocks(block_row, c), out.lo_um, out.hi_um);
+      const int level = height_gray_level(blocks(block_row, c / zoom), out.lo_um, out.hi_um);
       if (level == kUnreachedLevel) ++out.unreached_pixels;
       map.at(c, r) = static_cast<std::uint8_t>(level);
     }
   }
+  out.unreached_pixels /= zoom * zoom;
   if (!options.legend) {
     out.image = std::move(map);
     return out;
@@ -84,10 +88,15 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
   // The map sits in a black frame one pixel outside it, so the white margin is never mistaken for
   // unreached cells; the legend's ramp top lines up with the map's top row.
   out.map_x_px = kMarginPx;
-  out.map_y_px = std::max(kMarginPx, legend_ramp_top_px(spec));
+  const int title_h = options.title.empty()
+                          ? 0
+                          : measure_text(options.title, options.text_scale).height_px + kMarginPx;
+  out.map_y_px = title_h + std::max(kMarginPx, legend_ramp_top_px(spec));
   const int legend_x = out.map_x_px + out.map_width_px + kMarginPx;
   const int legend_y = out.map_y_px - legend_ramp_top_px(spec);
-  const int width = legend_x + legend.width;
+  const int width =
+      std::max(legend_x + legend.width,
+               kMarginPx + measure_text(options.title, options.text_scale).width_px + kMarginPx);
   const int height =
       std::max(out.map_y_px + out.map_height_px + kMarginPx, legend_y + legend.height);
   out.image = make_image(width, height, 1, kWhite);
@@ -95,6 +104,9 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
             out.map_height_px + 2, kBlack);
   blit(map, out.image, out.map_x_px, out.map_y_px);
   blit(legend, out.image, legend_x, legend_y);
+  if (!options.title.empty()) {
+    draw_text(out.image, kMarginPx, kMarginPx, options.title, {options.text_scale, kBlack});
+  }
   return out;
 }
 
@@ -112,12 +124,21 @@ std::string height_image_caption(const HeightImage& image, LengthUnit units) {
   text.append(format_fixed(lo, decimals)).append(" ").append(u);
   text.append(", light gray = ").append(format_fixed(hi, decimals)).append(" ").append(u);
   text.append(" (").append(format_significant(step, 3)).append(" ").append(u);
+  const char* length_unit = units == LengthUnit::Inch ? " in" : " mm";
+  if (image.zoom > 1) {
+    const std::string m = std::to_string(image.zoom);
+    text.append(" per gray level); white = not reached; 1 cell (")
+        .append(format_number(px * image.zoom))
+        .append(length_unit);
+    text.append(") = ").append(m).append(" x ").append(m).append(" pixels.");
+    return text;
+  }
   text.append(" per gray level); white = not reached; 1 pixel = ")
       .append(k)
       .append(" x ")
       .append(k);
   text.append(" cells (").append(format_significant(px, 3));
-  text.append(units == LengthUnit::Inch ? " in)." : " mm).");
+  text.append(length_unit).append(").");
   return text;
 }
 

@@ -1,7 +1,8 @@
 // height.png: a heightfield as an 8-bit grayscale picture seen from above (+Y up), black = the
 // lowest height of the range, gray 254 = the highest, pure white (255) = cells no move reached,
 // with an optional legend giving the range in um or uin. Cost: O(cells + pixels).
-// Method: linear gray mapping of heights; k x k block mean/min decimation (io/reduce_blocks).
+// Method: linear gray mapping of heights; anti-aliased k x k decimation (report/reduce_blocks);
+// whole-pixel magnification (pixel replication) for detail views.
 #pragma once
 
 #include <optional>
@@ -25,9 +26,15 @@ struct HeightImageOptions {
   std::optional<HeightRange> range;           ///< empty = min..max of the finite cells (auto)
   LengthUnit units = LengthUnit::Millimetre;  ///< legend labels in um (mm) or uin (in)
   int max_pixels = 1024;  ///< longest side of the map part; larger grids are block-reduced
-  BlockReduce downsample = BlockReduce::Mean;  ///< how k x k cells become one pixel
+  BlockReduce downsample = BlockReduce::AntiAlias;  ///< how k x k cells become one pixel
+  /// > 1 draws each cell as zoom x zoom pixels (detail views at native resolution; only when the
+  /// grid is not reduced, k = 1). 1 = off.
+  int zoom = 1;
   bool legend = true;  ///< add the legend (and a margin and frame) right of the map
   int text_scale = 2;  ///< legend text size
+  /// One line drawn above the map when a legend is drawn (e.g. which scale the picture uses);
+  /// empty = none.
+  std::string title;
 };
 
 /// The picture and the numbers the report states about it.
@@ -37,11 +44,12 @@ struct HeightImage {
   double hi_um = 0.0;         ///< height drawn as gray 254
   double um_per_level = 0.0;  ///< (hi - lo) / 254: height step of one gray level, um
   int cells_per_pixel = 1;  ///< k: each pixel covers k x k cells (partial blocks at +X / -Y edges)
-  double mm_per_px = 0.0;   ///< k x cell size
+  int zoom = 1;             ///< each cell drawn as zoom x zoom pixels (k = 1 then)
+  double mm_per_px = 0.0;   ///< k x cell size / zoom
   int map_x_px = 0;         ///< column of the map's left edge in `image`
   int map_y_px = 0;         ///< row of the map's top edge in `image`
-  int map_width_px = 0;     ///< ceil(nx / k)
-  int map_height_px = 0;    ///< ceil(ny / k)
+  int map_width_px = 0;     ///< ceil(nx / k) x zoom
+  int map_height_px = 0;    ///< ceil(ny / k) x zoom
   std::int64_t clamped_cells = 0;     ///< finite cells outside a fixed range (drawn 0 or 254)
   std::int64_t unreached_pixels = 0;  ///< map pixels drawn white (no finite cell in the block)
 };
@@ -60,7 +68,7 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
 
 /// One-line caption for reports, in the display unit, e.g. "Height seen from above, +Y up: black
 /// = 0.00 um, light gray = 8.50 um (0.0335 um per gray level); white = not reached; 1 pixel =
-/// 2 x 2 cells (0.01 mm)."
+/// 2 x 2 cells (0.01 mm)." (zoomed: "1 cell (0.005 mm) = 2 x 2 pixels.")
 std::string height_image_caption(const HeightImage& image, LengthUnit units);
 
 }  // namespace cuspmap

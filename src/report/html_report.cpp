@@ -69,12 +69,22 @@ constexpr const char* kHowToRead = R"html(
 <dd>The floor seen from above, +Y up. Dark is low, light is high; the legend gives the height
 range in the units shown. Pure white marks spots the tool never reached. Unless a fixed range
 was set, each picture stretches its own lowest-to-highest range, so compare pictures by their
-legends, not by their grays.</dd>
+legends, not by their grays. Where several floors are compared, each floor has two height
+pictures, titled on the picture: one on the <em>shared scale</em> (the same gray is the same
+height on every floor, so a shallow floor looks dark and even) and one on its <em>own
+range</em> (its lowest point black, its highest light gray, so its marks show).</dd>
 <dt>Shaded picture</dt>
 <dd>The same floor lit from one side at a low angle, with the heights exaggerated (the factor is
 in the caption). It shows the lay &mdash; the direction, spacing and pattern of the tool marks
 &mdash; the way a work light held at a grazing angle does, even where the marks are far shallower
-than a micrometre. Use it to judge the look and the pattern, not the depth.</dd>
+than a micrometre. Use it to judge the look and the pattern, not the depth. A whole floor is
+drawn with several cells per pixel, averaged so that marks finer than a pixel (tooth marks on a
+large floor) show as an even gray rather than as false stripes.</dd>
+<dt>Detail pictures</dt>
+<dd>A window of about 1.5 mm drawn cell by cell, placed where the marks are deepest and
+outlined in orange on the whole-floor pictures; the caption gives its position. Here single
+tooth marks &mdash; the rim arcs of a flat end mill, the feed marks of a ball &mdash; can be
+counted; their spacing is the feed per tooth.</dd>
 <dt>Ra</dt>
 <dd>The average distance of a profile from its mean line: the number most drawings call for.</dd>
 <dt>Rz</dt>

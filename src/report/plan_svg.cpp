@@ -1,6 +1,7 @@
 // SVG chart of a stepover plan: total, machine and bench cost against stepover (log axis) per
 // tool, spec misses hollow, the best option ringed. Pure text encoder. O(options).
-// Method: SVG 1.1 (W3C, 2011); 1-2-5 tick series on both axes.
+// Method: SVG 1.1 (W3C, 2011); 1-2-5 tick series on both axes; direct series labels pushed
+// apart in y (greedy one-dimensional label placement), legend text wrapped to the panel.
 #include "report/plan_svg.h"
 
 #include <algorithm>
@@ -8,6 +9,8 @@
 #include <charconv>
 #include <cmath>
 #include <limits>
+#include <string_view>
+#include <vector>
 
 #include "core/units.h"
 #include "report/html_report.h"
@@ -18,6 +21,12 @@ namespace {
 // Layout of the chart, px.
 constexpr double kLeftPx = 72.0, kRightPx = 230.0, kTopPx = 48.0, kBottomPx = 56.0;
 // Tool colours: a qualitative palette chosen for contrast on white (no outside scheme).
+constexpr double kCharEm = kPlanSvgCharEm;
+constexpr double kFontPx = 12.0;     // the document's font size
+constexpr double kLinePitchPx = 16.0;  // legend and label line pitch at kFontPx
+// Vertical offset between the lines of successive tools, px: lines of equal cost (two tools'
+// bench costs when neither needs sanding) lie side by side instead of one hiding the other.
+constexpr double kSeriesOffsetPx = 3.0;
 constexpr std::array<const char*, 6> kColours = {"#1f5fa8", "#c2491d", "#2e8b3a",
                                                  "#7b3fa0", "#8a6d1d", "#2a8a8a"};
 
@@ -35,6 +44,48 @@ double nice_step(double span, double target) {
     if (m * mag >= raw) return m * mag;
   }
   return 10.0 * mag;
+}
+
+// Splits text at spaces into lines no wider than max_px (a single longer word is cut with "...").
+std::vector<std::string> wrap_text(const std::string& text, double max_px, double font_px) {
+  const auto max_chars =
+      static_cast<std::size_t>(std::max(4.0, std::floor(max_px / (kCharEm * font_px))));
+  std::vector<std::string> lines;
+  std::string line;
+  std::size_t start = 0;
+  while (start <= text.size()) {
+    std::size_t end = text.find(' ', start);
+    if (end == std::string::npos) end = text.size();
+    std::string word = text.substr(start, end - start);
+    if (word.size() > max_chars) word = word.substr(0, max_chars - 3) + "...";
+    if (!line.empty() && line.size() + 1 + word.size() > max_chars) {
+      lines.push_back(line);
+      line.clear();
+    }
+    line += (line.empty() ? "" : " ") + word;
+    start = end + 1;
+  }
+  if (!line.empty()) lines.push_back(line);
+  return lines;
+}
+
+// Pushes label centres apart to at least `gap` while keeping them inside [lo, hi]: sorted, then
+// a forward pass (down from lo), then a backward pass (up from hi).
+std::vector<double> spread_labels(std::vector<double> y, double gap, double lo, double hi) {
+  std::vector<std::size_t> order(y.size());
+  for (std::size_t k = 0; k < order.size(); ++k) order[k] = k;
+  std::sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) { return y[a] < y[b]; });
+  double next = lo;
+  for (const std::size_t k : order) {
+    y[k] = std::max(y[k], next);
+    next = y[k] + gap;
+  }
+  double limit = hi;
+  for (auto it = order.rbegin(); it != order.rend(); ++it) {
+    y[*it] = std::min(y[*it], limit);
+    limit = y[*it] - gap;
+  }
+  return y;
 }
 
 struct Axes {
@@ -134,17 +185,22 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
          "\" width=\"" + num(ax.x1 - ax.x0) + "\" height=\"" + num(ax.y1 - ax.y0 + 8) +
          "\"/></clipPath>\n<g clip-path=\"url(#plot)\" fill=\"none\">\n";
 
+  // Where each tool's total line ends (its label's anchor), px.
+  std::vector<double> end_y(tools.size(), 0.0);
   for (std::size_t t = 0; t < tools.size(); ++t) {
     const std::string colour = kColours[t % kColours.size()];
+    const double dy = (static_cast<double>(t) - 0.5 * static_cast<double>(tools.size() - 1)) *
+                      kSeriesOffsetPx;
     std::string total, machine, bench, dots;
     for (const PlanOption& p : plan.options) {
       if (p.tool != tools[t]) continue;
       const std::string x = num(ax.x(p.stepover_mm));
-      total += x + "," + num(ax.y(p.cost)) + " ";
-      machine += x + "," + num(ax.y(p.machine_cost)) + " ";
-      bench += x + "," + num(ax.y(p.bench_cost)) + " ";
-      dots += "<circle cx=\"" + x + "\" cy=\"" + num(ax.y(p.cost)) + "\" r=\"3.5\" stroke=\"" +
+      total += x + "," + num(ax.y(p.cost) + dy) + " ";
+      machine += x + "," + num(ax.y(p.machine_cost) + dy) + " ";
+      bench += x + "," + num(ax.y(p.bench_cost) + dy) + " ";
+      dots += "<circle cx=\"" + x + "\" cy=\"" + num(ax.y(p.cost) + dy) + "\" r=\"3.5\" stroke=\"" +
               colour + "\" fill=\"" + (p.meets_spec ? colour : std::string("white")) + "\"/>\n";
+      end_y[t] = ax.y(p.cost) + dy;
     }
     svg += "<polyline points=\"" + machine + "\" stroke=\"" + colour +
            "\" stroke-width=\"1.3\" stroke-dasharray=\"7 4\"/>\n";
@@ -155,53 +211,86 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   }
   if (plan.best) {
     const PlanOption& b = plan.options[*plan.best];
-    svg += "<circle cx=\"" + num(ax.x(b.stepover_mm)) + "\" cy=\"" + num(ax.y(b.cost)) +
+    const auto t = static_cast<double>(std::find(tools.begin(), tools.end(), b.tool) - tools.begin());
+    const double dy = (t - 0.5 * static_cast<double>(tools.size() - 1)) * kSeriesOffsetPx;
+    svg += "<circle cx=\"" + num(ax.x(b.stepover_mm)) + "\" cy=\"" + num(ax.y(b.cost) + dy) +
            "\" r=\"9\" stroke=\"black\" stroke-width=\"2\"/>\n";
   }
   svg += "</g>\n";
 
-  // Legend.
+  // Legend first (it takes the top of the panel right of the plot), then the series labels below
+  // it, each joined to the end of its tool's total line by a thin leader.
+  std::string legend;
   double ly = kTopPx + 6;
   const double lx = w - kRightPx + 16;
-  for (std::size_t t = 0; t < tools.size(); ++t) {
-    svg += "<rect x=\"" + num(lx) + "\" y=\"" + num(ly - 9) +
-           "\" width=\"14\" height=\"10\" fill=\"" + kColours[t % kColours.size()] +
-           "\"/><text x=\"" + num(lx + 20) + "\" y=\"" + num(ly) + "\">" + html_escape(tools[t]) +
-           "</text>\n";
-    ly += 18;
+  const double legend_w = w - lx - 8;
+  std::vector<std::vector<std::string>> label_lines;
+  for (const std::string& tool : tools) {
+    label_lines.push_back(wrap_text(tool, legend_w - 20, kFontPx));
   }
-  ly += 8;
+  const auto text_lines = [&](const std::string& text, double x, const std::string& attrs) {
+    for (const std::string& line : wrap_text(text, legend_w - (x - lx), kFontPx)) {
+      legend += "<text x=\"" + num(x) + "\" y=\"" + num(ly) + "\"" + attrs + ">" +
+                html_escape(line) + "</text>\n";
+      ly += kLinePitchPx;
+    }
+  };
   const std::array<std::pair<const char*, const char*>, 3> kStyles = {
       {{"", "total"}, {"7 4", "machine"}, {"2 3", "bench (sanding)"}}};
   for (const auto& [dash, name] : kStyles) {
-    svg += "<line x1=\"" + num(lx) + "\" x2=\"" + num(lx + 24) + "\" y1=\"" + num(ly - 4) +
-           "\" y2=\"" + num(ly - 4) + "\" stroke=\"#444444\" stroke-width=\"1.6\"" +
-           (*dash ? std::string(" stroke-dasharray=\"") + dash + "\"" : std::string()) +
-           "/><text x=\"" + num(lx + 30) + "\" y=\"" + num(ly) + "\">" + name + "</text>\n";
-    ly += 18;
+    legend += "<line x1=\"" + num(lx) + "\" x2=\"" + num(lx + 24) + "\" y1=\"" + num(ly - 4) +
+              "\" y2=\"" + num(ly - 4) + "\" stroke=\"#444444\" stroke-width=\"1.6\"" +
+              (*dash ? std::string(" stroke-dasharray=\"") + dash + "\"" : std::string()) + "/>";
+    text_lines(name, lx + 30, "");
   }
-  svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">filled: meets the spec</text>\n";
-  ly += 18;
-  svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">hollow: misses it</text>\n";
-  ly += 26;
+  text_lines("filled: meets the spec", lx, "");
+  text_lines("hollow: misses it", lx, "");
+  if (tools.size() > 1) {
+    text_lines("tools' lines drawn " + format_number(kSeriesOffsetPx) +
+                   " px apart so none hides another",
+               lx, "");
+  }
+  ly += 8;
   if (plan.best) {
     const PlanOption& b = plan.options[*plan.best];
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) +
-           "\" font-weight=\"bold\">ringed: best</text>\n";
-    ly += 18;
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">" + html_escape(b.tool) + " at " +
-           format_number(b.stepover_mm / unit) + (o.inch ? " in" : " mm") + "</text>\n";
-    ly += 18;
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">cost " + num(b.cost, 2) + "</text>\n";
+    text_lines("ringed: best", lx, " font-weight=\"bold\"");
+    text_lines(b.tool + " at " + format_number(b.stepover_mm / unit) + (o.inch ? " in" : " mm"), lx,
+               "");
+    text_lines("cost " + num(b.cost, 2), lx, "");
   } else {
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) +
-           "\" font-weight=\"bold\">no option meets the spec</text>\n";
+    text_lines("no option meets the spec", lx, " font-weight=\"bold\"");
   }
   if (max_total > ax.cost_hi) {
-    ly += 26;
-    svg += "<text x=\"" + num(lx) + "\" y=\"" + num(ly) + "\">costs above " +
-           format_number(ax.cost_hi) + " run off the top</text>\n";
+    ly += 8;
+    text_lines("costs above " + format_number(ax.cost_hi) + " run off the top", lx, "");
   }
+  // The series labels: a coloured swatch and the tool's name, in the panel below the legend,
+  // each level with its line's end where there is room (pushed apart, kept in the picture).
+  std::vector<double> want(tools.size()), height(tools.size());
+  for (std::size_t t = 0; t < tools.size(); ++t) {
+    height[t] = kLinePitchPx * static_cast<double>(label_lines[t].size());
+    want[t] = end_y[t] - 8;  // the swatch's middle level with the line's end
+  }
+  // Labels are placed as blocks of their own height: spread their tops with the tallest block as
+  // the gap (simple and never overlapping).
+  double gap = 0.0;
+  for (const double hgt : height) gap = std::max(gap, hgt + 2.0);
+  const double lo = ly + 8, hi = h - kBottomPx - gap + 12;
+  std::vector<double> top = spread_labels(want, gap, lo, std::max(lo, hi));
+  for (std::size_t t = 0; t < tools.size(); ++t) {
+    const std::string colour = kColours[t % kColours.size()];
+    svg += "<rect x=\"" + num(lx) + "\" y=\"" + num(top[t] + 3) + "\" width=\"14\" height=\"10\" fill=\"" +
+           colour + "\"/>\n";
+    svg += "<line x1=\"" + num(ax.x1) + "\" x2=\"" + num(lx - 2) + "\" y1=\"" + num(end_y[t]) +
+           "\" y2=\"" + num(top[t] + 8) + "\" stroke=\"" + colour + "\" stroke-width=\"0.8\"/>\n";
+    double y = top[t] + 12;
+    for (const std::string& line : label_lines[t]) {
+      svg += "<text x=\"" + num(lx + 20) + "\" y=\"" + num(y) + "\" fill=\"" + colour + "\">" +
+             html_escape(line) + "</text>\n";
+      y += kLinePitchPx;
+    }
+  }
+  svg += legend;
   return svg + "</svg>\n";
 }
 

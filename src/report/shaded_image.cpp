@@ -109,13 +109,16 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
   out.cells_per_pixel = options.cells_per_pixel > 0
                             ? options.cells_per_pixel
                             : cells_per_pixel_for(nx, ny, options.max_pixels);
-  out.mm_per_px = out.cells_per_pixel * hf.cell_mm;
-  const HeightGrid blocks = reduce_blocks(brightness, out.cells_per_pixel, BlockReduce::Mean);
-  const int w = static_cast<int>(blocks.cols()), h = static_cast<int>(blocks.rows());
+  out.zoom = out.cells_per_pixel == 1 ? std::max(options.zoom, 1) : 1;
+  out.mm_per_px = out.cells_per_pixel * hf.cell_mm / out.zoom;
+  const HeightGrid blocks = reduce_blocks(brightness, out.cells_per_pixel, BlockReduce::AntiAlias);
+  const int zoom = out.zoom;
+  const int bh = static_cast<int>(blocks.rows());
+  const int w = static_cast<int>(blocks.cols()) * zoom, h = bh * zoom;
   out.image = make_image(w, h, 1, kWhite);
   for (int r = 0; r < h; ++r) {
     for (int c = 0; c < w; ++c) {
-      const float b = blocks(h - 1 - r, c);  // image top = highest Y
+      const float b = blocks(bh - 1 - r / zoom, c / zoom);  // image top = highest Y
       out.image.at(c, r) = static_cast<std::uint8_t>(
           std::isfinite(b) ? std::lround(kTopHeightLevel * std::clamp(b, 0.0f, 1.0f))
                            : kUnreachedLevel);

@@ -22,6 +22,7 @@ struct ShadedImageOptions {
   std::optional<double> exaggeration;  ///< vertical exaggeration (> 0); empty = auto
   int max_pixels = 1024;               ///< longest side of the picture; larger grids are reduced
   int cells_per_pixel = 0;             ///< > 0 forces k (shared scale across pictures); 0 = auto
+  int zoom = 1;  ///< > 1 draws each cell as zoom x zoom pixels when k = 1 (detail views)
 };
 
 /// The picture and the numbers the report states about it.
@@ -32,7 +33,8 @@ struct ShadedImage {
   double light_elevation_deg = 0.0;  ///< as used (from options)
   double slope_p95 = 0.0;            ///< 95th percentile of the true |grad z| (dimensionless)
   int cells_per_pixel = 1;           ///< k: each pixel averages the shading of k x k cells
-  double mm_per_px = 0.0;            ///< k x cell size
+  int zoom = 1;                      ///< each cell drawn as zoom x zoom pixels (k = 1 then)
+  double mm_per_px = 0.0;            ///< k x cell size / zoom
 };
 
 /// Auto exaggeration aims the 95th-percentile slope at this angle: with the default 45 deg light
@@ -50,10 +52,11 @@ double lambert_brightness(double gx, double gy, double light_azimuth_deg,
                           double light_elevation_deg);
 
 /// Renders shaded.png. Shading is computed per cell at full resolution (gradients in um/mm
-/// divided by 1000 to be dimensionless, times the exaggeration), then block-averaged, as a camera
-/// pixel integrates light. Image row 0 = highest Y.
+/// divided by 1000 to be dimensionless, times the exaggeration), then reduced with the
+/// anti-aliased area mean (report/reduce_blocks), as a camera pixel integrates light, so marks
+/// finer than a pixel average to an even gray instead of moire. Image row 0 = highest Y.
 /// @param[in] hf  heightfield (um; NaN = not reached -> white); nx, ny >= 1, cell_mm > 0
-/// @return picture, exaggeration used (auto: tan(30 deg) / slope_p95; 1 when the floor is flat)
+/// @return picture (ceil(nx / k) zoom x ceil(ny / k) zoom), exaggeration used (auto: tan(30 deg) / slope_p95; 1 when the floor is flat)
 /// @throws InputError when the elevation is outside (0, 90] deg or a given exaggeration <= 0
 ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions& options);
 

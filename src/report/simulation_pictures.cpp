@@ -1,6 +1,7 @@
 // Pictures of one simulation (height, shaded relief, profiles), its .npy, and its HTML page.
 // Inputs: JobRun (um over mm cells); outputs: encoded PNG/.npy bytes and captions.
-// Method: io/height_image, io/shaded_image (Lambert), texture/ ISO 16610-21 mean line.
+// Method: report/height_image, report/shaded_image (Lambert), report/detail_window (deepest
+// marks), texture/ ISO 16610-21 mean line.
 #include "report/simulation_pictures.h"
 
 #include <algorithm>
@@ -73,22 +74,65 @@ std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
   return out;
 }
 
-SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,
-                                              const std::optional<HeightRange>& range,
-                                              int cells_per_pixel) {
-  SimulationPictures pics;
+HeightPictures render_height_pictures(const Heightfield& floor, LengthUnit units,
+                                      const std::optional<HeightRange>& range,
+                                      bool own_range_too) {
+  HeightPictures out;
   HeightImageOptions hopt;
   hopt.range = range;
   hopt.units = units;
-  const HeightImage height = render_height_image(run.floor, hopt);
-  pics.height_png = encode_png(height.image);
-  pics.height_caption = height_image_caption(height, units);
+  const bool both = range && own_range_too;
+  if (both) hopt.title = "Shared scale: the same gray is the same height on every floor";
+  out.shared = render_height_image(floor, hopt);
+  out.shared_caption = height_image_caption(out.shared, units);
+  if (!both) return out;
+  out.shared_caption = "Shared scale (all floors). " + out.shared_caption;
+  hopt.range.reset();
+  hopt.title = "Own range: this floor's lowest to highest point";
+  out.own = render_height_image(floor, hopt);
+  out.own_caption = "Own range (this floor only). " + height_image_caption(*out.own, units);
+  return out;
+}
+
+SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,
+                                              const std::optional<HeightRange>& range,
+                                              int cells_per_pixel, bool own_range_too) {
+  SimulationPictures pics;
+  // A streamed floor is only an overview (block means): a native-resolution detail of it
+  // cannot be drawn, so its pictures have none.
+  pics.has_detail = !run.streamed;
+  if (pics.has_detail) pics.detail = choose_detail_window(run.floor);
+  const HeightPictures heights = render_height_pictures(run.floor, units, range, own_range_too);
+  const auto outlined = [&](const HeightImage& h) {
+    return pics.has_detail ? outline_detail_window(h.image, h.map_x_px, h.map_y_px,
+                                                   h.map_height_px, h.cells_per_pixel, pics.detail)
+                           : h.image;
+  };
+  const HeightImage& height = heights.shared;
+  pics.height_png = encode_png(outlined(height));
+  pics.height_caption = heights.shared_caption;
+  if (heights.own) {
+    pics.height_own_png = encode_png(outlined(*heights.own));
+    pics.height_own_caption = heights.own_caption;
+  }
 
   ShadedImageOptions sopt;
   sopt.cells_per_pixel = cells_per_pixel;
   pics.shaded = render_shaded_image(run.floor, sopt);
+  if (pics.has_detail) {
+    pics.shaded.image = outline_detail_window(pics.shaded.image, 0, 0, pics.shaded.image.height,
+                                              pics.shaded.cells_per_pixel, pics.detail);
+  }
   pics.shaded_png = encode_png(pics.shaded.image);
   pics.shaded_caption = shaded_image_caption(pics.shaded);
+
+  if (pics.has_detail) {
+    DetailView view = render_detail_view(run.floor, pics.detail, units);
+    pics.detail_png = encode_png(view.height.image);
+    pics.detail_shaded_png = encode_png(view.shaded.image);
+    pics.detail_shaded = std::move(view.shaded);
+    pics.detail_caption = std::move(view.caption);
+  }
 
   ProfilePlotOptions popt;
   popt.units = units;
@@ -148,6 +192,11 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   r.tables.push_back(t);
   r.images.push_back({pictures.height_png, "height map", pictures.height_caption});
   r.images.push_back({pictures.shaded_png, "shaded relief", pictures.shaded_caption});
+  if (pictures.has_detail) {
+    r.images.push_back({pictures.detail_png, "detail: heights", pictures.detail_caption});
+    r.images.push_back({pictures.detail_shaded_png, "detail: shaded relief",
+                        shaded_image_caption(pictures.detail_shaded)});
+  }
   if (!pictures.profile_png.empty()) {
     r.profile_plots.push_back({pictures.profile_png, "profiles", pictures.profile_caption});
   }

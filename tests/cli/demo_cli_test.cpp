@@ -35,7 +35,11 @@ TEST_CASE("demo: --quick runs the built-in scenario end to end", "[cli]") {
     return names;
   }();
   for (const char* f : {"montage.png", "compare.csv", "compare.json", "report.html", "demo.json",
-                        "job_ball_raster.toml", "1_6_mm_ball__raster_0.3_mm_shaded.png"}) {
+                        "job_ball_raster.toml", "1_6_mm_ball__raster_0.3_mm_shaded.png",
+                        // issue 14: each floor on its own range too, and its detail view
+                        "2_6_mm_flat__1_deg_dish__one-way_0.5_mm_height_own.png",
+                        "2_6_mm_flat__1_deg_dish__one-way_0.5_mm_detail.png",
+                        "2_6_mm_flat__1_deg_dish__one-way_0.5_mm_detail_shaded.png"}) {
     INFO(f);
     CHECK(std::find(files.begin(), files.end(), f) != files.end());
   }

@@ -107,6 +107,7 @@ TEST_CASE("render_height_image: large grids are block-reduced by mean or minimum
   const Heightfield hf = field(10, 10, [](int i, int j) { return i + 100.0 * j; });
   HeightImageOptions o = no_legend();
   o.max_pixels = 4;
+  o.downsample = BlockReduce::Mean;
   o.range = HeightRange{0.0, 254.0 * 4.0};  // 4 um per level: level = z / 4
   const HeightImage mean = render_height_image(hf, o);
   REQUIRE(mean.cells_per_pixel == 3);
@@ -168,4 +169,23 @@ TEST_CASE("height_image_caption: states the range, the gray step and the pixel s
   // 127 um = 5000 uin (1 um = 39.37 uin).
   REQUIRE(height_image_caption(img, LengthUnit::Inch).find("light gray = 5000 uin") !=
           std::string::npos);
+}
+
+TEST_CASE("render_height_image: zoom draws each cell as zoom x zoom pixels; the caption says so",
+          "[report]") {
+  const Heightfield hf = field(6, 4, [](int i, int j) { return i + 10.0 * j; });
+  HeightImageOptions o = no_legend();
+  o.zoom = 5;
+  const HeightImage img = render_height_image(hf, o);
+  const HeightImage one = render_height_image(hf, no_legend());
+  REQUIRE(img.image.width == 30);
+  REQUIRE(img.image.height == 20);
+  REQUIRE(img.zoom == 5);
+  REQUIRE(img.unreached_pixels == 0);
+  for (int y = 0; y < 20; ++y) {
+    for (int x = 0; x < 30; ++x) REQUIRE(img.image.at(x, y) == one.image.at(x / 5, y / 5));
+  }
+  const std::string caption = height_image_caption(img, LengthUnit::Millimetre);
+  INFO(caption);
+  REQUIRE(caption.find("1 cell (0.01 mm) = 5 x 5 pixels.") != std::string::npos);
 }

@@ -155,3 +155,42 @@ TEST_CASE("shaded_image_caption: states the light and the exaggeration", "[repor
           "Shaded relief seen from above, +Y up: light from azimuth 135 deg (counter-clockwise "
           "from +X) at 45.0 deg elevation; heights exaggerated x 12.5; white = not reached.");
 }
+
+TEST_CASE("render_shaded_image: marks finer than a pixel average to an even gray (no moire)",
+          "[report]") {
+  // Tooth-mark-like ridges along X every 0.7 pixel (7 cells at 10 cells per pixel), 0.3 um deep,
+  // on 1200 x 120 cells: each cell is strongly lit or shadowed, but every pixel must show the same
+  // average brightness. Sampling theorem (Gonzalez & Woods, 3rd ed., 4.5); a plain 10 x 10 block
+  // mean leaves |sinc(10/7)| = 22% of the brightness ripple folded to a false 3.5-pixel period.
+  const Heightfield hf = field(1200, 120, 0.005, [](int i, int) {
+    return 0.15 * (1.0 - std::cos(2.0 * std::numbers::pi * i / 7.0));
+  });
+  ShadedImageOptions o;
+  o.max_pixels = 120;
+  o.light_azimuth_deg = 180.0;  // light across the ridges: the strongest ripple per cell
+  const ShadedImage img = render_shaded_image(hf, o);
+  REQUIRE(img.cells_per_pixel == 10);
+  int lo = 255, hi = 0;
+  for (int y = 2; y < img.image.height - 2; ++y) {
+    for (int x = 2; x < img.image.width - 2; ++x) {  // edges use one-sided differences
+      lo = std::min<int>(lo, img.image.at(x, y));
+      hi = std::max<int>(hi, img.image.at(x, y));
+    }
+  }
+  CAPTURE(lo, hi, img.exaggeration);
+  REQUIRE(hi - lo <= 2);
+}
+
+TEST_CASE("render_shaded_image: zoom draws each cell as zoom x zoom pixels", "[report]") {
+  const Heightfield hf = field(10, 7, 0.02, [](int i, int) { return 0.1 * i * i; });
+  const ShadedImage one = render_shaded_image(hf, ShadedImageOptions{});
+  ShadedImageOptions o;
+  o.zoom = 3;
+  const ShadedImage img = render_shaded_image(hf, o);
+  REQUIRE(img.image.width == 30);
+  REQUIRE(img.image.height == 21);
+  REQUIRE_NEAR(img.mm_per_px, 0.02 / 3, 1e-12);
+  for (int y = 0; y < 21; ++y) {
+    for (int x = 0; x < 30; ++x) REQUIRE(img.image.at(x, y) == one.image.at(x / 3, y / 3));
+  }
+}

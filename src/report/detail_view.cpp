@@ -1,0 +1,66 @@
+// Detail view pictures (heights and relief of one window, cell by cell) and the window's outline
+// on the overviews. Inputs: heightfield um, window cells; outputs: Images and a caption.
+// Method: report/height_image and report/shaded_image without reduction; pixel replication.
+#include "report/detail_view.h"
+
+#include <algorithm>
+
+namespace cuspmap {
+namespace {
+
+std::string length_text(double mm, LengthUnit units) {
+  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
+  return format_number(mm) + " mm";
+}
+
+std::string height_text(double um, LengthUnit units) {
+  if (units == LengthUnit::Inch) return format_number(um * kUinPerUm) + " uin";
+  return format_number(um) + " um";
+}
+
+}  // namespace
+
+DetailView render_detail_view(const Heightfield& floor, const DetailWindow& w, LengthUnit units) {
+  const Heightfield cells = crop_heightfield(floor, w);
+  const int longest = std::max(w.nx, w.ny);
+  const int zoom = std::max(1, kDetailTargetPx / longest);
+  const std::string where = "x " + length_text(w.x0_mm, units) + " to " +
+                            length_text(w.x0_mm + w.size_x_mm, units) + ", y " +
+                            length_text(w.y0_mm, units) + " to " +
+                            length_text(w.y0_mm + w.size_y_mm, units);
+  DetailView view;
+  HeightImageOptions hopt;
+  hopt.units = units;
+  hopt.zoom = zoom;
+  hopt.max_pixels = longest;  // never reduced: one cell is zoom x zoom pixels
+  hopt.title = "Detail, own range: " + where;
+  view.height = render_height_image(cells, hopt);
+  ShadedImageOptions sopt;
+  sopt.zoom = zoom;
+  sopt.max_pixels = longest;
+  view.shaded = render_shaded_image(cells, sopt);
+  view.caption = "Detail at native resolution (outlined in orange on the whole-floor pictures): " +
+                 where + " from the patch origin, placed where the marks are deepest (Sq about " +
+                 "the window's own plane " + height_text(w.sq_um, units) +
+                 "). Heights on the window's own range. " +
+                 height_image_caption(view.height, units) + " Relief: " +
+                 shaded_image_caption(view.shaded);
+  return view;
+}
+
+Image outline_detail_window(const Image& image, int map_x_px, int map_y_px, int map_height_px,
+                            int cells_per_pixel, const DetailWindow& w) {
+  Image out = make_image(image.width, image.height, 3, kWhite);
+  blit(image, out, 0, 0);
+  const int k = std::max(cells_per_pixel, 1);
+  const int x0 = w.i0 / k, x1 = (w.i0 + w.nx + k - 1) / k;  // pixel columns [x0, x1)
+  const int top = map_height_px - (w.j0 + w.ny + k - 1) / k;  // rows flip: top = highest Y
+  const int bottom = map_height_px - w.j0 / k;                // one past the last row
+  for (int ring = 1; ring <= 2; ++ring) {
+    draw_rect(out, map_x_px + x0 - ring, map_y_px + top - ring, x1 - x0 + 2 * ring,
+              bottom - top + 2 * ring, kDetailOutlineColor);
+  }
+  return out;
+}
+
+}  // namespace cuspmap

@@ -1,0 +1,145 @@
+// Chooses the detail window where the marks are deepest (plane-removed Sq) and crops it.
+// Inputs: heightfield (um, mm cells); outputs: window (cells, mm, Sq um), cropped heightfield.
+// Method: least-squares plane z = a + b i + c j per window from summed tile moments (normal
+// equations, ISO 25178-2 F-operator), then Sq = sqrt(mean squared residual).
+#include "report/detail_window.h"
+
+#include <Eigen/Dense>
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <vector>
+
+namespace cuspmap {
+namespace {
+
+// Sums of one tile: count, z, z^2 and the moments the plane fit needs (i, j in cells, global).
+struct Moments {
+  double n = 0, z = 0, zz = 0, i = 0, j = 0, ii = 0, jj = 0, ij = 0, iz = 0, jz = 0;
+  void add(const Moments& m) {
+    n += m.n, z += m.z, zz += m.zz, i += m.i, j += m.j;
+    ii += m.ii, jj += m.jj, ij += m.ij, iz += m.iz, jz += m.jz;
+  }
+};
+
+// Window starts along an axis of n cells for a window of w cells on a step of s cells: 0, s, ...
+// and n - w (flush with the far edge). All are multiples of s except possibly the last.
+std::vector<int> starts(int n, int w, int s) {
+  std::vector<int> out;
+  for (int a = 0; a + w <= n; a += s) out.push_back(a);
+  if (out.empty() || out.back() != n - w) out.push_back(n - w);
+  return out;
+}
+
+// Residual mean square about the least-squares plane; with fewer than 3 cells or a degenerate
+// spread, about the mean.
+double residual_ms(const Moments& m) {
+  if (m.n < 1) return 0.0;
+  const double mean = m.z / m.n;
+  const double var = std::max(0.0, m.zz / m.n - mean * mean);
+  if (m.n < 3) return var;
+  // Centred normal equations for the slopes b, c: [Sii Sij; Sij Sjj] [b c]' = [Siz Sjz]'.
+  const double mi = m.i / m.n, mj = m.j / m.n;
+  Eigen::Matrix2d a;
+  a << m.ii / m.n - mi * mi, m.ij / m.n - mi * mj, m.ij / m.n - mi * mj, m.jj / m.n - mj * mj;
+  const Eigen::Vector2d rhs(m.iz / m.n - mi * mean, m.jz / m.n - mj * mean);
+  if (std::abs(a.determinant()) < 1e-12 * (1.0 + a.squaredNorm())) return var;
+  const Eigen::Vector2d slope = a.ldlt().solve(rhs);
+  return std::max(0.0, var - slope.dot(rhs));  // explained variance of a linear fit: beta' rhs
+}
+
+}  // namespace
+
+DetailWindow choose_detail_window(const Heightfield& hf) {
+  const int aimed = std::clamp(static_cast<int>(std::lround(kDetailTargetMm / hf.cell_mm)),
+                               kDetailMinCells, kDetailMaxCells);
+  // A whole number of steps per side, so that most windows are sums of whole tiles.
+  const int s = std::max(1, aimed / kDetailStepsPerWindow);
+  const int side = s * kDetailStepsPerWindow;
+  const int wx = std::min(side, hf.nx), wy = std::min(side, hf.ny);
+  // Tile sums on an s x s grid aligned with the window starts; a window flush with the far edge
+  // is summed from the cells themselves (it is one of few).
+  const int tx = (hf.nx + s - 1) / s, ty = (hf.ny + s - 1) / s;
+  std::vector<Moments> tiles(static_cast<std::size_t>(tx) * ty);
+  const auto add_cell = [&](Moments& m, int j, int i) {
+    const float v = hf.z_um(j, i);
+    if (!std::isfinite(v)) return;
+    const double z = v;
+    m.n += 1, m.z += z, m.zz += z * z, m.i += i, m.j += j;
+    m.ii += static_cast<double>(i) * i, m.jj += static_cast<double>(j) * j;
+    m.ij += static_cast<double>(i) * j;
+    m.iz += i * z, m.jz += j * z;
+  };
+  for (int j = 0; j < hf.ny; ++j) {
+    Moments* row = &tiles[static_cast<std::size_t>(j / s) * tx];
+    for (int i = 0; i < hf.nx; ++i) add_cell(row[i / s], j, i);
+  }
+  const auto window_moments = [&](int i0, int j0) {
+    Moments m;
+    if (i0 % s == 0 && j0 % s == 0 && wx % s == 0 && wy % s == 0) {
+      for (int b = j0 / s; b < (j0 + wy) / s; ++b) {
+        for (int a = i0 / s; a < (i0 + wx) / s; ++a) {
+          m.add(tiles[static_cast<std::size_t>(b) * tx + a]);
+        }
+      }
+      return m;
+    }
+    for (int j = j0; j < j0 + wy; ++j) {
+      for (int i = i0; i < i0 + wx; ++i) add_cell(m, j, i);
+    }
+    return m;
+  };
+  // Score every window; keep the most reached ones.
+  struct Candidate {
+    int i0, j0;
+    double n, ms;
+  };
+  std::vector<Candidate> candidates;
+  double most_n = 0.0, best_ms = 0.0;
+  for (const int j0 : starts(hf.ny, wy, s)) {
+    for (const int i0 : starts(hf.nx, wx, s)) {
+      const Moments m = window_moments(i0, j0);
+      candidates.push_back({i0, j0, m.n, residual_ms(m)});
+      most_n = std::max(most_n, m.n);
+    }
+  }
+  for (const Candidate& c : candidates) {
+    if (c.n == most_n) best_ms = std::max(best_ms, c.ms);
+  }
+  // Of the windows whose Sq is within kDetailSqTolerance of the deepest, the one nearest the
+  // floor's centre: on an even floor the detail then shows the middle, not a corner.
+  const double floor_ms = best_ms * (1.0 - kDetailSqTolerance) * (1.0 - kDetailSqTolerance);
+  DetailWindow best;
+  double best_d2 = std::numeric_limits<double>::infinity();
+  for (const Candidate& c : candidates) {
+    if (c.n != most_n || c.ms < floor_ms) continue;
+    const double dx = c.i0 + 0.5 * wx - 0.5 * hf.nx, dy = c.j0 + 0.5 * wy - 0.5 * hf.ny;
+    if (dx * dx + dy * dy < best_d2) {
+      best_d2 = dx * dx + dy * dy;
+      best.i0 = c.i0;
+      best.j0 = c.j0;
+      best_ms = c.ms;
+    }
+  }
+  best.nx = wx;
+  best.ny = wy;
+  best.x0_mm = hf.origin_x_mm + best.i0 * hf.cell_mm;
+  best.y0_mm = hf.origin_y_mm + best.j0 * hf.cell_mm;
+  best.size_x_mm = wx * hf.cell_mm;
+  best.size_y_mm = wy * hf.cell_mm;
+  best.sq_um = std::sqrt(std::max(best_ms, 0.0));
+  return best;
+}
+
+Heightfield crop_heightfield(const Heightfield& hf, const DetailWindow& w) {
+  Heightfield out;
+  out.nx = w.nx;
+  out.ny = w.ny;
+  out.cell_mm = hf.cell_mm;
+  out.origin_x_mm = hf.origin_x_mm + w.i0 * hf.cell_mm;
+  out.origin_y_mm = hf.origin_y_mm + w.j0 * hf.cell_mm;
+  out.z_um = hf.z_um.block(w.j0, w.i0, w.ny, w.nx);
+  return out;
+}
+
+}  // namespace cuspmap
