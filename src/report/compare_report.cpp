@@ -3,17 +3,23 @@
 #include "report/compare_report.h"
 
 #include <algorithm>
+#include <charconv>
 #include <cstdio>
 
+#include "core/display_quantity.h"
 #include "report/montage.h"
 #include "io/texture_json.h"
 
 namespace cuspmap {
 namespace {
 
-std::string length_text(double mm, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
-  return format_number(mm) + " mm";
+std::string length_text(double mm, LengthUnit units) { return display_length(mm, units); }
+
+// Full precision for CSV: the shortest text that reads back to the same double.
+std::string full_precision(double v) {
+  char buf[64];
+  const auto [ptr, ec] = std::to_chars(buf, buf + sizeof buf, v);
+  return ec == std::errc() ? std::string(buf, ptr) : "nan";
 }
 
 // Display value of a column in the chosen units (heights um or uin, lengths mm or in).
@@ -24,6 +30,16 @@ double display_value(const CompareColumn& c, const CompareRow& row, LengthUnit u
   if (key.ends_with("_um")) return v * kUinPerUm;
   if (key.ends_with("_mm")) return v / kMmPerInch;
   return v;
+}
+
+// A column's value as text: 3 significant figures, resolution floors of display_quantity.h.
+std::string column_text(const CompareColumn& c, const CompareRow& row, LengthUnit units) {
+  const std::string key = c.key;
+  const double v = c.value(row);
+  if (key.ends_with("_um")) return display_roughness_number(v, units);
+  if (key.ends_with("_mm")) return display_length_number(v, units);
+  if (key.ends_with("_s")) return display_time_number(v, TimeUnit::Second);
+  return display_number(v, 0.0);
 }
 
 std::string display_unit(const CompareColumn& c, LengthUnit units) {
@@ -43,7 +59,7 @@ const std::vector<CompareColumn>& compare_columns() {
       {"Sa", "Sa_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sa_um; }},
       {"Sz", "Sz_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sz_um; }},
       {"cusp", "max_scallop_um", true, [](const CompareRow& r) { return r.run.max_scallop_um; }},
-      {"sand (Sv)", "mean_removal_um", true,
+      {"mean sanding depth Sv", "mean_removal_um", true,
        [](const CompareRow& r) { return r.run.texture.areal.parameters.sv_um; }},
       {"path", "path_length_mm", true, [](const CompareRow& r) { return r.run.path_length_mm; }},
       {"cycle", "cycle_time_s", true, [](const CompareRow& r) { return r.run.cycle_time_s; }},
@@ -81,7 +97,7 @@ nlohmann::json compare_json(const std::vector<CompareRow>& rows) {
   const std::vector<size_t> best = best_rows(rows);
   nlohmann::json b = nlohmann::json::object();
   for (size_t k = 0; k < best.size(); ++k) b[compare_columns()[k].key] = best[k];
-  out["best"] = b;
+  out["best_index"] = b;  // per column: 0-based index into rows (table row - 1)
   return out;
 }
 
@@ -101,7 +117,7 @@ std::string compare_csv(const std::vector<CompareRow>& rows) {
   for (const CompareRow& row : rows) {
     csv.append(quote(row.job.name)).append(",").append(quote(row.job.source));
     for (const CompareColumn& c : compare_columns()) {
-      csv.append(",").append(format_number(c.value(row)));
+      csv.append(",").append(full_precision(c.value(row)));
     }
     csv.push_back('\n');
   }
@@ -125,8 +141,8 @@ std::string compare_table_text(const std::vector<CompareRow>& rows, LengthUnit u
     std::snprintf(buf, sizeof buf, "%-3zu %-44s", r + 1, name.c_str());
     out += buf;
     for (size_t k = 0; k < compare_columns().size(); ++k) {
-      const std::string v = format_number(display_value(compare_columns()[k], rows[r], units)) +
-                            (best[k] == r ? "*" : " ");
+      const std::string v =
+          column_text(compare_columns()[k], rows[r], units) + (best[k] == r ? "*" : " ");
       std::snprintf(buf, sizeof buf, " %11s", v.c_str());
       out += buf;
     }
@@ -178,11 +194,11 @@ HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const std::s
     std::vector<HtmlCell> cells = {{std::to_string(k + 1)}, {row.job.name}};
     for (const CompareColumn& c : compare_columns()) {
       const double v = display_value(c, row, units);
-      cells.push_back({format_number(v), v});
+      cells.push_back({column_text(c, row, units), v});
     }
     t.rows.push_back(std::move(cells));
     r.filters.push_back(std::to_string(k + 1) + ": ISO 16610-21 Gaussian lambda-c " +
-                        length_text(row.run.texture.profile.cutoff_mm, units) + " (" +
+                        display_cutoff(row.run.texture.profile.cutoff_mm, units) + " (" +
                         row.run.texture.profile.cutoff_rule + "), least-squares plane removed");
   }
   r.tables.push_back(std::move(t));
