@@ -72,8 +72,8 @@ TEST_CASE("cuspmap plan: --out writes plan.json, plan.csv and plan.svg; table sh
   const std::string csv = test::read_text(out + "/plan.csv");
   REQUIRE(std::count(csv.begin(), csv.end(), '\n') == 7);
   REQUIRE(test::read_text(out + "/plan.svg").find("<svg") != std::string::npos);
-  for (const char* text : {"<- cheapest", "Cautions:", "Rotating tools", "respiratory protection",
-                           "combustible", "local codes", "licensed practice"}) {
+  for (const char* text : {"<- cheapest", "Caution:", "rotating tools", "combustible",
+                           "local codes", "licensed practice"}) {
     CAPTURE(text);
     REQUIRE(r.out.find(text) != std::string::npos);
   }

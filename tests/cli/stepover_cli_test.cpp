@@ -157,14 +157,14 @@ TEST_CASE("stepover: passes that no longer overlap are refused, exit 2", "[cli]"
 TEST_CASE("stepover: human table in mm and in inches", "[cli]") {
   const auto mm = run_cuspmap({"stepover", "--diameter", "6", "--stepover", "0.5"});
   REQUIRE(mm.exit_code == 0);
-  REQUIRE(mm.out.find("scallop height      10.43 um") != std::string::npos);
+  REQUIRE(mm.out.find("cusp height         10.4 um") != std::string::npos);
   REQUIRE(mm.out.find("ISO 1302 grade      N8 (Ra up to 3.2 um)") != std::string::npos);
-  REQUIRE(mm.out.find("caution: ") != std::string::npos);
+  REQUIRE(mm.out.find("Caution: ") != std::string::npos);
   const auto in =
       run_cuspmap({"stepover", "--units", "in", "--diameter", "0.25", "--stepover", "0.02"});
   REQUIRE(in.exit_code == 0);
   REQUIRE(in.out.find("stepover            0.02 in") != std::string::npos);
-  REQUIRE(in.out.find("400.6 uin (0.4006 thou)") != std::string::npos);
+  REQUIRE(in.out.find("cusp height         401 uin") != std::string::npos);
 }
 
 TEST_CASE("stepover: --help is real and --verbose prints stages", "[cli]") {
