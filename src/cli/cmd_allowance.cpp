@@ -294,7 +294,7 @@ void run_allowance(const AllowanceOptions& o) {
       {"final_scratch_um", a.grits.final_scratch_um},
       {"basis",
        {{"grit_table", grits.table.source},
-        {"final_ra", "Ra the last grade leaves on its own, from the grade table"},
+        {"final_Ra", "Ra the last grade leaves on its own, from the grade table"},
         {"model",
          "marks vanish at the deepest valley; each grade erases the scratches "
          "of the one before (docs/finishing.md)"}}},
