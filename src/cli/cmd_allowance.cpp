@@ -18,6 +18,8 @@
 #include "io/read_heightmap.h"
 #include "job/job.h"
 #include "job/run_job.h"
+#include "core/display_quantity.h"
+#include "report/html_report.h"
 #include "texture/texture_report.h"
 
 namespace cuspmap {
@@ -128,8 +130,8 @@ Marks marks_from_heightmap(const AllowanceOptions& o, LengthUnit units) {
   m.heights = heights_of(r);
   m.patch_area_mm2 = r.size_x_mm * r.size_y_mm;
   m.description = file.format + " heightmap " + o.input + " (ISO 25178-2, plane removed; Ra " +
-                  r.profile.direction + " the lay, cut-off " + format_number(r.profile.cutoff_mm) +
-                  " mm)";
+                  r.profile.direction + " the lay, cut-off " +
+                  display_cutoff(r.profile.cutoff_mm, units) + ")";
   m.source = {{"kind", "heightmap"},
               {"file", o.input},
               {"format", file.format},
@@ -162,9 +164,10 @@ Marks marks_from_flags(const AllowanceOptions& o, LengthUnit units) {
   return m;
 }
 
-std::string verdict_text(const Allowance& a) {
-  const std::string change = fixed(a.dimension_change_um, 1) + " um";
-  const std::string tol = "+-" + format_number(*a.tolerance_um) + " um";
+// The tolerance verdict, in the chosen unit (stock and tolerances in um, or thou in inch mode).
+std::string verdict_text(const Allowance& a, LengthUnit u) {
+  const std::string change = display_stock(a.dimension_change_um, u);
+  const std::string tol = "+-" + display_stock(*a.tolerance_um, u);
   if (a.within_tolerance) {
     return "within: sanding changes the dimension by up to " + change + ", inside " + tol;
   }
@@ -184,22 +187,20 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
   std::printf("Sanding allowance: %s\n\n", m.description.c_str());
   std::printf("Marks left by the pass\n");
   std::printf("  depth to clear (Sz, highest peak to deepest valley)  %s\n",
-              height_text(a.depth_to_clear_um, u).c_str());
-  std::printf("  mean removal   (Sv, mean minus minimum)              %s\n",
-              height_text(a.mean_removal_um, u).c_str());
+              display_roughness(a.depth_to_clear_um, u).c_str());
+  std::printf("  mean sanding depth Sv (mean minus minimum)           %s\n",
+              display_roughness(a.mean_removal_um, u).c_str());
   std::printf("  Ra of the marks                                      %s\n",
-              height_text(m.heights.ra_um, u).c_str());
+              display_roughness(m.heights.ra_um, u).c_str());
   std::printf("\nProgrammed stock so that the sanded surface lands on nominal\n");
-  std::printf("  valleys on nominal  %-10s %s\n",
-              height_text(a.stock_valleys_nominal_um, u).c_str(), kStockValleysNominalNote);
-  std::printf("  mean on nominal     %-10s %s\n", height_text(a.stock_mean_nominal_um, u).c_str(),
+  std::printf("  valleys on nominal  %-11s %s\n", display_stock(a.stock_valleys_nominal_um, u).c_str(),
+              kStockValleysNominalNote);
+  std::printf("  mean on nominal     %-11s %s\n", display_stock(a.stock_mean_nominal_um, u).c_str(),
               kStockMeanNominalNote);
-  std::printf("\nVolume over %s mm^2 (%s in^2; %s)\n", fixed(a.area_mm2, 0).c_str(),
-              fixed(a.area_mm2 / (kMmPerInch * kMmPerInch), 2).c_str(), area_note.c_str());
-  std::printf("  down to the deepest valley (Sv x area)  %s mm^3  %s in^3\n",
-              fixed(a.volume_mm3, 2).c_str(), fixed(a.volume_in3, 5).c_str());
-  std::printf("  whole grit sequence                     %s mm^3  %s in^3\n",
-              fixed(a.sequence_volume_mm3, 2).c_str(), fixed(a.sequence_volume_in3, 5).c_str());
+  std::printf("\nVolume over %s (%s)\n", display_area(a.area_mm2, u).c_str(), area_note.c_str());
+  std::printf("  down to the deepest valley (Sv x area)  %s\n", display_volume(a.volume_mm3, u).c_str());
+  std::printf("  whole grit sequence                     %s\n",
+              display_volume(a.sequence_volume_mm3, u).c_str());
   std::printf("\nGrit sequence (%s)\n", g.table.source.c_str());
   if (!a.grits.needed) {
     std::printf("  %s: stock 0, program the floor on nominal\n", a.grits.verdict.c_str());
@@ -209,15 +210,27 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
                   a.grits.finer_grit.c_str());
     }
   } else {
-    std::printf("  %-6s %12s %12s %10s %12s\n", "grit", "scratches", "remove", "time", "Ra after");
+    std::vector<double> times;
+    for (const GritStep& s : a.grits.steps) times.push_back(s.time_s);
+    // One time unit for the column (the total may need a larger one: it is a separate line).
+    const TimeUnit tu = time_unit_for(times);
+    const std::string rough = roughness_symbol(u);
+    std::printf("  %-6s %14s %14s %10s %14s\n", "grit", ("scratches " + rough).c_str(),
+                ("remove " + rough).c_str(), (std::string("time ") + time_unit_symbol(tu)).c_str(),
+                ("Ra after " + rough).c_str());
     for (const GritStep& s : a.grits.steps) {
-      std::printf("  %-6s %12s %12s %10s %12s\n", s.grit.c_str(),
-                  height_text(s.scratch_um, u).c_str(), height_text(s.remove_um, u).c_str(),
-                  duration_text(s.time_s).c_str(), height_text(s.ra_after_um, u).c_str());
+      std::printf("  %-6s %14s %14s %10s %14s\n", s.grit.c_str(),
+                  display_roughness_number(s.scratch_um, u).c_str(),
+                  display_roughness_number(s.remove_um, u).c_str(),
+                  display_time_number(s.time_s, tu).c_str(),
+                  display_roughness_number(s.ra_after_um, u).c_str());
     }
-    std::printf("  %-6s %12s %12s %10s\n", "total", "",
-                height_text(a.grits.total_remove_um, u).c_str(),
-                duration_text(a.grits.total_time_s).c_str());
+    std::printf("  %-6s %14s %14s %10s\n", "total", "",
+                display_roughness_number(a.grits.total_remove_um, u).c_str(),
+                display_time_number(a.grits.total_time_s, tu).c_str());
+    if (time_unit_for(a.grits.total_time_s) != tu) {
+      std::printf("  (total sanding time %s)\n", display_time(a.grits.total_time_s).c_str());
+    }
     for (const std::string& name : a.grits.skipped) {
       std::printf("  skipped %s: its scratches are deeper than the marks\n", name.c_str());
     }
@@ -225,17 +238,18 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
   if (a.grits.needed) {
     std::printf("Predicted Ra: machined %s, after %s %s (estimate: the Ra the last grade leaves on "
                 "its own, from the grade table)\n",
-                height_text(m.heights.ra_um, u).c_str(), a.grits.steps.back().grit.c_str(),
-                height_text(a.grits.final_ra_um, u).c_str());
+                display_roughness(m.heights.ra_um, u).c_str(), a.grits.steps.back().grit.c_str(),
+                display_roughness(a.grits.final_ra_um, u).c_str());
   } else {
-    std::printf("Predicted Ra: %s as machined, unsanded\n", height_text(m.heights.ra_um, u).c_str());
+    std::printf("Predicted Ra: %s as machined, unsanded\n",
+                display_roughness(m.heights.ra_um, u).c_str());
   }
   if (const std::string c = fine_ra_caution(m.heights.ra_um); !c.empty()) {
     std::printf("  caution: %s\n", c.c_str());
   }
   std::printf("%s\n", kKinematicBestCase);
-  if (a.tolerance_um) std::printf("\nTolerance check: %s\n", verdict_text(a).c_str());
-  print_cautions(sanding_cautions());
+  if (a.tolerance_um) std::printf("\nTolerance check: %s\n", verdict_text(a, u).c_str());
+  print_cautions();
 }
 
 void run_allowance(const AllowanceOptions& o) {
@@ -292,11 +306,11 @@ void run_allowance(const AllowanceOptions& o) {
   nlohmann::json doc = {
       {"input", marks.source},
       {"marks",
-       {{"sz_um", marks.heights.sz_um},
-        {"sv_um", marks.heights.sv_um},
-        {"sp_um", marks.heights.sp_um},
-        {"sa_um", marks.heights.sa_um},
-        {"ra_um", marks.heights.ra_um}}},
+       {{"Sz_um", marks.heights.sz_um},
+        {"Sv_um", marks.heights.sv_um},
+        {"Sp_um", marks.heights.sp_um},
+        {"Sa_um", marks.heights.sa_um},
+        {"Ra_um", marks.heights.ra_um}}},
       {"depth_to_clear_um", a.depth_to_clear_um},
       {"mean_removal_um", a.mean_removal_um},
       {"stock_valleys_nominal_um", a.stock_valleys_nominal_um},
@@ -314,16 +328,16 @@ void run_allowance(const AllowanceOptions& o) {
       {"grits", grits_json(a.grits)},
       {"skipped_grits", a.grits.skipped},
       {"sanding_time_s", a.grits.total_time_s},
-      {"final_ra_um", a.grits.final_ra_um},
+      {"final_Ra_um", a.grits.final_ra_um},
       {"sanding_needed", a.grits.needed},
       {"verdict", a.grits.verdict},
       {"finer_grit", a.grits.finer_grit},
-      {"target_ra_um", target_ra_um ? nlohmann::json(*target_ra_um) : nlohmann::json()},
+      {"target_Ra_um", target_ra_um ? nlohmann::json(*target_ra_um) : nlohmann::json()},
       {"model", kKinematicBestCase},
       {"final_scratch_um", a.grits.final_scratch_um},
       {"basis",
        {{"grit_table", grits.table.source},
-        {"final_ra",
+        {"final_Ra",
          "Ra the last grade leaves on its own, from the grade table; the machined Ra when no "
          "sanding is needed (never above it)"},
         {"model",
@@ -335,7 +349,7 @@ void run_allowance(const AllowanceOptions& o) {
   if (a.tolerance_um) {
     doc["tolerance"] = {{"tolerance_um", *a.tolerance_um},
                         {"within", a.within_tolerance},
-                        {"verdict", verdict_text(a)}};
+                        {"verdict", verdict_text(a, LengthUnit::Millimetre)}};
   }
   print_json(doc);
 }
@@ -363,6 +377,7 @@ void setup_allowance(CLI::App& sub) {
   add_grit_flags(sub, o->grits);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
+  sub.footer(cautions_help_text(sanding_cautions()));
   sub.callback([o] { run_allowance(*o); });
 }
 

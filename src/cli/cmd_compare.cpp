@@ -7,6 +7,7 @@
 #include <string>
 
 #include "cli/command.h"
+#include "report/html_report.h"
 #include "cli/comparison_run.h"
 #include "cli/output_dir.h"
 #include "cli/sim_flags.h"
@@ -112,6 +113,7 @@ void setup_compare(CLI::App& sub) {
   add_sim_flags(sub, o->sim);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
+  sub.footer(cautions_help_text(standard_cautions()));
   sub.callback([o] { run_compare(*o); });
 }
 

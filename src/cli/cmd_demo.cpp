@@ -9,6 +9,7 @@
 #include "cli/comparison_run.h"
 #include "core/stage_timer.h"
 #include "finish/choose_strategy.h"
+#include "core/display_quantity.h"
 #include "report/html_report.h"
 #include "job/demo_jobs.h"
 
@@ -43,11 +44,11 @@ void run_demo(const DemoOptions& o) {
                       r.run.texture.areal.parameters.sz_um, r.run.cycle_time_s});
   }
   const StrategyChoice choice = choose_strategy(scores, kDemoTargetRaUm);
-  const std::string summary = "Target Ra " + format_number(kDemoTargetRaUm) +
-                              " um (invented print callout). Choice: " + choice.reason;
+  const std::string summary = "Target Ra " + display_roughness(kDemoTargetRaUm, units) +
+                              " (invented print callout). Choice: " + choice.reason;
   nlohmann::json doc = write_comparison(dir, comparison, units, dir.path_of("report.html"), {summary});
-  doc["target_ra_um"] = kDemoTargetRaUm;
-  doc["choice"] = choice.best ? nlohmann::json(*choice.best) : nlohmann::json(nullptr);
+  doc["target_Ra_um"] = kDemoTargetRaUm;
+  doc["choice_index"] = choice.best ? nlohmann::json(*choice.best) : nlohmann::json(nullptr);
   doc["meets_target"] = choice.meets;
   doc["summary"] = summary;
   doc["cautions"] = standard_cautions();
@@ -65,9 +66,8 @@ void run_demo(const DemoOptions& o) {
                 choice.meets[k] ? "meets the target" : "misses the target");
   }
   std::printf("\nPictures, comparison sheet (montage.png, compare.csv) and report.html are in %s/ "
-              "(%.1f s).\n", dir.path().c_str(), total.seconds());
-  std::printf("Safety:\n");
-  for (const std::string& c : standard_cautions()) std::printf("  - %s\n", c.c_str());
+              "(%s).\n", dir.path().c_str(), display_time(total.seconds()).c_str());
+  std::printf("%s\n", kShortCaution);
 }
 
 }  // namespace
@@ -82,6 +82,7 @@ void setup_demo(CLI::App& sub) {
       ->capture_default_str()
       ->check(CLI::Range(0, 1024));
   add_common_flags(sub, o->common);
+  sub.footer(cautions_help_text(standard_cautions()));
   sub.callback([o] { run_demo(*o); });
 }
 

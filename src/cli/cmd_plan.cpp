@@ -24,6 +24,7 @@
 #include "finish/wide_ridges.h"
 #include "report/html_report.h"
 #include "io/plan_csv.h"
+#include "core/display_quantity.h"
 #include "report/plan_svg.h"
 #include "job/job.h"
 #include "job/validate_cutter.h"
@@ -41,7 +42,7 @@ struct PlanOptions {
   std::string feed;               // --feed, length per minute
   std::string rapid = "10000mm";  // --rapid, length per minute (CutSpec's default rapid rate)
   std::string retract = "2mm";    // --retract
-  std::string direction = "one-way";
+  std::string pass_direction = "one-way";  // --pass-direction (texture's --direction is the trace)
   double pass_overhead_s = kDefaultPassOverheadS;
   std::string machine_rate;    // per hour
   std::string bench_rate;      // per hour
@@ -154,12 +155,12 @@ void floor_from_flags(const PlanOptions& o, LengthUnit units, PlanRequest& r) {
   r.cut.rapid_mm_per_min =
       parse_positive_length(o.rapid, units, "--rapid", "must be > 0 per minute");
   r.cut.retract_mm = parse_positive_length(o.retract, units, "--retract", "must be > 0");
-  if (o.direction == "one-way") {
+  if (o.pass_direction == "one-way") {
     r.direction = RasterDirection::OneWay;
-  } else if (o.direction == "zigzag") {
+  } else if (o.pass_direction == "zigzag") {
     r.direction = RasterDirection::Zigzag;
   } else {
-    throw InputError("--direction " + o.direction + ": must be one-way or zigzag");
+    throw InputError("--pass-direction " + o.pass_direction + ": must be one-way or zigzag");
   }
 }
 
@@ -297,14 +298,14 @@ nlohmann::json option_json(const PlanOption& p) {
       {"cycle_time_s", p.machine.cycle_time_s},
       {"overhead_s", p.machine.overhead_s},
       {"machine_time_s", p.machine.machine_time_s},
-      {"scallop_um", p.surface.sz_um},
-      {"sv_um", p.surface.sv_um},
-      {"ra_um", p.surface.ra_um},
+      {"cusp_um", p.surface.sz_um},
+      {"Sv_um", p.surface.sv_um},
+      {"Ra_um", p.surface.ra_um},
       {"simulated", p.simulated},
       {"sanded", p.sanded},
       {"bench_time_s", p.bench_time_s},
       {"removed_volume_mm3", p.removed_volume_mm3},
-      {"final_ra_um", p.final_ra_um},
+      {"final_Ra_um", p.final_ra_um},
       {"final_peak_to_valley_um", p.final_peak_to_valley_um},
       {"machine_cost", p.machine_cost},
       {"bench_cost", p.bench_cost},
@@ -317,9 +318,8 @@ nlohmann::json option_json(const PlanOption& p) {
   return j;
 }
 
-std::string length_text(double mm, LengthUnit u) {
-  return u == LengthUnit::Inch ? format_number(mm / kMmPerInch) + " in" : format_number(mm) + " mm";
-}
+// A cost in the currency of the rates: 3 figures, below a hundredth of a unit reads 0.
+std::string money(double cost) { return display_number(cost, 0.005); }
 
 std::string best_message(const PlanResult& plan, LengthUnit u) {
   if (!plan.best) {
@@ -327,10 +327,10 @@ std::string best_message(const PlanResult& plan, LengthUnit u) {
            "other tools and stepovers";
   }
   const PlanOption& b = plan.options[*plan.best];
-  const std::string step = length_text(b.stepover_mm, u);
-  return "best: " + b.tool + " at " + step + ", cost " + fixed(b.cost, 2) + " (machine " +
-         fixed(b.machine_cost, 2) + " + bench " + fixed(b.bench_cost, 2) + "); " + b.reason +
-         "; machined cusp " + height_text(b.surface.sz_um, u);
+  return "best: " + b.tool + " at " + display_length(b.stepover_mm, u) + " (row " +
+         std::to_string(*plan.best + 1) + "), cost " + money(b.cost) + " (machine " +
+         money(b.machine_cost) + " + bench " + money(b.bench_cost) + "); " + b.reason +
+         "; machined cusp " + display_roughness(b.surface.sz_um, u);
 }
 
 // What the table alone does not say about the best option: it lies at an end of the stepovers
@@ -354,7 +354,7 @@ PlanRemarks plan_remarks(const PlanResult& plan, LengthUnit u) {
     }
     std::string line = "the cheapest option is the " +
                        std::string(m.edge->at_smallest ? "smallest" : "largest") +
-                       " stepover tried for " + b.tool + " (" + length_text(b.stepover_mm, u) +
+                       " stepover tried for " + b.tool + " (" + display_length(b.stepover_mm, u) +
                        "): the optimum may lie outside the range";
     line += next.empty() ? " only if passes could be wider than the diameter, which leave uncut "
                            "strips"
@@ -364,7 +364,7 @@ PlanRemarks plan_remarks(const PlanResult& plan, LengthUnit u) {
   if (b.surface.sz_um > 0.0 &&
       ridges_hidden_by_ra(b.stepover_mm, b.surface.sz_um, b.surface.ra_um)) {
     m.cautions.push_back(
-        wide_ridges_caution(height_text(b.surface.sz_um, u), length_text(b.stepover_mm, u)));
+        wide_ridges_caution(display_roughness(b.surface.sz_um, u), display_length(b.stepover_mm, u)));
   }
   return m;
 }
@@ -376,9 +376,9 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
   nlohmann::json spec = {
       {"sanding", r.spec.sanding == SandingMode::Always ? "always" : "when-needed"},
       {"grits", r.spec.grits}};
-  spec["target_ra_um"] =
+  spec["target_Ra_um"] =
       r.spec.target_ra_um ? nlohmann::json(*r.spec.target_ra_um) : nlohmann::json();
-  spec["target_scallop_um"] =
+  spec["target_cusp_um"] =
       r.spec.target_scallop_um ? nlohmann::json(*r.spec.target_scallop_um) : nlohmann::json();
   spec["tolerance_um"] =
       r.spec.tolerance_um ? nlohmann::json(*r.spec.tolerance_um) : nlohmann::json();
@@ -392,7 +392,7 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
       {"area_mm2", r.patch.size_x_mm * r.patch.size_y_mm},
       {"feed_mm_per_min", r.cut.feed_mm_per_min},
       {"rapid_mm_per_min", r.cut.rapid_mm_per_min},
-      {"direction", r.direction == RasterDirection::OneWay ? "one-way" : "zigzag"},
+      {"pass_direction", r.direction == RasterDirection::OneWay ? "one-way" : "zigzag"},
       {"pass_overhead_s", r.pass_overhead_s},
       {"machine_rate_per_hour", r.spec.machine_rate_per_hour},
       {"bench_rate_per_hour", r.spec.bench_rate_per_hour},
@@ -406,7 +406,8 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
         {"grit_table", r.spec.grit_table.source}}},
       {"cautions", cautions},
   };
-  doc["best"] = plan.best ? nlohmann::json(*plan.best) : nlohmann::json();
+  // 0-based index into options[] (the table's row number minus 1); null when none meets the spec.
+  doc["best_index"] = plan.best ? nlohmann::json(*plan.best) : nlohmann::json();
   doc["notes"] = remarks.notes;
   doc["range_edge"] = nlohmann::json();
   if (remarks.edge) {
@@ -417,35 +418,46 @@ nlohmann::json plan_document(const PlanRequest& r, const PlanResult& plan, Lengt
 }
 
 void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, const char* basis) {
-  const double unit = u == LengthUnit::Inch ? kMmPerInch : 1.0;
-  const char* lu = u == LengthUnit::Inch ? "in" : "mm";
   std::printf(
-      "Stepover plan: %s x %s %s floor, %s raster, feed %s %s/min; rates per hour: "
-      "machine %s, bench %s\n",
-      format_number(r.patch.size_x_mm / unit).c_str(),
-      format_number(r.patch.size_y_mm / unit).c_str(), lu,
+      "Stepover plan: %s x %s floor, %s raster, feed %s/min; rates per hour: machine %s, "
+      "bench %s\n",
+      display_length_number(r.patch.size_x_mm, u).c_str(),
+      display_length(r.patch.size_y_mm, u).c_str(),
       r.direction == RasterDirection::OneWay ? "one-way" : "zigzag",
-      format_number(r.cut.feed_mm_per_min / unit).c_str(), lu,
-      format_number(r.spec.machine_rate_per_hour).c_str(),
-      format_number(r.spec.bench_rate_per_hour).c_str());
+      display_length(r.cut.feed_mm_per_min, u).c_str(), money(r.spec.machine_rate_per_hour).c_str(),
+      money(r.spec.bench_rate_per_hour).c_str());
   std::string spec;
-  if (r.spec.target_ra_um) spec += "Ra <= " + height_text(*r.spec.target_ra_um, u);
+  if (r.spec.target_ra_um) spec += "Ra <= " + display_roughness(*r.spec.target_ra_um, u);
   if (r.spec.target_scallop_um) {
     spec += (spec.empty() ? "" : ", ") + std::string("peak-to-valley <= ") +
-            height_text(*r.spec.target_scallop_um, u);
+            display_roughness(*r.spec.target_scallop_um, u);
   }
   if (r.spec.tolerance_um)
     spec += (spec.empty() ? "" : ", ") + std::string("tolerance +-") +
-            height_text(*r.spec.tolerance_um, u);
+            display_stock(*r.spec.tolerance_um, u);
   std::string grits;
   for (const std::string& g : r.spec.grits) grits += (grits.empty() ? "" : " > ") + g;
   std::printf("Spec: %s; sanding %s with %s\n\n", spec.empty() ? "none" : spec.c_str(),
               r.spec.sanding == SandingMode::Always ? "always" : "when needed", grits.c_str());
   int tool_w = 4;
-  for (const PlanOption& p : plan.options)
+  std::vector<double> machine_s, bench_s;
+  for (const PlanOption& p : plan.options) {
     tool_w = std::max(tool_w, static_cast<int>(p.tool.size()));
-  std::printf("  %-*s %11s %7s %9s %10s %10s %13s %9s %10s %10s  %s\n", tool_w, "tool", "stepover",
-              "passes", "machine", "cusp", "Ra", "sanding", "bench", "final Ra", "cost", "spec");
+    machine_s.push_back(p.machine.machine_time_s);
+    if (p.sanded) bench_s.push_back(p.bench_time_s);
+  }
+  // One time unit per column, named in the header.
+  const TimeUnit machine_unit = time_unit_for(machine_s), bench_unit = time_unit_for(bench_s);
+  const std::string rough = roughness_symbol(u);
+  const auto head = [](const std::string& name, const std::string& unit) {
+    return name + " " + unit;
+  };
+  std::printf("  %3s %-*s %10s %7s %11s %10s %10s %13s %11s %12s %8s  %s\n", "row", tool_w, "tool",
+              head("stepover", length_symbol(u)).c_str(), "passes",
+              head("machine", time_unit_symbol(machine_unit)).c_str(),
+              head("cusp", rough).c_str(), head("Ra", rough).c_str(), "sanding",
+              head("bench", time_unit_symbol(bench_unit)).c_str(),
+              head("final Ra", rough).c_str(), "cost", "spec");
   std::vector<std::string> misses;
   for (std::size_t k = 0; k < plan.options.size(); ++k) {
     const PlanOption& p = plan.options[k];
@@ -456,17 +468,17 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, con
       const auto& steps = p.allowance->grits.steps;
       sanding = steps.front().grit + (steps.size() > 1 ? "-" + steps.back().grit : "");
     }
-    const std::string step = fixed(p.stepover_mm / unit, u == LengthUnit::Inch ? 4 : 3) + " " + lu;
-    std::printf("%s %-*s %11s %7d %9s %10s %10s %13s %9s %10s %10s  %s\n", best ? "*" : " ", tool_w,
-                p.tool.c_str(), step.c_str(), p.machine.passes,
-                duration_text(p.machine.machine_time_s).c_str(),
-                height_text(p.surface.sz_um, u).c_str(), height_text(p.surface.ra_um, u).c_str(),
-                sanding.c_str(), p.sanded ? duration_text(p.bench_time_s).c_str() : "-",
-                height_text(p.final_ra_um, u).c_str(), fixed(p.cost, 2).c_str(),
+    std::printf("%s %3zu %-*s %10s %7d %11s %10s %10s %13s %11s %12s %8s  %s\n", best ? "*" : " ",
+                k + 1, tool_w, p.tool.c_str(), display_length_number(p.stepover_mm, u).c_str(),
+                p.machine.passes, display_time_number(p.machine.machine_time_s, machine_unit).c_str(),
+                display_roughness_number(p.surface.sz_um, u).c_str(),
+                display_roughness_number(p.surface.ra_um, u).c_str(), sanding.c_str(),
+                p.sanded ? display_time_number(p.bench_time_s, bench_unit).c_str() : "-",
+                display_roughness_number(p.final_ra_um, u).c_str(), money(p.cost).c_str(),
                 p.meets_spec ? (best ? "ok  <- cheapest" : "ok") : "misses");
     if (!p.meets_spec &&
         (k == 0 || plan.options[k - 1].meets_spec || plan.options[k - 1].tool != p.tool)) {
-      misses.push_back(p.tool + " from " + step + ": " + p.reason);
+      misses.push_back(p.tool + " from " + display_length(p.stepover_mm, u) + ": " + p.reason);
     }
   }
   for (const std::string& m : misses) std::printf("  misses: %s\n", m.c_str());
@@ -475,15 +487,14 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, con
   if (!fine_ra_caution(finest_ra_um).empty()) {
     std::printf("  caution: options with a machined Ra below %s predict a finish finer than "
                 "milling usually measures: expect the real surface to be rougher\n",
-                height_text(kFineRaCautionUm, u).c_str());
+                display_roughness(kFineRaCautionUm, u).c_str());
   }
   std::printf("\n%s\n", best_message(plan, u).c_str());
   const PlanRemarks remarks = plan_remarks(plan, u);
   for (const std::string& n : remarks.notes) std::printf("note: %s\n", n.c_str());
   std::printf("Costs are in the currency of the rates. Surfaces: %s.\n", basis);
-  std::vector<std::string> cautions = remarks.cautions;
-  for (const std::string& c : plan_cautions()) cautions.push_back(c);
-  print_cautions(cautions);
+  for (const std::string& c : remarks.cautions) std::printf("caution: %s\n", c.c_str());
+  print_cautions();
 }
 
 void run_plan(const PlanOptions& o) {
@@ -529,7 +540,8 @@ void setup_plan(CLI::App& sub) {
       ->capture_default_str();
   sub.add_option("--retract", o->retract, "One-way return height above the floor")
       ->capture_default_str();
-  sub.add_option("--direction", o->direction, "Raster passes: one-way or zigzag")
+  // Named apart from texture/simulate --direction, which picks the profile trace direction.
+  sub.add_option("--pass-direction", o->pass_direction, "Raster passes: one-way or zigzag")
       ->capture_default_str();
   sub.add_option("--pass-overhead", o->pass_overhead_s,
                  "Seconds per pass beyond the constant-feed time (default 0.5: no source)")
@@ -560,6 +572,7 @@ void setup_plan(CLI::App& sub) {
                "Take each option's surface from a simulated window (tilt in any direction, dish, "
                "runout) instead of the closed form");
   add_common_flags(sub, o->common);
+  sub.footer(cautions_help_text(plan_cautions()));
   sub.callback([o] { run_plan(*o); });
 }
 

@@ -20,6 +20,7 @@
 #include "report/html_report.h"
 #include "io/npy.h"
 #include "io/npy_band_writer.h"
+#include "core/display_quantity.h"
 #include "report/simulation_pictures.h"
 #include "job/job.h"
 #include "job/run_job.h"
@@ -85,29 +86,27 @@ Job gcode_job(const SimulateOptions& o) {
   return job;
 }
 
-std::string height_text(double um, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(um * kUinPerUm) + " uin";
-  return format_number(um) + " um";
-}
-
 void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, LengthUnit units) {
   const auto& rough = run.texture.profile.roughness;
   const auto& areal = run.texture.areal.parameters;
   std::printf("%s\n", job.name.c_str());
   std::printf("  tool    %s\n  path    %s, %zu moves\n", describe_tool(job.cutter, units).c_str(),
               describe_path(job.path, units).c_str(), run.built.path.moves.size());
-  std::printf("  Ra %s (ISO 1302:1992 %s)  Rz %s  cut-off %s mm\n",
-              height_text(rough.a_um, units).c_str(),
-              run.texture.profile.iso1302_grade.c_str(), height_text(rough.z_um, units).c_str(),
-              format_number(run.texture.profile.cutoff_mm).c_str());
+  std::printf("  Ra %s (ISO 1302:1992 %s)  Rz %s  cut-off %s\n",
+              display_roughness(rough.a_um, units).c_str(),
+              run.texture.profile.iso1302_grade.c_str(),
+              display_roughness(rough.z_um, units).c_str(),
+              display_cutoff(run.texture.profile.cutoff_mm, units).c_str());
   if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) {
     std::printf("  caution: %s\n", fine.c_str());
   }
-  std::printf("  Sa %s  Sz %s  highest point above nominal %s\n",
-              height_text(areal.sa_um, units).c_str(), height_text(areal.sz_um, units).c_str(),
-              height_text(run.max_scallop_um, units).c_str());
-  std::printf("  path %s mm, cycle %s s\n", format_number(run.path_length_mm).c_str(),
-              format_number(run.cycle_time_s).c_str());
+  std::printf("  Sa %s  Sz %s  highest point %s above nominal, lowest %s\n",
+              display_roughness(areal.sa_um, units).c_str(),
+              display_roughness(areal.sz_um, units).c_str(),
+              display_roughness(run.max_scallop_um, units).c_str(),
+              display_roughness(run.min_height_um, units).c_str());
+  std::printf("  path %s, cycle %s\n", display_length(run.path_length_mm, units).c_str(),
+              display_time(run.cycle_time_s).c_str());
   for (const PathWarning& w : run.built.warnings) {
     std::printf("  warning: %s%s\n", w.line > 0 ? ("line " + std::to_string(w.line) + ": ").c_str() : "",
                 w.message.c_str());
@@ -117,7 +116,7 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
     std::printf("  streamed: %d bands of %d rows, peak grid %s MiB; pictures show %d x %d cell "
                 "block means\n",
                 run.bands, run.band_rows,
-                format_number(static_cast<double>(run.peak_grid_bytes) / (1 << 20)).c_str(),
+                display_number(static_cast<double>(run.peak_grid_bytes) / (1 << 20), 0.0).c_str(),
                 run.overview_cells_per_pixel, run.overview_cells_per_pixel);
   }
   for (const std::string& k : job.ignored_keys) std::printf("  ignored: %s\n", k.c_str());
@@ -158,6 +157,7 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   {
     ProgressBar bar("sweep");
     ropt.progress = bar.callback();
+    ropt.before_sweep = forecast_printer(o.common.verbose);
     run = run_job(job, ropt);
   }
   print_stage(o.common.verbose, "path", run.path_s);
@@ -252,6 +252,7 @@ void setup_simulate(CLI::App& sub) {
   add_sim_flags(sub, o->sim);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
+  sub.footer(cautions_help_text(standard_cautions()));
   CLI::App* app = &sub;
   sub.callback([o, app] { run_simulate(*o, app->count("--units") > 0); });
 }

@@ -13,6 +13,7 @@
 #include "core/write_file_atomic.h"
 #include "io/read_heightmap.h"
 #include "io/texture_json.h"
+#include "core/display_quantity.h"
 #include "texture/texture_report.h"
 
 namespace cuspmap {
@@ -27,59 +28,58 @@ struct TextureCliOptions {
   std::string export_path;           ///< re-save the heightmap in the format of this extension
 };
 
-std::string fixed(double v, int decimals) {
-  char buf[64];
-  std::snprintf(buf, sizeof buf, "%.*f", decimals, v);
-  return buf;
+// One table row: name, value in the display unit, and a note.
+void height_row(const char* name, double um, LengthUnit u, const std::string& note = "") {
+  std::printf("  %-4s %10s %-3s  %s\n", name, display_roughness_number(um, u).c_str(),
+              roughness_symbol(u), note.c_str());
 }
 
-// One table row: name, value in um and uin, and a note.
-void height_row(const char* name, double um, const std::string& note = "") {
-  std::printf("  %-4s %11s um %11s uin  %s\n", name, fixed(um, 4).c_str(),
-              fixed(um * kUinPerUm, 2).c_str(), note.c_str());
-}
+// A dimensionless parameter (skewness, kurtosis, ratios): 3 figures, noise below 1e-6 reads 0.
+std::string ratio(double v) { return display_number(v, 1e-6); }
 
-void print_table(const HeightmapFile& file, const TextureReport& r, const std::string& path) {
+void print_table(const HeightmapFile& file, const TextureReport& r, const std::string& path,
+                 LengthUnit u) {
   const ProfileReport& p = r.profile;
   const ProfileParameters& q = p.roughness;
-  std::printf("%s: %s, %d x %d cells of %s mm (%s x %s mm), cell from %s\n", path.c_str(),
-              file.format.c_str(), file.field.nx, file.field.ny, format_number(r.cell_mm).c_str(),
-              format_number(r.size_x_mm).c_str(), format_number(r.size_y_mm).c_str(),
-              file.cell_source.c_str());
+  std::printf("%s: %s, %d x %d cells of %s (%s x %s), cell from %s\n", path.c_str(),
+              file.format.c_str(), file.field.nx, file.field.ny,
+              display_length(r.cell_mm, u).c_str(), display_length_number(r.size_x_mm, u).c_str(),
+              display_length(r.size_y_mm, u).c_str(), file.cell_source.c_str());
   std::printf("\nProfile (ISO 4287), %s the lay at %s deg, mean of %d traces\n",
               p.direction == "angle" ? "at an angle to" : p.direction.c_str(),
-              format_number(p.direction_deg).c_str(), p.traces);
-  std::printf("  cut-off %s mm (%s), lambda-s %s um, evaluation length %s mm = %d x %s mm\n",
-              format_number(p.cutoff_mm).c_str(), p.cutoff_rule.c_str(),
-              format_number(p.lambda_s_um).c_str(), format_number(p.evaluation_length_mm).c_str(),
-              p.sampling_lengths, format_number(p.cutoff_mm).c_str());
-  height_row("Ra", q.a_um, "ISO 1302:1992 " + p.iso1302_grade);
-  height_row("Rq", q.q_um);
-  height_row("Rz", q.z_um, "mean of " + std::to_string(p.sampling_lengths) + " sampling lengths");
-  height_row("Rp", q.p_um);
-  height_row("Rv", q.v_um);
-  height_row("Rt", q.t_um);
-  std::printf("  Rsk %s   Rku %s   RSm %s mm\n", fixed(q.sk, 3).c_str(), fixed(q.ku, 3).c_str(),
-              format_number(q.sm_mm).c_str());
-  std::printf("  primary: Pa %s um, Pt %s um;  waviness: Wa %s um, Wt %s um\n",
-              format_number(p.primary.a_um).c_str(), format_number(p.primary.t_um).c_str(),
-              format_number(p.waviness.a_um).c_str(), format_number(p.waviness.t_um).c_str());
+              display_number(p.direction_deg, 1e-6).c_str(), p.traces);
+  std::printf("  cut-off %s, chosen by %s; lambda-s %s; evaluation length %s = %d x cut-off\n",
+              display_cutoff(p.cutoff_mm, u).c_str(), p.cutoff_rule.c_str(),
+              display_roughness(p.lambda_s_um, u).c_str(),
+              display_length(p.evaluation_length_mm, u).c_str(), p.sampling_lengths);
+  height_row("Ra", q.a_um, u, "ISO 1302:1992 " + p.iso1302_grade);
+  height_row("Rq", q.q_um, u);
+  height_row("Rz", q.z_um, u, "mean of " + std::to_string(p.sampling_lengths) + " sampling lengths");
+  height_row("Rp", q.p_um, u);
+  height_row("Rv", q.v_um, u);
+  height_row("Rt", q.t_um, u);
+  std::printf("  Rsk %s   Rku %s   RSm %s\n", ratio(q.sk).c_str(), ratio(q.ku).c_str(),
+              display_length(q.sm_mm, u).c_str());
+  std::printf("  primary: Pa %s, Pt %s;  waviness: Wa %s, Wt %s\n",
+              display_roughness(p.primary.a_um, u).c_str(),
+              display_roughness(p.primary.t_um, u).c_str(),
+              display_roughness(p.waviness.a_um, u).c_str(),
+              display_roughness(p.waviness.t_um, u).c_str());
   const ArealReport& a = r.areal;
   const ArealParameters& s = a.parameters;
-  std::printf(
-      "\nAreal (ISO 25178-2), least-squares plane removed%s%s\n",
-      a.s_filter_mm > 0 ? (", S-filter " + format_number(a.s_filter_mm) + " mm").c_str() : "",
-      a.l_filter_mm > 0 ? (", L-filter " + format_number(a.l_filter_mm) + " mm").c_str() : "");
-  height_row("Sa", s.sa_um);
-  height_row("Sq", s.sq_um);
-  height_row("Sz", s.sz_um);
-  height_row("Sp", s.sp_um);
-  height_row("Sv", s.sv_um);
-  std::printf("  Ssk %s   Sku %s   Sdr %s %%   Str %s   Sal %s mm\n", fixed(s.ssk, 3).c_str(),
-              fixed(s.sku, 3).c_str(), format_number(s.sdr * 100.0).c_str(),
-              fixed(a.spatial.str, 3).c_str(), format_number(a.spatial.sal_mm).c_str());
-  std::printf("  lay %s deg from +X (strength %s)\n", fixed(a.spatial.lay_deg, 1).c_str(),
-              fixed(a.spatial.lay_strength, 2).c_str());
+  std::printf("\nAreal (ISO 25178-2), least-squares plane removed%s%s\n",
+              a.s_filter_mm > 0 ? (", S-filter " + display_cutoff(a.s_filter_mm, u)).c_str() : "",
+              a.l_filter_mm > 0 ? (", L-filter " + display_cutoff(a.l_filter_mm, u)).c_str() : "");
+  height_row("Sa", s.sa_um, u);
+  height_row("Sq", s.sq_um, u);
+  height_row("Sz", s.sz_um, u);
+  height_row("Sp", s.sp_um, u);
+  height_row("Sv", s.sv_um, u);
+  std::printf("  Ssk %s   Sku %s   Sdr %s %%   Str %s   Sal %s\n", ratio(s.ssk).c_str(),
+              ratio(s.sku).c_str(), ratio(s.sdr * 100.0).c_str(), ratio(a.spatial.str).c_str(),
+              display_length(a.spatial.sal_mm, u).c_str());
+  std::printf("  lay %s deg from +X (strength %s)\n", display_number(a.spatial.lay_deg, 1e-6).c_str(),
+              ratio(a.spatial.lay_strength).c_str());
   if (!r.warnings.empty()) {
     std::printf("\nWarnings:\n");
     for (const std::string& w : r.warnings) std::printf("  - %s\n", w.c_str());
@@ -109,7 +109,7 @@ void run_texture(const TextureCliOptions& o) {
   if (o.common.json) {
     print_json(texture_report_json(report));
   } else {
-    print_table(file, report, o.file);
+    print_table(file, report, o.file, unit);
   }
 }
 

@@ -6,6 +6,8 @@
 #include <iostream>
 #include <stdexcept>
 
+#include "report/progress_text.h"
+
 namespace cuspmap {
 namespace {
 
@@ -36,6 +38,14 @@ void print_json(const nlohmann::json& doc) {
   require_finite(doc, "$");
   std::cout << doc.dump(2) << '\n';
   std::cout.flush();
+}
+
+std::function<void(const RunEstimate&)> forecast_printer(bool verbose, std::string prefix) {
+  return [verbose, prefix](const RunEstimate& e) {
+    if (!verbose && e.seconds < kAnnounceRunS) return;
+    std::fprintf(stderr, "%s%s\n", prefix.c_str(), forecast_line(e).c_str());
+    std::fflush(stderr);
+  };
 }
 
 void print_stage(bool verbose, const char* stage, double seconds) {

@@ -5,9 +5,11 @@
 
 #include <CLI/CLI.hpp>
 #include <nlohmann/json.hpp>
+#include <functional>
 #include <string>
 
 #include "core/units.h"
+#include "job/run_estimate.h"
 
 namespace cuspmap {
 
@@ -26,6 +28,10 @@ void add_common_flags(CLI::App& sub, CommonOptions& common);
 /// Prints `doc` on stdout as one JSON object (2-space indent, trailing newline).
 /// @throws std::logic_error (internal error, exit 1) if any number in it is NaN or infinite.
 void print_json(const nlohmann::json& doc);
+
+/// A RunOptions::before_sweep that prints the forecast line on stderr when the run is forecast
+/// to take kAnnounceRunS or longer, or always when verbose. `prefix` names the job ("" = none).
+std::function<void(const RunEstimate&)> forecast_printer(bool verbose, std::string prefix = "");
 
 /// Prints "<name> <ms> ms" for a stage on stderr when verbose.
 void print_stage(bool verbose, const char* stage, double seconds);

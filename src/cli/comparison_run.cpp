@@ -20,6 +20,9 @@ Comparison run_comparison(const std::vector<Job>& jobs, RunOptions options,
     ProgressBar bar("simulate");
     for (size_t k = 0; k < jobs.size(); ++k) {
       options.progress = [&bar, k, n = jobs.size()](double f) { bar.update((k + f) / n); };
+      options.before_sweep =
+          forecast_printer(verbose, "job " + std::to_string(k + 1) + " of " +
+                                        std::to_string(jobs.size()) + ": ");
       rows.push_back({jobs[k], run_job(jobs[k], options), {}});
       print_stage(verbose, "sweep", rows.back().run.sweep_s);
       print_stage(verbose, "texture", rows.back().run.texture_s);

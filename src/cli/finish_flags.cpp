@@ -8,6 +8,7 @@
 
 #include "core/input_error.h"
 #include "io/read_grit_table.h"
+#include "report/html_report.h"
 #include "job/validate_cutter.h"
 
 namespace cuspmap {
@@ -156,9 +157,6 @@ nlohmann::json grits_json(const GritSequence& sequence) {
   return steps;
 }
 
-void print_cautions(const std::vector<std::string>& cautions) {
-  std::printf("\nCautions:\n");
-  for (const std::string& c : cautions) std::printf("  ! %s\n", c.c_str());
-}
+void print_cautions() { std::printf("\n%s\n", kShortCaution); }
 
 }  // namespace cuspmap

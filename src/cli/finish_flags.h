@@ -78,7 +78,8 @@ std::string duration_text(double seconds);
 /// volume_mm3, time_s} per step.
 nlohmann::json grits_json(const GritSequence& sequence);
 
-/// Prints a list of cautions under a "Cautions:" heading on stdout.
-void print_cautions(const std::vector<std::string>& cautions);
+/// Prints the one-line caution (report/html_report.h kShortCaution) on stdout; the full
+/// list is in the JSON and in --help.
+void print_cautions();
 
 }  // namespace cuspmap

@@ -1,15 +1,16 @@
-// A progress bar on stderr for long runs: shown only when stderr is a terminal and the run has
-// lasted longer than about a second, so pipes, CI logs and quick runs stay clean.
+// Progress on stderr for long runs: a bar redrawn in place when stderr is a terminal (after about
+// a second), otherwise a plain line at most every 10 s (report/progress_text.h).
 #pragma once
 
 #include <functional>
 #include <string>
 
 #include "core/stage_timer.h"
+#include "report/progress_text.h"
 
 namespace cuspmap {
 
-/// Draws "label [#####.....]  42%" on stderr, redrawn in place.
+/// Prints ProgressText's bar or lines on stderr.
 class ProgressBar {
  public:
   /// @param[in] label  short text before the bar ("sweep")
@@ -24,11 +25,9 @@ class ProgressBar {
   std::function<void(double)> callback();
 
  private:
-  std::string label_;
+  static void print(const std::string& text);
+  ProgressText text_;
   StageTimer timer_;
-  bool enabled_ = false;
-  bool drawn_ = false;
-  int last_percent_ = -1;
 };
 
 }  // namespace cuspmap

@@ -12,36 +12,19 @@
 #include "cusp/kinematic_limits.h"
 #include "cusp/iso1302_grade.h"
 #include "cusp/scallop_curved.h"
+#include "core/display_quantity.h"
+#include "report/html_report.h"
 #include "finish/wide_ridges.h"
 
 namespace cuspmap {
 namespace {
 
-// Significant digits in the human table: cusp inputs are rarely known better than this.
-constexpr int kTableDigits = 4;
+// Human text of the table: the shared display layer (3 significant figures, --units).
+std::string sig(double v) { return display_number(v, 1e-9); }
 
-std::string sig(double v) {
-  std::array<char, 64> buf{};
-  const bool large = std::abs(v) >= 1e4;
-  const auto [ptr, ec] = large ? std::to_chars(buf.data(), buf.data() + buf.size(), std::round(v),
-                                               std::chars_format::fixed, 0)
-                               : std::to_chars(buf.data(), buf.data() + buf.size(), v,
-                                               std::chars_format::general, kTableDigits);
-  return ec == std::errc() ? std::string(buf.data(), ptr) : "?";
-}
+std::string length(double mm, LengthUnit unit) { return display_length(mm, unit); }
 
-std::string length(double mm, LengthUnit unit) {
-  if (unit == LengthUnit::Inch) return sig(mm / kMmPerInch) + " in";
-  return sig(mm) + " mm";
-}
-
-std::string height(double um, LengthUnit unit) {
-  if (unit == LengthUnit::Inch) {
-    const double uin = um * kUinPerUm;
-    return sig(uin) + " uin (" + sig(uin * 1e-3) + " thou)";
-  }
-  return sig(um) + " um (" + sig(um * kUinPerUm) + " uin)";
-}
+std::string height(double um, LengthUnit unit) { return display_roughness(um, unit); }
 
 std::string shape_words(const CuspSetup& s, LengthUnit unit) {
   const Cutter& c = s.cutter;
@@ -65,7 +48,7 @@ std::string shape_words(const CuspSetup& s, LengthUnit unit) {
 }
 
 std::string target_name(FinishTarget t) {
-  return t == FinishTarget::Ra ? "Ra" : t == FinishTarget::Rz ? "Rz" : "scallop";
+  return t == FinishTarget::Ra ? "Ra" : t == FinishTarget::Rz ? "Rz" : "cusp";
 }
 
 struct Messages {
@@ -234,14 +217,14 @@ nlohmann::json stepover_json(const StepoverReport& rep) {
                                                            : nlohmann::json(nullptr);
   }
   j["stepover_mm"] = r.stepover_mm;
-  j["scallop_height_um"] = r.scallop_um;
-  j["scallop_height_approx_um"] = r.scallop_approx_um;
-  j["ra_um"] = r.stats.ra_um;
-  j["rq_um"] = r.stats.rq_um;
-  j["rz_um"] = r.stats.rz_um;
-  j["ra_approx_um"] = r.stats_approx.ra_um;
-  j["rq_approx_um"] = r.stats_approx.rq_um;
-  j["rz_approx_um"] = r.stats_approx.rz_um;
+  j["cusp_um"] = r.scallop_um;
+  j["cusp_approx_um"] = r.scallop_approx_um;
+  j["Ra_um"] = r.stats.ra_um;
+  j["Rq_um"] = r.stats.rq_um;
+  j["Rz_um"] = r.stats.rz_um;
+  j["Ra_approx_um"] = r.stats_approx.ra_um;
+  j["Rq_approx_um"] = r.stats_approx.rq_um;
+  j["Rz_approx_um"] = r.stats_approx.rz_um;
   j["effective_radius_mm"] = optional_number(r.effective_radius_mm);
   const auto grade = r.stats.ra_um > 0.0 ? iso1302_grade(r.stats.ra_um) : std::nullopt;
   j["iso1302_grade"] = grade ? nlohmann::json(grade->label()) : nlohmann::json(nullptr);
@@ -293,7 +276,7 @@ std::string stepover_table(const StepoverReport& rep) {
   row("", "exact", "small-stepover approx.");
   row(rep.turning ? "feed per rev" : "stepover", length(r.stepover_mm, u),
       rep.inverse ? (rep.stepover_approx_mm > 0.0 ? length(rep.stepover_approx_mm, u) : "-") : "");
-  row("scallop height", height(r.scallop_um, u), height(r.scallop_approx_um, u));
+  row("cusp height", height(r.scallop_um, u), height(r.scallop_approx_um, u));
   row("Ra", height(r.stats.ra_um, u), height(r.stats_approx.ra_um, u));
   row("Rq", height(r.stats.rq_um, u), height(r.stats_approx.rq_um, u));
   row("Rz", height(r.stats.rz_um, u), height(r.stats_approx.rz_um, u));
@@ -321,11 +304,11 @@ std::string stepover_table(const StepoverReport& rep) {
   for (const std::string& w : m.warnings) out << "warning: " << w << '\n';
   for (const std::string& n : m.notes) out << "note: " << n << '\n';
   for (const std::string& c : m.cautions) out << "caution: " << c << '\n';
-  out << "caution: " << kCaution << '\n';
   if (const std::string fine = fine_ra_caution(r.stats.ra_um); !fine.empty()) {
     out << "caution: " << fine << '\n';
   }
   out << "model: " << kKinematicBestCase << '\n';
+  out << kShortCaution << '\n';
   return out.str();
 }
 
@@ -392,7 +375,8 @@ std::string stepover_help_footer() {
          "--target-ra 0.8um\n"
          "  cuspmap stepover --tool ball --diameter 6 --surface concave --surface-radius 20 \\\n"
          "      --stepover 0.4 --feed-per-tooth 0.08 --teeth 2 --json\n"
-         "  cuspmap stepover --tool insert --nose-radius 0.8 --feed-per-rev 0.2\n";
+         "  cuspmap stepover --tool insert --nose-radius 0.8 --feed-per-rev 0.2\n" +
+         cautions_help_text({kCaution});
 }
 
 }  // namespace cuspmap

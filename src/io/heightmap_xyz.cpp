@@ -38,7 +38,7 @@ constexpr double kMaxXyzCellsPerPoint = 64.0;
 }  // namespace
 
 std::string encode_xyz(const Heightfield& hf) {
-  std::string out;
+  std::string out = "# X mm, Y mm, Z um above nominal\n";  // the reader skips '#' lines
   for (int j = 0; j < hf.ny; ++j) {
     for (int i = 0; i < hf.nx; ++i) {
       const float z = hf.z_um(j, i);

@@ -24,8 +24,8 @@ std::string num(double v) {
 
 std::string encode_plan_csv(const PlanResult& plan) {
   std::string csv =
-      "tool,stepover_mm,passes,path_length_mm,machine_time_s,scallop_um,sv_um,ra_um,simulated,"
-      "sanded,grits,bench_time_s,removed_volume_mm3,final_ra_um,machine_cost,bench_cost,cost,"
+      "tool,stepover_mm,passes,path_length_mm,machine_time_s,cusp_um,Sv_um,Ra_um,simulated,"
+      "sanded,grits,bench_time_s,removed_volume_mm3,final_Ra_um,machine_cost,bench_cost,cost,"
       "meets_spec,best,reason\n";
   for (std::size_t k = 0; k < plan.options.size(); ++k) {
     const PlanOption& p = plan.options[k];

@@ -2,15 +2,13 @@
 // Inputs: Cutter/PathSpec (mm, deg); output: short text in the chosen units.
 #include <string>
 
+#include "core/display_quantity.h"
 #include "job/job.h"
 
 namespace cuspmap {
 namespace {
 
-std::string length_text(double mm, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
-  return format_number(mm) + " mm";
-}
+std::string length_text(double mm, LengthUnit units) { return display_length(mm, units); }
 
 }  // namespace
 
@@ -29,7 +27,7 @@ std::string describe_tool(const Cutter& c, LengthUnit units) {
   }
   if (c.shape != CutterShape::Ball && c.dish_deg > 0) s += ", " + format_number(c.dish_deg) + " deg dish";
   if (c.tilt_deg != 0) s += ", tilt " + format_number(c.tilt_deg) + " deg";
-  if (c.runout_mm > 0) s += ", runout " + format_number(c.runout_mm * 1000.0) + " um";
+  if (c.runout_mm > 0) s += ", runout " + display_roughness(c.runout_mm * kUmPerMm, units);
   return s;
 }
 

@@ -1,5 +1,5 @@
 // Job: everything one simulation needs (cutter, patch, cut, path, sim settings), read from a TOML
-// job file and validated, in core units (mm, deg, mm/min). DESIGN.md "Job file" is the schema.
+// job file and validated, in core units (mm, deg, mm/min). docs/job-file.md lists every key.
 // Method: toml++ 3 parser; schema checks with file:line:col messages and nearest-key suggestions.
 #pragma once
 

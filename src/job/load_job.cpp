@@ -1,6 +1,6 @@
 // Reads a TOML job file into a validated Job: schema (known keys per table, nearest-key hints),
 // units (bare numbers in `units`, strings with suffixes), defaults and range checks.
-// Inputs: job text (TOML); output: Job in mm/deg/mm-per-min. Method: DESIGN.md "Job file".
+// Inputs: job text (TOML); output: Job in mm/deg/mm-per-min. Method: the schema in docs/job-file.md.
 #include <algorithm>
 #include <array>
 #include <cmath>

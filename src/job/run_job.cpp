@@ -50,11 +50,21 @@ bool should_stream(const Patch& patch, const RunOptions& options) {
   return heightfield_bytes(patch) > limit / kInMemoryGrids;
 }
 
+// What the tooth-resolved sweep's cost depends on, for the forecast.
+ToothWork tooth_work(const Job& job, const JobRun& run) {
+  return {run.path_length_mm, job.cutter.diameter_mm, run.patch.cell_mm, job.cut.rpm,
+          job.cut.feed_mm_per_min, job.cutter.teeth};
+}
+
 // Two passes of the band sweep: plane, overview and traces; then the residual moments.
 void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
                   const RunOptions& options, JobRun& run, StageTimer& timer) {
   const BandPlan plan = plan_bands(run.patch, sim.max_memory_bytes);
   if (options.stream_begin) options.stream_begin(plan.nx, plan.ny);
+  if (options.before_sweep) {
+    options.before_sweep(estimate_run(plan.nx, plan.ny, sim.tooth_marks, true, plan.band_bytes,
+                                      tooth_work(job, run)));
+  }
   StreamedTexture texture(plan.nx, plan.ny, run.patch.cell_mm, run.patch.origin_x_mm,
                           run.patch.origin_y_mm, lay_options(job, options),
                           sweep_threads(sim.threads));
@@ -110,6 +120,11 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   if (should_stream(run.patch, options)) {
     run_streamed(job, cut, sim, options, run, timer);
     return run;
+  }
+  if (options.before_sweep) {
+    std::int64_t nx = 0, ny = 0;
+    grid_dimensions(run.patch, nx, ny);
+    options.before_sweep(estimate_run(nx, ny, sim.tooth_marks, false, 0, tooth_work(job, run)));
   }
   run.floor = simulate_floor(job.cutter, run.built.path, cut, run.patch, sim, &run.sweep);
   run.sweep_s = timer.lap();

@@ -9,6 +9,7 @@
 
 #include "core/heightfield.h"
 #include "job/job.h"
+#include "job/run_estimate.h"
 #include "path/build_toolpath.h"
 #include "sweep/simulate_bands.h"
 #include "sweep/simulate_floor.h"
@@ -29,6 +30,9 @@ struct RunOptions {
   int threads = 0;                         ///< sweep threads; 0 = all hardware threads
   std::int64_t max_memory_bytes = 0;       ///< grid limit; 0 = half of physical memory
   std::function<void(double)> progress;    ///< sweep progress in [0, 1]; may be empty
+  /// Called once, after the path is built and before the sweep, with the run's forecast (for the
+  /// line a long run prints first). Empty = not wanted.
+  std::function<void(const RunEstimate&)> before_sweep;
   TextureOptions texture;                  ///< cut-off and direction overrides
   /// Streamed runs only (in-memory runs never call it): called once with the grid's columns and
   /// rows after the bands are planned and before any sweep; it may throw InputError to refuse

@@ -3,8 +3,10 @@
 #include "report/compare_report.h"
 
 #include <algorithm>
+#include <charconv>
 #include <cstdio>
 
+#include "core/display_quantity.h"
 #include "cusp/kinematic_limits.h"
 #include "report/montage.h"
 #include "report/nice_ticks.h"
@@ -13,9 +15,13 @@
 namespace cuspmap {
 namespace {
 
-std::string length_text(double mm, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
-  return format_number(mm) + " mm";
+std::string length_text(double mm, LengthUnit units) { return display_length(mm, units); }
+
+// Full precision for CSV: the shortest text that reads back to the same double.
+std::string full_precision(double v) {
+  char buf[64];
+  const auto [ptr, ec] = std::to_chars(buf, buf + sizeof buf, v);
+  return ec == std::errc() ? std::string(buf, ptr) : "nan";
 }
 
 // Display value of a column in the chosen units (heights um or uin, lengths mm or in).
@@ -26,6 +32,16 @@ double display_value(const CompareColumn& c, const CompareRow& row, LengthUnit u
   if (key.ends_with("_um")) return v * kUinPerUm;
   if (key.ends_with("_mm")) return v / kMmPerInch;
   return v;
+}
+
+// A column's value as text: 3 significant figures, resolution floors of display_quantity.h.
+std::string column_text(const CompareColumn& c, const CompareRow& row, LengthUnit units) {
+  const std::string key = c.key;
+  const double v = c.value(row);
+  if (key.ends_with("_um")) return display_roughness_number(v, units);
+  if (key.ends_with("_mm")) return display_length_number(v, units);
+  if (key.ends_with("_s")) return display_time_number(v, TimeUnit::Second);
+  return display_number(v, 0.0);
 }
 
 std::string display_unit(const CompareColumn& c, LengthUnit units) {
@@ -47,7 +63,7 @@ const std::vector<CompareColumn>& compare_columns() {
       {"Sa", "Sa_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sa_um; }},
       {"Sz", "Sz_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sz_um; }},
       {"cusp", "max_scallop_um", true, [](const CompareRow& r) { return r.run.max_scallop_um; }},
-      {"sand (Sv)", "mean_removal_um", true,
+      {"mean sanding depth Sv", "mean_removal_um", true,
        [](const CompareRow& r) { return r.run.texture.areal.parameters.sv_um; }},
       {"path", "path_length_mm", true, [](const CompareRow& r) { return r.run.path_length_mm; }},
       {"cycle", "cycle_time_s", true, [](const CompareRow& r) { return r.run.cycle_time_s; }},
@@ -108,7 +124,7 @@ nlohmann::json compare_json(const std::vector<CompareRow>& rows, const ProfileBa
   for (size_t k = 0; k < best.size(); ++k) {
     b[compare_columns()[k].key] = best[k] ? nlohmann::json(*best[k]) : nlohmann::json();
   }
-  out["best"] = b;
+  out["best_index"] = b;  // per column: 0-based index into rows (table row - 1); null = not ranked
   out["model"] = kKinematicBestCase;
   out["basis"] = {{"cutoff_mm", basis.cutoff_mm},
                   {"cutoff_rule", basis.cutoff_rule},
@@ -135,7 +151,7 @@ std::string compare_csv(const std::vector<CompareRow>& rows) {
   for (const CompareRow& row : rows) {
     csv.append(quote(row.job.name)).append(",").append(quote(row.job.source));
     for (const CompareColumn& c : compare_columns()) {
-      csv.append(",").append(format_number(c.value(row)));
+      csv.append(",").append(full_precision(c.value(row)));
     }
     const ProfileReport& p = row.run.texture.profile;
     csv.append(",").append(format_number(p.cutoff_mm));
@@ -172,7 +188,7 @@ std::string compare_table_text(const std::vector<CompareRow>& rows, const Profil
       const CompareColumn& c = compare_columns()[k];
       // "!" marks a predicted Ra finer than milling usually measures (cusp/kinematic_limits.h).
       const bool fine = std::string(c.key) == "Ra_um" && !fine_ra_caution(c.value(rows[r])).empty();
-      const std::string v = format_number(display_value(c, rows[r], units)) + (fine ? "!" : "") +
+      const std::string v = column_text(c, rows[r], units) + (fine ? "!" : "") +
                             (best[k] && *best[k] == r ? "*" : " ");
       std::snprintf(buf, sizeof buf, " %11s", v.c_str());
       out += buf;
@@ -266,28 +282,28 @@ HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const Profil
     std::vector<HtmlCell> cells = {
         {std::to_string(k + 1)},
         {row.job.name},
-        {format_number(units == LengthUnit::Inch ? p.cutoff_mm / kMmPerInch : p.cutoff_mm)},
+        {display_cutoff(p.cutoff_mm, units)},
         {profile_direction_text(p)}};
     for (const CompareColumn& c : compare_columns()) {
       const double v = display_value(c, row, units);
-      cells.push_back({format_number(v), v});
+      cells.push_back({column_text(c, row, units), v});
     }
     t.rows.push_back(std::move(cells));
     r.filters.push_back(std::to_string(k + 1) + ": ISO 16610-21 Gaussian lambda-c " +
-                        length_text(row.run.texture.profile.cutoff_mm, units) + " (" +
+                        display_cutoff(row.run.texture.profile.cutoff_mm, units) + " (" +
                         row.run.texture.profile.cutoff_rule + "), traced " +
                         profile_direction_text(row.run.texture.profile) +
                         "; areal: least-squares plane removed" +
                         (row.run.texture.areal.s_filter_mm > 0
-                             ? ", S-filter " + length_text(row.run.texture.areal.s_filter_mm, units)
+                             ? ", S-filter " + display_cutoff(row.run.texture.areal.s_filter_mm, units)
                              : std::string()) +
                         (row.run.texture.areal.l_filter_mm > 0
-                             ? ", L-filter " + length_text(row.run.texture.areal.l_filter_mm, units)
+                             ? ", L-filter " + display_cutoff(row.run.texture.areal.l_filter_mm, units)
                              : std::string()));
   }
   if (basis.rankable()) {
     r.notes.push_back("Ra and Rz of every row on one basis: cut-off " +
-                      length_text(basis.cutoff_mm, units) + " (" + basis.cutoff_rule + ")");
+                      display_cutoff(basis.cutoff_mm, units) + " (" + basis.cutoff_rule + ")");
   } else {
     r.notes.push_back("Ra and Rz are not ranked: the rows do not share one basis");
   }

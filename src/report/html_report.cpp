@@ -230,6 +230,12 @@ std::vector<std::string> standard_cautions() {
   };
 }
 
+std::string cautions_help_text(const std::vector<std::string>& cautions) {
+  std::string text = "Cautions:\n";
+  for (const std::string& c : cautions) text += "  - " + c + "\n";
+  return text;
+}
+
 std::string render_html_report(const HtmlReport& r) {
   std::string out;
   out += "<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n";

@@ -67,6 +67,16 @@ std::string html_escape(std::string_view text);
 /// harmful dust, model not measurement, local codes / machine maker / licensed practice).
 std::vector<std::string> standard_cautions();
 
+/// The caution in one line, printed once per run on the terminal; the full lists go to the
+/// reports, the JSON and --help.
+inline constexpr const char* kShortCaution =
+    "Caution: rotating tools, workholding and combustible, harmful metal dust; prove the program "
+    "and the sanding set-up as the makers instruct and follow local codes and licensed practice "
+    "(full cautions: --help and the reports).";
+
+/// `cautions` as a --help footer paragraph: "Cautions:" then one "  - " line each.
+std::string cautions_help_text(const std::vector<std::string>& cautions);
+
 /// Renders the page. Sections carry ids: inputs, results, pictures, profiles, filters, notes,
 /// how-to-read, cautions. A best cell has class "best" and the mark "★" (also spelled out for
 /// screen readers); the inline script sets body data-images-loaded="true" once every picture

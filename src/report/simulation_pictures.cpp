@@ -10,6 +10,7 @@
 #include "cusp/kinematic_limits.h"
 #include "io/npy.h"
 #include "io/png.h"
+#include "core/display_quantity.h"
 #include "texture/evaluate_profiles.h"
 #include "texture/extract_profiles.h"
 #include "texture/gaussian_profile_filter.h"
@@ -17,15 +18,9 @@
 namespace cuspmap {
 namespace {
 
-std::string height_text(double um, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(um * kUinPerUm) + " uin";
-  return format_number(um) + " um";
-}
+std::string height_text(double um, LengthUnit units) { return display_roughness(um, units); }
 
-std::string length_text(double mm, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
-  return format_number(mm) + " mm";
-}
+std::string length_text(double mm, LengthUnit units) { return display_length(mm, units); }
 
 // The longest finite run of the centre trace, with its mean line.
 std::optional<ProfilePlotData> centre_profile(const std::vector<ProfileTrace>& traces,
@@ -185,10 +180,10 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   row("Rz", height_text(rough.z_um, units));
   row("Sa", height_text(areal.sa_um, units));
   row("Sz", height_text(areal.sz_um, units));
-  row("highest point above nominal", height_text(run.max_scallop_um, units));
-  row("lowest point", height_text(run.min_height_um, units));
+  row("highest point, relative to nominal", height_text(run.max_scallop_um, units));
+  row("lowest point, relative to nominal", height_text(run.min_height_um, units));
   row("path length", length_text(run.path_length_mm, units));
-  row("cycle time", format_number(run.cycle_time_s) + " s");
+  row("cycle time", display_time(run.cycle_time_s));
   r.tables.push_back(t);
   r.images.push_back({pictures.height_png, "height map", pictures.height_caption});
   r.images.push_back({pictures.shaded_png, "shaded relief", pictures.shaded_caption});
@@ -201,9 +196,9 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
     r.profile_plots.push_back({pictures.profile_png, "profiles", pictures.profile_caption});
   }
   const ProfileReport& p = run.texture.profile;
-  r.filters = {"Profile: ISO 16610-21 Gaussian, lambda-c " + length_text(p.cutoff_mm, units) +
-                   " (" + p.cutoff_rule + "), lambda-s " + format_number(p.lambda_s_um) +
-                   " um, evaluation length " + length_text(p.evaluation_length_mm, units) + " (" +
+  r.filters = {"Profile: ISO 16610-21 Gaussian, lambda-c " + display_cutoff(p.cutoff_mm, units) +
+                   " (" + p.cutoff_rule + "), lambda-s " + height_text(p.lambda_s_um, units) +
+                   ", evaluation length " + length_text(p.evaluation_length_mm, units) + " (" +
                    std::to_string(p.sampling_lengths) + " sampling lengths, " +
                    std::to_string(p.traces) + " traces)",
                "Areal: least-squares plane removed (F-operator)"};

@@ -20,7 +20,7 @@ TEST_CASE("demo: --quick runs the built-in scenario end to end", "[cli]") {
       CHECK(row.contains(key));
     }
   }
-  CHECK(doc["target_ra_um"] == 0.8);
+  CHECK(doc["target_Ra_um"] == 0.8);
   CHECK(doc["cautions"].size() >= 3);
   // The ball at 0.3 mm leaves Ra ~ 0.96 um > 0.8 um (handbook cusp 3.75 um x 4/(9 sqrt 3)), so
   // the first option must miss the target.

@@ -29,14 +29,14 @@ TEST_CASE("cuspmap plan: JSON carries options and the index of the best one", "[
   REQUIRE(doc["options"].size() == 6);
   for (const auto& o : doc["options"]) {
     for (const char* key : {"stepover_mm", "machine_time_s", "bench_time_s", "cost", "meets_spec",
-                            "tool", "passes", "scallop_um", "ra_um", "removed_volume_mm3",
-                            "final_ra_um", "machine_cost", "bench_cost", "reason", "grits"}) {
+                            "tool", "passes", "cusp_um", "Ra_um", "removed_volume_mm3",
+                            "final_Ra_um", "machine_cost", "bench_cost", "reason", "grits"}) {
       CAPTURE(key);
       REQUIRE(o.contains(key));
     }
   }
-  REQUIRE(doc["best"].is_number_integer());
-  const auto best = doc["best"].get<std::size_t>();
+  REQUIRE(doc["best_index"].is_number_integer());
+  const auto best = doc["best_index"].get<std::size_t>();
   REQUIRE(doc["options"][best]["meets_spec"].get<bool>());
   for (const auto& o : doc["options"]) {
     if (o["meets_spec"].get<bool>())
@@ -52,7 +52,7 @@ TEST_CASE("cuspmap plan: no option meeting the spec is a valid answer: best null
       run_cuspmap(bracket({"--target-scallop", "0.00001um", "--sand", "always", "--json"}));
   REQUIRE(r.exit_code == 0);
   const nlohmann::json doc = nlohmann::json::parse(r.out);
-  REQUIRE(doc["best"].is_null());
+  REQUIRE(doc["best_index"].is_null());
   REQUIRE(doc["message"].get<std::string>().rfind("no option meets the spec", 0) == 0);
   const test::RunResult human = run_cuspmap(bracket({"--target-scallop", "0.00001um", "--sand", "always"}));
   REQUIRE(human.exit_code == 0);
@@ -68,12 +68,12 @@ TEST_CASE("cuspmap plan: --out writes plan.json, plan.csv and plan.svg; table sh
   REQUIRE(r.exit_code == 0);
   const nlohmann::json doc = nlohmann::json::parse(test::read_text(out + "/plan.json"));
   REQUIRE(doc.contains("options"));
-  REQUIRE(doc.contains("best"));
+  REQUIRE(doc.contains("best_index"));
   const std::string csv = test::read_text(out + "/plan.csv");
   REQUIRE(std::count(csv.begin(), csv.end(), '\n') == 7);
   REQUIRE(test::read_text(out + "/plan.svg").find("<svg") != std::string::npos);
-  for (const char* text : {"<- cheapest", "Cautions:", "Rotating tools", "respiratory protection",
-                           "combustible", "local codes", "licensed practice"}) {
+  for (const char* text : {"<- cheapest", "Caution:", "rotating tools", "combustible",
+                           "local codes", "licensed practice"}) {
     CAPTURE(text);
     REQUIRE(r.out.find(text) != std::string::npos);
   }
@@ -94,7 +94,7 @@ TEST_CASE("cuspmap plan: --simulate takes surfaces from a simulated window", "[c
   for (const auto& o : doc["options"]) REQUIRE(o["simulated"].get<bool>());
   REQUIRE(doc["basis"]["surface"].get<std::string>().rfind("simulated window", 0) == 0);
   // The flat end tilted across the feed leaves a sawtooth (about s tan(tau)), not a level floor.
-  REQUIRE(doc["options"][3]["scallop_um"].get<double>() > 0.5);
+  REQUIRE(doc["options"][3]["cusp_um"].get<double>() > 0.5);
   // Without --simulate the closed form refuses a tilt across the feed.
   test::require_input_error(
       {"plan", "--tools", "flat:10", "--tilt", "0.05", "--tilt-toward", "90", "--size", "80x50",
@@ -112,8 +112,8 @@ TEST_CASE("cuspmap plan: bad input exits 2 with one line", "[cli]") {
   test::require_input_error({"plan", "--diameter", "6", "--size", "80x50", "--feed", "1000", "--bench-rate",
                  "1", "--target-ra", "1um"},
                 "--machine-rate is missing: give the cost of one hour (any currency)");
-  test::require_input_error(bracket({"--target-ra", "0.8um", "--direction", "spiral"}),
-                "--direction spiral: must be one-way or zigzag");
+  test::require_input_error(bracket({"--target-ra", "0.8um", "--pass-direction", "spiral"}),
+                "--pass-direction spiral: must be one-way or zigzag");
   test::require_input_error(bracket({"--target-ra", "0.8um", "--sand", "never"}),
                 "--sand never: must be when-needed or always");
   test::require_input_error({"plan", "--tools", "ball", "--size", "80x50", "--feed", "1000", "--machine-rate",

@@ -31,23 +31,23 @@ void require_bad(Args args, const std::string& line) {
 TEST_CASE("stepover: JSON keys and the handbook ball cusp", "[cli]") {
   const nlohmann::json j = run_json({"--tool", "ball", "--diameter", "6", "--stepover", "0.5"});
   REQUIRE(j.is_object());
-  for (const char* key : {"stepover_mm", "scallop_height_um", "ra_um", "rq_um", "rz_um",
-                          "effective_radius_mm", "scallop_height_approx_um", "iso1302_grade",
+  for (const char* key : {"stepover_mm", "cusp_um", "Ra_um", "Rq_um", "Rz_um",
+                          "effective_radius_mm", "cusp_approx_um", "iso1302_grade",
                           "warnings", "notes", "cautions", "within_model"}) {
     CAPTURE(key);
     REQUIRE(j.contains(key));
   }
   REQUIRE_FALSE(j.contains("feed_mark_um"));  // only with --feed-per-tooth
   // machinecalcs.com worked example: 6 mm ball, 0.5 mm stepover -> h ~= 0.0104 mm.
-  REQUIRE_NEAR(j["scallop_height_um"].get<double>(), 10.4, 0.05);
+  REQUIRE_NEAR(j["cusp_um"].get<double>(), 10.4, 0.05);
   // Machinery's Handbook cusp formula, evaluated here: 3 - sqrt(9 - 0.0625) mm.
-  REQUIRE_NEAR(j["scallop_height_um"].get<double>(), (3.0 - std::sqrt(8.9375)) * 1000.0, 1e-9);
+  REQUIRE_NEAR(j["cusp_um"].get<double>(), (3.0 - std::sqrt(8.9375)) * 1000.0, 1e-9);
   REQUIRE(j["stepover_mm"].get<double>() == 0.5);
   REQUIRE(j["effective_radius_mm"].get<double>() == 3.0);
-  REQUIRE(j["rz_um"].get<double>() == j["scallop_height_um"].get<double>());
+  REQUIRE(j["Rz_um"].get<double>() == j["cusp_um"].get<double>());
   // DESIGN.md parabolic forms beside it: Ra = 4h/(9 sqrt 3) with h = s^2/(8R).
   const double h_par = 0.25 / 24.0 * 1000.0;
-  REQUIRE_NEAR(j["ra_approx_um"].get<double>(), 4.0 * h_par / (9.0 * std::sqrt(3.0)), 1e-9);
+  REQUIRE_NEAR(j["Ra_approx_um"].get<double>(), 4.0 * h_par / (9.0 * std::sqrt(3.0)), 1e-9);
   REQUIRE(j["iso1302_grade"] == "N8");  // Ra 2.68 um: smallest grade at or above is N8 (3.2)
   REQUIRE(j["within_model"] == true);
   REQUIRE(j["cautions"].size() == 1);
@@ -62,7 +62,7 @@ TEST_CASE("stepover: feed-per-tooth mark of a ball and once-per-revolution mark"
                1e-9);
   REQUIRE(j["feed_per_rev_mm"].get<double>() == 0.2);
   // The feed marks leave the cross-feed cusp unchanged.
-  REQUIRE_NEAR(j["scallop_height_um"].get<double>(), (3.0 - std::sqrt(8.9375)) * 1000.0, 1e-9);
+  REQUIRE_NEAR(j["cusp_um"].get<double>(), (3.0 - std::sqrt(8.9375)) * 1000.0, 1e-9);
 }
 
 TEST_CASE("stepover: inch input equals its metric equivalent", "[cli]") {
@@ -70,13 +70,13 @@ TEST_CASE("stepover: inch input equals its metric equivalent", "[cli]") {
   const nlohmann::json bare =
       run_json({"--units", "in", "--diameter", "0.25", "--stepover", "0.02"});
   const nlohmann::json mm = run_json({"--diameter", "6.35", "--stepover", "0.508mm"});
-  for (const char* key : {"scallop_height_um", "ra_um", "rq_um", "stepover_mm"}) {
+  for (const char* key : {"cusp_um", "Ra_um", "Rq_um", "stepover_mm"}) {
     CAPTURE(key);
     REQUIRE_NEAR(in[key].get<double>(), mm[key].get<double>(), 1e-12 * mm[key].get<double>());
     REQUIRE_NEAR(bare[key].get<double>(), mm[key].get<double>(), 1e-12 * mm[key].get<double>());
   }
   // Trade rule (common practice, no source): 1/4 in ball at 0.020 in leaves about 0.4 thou.
-  REQUIRE_NEAR(in["scallop_height_um"].get<double>() / 25.4, 0.4, 0.01);
+  REQUIRE_NEAR(in["cusp_um"].get<double>() / 25.4, 0.4, 0.01);
 }
 
 TEST_CASE("stepover: inverse targets in mm and inch", "[cli]") {
@@ -84,13 +84,13 @@ TEST_CASE("stepover: inverse targets in mm and inch", "[cli]") {
   const nlohmann::json j = run_json({"--diameter", "6", "--target-scallop", "5um"});
   REQUIRE(j["mode"] == "inverse");
   REQUIRE_NEAR(j["stepover_mm"].get<double>(), 0.346, 0.0005);
-  REQUIRE_NEAR(j["scallop_height_um"].get<double>(), 5.0, 1e-9);
+  REQUIRE_NEAR(j["cusp_um"].get<double>(), 5.0, 1e-9);
   REQUIRE(j["stepover_approx_mm"].get<double>() > j["stepover_mm"].get<double>());
   const nlohmann::json k = run_json({"--units", "in", "--diameter", "0.236220472440945",
                                      "--target-scallop", "196.850393700787uin"});
   REQUIRE_NEAR(k["stepover_mm"].get<double>(), j["stepover_mm"].get<double>(), 1e-9);
   const nlohmann::json ra = run_json({"--diameter", "6", "--target-ra", "0.8um"});
-  REQUIRE_NEAR(ra["ra_um"].get<double>(), 0.8, 1e-9);
+  REQUIRE_NEAR(ra["Ra_um"].get<double>(), 0.8, 1e-9);
   REQUIRE(ra["iso1302_grade"] == "N6");
 }
 
@@ -98,32 +98,32 @@ TEST_CASE("stepover: bull-nose, flat, slope and cylinders", "[cli]") {
   const nlohmann::json bull = run_json(
       {"--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--stepover", "9"});
   // DESIGN.md: rc - sqrt(rc^2 - (s/2 - (R - rc))^2) = 1 - sqrt(1 - 0.25) mm.
-  REQUIRE_NEAR(bull["scallop_height_um"].get<double>(), (1.0 - std::sqrt(0.75)) * 1000.0, 1e-9);
+  REQUIRE_NEAR(bull["cusp_um"].get<double>(), (1.0 - std::sqrt(0.75)) * 1000.0, 1e-9);
   REQUIRE(bull["effective_radius_mm"].get<double>() == 1.0);
   const nlohmann::json flat = run_json({"--tool", "flat", "--diameter", "10", "--stepover", "5"});
-  REQUIRE(flat["scallop_height_um"].get<double>() == 0.0);
+  REQUIRE(flat["cusp_um"].get<double>() == 0.0);
   REQUIRE(flat["effective_radius_mm"].is_null());
   REQUIRE(flat["iso1302_grade"].is_null());
   REQUIRE(flat["notes"][0].get<std::string>().find("cuspmap simulate") != std::string::npos);
   // Flat end mill on a 10 deg slope: saw-tooth s sin(a) (geometry, see scallop_plane_test).
   const nlohmann::json saw =
       run_json({"--tool", "flat", "--diameter", "10", "--slope", "10deg", "--stepover", "1"});
-  REQUIRE_NEAR(saw["scallop_height_um"].get<double>(), std::sin(10.0 * M_PI / 180.0) * 1000.0,
+  REQUIRE_NEAR(saw["cusp_um"].get<double>(), std::sin(10.0 * M_PI / 180.0) * 1000.0,
                1e-6);
   const nlohmann::json vex = run_json(
       {"--diameter", "6", "--surface", "convex", "--surface-radius", "20", "--stepover", "0.5"});
   REQUIRE_NEAR(vex["effective_radius_mm"].get<double>(), 3.0 * 20.0 / 23.0, 1e-12);
   // Lin & Koren 1996 small-stepover limit, within 0.5% at s = 0.5 mm.
-  REQUIRE_NEAR(vex["scallop_height_um"].get<double>(), 0.25 / 8.0 * (1.0 / 3 + 1.0 / 20) * 1000.0,
-               0.005 * vex["scallop_height_um"].get<double>());
+  REQUIRE_NEAR(vex["cusp_um"].get<double>(), 0.25 / 8.0 * (1.0 / 3 + 1.0 / 20) * 1000.0,
+               0.005 * vex["cusp_um"].get<double>());
 }
 
 TEST_CASE("stepover: turning feed marks with --tool insert", "[cli]") {
   const nlohmann::json j =
       run_json({"--tool", "insert", "--nose-radius", "0.8", "--feed-per-rev", "0.2"});
   // Boothroyd & Knight: Rt = f^2/(8r) = 6.25 um, Ra = f^2/(18 sqrt 3 r) ~= 1.604 um.
-  REQUIRE_NEAR(j["rz_approx_um"].get<double>(), 6.25, 1e-9);
-  REQUIRE_NEAR(j["ra_approx_um"].get<double>(), 40.0 / (18.0 * std::sqrt(3.0) * 0.8), 1e-9);
+  REQUIRE_NEAR(j["Rz_approx_um"].get<double>(), 6.25, 1e-9);
+  REQUIRE_NEAR(j["Ra_approx_um"].get<double>(), 40.0 / (18.0 * std::sqrt(3.0) * 0.8), 1e-9);
   REQUIRE(j["feed_per_rev_mm"].get<double>() == 0.2);
   REQUIRE(j["tool"]["shape"] == "insert");
 }
@@ -157,14 +157,14 @@ TEST_CASE("stepover: passes that no longer overlap are refused, exit 2", "[cli]"
 TEST_CASE("stepover: human table in mm and in inches", "[cli]") {
   const auto mm = run_cuspmap({"stepover", "--diameter", "6", "--stepover", "0.5"});
   REQUIRE(mm.exit_code == 0);
-  REQUIRE(mm.out.find("scallop height      10.43 um") != std::string::npos);
+  REQUIRE(mm.out.find("cusp height         10.4 um") != std::string::npos);
   REQUIRE(mm.out.find("ISO 1302:1992 grade N8 (Ra up to 3.2 um = 125 uin)") != std::string::npos);
-  REQUIRE(mm.out.find("caution: ") != std::string::npos);
+  REQUIRE(mm.out.find("Caution: ") != std::string::npos);
   const auto in =
       run_cuspmap({"stepover", "--units", "in", "--diameter", "0.25", "--stepover", "0.02"});
   REQUIRE(in.exit_code == 0);
   REQUIRE(in.out.find("stepover            0.02 in") != std::string::npos);
-  REQUIRE(in.out.find("400.6 uin (0.4006 thou)") != std::string::npos);
+  REQUIRE(in.out.find("cusp height         401 uin") != std::string::npos);
 }
 
 TEST_CASE("stepover: --help is real and --verbose prints stages", "[cli]") {

@@ -60,9 +60,9 @@ TEST_CASE("texture: table shows um, uin, grade and cut-off", "[cli]") {
   test::write_text(dir.file("floor.npy"), encode_npy(cusp_floor()));
   const auto r = run_cuspmap({"texture", dir.file("floor.npy"), "--cell", "5um"});
   REQUIRE(r.exit_code == 0);
-  REQUIRE(r.out.find(" uin ") != std::string::npos);
+  REQUIRE(r.out.find(" um ") != std::string::npos);
   REQUIRE(r.out.find("ISO 1302:1992 N7") != std::string::npos);
-  REQUIRE(r.out.find("cut-off 0.8 mm (RSm (periodic))") != std::string::npos);
+  REQUIRE(r.out.find("cut-off 0.8 mm, chosen by RSm (periodic)") != std::string::npos);
 }
 
 TEST_CASE("texture: cell from report.json beside the file", "[cli]") {

@@ -98,9 +98,9 @@ def compare(label, got, want, tol):
 def check_profile(binary, name, args, profile):
     j = run(binary, args)
     h, ra, rq = stats(*profile)
-    compare(f"{name} cusp", j["scallop_height_um"], h, REL_TOL * h)
-    compare(f"{name} Ra", j["ra_um"], ra, REL_TOL * ra)
-    compare(f"{name} Rq", j["rq_um"], rq, REL_TOL * rq)
+    compare(f"{name} cusp", j["cusp_um"], h, REL_TOL * h)
+    compare(f"{name} Ra", j["Ra_um"], ra, REL_TOL * ra)
+    compare(f"{name} Rq", j["Rq_um"], rq, REL_TOL * rq)
 
 
 def main():
@@ -140,19 +140,19 @@ def main():
 
     # Machinery's Handbook cusp formula h = R - sqrt(R^2 - (s/2)^2), and its inverse.
     j = run(binary, ["--diameter", "6", "--stepover", "0.5"])
-    compare("handbook ball cusp", j["scallop_height_um"], (3 - math.sqrt(9 - 0.0625)) * 1e3, 1e-9)
+    compare("handbook ball cusp", j["cusp_um"], (3 - math.sqrt(9 - 0.0625)) * 1e3, 1e-9)
     j = run(binary, ["--diameter", "6", "--target-scallop", "5um"])
     compare("handbook inverse s = 2 sqrt(h (2R - h))", j["stepover_mm"],
             2 * math.sqrt(0.005 * (6 - 0.005)), 1e-9)
     # Boothroyd & Knight: Rt = f^2/(8r), Ra = f^2/(18 sqrt 3 r).
     j = run(binary, ["--tool", "insert", "--nose-radius", "0.8", "--feed-per-rev", "0.2"])
-    compare("turning Rt approx", j["rz_approx_um"], 0.04 / 6.4 * 1e3, 1e-9)
-    compare("turning Ra approx", j["ra_approx_um"], 0.04 / (18 * math.sqrt(3) * 0.8) * 1e3, 1e-9)
+    compare("turning Rt approx", j["Rz_approx_um"], 0.04 / 6.4 * 1e3, 1e-9)
+    compare("turning Ra approx", j["Ra_approx_um"], 0.04 / (18 * math.sqrt(3) * 0.8) * 1e3, 1e-9)
     # Inch inputs equal their metric equivalents; trade rule: about 0.4 thou (common practice).
     a = run(binary, ["--diameter", "0.25in", "--stepover", "20thou"])
     b = run(binary, ["--diameter", "6.35mm", "--stepover", "0.508"])
-    compare("inch = metric", a["scallop_height_um"], b["scallop_height_um"], 1e-9)
-    compare("1/4 in ball at 0.020 in ~ 0.4 thou", a["scallop_height_um"] / 25.4, 0.4, 0.01)
+    compare("inch = metric", a["cusp_um"], b["cusp_um"], 1e-9)
+    compare("1/4 in ball at 0.020 in ~ 0.4 thou", a["cusp_um"] / 25.4, 0.4, 0.01)
 
     if FAILURES:
         print(f"{len(FAILURES)} comparison(s) failed: {', '.join(FAILURES)}")

@@ -91,7 +91,7 @@ def main():
         ref = reference(shape, dia, corner, tilt, step)
         close("depth_to_clear_um (Sz)", doc["depth_to_clear_um"], ref["sz"], failures)
         close("mean_removal_um (Sv)", doc["mean_removal_um"], ref["sv"], failures)
-        close("marks.ra_um", doc["marks"]["ra_um"], ref["ra"], failures)
+        close("marks.ra_um", doc["marks"]["Ra_um"], ref["ra"], failures)
         close("volume_mm3 = Sv x area", doc["volume_mm3"], ref["sv"] / 1000.0 * area, failures)
         close("volume_in3", doc["volume_in3"], ref["sv"] / 1000.0 * area / 25.4 ** 3, failures)
         # Grit sequence (docs/finishing.md): skip grades whose scratches exceed Sz, then
@@ -125,7 +125,7 @@ def main():
         close("stock_valleys_nominal_um", doc["stock_valleys_nominal_um"], below, failures, 1e-9)
         close("stock_mean_nominal_um", doc["stock_mean_nominal_um"], ref["sv"] + below, failures,
               1e-6)
-        close("final_ra_um", doc["final_ra_um"], 0.01 * FEPA_P[used[-1]], failures, 1e-12)
+        close("final_Ra_um", doc["final_Ra_um"], 0.01 * FEPA_P[used[-1]], failures, 1e-12)
     if failures:
         print("FAILED:", ", ".join(failures))
         return 1
