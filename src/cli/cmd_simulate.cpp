@@ -17,7 +17,9 @@
 #include "core/stage_timer.h"
 #include "core/write_file_atomic.h"
 #include "report/html_report.h"
+#include "report/path_svg.h"
 #include "io/npy.h"
+#include "io/moves_csv.h"
 #include "io/npy_band_writer.h"
 #include "report/simulation_pictures.h"
 #include "job/job.h"
@@ -97,9 +99,10 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
   std::printf("  Ra %s (%s)  Rz %s  cut-off %s mm\n", height_text(rough.a_um, units).c_str(),
               run.texture.profile.iso1302_grade.c_str(), height_text(rough.z_um, units).c_str(),
               format_number(run.texture.profile.cutoff_mm).c_str());
-  std::printf("  Sa %s  Sz %s  highest point above nominal %s\n",
+  std::printf("  Sa %s  Sz %s  cusp %s  highest point above nominal %s\n",
               height_text(areal.sa_um, units).c_str(), height_text(areal.sz_um, units).c_str(),
-              height_text(run.max_scallop_um, units).c_str());
+              height_text(run.cusp_um, units).c_str(),
+              height_text(run.highest_point_um, units).c_str());
   std::printf("  path %s mm, cycle %s s\n", format_number(run.path_length_mm).c_str(),
               format_number(run.cycle_time_s).c_str());
   for (const PathWarning& w : run.built.warnings) {
@@ -169,6 +172,9 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   dir.write("height.png", pics.height_png);
   dir.write("shaded.png", pics.shaded_png);
   if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
+  dir.write("moves.csv", encode_moves_csv(run.built.path));
+  dir.write("path.svg", encode_path_svg(run.built.path, run.patch, job.path.boundary_mm,
+                                        run.patch.floor_z_mm));
   if (!o.report_html.empty()) {
     write_file_atomic(o.report_html,
                       render_html_report(simulation_html_report(job, run, pics, units)));

@@ -138,8 +138,9 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   row("Rz", height_text(rough.z_um, units));
   row("Sa", height_text(areal.sa_um, units));
   row("Sz", height_text(areal.sz_um, units));
-  row("highest point above nominal", height_text(run.max_scallop_um, units));
-  row("lowest point", height_text(run.min_height_um, units));
+  row("cusp (peak to valley across the lay)", height_text(run.cusp_um, units));
+  row("highest point above nominal", height_text(run.highest_point_um, units));
+  row("lowest point", height_text(run.lowest_point_um, units));
   row("path length", length_text(run.path_length_mm, units));
   row("cycle time", format_number(run.cycle_time_s) + " s");
   r.tables.push_back(t);

@@ -54,9 +54,10 @@ TEST_CASE("simulate --stream: writes profile.png; height.npy only with --npy, eq
   const auto npy_files =
       simulate(dir, "npy", {"--stream", "--max-memory", "4MiB", "--npy"});
   CHECK(mem_files == std::vector<std::string>{"height.npy", "height.png", "shaded.png",
-                                              "profile.png", "report.json"});
-  CHECK(streamed_files ==
-        std::vector<std::string>{"height.png", "shaded.png", "profile.png", "report.json"});
+                                              "profile.png", "moves.csv", "path.svg",
+                                              "report.json"});
+  CHECK(streamed_files == std::vector<std::string>{"height.png", "shaded.png", "profile.png",
+                                                   "moves.csv", "path.svg", "report.json"});
   CHECK(npy_files == mem_files);
   // The folders hold exactly the files listed: no temp name left behind.
   std::vector<std::string> sorted = mem_files;
