@@ -45,10 +45,13 @@ TEST_CASE("issue_13: a walled pocket's wall band is left out of the floor and re
   job.path.edge = OffsetEdge::Wall;
   const JobRun run = run_job(job, RunOptions{});
   REQUIRE(run.walled);
-  // Derived: the tool-centre region is the 6 x 6 mm square 3 mm inside; the wall band holds
-  // the other 144 - 36 mm^2 of the patch, 2500 cells per mm^2 at 20 um.
-  CHECK(static_cast<double>(run.walls.cells) == Approx(108.0 * 2500).epsilon(0.01));
-  CHECK(run.walls.highest_point_um > 2900.0);  // the fillet reaches up to R = 3 mm at the wall
+  // Derived: the tool-centre region is the 6 x 6 mm square 3 mm inside; the wall band holds the
+  // other 144 - 36 mm^2 of the patch less the four corners beyond the ball's reach,
+  // 4 (3^2 - pi 3^2 / 4) mm^2; 2500 cells per mm^2 at 20 um.
+  const double band_mm2 = 108.0 - 4.0 * (9.0 - 9.0 * std::acos(-1.0) / 4.0);
+  CHECK(static_cast<double>(run.walls.cells) == Approx(band_mm2 * 2500).epsilon(0.01));
+  // Derived: the cells nearest the wall lie 2.99 mm from ring 0, z = R - sqrt(R^2 - 2.99^2).
+  CHECK(run.walls.highest_point_um >= (3.0 - std::sqrt(9.0 - 2.99 * 2.99)) * 1000.0 - 1.0);
   CHECK(run.texture.reached_cells == 36 * 2500);
   // Handbook cusp bound as above (10.44 um; corner gaps 14.3 um): the floor has no fillet.
   CHECK(run.texture.areal.parameters.sz_um < 15.0);

@@ -7,6 +7,7 @@
 #include "path/offset_path.h"
 #include "path/offset_rings.h"
 #include "path/path_test_geometry.h"
+#include "path/point_in_polygon.h"
 #include "test_support.h"
 
 namespace cuspmap {
