@@ -18,7 +18,9 @@
 #include "core/write_file_atomic.h"
 #include "cusp/kinematic_limits.h"
 #include "report/html_report.h"
+#include "report/path_svg.h"
 #include "io/npy.h"
+#include "io/moves_csv.h"
 #include "io/npy_band_writer.h"
 #include "core/display_quantity.h"
 #include "report/simulation_pictures.h"
@@ -100,11 +102,12 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
   if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) {
     std::printf("  caution: %s\n", fine.c_str());
   }
-  std::printf("  Sa %s  Sz %s  highest point %s above nominal, lowest %s\n",
-              display_roughness(areal.sa_um, units).c_str(),
+  std::printf("  Sa %s  Sz %s  cusp %s\n", display_roughness(areal.sa_um, units).c_str(),
               display_roughness(areal.sz_um, units).c_str(),
-              display_roughness(run.max_scallop_um, units).c_str(),
-              display_roughness(run.min_height_um, units).c_str());
+              display_roughness(run.cusp_um, units).c_str());
+  std::printf("  highest point %s above nominal, lowest %s\n",
+              display_roughness(run.highest_point_um, units).c_str(),
+              display_roughness(run.lowest_point_um, units).c_str());
   std::printf("  path %s, cycle %s\n", display_length(run.path_length_mm, units).c_str(),
               display_time(run.cycle_time_s).c_str());
   for (const PathWarning& w : run.built.warnings) {
@@ -181,6 +184,9 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
     dir.write("detail_shaded.png", pics.detail_shaded_png);
   }
   if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
+  dir.write("moves.csv", encode_moves_csv(run.built.path));
+  dir.write("path.svg", encode_path_svg(run.built.path, run.patch, job.path.boundary_mm,
+                                        run.patch.floor_z_mm));
   if (!o.report_html.empty()) {
     write_file_atomic(o.report_html,
                       render_html_report(simulation_html_report(job, run, pics, units)));

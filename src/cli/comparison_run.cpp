@@ -39,8 +39,8 @@ Comparison run_comparison(const std::vector<Job>& jobs, RunOptions options,
     HeightRange shared{std::numeric_limits<double>::infinity(),
                        -std::numeric_limits<double>::infinity()};
     for (const CompareRow& r : rows) {
-      shared.lo_um = std::min(shared.lo_um, r.run.min_height_um);
-      shared.hi_um = std::max(shared.hi_um, r.run.max_scallop_um);
+      shared.lo_um = std::min(shared.lo_um, r.run.lowest_point_um);
+      shared.hi_um = std::max(shared.hi_um, r.run.highest_point_um);
     }
     if (shared.hi_um > shared.lo_um) range = shared;
   }

@@ -92,8 +92,17 @@ nlohmann::json simulate_report_json(const Job& job, const JobRun& run, const Ima
   r["texture_warnings"] = run.texture.warnings;
   r["path_length_mm"] = run.path_length_mm;
   r["cycle_time_s"] = run.cycle_time_s;
-  r["max_scallop_um"] = run.max_scallop_um;
-  r["min_height_um"] = run.min_height_um;
+  r["cusp_um"] = run.cusp_um;
+  r["cusp_crests"] = run.cusp_crests;
+  r["highest_point_um"] = run.highest_point_um;
+  r["lowest_point_um"] = run.lowest_point_um;
+  if (run.walled) {
+    r["walls"] = {{"rule", "cells within R of the wall (outside the tool-centre region) are left "
+                           "out of the floor: NaN in height.npy, in no statistic"},
+                  {"cells", run.walls.cells},
+                  {"highest_point_um", run.walls.highest_point_um},
+                  {"lowest_point_um", run.walls.lowest_point_um}};
+  }
   r["tool"] = tool_json(job.cutter);
   r["path"] = path_json(job, run);
   r["sweep"] = {{"mode", job.sim.tooth_marks ? "tooth-resolved" : "envelope"},

@@ -27,7 +27,7 @@ const std::map<std::string, std::vector<std::string>>& known_keys() {
         "runout", "runout_phase_deg", "axial_offsets"}},
       {"cut", {"rpm", "feed", "depth", "spindle", "rapid_feed", "retract"}},
       {"path",
-       {"kind", "stepover", "angle_deg", "direction", "file", "boundary", "milling", "outward",
+       {"kind", "stepover", "angle_deg", "direction", "file", "boundary", "edge", "milling", "outward",
         "loop_diameter", "advance"}},
       {"sim", {"tooth_marks", "threads"}},
   };
@@ -168,7 +168,7 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
     if (!file) throw InputError(f.source() + ": missing required key path.file (gcode)");
     const std::filesystem::path fp(*file);
     p.file = fp.is_absolute() ? *file : (std::filesystem::path(base_dir) / fp).string();
-    for (const char* k : {"stepover", "angle_deg", "direction", "boundary", "milling", "outward",
+    for (const char* k : {"stepover", "angle_deg", "direction", "boundary", "edge", "milling", "outward",
                           "loop_diameter", "advance"}) {
       if (t.contains(k)) job.ignored_keys.push_back(std::string("path.") + k + " (gcode)");
     }
@@ -188,6 +188,9 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
   p.outward = f.boolean(t, "path", "outward").value_or(true);
   p.loop_diameter_mm = f.length_mm(t, "path", "loop_diameter").value_or(0.0);
   p.advance_mm = f.length_mm(t, "path", "advance").value_or(0.0);
+  if (auto e = f.choice(t, "path", "edge", {"open", "wall"})) {
+    p.edge = *e == "wall" ? OffsetEdge::Wall : OffsetEdge::Open;
+  }
   if (auto pts = f.points_mm(t, "path", "boundary")) {
     if (pts->size() < 3) f.fail(*t.get("boundary"), "path", "boundary", "needs at least 3 points");
     for (const auto& [x, y] : *pts) p.boundary_mm.emplace_back(x, y);
@@ -203,6 +206,7 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
   applies("angle_deg", lanes || p.kind == PathKind::Spiral, "raster, trochoidal and spiral only");
   applies("direction", lanes, "raster and trochoidal only");
   applies("boundary", p.kind == PathKind::Offset, "offset only");
+  applies("edge", p.kind == PathKind::Offset, "offset only");
   applies("milling", p.kind != PathKind::Raster, "offset, spiral and trochoidal only");
   applies("outward", p.kind == PathKind::Spiral, "spiral only");
   applies("loop_diameter", p.kind == PathKind::Trochoidal, "trochoidal only");

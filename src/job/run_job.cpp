@@ -2,6 +2,7 @@
 // Inputs: Job, RunOptions; output: JobRun. Method: DESIGN.md "Layout and data flow".
 #include "job/run_job.h"
 
+#include <algorithm>
 #include <cmath>
 #include <limits>
 #include <string>
@@ -11,6 +12,8 @@
 #include "path/patch_from_extent.h"
 #include "sweep/simulate_bands.h"
 #include "sweep/sweep_tiles.h"
+#include "texture/extract_profiles.h"
+#include "texture/periodic_cusp.h"
 #include "texture/streamed_texture.h"
 
 namespace cuspmap {
@@ -56,6 +59,12 @@ ToothWork tooth_work(const Job& job, const JobRun& run) {
           job.cut.feed_mm_per_min, job.cutter.teeth};
 }
 
+void set_cusp(const std::vector<ProfileTrace>& across_lay, JobRun& run) {
+  const PeriodicCusp cusp = periodic_cusp(across_lay);
+  run.cusp_um = std::max(0.0, cusp.cusp_um);
+  run.cusp_crests = cusp.crests;
+}
+
 // Two passes of the band sweep: plane, overview and traces; then the residual moments.
 void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
                   const RunOptions& options, JobRun& run, StageTimer& timer) {
@@ -70,8 +79,12 @@ void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
                           sweep_threads(sim.threads));
   SimSpec pass = sim;
   if (sim.progress) pass.progress = [&](double f) { sim.progress(0.5 * f); };
+  const auto& region = run.built.wall_region_mm;
   simulate_bands(job.cutter, run.built.path, cut, run.patch, pass, plan,
-                 [&](const Heightfield& band, int j0) {
+                 [&](const Heightfield& swept, int j0) {
+                   Heightfield masked;
+                   const Heightfield& band = region.empty() ? swept : (masked = swept);
+                   split_wall_band(region, masked, run.walls);
                    texture.add_first_pass(band, j0);
                    if (options.stream_band) options.stream_band(band, j0);
                  },
@@ -80,7 +93,13 @@ void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
   texture.finish_first_pass();
   if (sim.progress) pass.progress = [&](double f) { sim.progress(0.5 + 0.5 * f); };
   simulate_bands(job.cutter, run.built.path, cut, run.patch, pass, plan,
-                 [&](const Heightfield& band, int) { texture.add_second_pass(band); });
+                 [&](const Heightfield& swept, int) {
+                   Heightfield masked;
+                   WallBand counted_already;
+                   const Heightfield& band = region.empty() ? swept : (masked = swept);
+                   split_wall_band(region, masked, counted_already);
+                   texture.add_second_pass(band);
+                 });
   run.sweep_s = timer.lap();
   run.streamed = true;
   run.grid_nx = plan.nx;
@@ -91,9 +110,10 @@ void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
   run.overview_cells_per_pixel = texture.overview_cells_per_block();
   run.floor = texture.overview();
   for (int k = 0; k < 2; ++k) run.centre_traces[k] = texture.centre_trace(k);
-  run.max_scallop_um = texture.max_um();
-  run.min_height_um = texture.min_um();
+  run.highest_point_um = texture.max_um();
+  run.lowest_point_um = texture.min_um();
   run.texture = texture.report();
+  set_cusp(run.centre_traces[0], run);
   run.texture_s = timer.lap();
 }
 
@@ -110,6 +130,7 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   run.path_length_mm = path_length_mm(run.built.path, true);
   run.cycle_time_s = cycle_time_s(run.built.path);
   run.path_s = timer.lap();
+  run.walled = !run.built.wall_region_mm.empty();
 
   CutSpec cut = job.cut;
   cut.spindle = run.built.spindle;  // M3/M4 in a program overrides the job's default
@@ -127,6 +148,7 @@ JobRun run_job(const Job& job, const RunOptions& options) {
     options.before_sweep(estimate_run(nx, ny, sim.tooth_marks, false, 0, tooth_work(job, run)));
   }
   run.floor = simulate_floor(job.cutter, run.built.path, cut, run.patch, sim, &run.sweep);
+  split_wall_band(run.built.wall_region_mm, run.floor, run.walls);
   run.sweep_s = timer.lap();
   run.grid_nx = run.floor.nx;
   run.grid_ny = run.floor.ny;
@@ -142,11 +164,15 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   if (!(hi >= lo)) {
     throw InputError(no_move_message(job));
   }
-  run.max_scallop_um = hi;
-  run.min_height_um = lo;
+  run.highest_point_um = hi;
+  run.lowest_point_um = lo;
 
   // Built-in lanes have a known lay: the pass direction. Others are detected from the surface.
-  run.texture = texture_report(run.floor, lay_options(job, options));
+  const TextureOptions texture = lay_options(job, options);
+  run.texture = texture_report(run.floor, texture);
+  set_cusp(extract_profiles(run.floor, run.texture.areal.spatial.lay_deg + 90.0,
+                            texture.max_traces, 0.0),
+           run);
   run.texture_s = timer.lap();
   return run;
 }

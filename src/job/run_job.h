@@ -10,6 +10,7 @@
 #include "core/heightfield.h"
 #include "job/job.h"
 #include "job/run_estimate.h"
+#include "job/wall_band.h"
 #include "path/build_toolpath.h"
 #include "sweep/simulate_bands.h"
 #include "sweep/simulate_floor.h"
@@ -63,8 +64,17 @@ struct JobRun {
   TextureReport texture;    ///< ISO profile and areal parameters
   double path_length_mm = 0.0;   ///< feed and rapid moves
   double cycle_time_s = 0.0;     ///< feed moves at their feed, rapids at cut.rapid_mm_per_min
-  double max_scallop_um = 0.0;   ///< highest point above the nominal floor (material left, worst)
-  double min_height_um = 0.0;    ///< lowest point (negative = below nominal, e.g. under tilt)
+  double highest_point_um = 0.0; ///< highest point above the nominal floor (may be negative)
+  double lowest_point_um = 0.0;  ///< lowest point (negative = below nominal, e.g. under tilt)
+  /// Peak-to-valley of the periodic mark pattern across the lay, crests and valleys refined
+  /// below the cell (texture/periodic_cusp.h); in memory from the report's traces, streamed
+  /// from the centre trace across the lay. >= 0.
+  double cusp_um = 0.0;
+  int cusp_crests = 0;
+  /// Walled offset pocket (path.edge = "wall"): the band within R of the wall, taken out of the
+  /// floor (NaN in `floor`, left out of every statistic) and summarised here.
+  bool walled = false;
+  WallBand walls;           ///< crests the cusp is the median of (0: no pattern found)
   double path_s = 0.0;           ///< time to build the path, s
   double sweep_s = 0.0;          ///< time to sweep, s
   double texture_s = 0.0;        ///< time for the texture parameters, s

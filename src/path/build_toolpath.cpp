@@ -24,7 +24,7 @@ BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& 
   built.spindle = cut.spindle;
   switch (spec.kind) {
     case PathKind::Raster: built.path = raster_path(spec, cut, patch, cutter); break;
-    case PathKind::Offset: built.path = offset_path(spec, cut, patch, cutter); break;
+    case PathKind::Offset: built.path = offset_path(spec, cut, patch, cutter, &built.wall_region_mm); break;
     case PathKind::Spiral: built.path = spiral_path(spec, cut, patch, cutter); break;
     case PathKind::Trochoidal: built.path = trochoidal_path(spec, cut, patch, cutter); break;
     case PathKind::Gcode: assert(false && "handled above"); break;

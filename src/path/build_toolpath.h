@@ -20,6 +20,9 @@ struct BuiltPath {
   Toolpath path;                       ///< moves in execution order
   std::vector<PathWarning> warnings;   ///< non-fatal findings, in order
   SpindleDirection spindle = SpindleDirection::Cw;  ///< spindle direction in force (M3/M4 for G-code)
+  /// Offset with a wall edge: polygons of the region the tool centre may visit, mm; the floor's
+  /// cells outside it are the wall band (job/wall_band.h). Empty otherwise.
+  std::vector<std::vector<Eigen::Vector2d>> wall_region_mm;
 };
 
 /// @param[in] spec, cut, patch, cutter  validated job parts (mm, deg, mm/min)

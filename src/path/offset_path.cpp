@@ -107,7 +107,9 @@ class RingWalker {
       std::size_t next = 0;
       double best = std::numeric_limits<double>::infinity();
       for (std::size_t c : children_[node]) {
-        if (done_[c]) continue;
+        // A ring's centre passes are its detours (cut()); only a stray one under the root is
+        // cut here.
+        if (done_[c] || (rings_.loops[c].level < 0 && node != rings_.loops.size())) continue;
         const double d = distance_to_loop(rings_.loops[c], here_);
         if (d < best) {
           best = d;
@@ -123,9 +125,30 @@ class RingWalker {
   void cut(std::size_t i) {
     done_[i] = true;
     const std::vector<LoopElement> e = arranged(rings_.loops[i], want_cw_, here_);
+    // The centre passes inside this ring (and outside its inner rings) are cut as detours from
+    // the ring's vertex nearest to each, out and back, instead of after the inner rings.
+    std::vector<std::vector<std::size_t>> detours(e.size());
+    if (rings_.loops[i].level >= 0) {
+      for (std::size_t c : children_[i]) {
+        if (rings_.loops[c].level >= 0) continue;
+        const Eigen::Vector2d at = rings_.loops[c].polygon_mm.front();
+        std::size_t best = 0;
+        for (std::size_t k = 1; k < e.size(); ++k) {
+          if ((e[k].start_mm - at).squaredNorm() < (e[best].start_mm - at).squaredNorm()) best = k;
+        }
+        detours[best].push_back(c);
+      }
+    }
     const Eigen::Vector2d start = e.front().start_mm;
     builder_.go_to(start, builder_.empty() || link_inside(here_, start, rings_.region_mm));
-    for (const LoopElement& x : e) {
+    here_ = start;
+    for (std::size_t k = 0; k < e.size(); ++k) {
+      for (std::size_t c : detours[k]) {
+        cut(c);
+        builder_.go_to(e[k].start_mm, link_inside(here_, e[k].start_mm, rings_.region_mm));
+        here_ = e[k].start_mm;
+      }
+      const LoopElement& x = e[k];
       if (x.arc) {
         builder_.arc_to(x.end_mm, x.centre_mm, x.ccw);
       } else {
@@ -146,7 +169,7 @@ class RingWalker {
 }  // namespace
 
 Toolpath offset_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
-                     const Cutter& cutter) {
+                     const Cutter& cutter, std::vector<Polygon>* wall_region_mm) {
   check_length_mm(spec.stepover_mm, "path.stepover", false);
   const double s = spec.stepover_mm;
   Polygon boundary = spec.boundary_mm;
@@ -162,7 +185,8 @@ Toolpath offset_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
       throw InputError("path.boundary: needs at least 3 points [x, y] enclosing an area");
     }
   }
-  const OffsetRings rings = offset_rings(boundary, cutter.radius_mm(), s, kMaxPathMoves);
+  const bool wall = spec.edge == OffsetEdge::Wall;
+  const OffsetRings rings = offset_rings(boundary, wall ? cutter.radius_mm() : 0.0, s, kMaxPathMoves);
   if (rings.loops.empty()) {
     throw InputError(std::string(spec.boundary_mm.empty() ? "patch.size" : "path.boundary") +
                      ": the region is narrower than the cutter (D " +
@@ -172,6 +196,7 @@ Toolpath offset_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
   PathBuilder builder(cut, patch, "path.stepover");
   RingWalker(rings, want_cw, builder).run(boundary.front());
   builder.retract();
+  if (wall_region_mm != nullptr && wall) *wall_region_mm = rings.region_mm;
   return builder.take();
 }
 

@@ -7,6 +7,7 @@
 
 #include <clipper.hpp>
 
+#include <algorithm>
 #include <cmath>
 #include <string>
 
@@ -121,6 +122,61 @@ std::vector<LoopElement> rebuild_arcs(const std::vector<Eigen::Vector2d>& pts, d
   return elements;
 }
 
+// The spine of a region: its inward offset by the largest distance that leaves anything (found
+// by bisection to kOffsetArcToleranceMm), a thin loop about the region's medial axis.
+Paths spine(const Path& region) {
+  double lo = 0.0, hi = 0.0;
+  for (const IntPoint& q : region) {
+    const Eigen::Vector2d v = to_mm(q) - to_mm(region.front());
+    hi = std::max(hi, v.norm());
+  }
+  Paths best{region};
+  ClipperLib::ClipperOffset co(2.0, kOffsetArcToleranceMm * kClipperUnitsPerMm);
+  co.AddPath(region, ClipperLib::jtRound, ClipperLib::etClosedPolygon);
+  while (hi - lo > kOffsetArcToleranceMm) {
+    const double mid = 0.5 * (lo + hi);
+    Paths shrunk;
+    co.Execute(shrunk, -mid * kClipperUnitsPerMm);
+    if (shrunk.empty()) {
+      hi = mid;
+    } else {
+      lo = mid;
+      best = std::move(shrunk);
+    }
+  }
+  return best;
+}
+
+// Centre passes over uncovered regions: each region's spine, then the spines of whatever of it
+// still lies farther than s/2 from that spine (a region whose lobes vanish at different depths),
+// up to kMaxSpineRounds; what remains after that is cut along its outline.
+Paths centre_passes(const Paths& uncovered, double stepover_mm) {
+  // Rounds of spines per region: each round covers at least the fattest lobe left, and offset
+  // pockets leave regions of one to three lobes (corner wedges, centres, necks).
+  constexpr int kMaxSpineRounds = 8;
+  Paths passes, todo = uncovered;
+  for (int round = 0; round < kMaxSpineRounds && !todo.empty(); ++round) {
+    Paths next;
+    for (const Path& region : todo) {
+      const Paths s = spine(region);
+      passes.insert(passes.end(), s.begin(), s.end());
+      ClipperLib::ClipperOffset band(2.0, kOffsetArcToleranceMm * kClipperUnitsPerMm);
+      band.AddPaths(s, ClipperLib::jtRound, ClipperLib::etClosedLine);
+      Paths covered;
+      band.Execute(covered, 0.5 * stepover_mm * kClipperUnitsPerMm);
+      ClipperLib::Clipper clip;
+      clip.AddPath(region, ClipperLib::ptSubject, true);
+      clip.AddPaths(covered, ClipperLib::ptClip, true);
+      Paths left;
+      clip.Execute(ClipperLib::ctDifference, left, ClipperLib::pftNonZero, ClipperLib::pftNonZero);
+      for (const Path& p : without_slivers(left)) next.push_back(p);
+    }
+    todo = std::move(next);
+  }
+  passes.insert(passes.end(), todo.begin(), todo.end());
+  return passes;
+}
+
 std::vector<Eigen::Vector2d> polygon_mm(const Path& p) {
   std::vector<Eigen::Vector2d> out;
   out.reserve(p.size());
@@ -184,7 +240,10 @@ OffsetRings offset_rings(const std::vector<Eigen::Vector2d>& boundary_mm, double
   clip.AddPaths(bands, ClipperLib::ptClip, true);
   Paths uncovered;
   clip.Execute(ClipperLib::ctDifference, uncovered, ClipperLib::pftNonZero, ClipperLib::pftNonZero);
-  for (const Path& p : without_slivers(uncovered)) {
+  // Each uncovered piece is cut along its spine (see centre_passes): tracing its outline instead
+  // would put the pass on the very line that is s/2 from the rings and wander round every
+  // corner wedge.
+  for (const Path& p : centre_passes(without_slivers(uncovered), stepover_mm)) {
     OffsetLoop loop;
     loop.polygon_mm = polygon_mm(p);
     loop.level = -1;
@@ -193,6 +252,12 @@ OffsetRings offset_rings(const std::vector<Eigen::Vector2d>& boundary_mm, double
       line.start_mm = loop.polygon_mm[i];
       line.end_mm = loop.polygon_mm[(i + 1) % loop.polygon_mm.size()];
       loop.elements.push_back(line);
+    }
+    elements += loop.elements.size();
+    if (elements > max_elements) {
+      throw InputError("path.stepover " + format_number(stepover_mm) +
+                       " mm: the offset rings would need more than " +
+                       std::to_string(max_elements) + " moves; use a larger stepover");
     }
     out.loops.push_back(std::move(loop));
   }

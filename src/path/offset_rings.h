@@ -1,8 +1,8 @@
 // Contour-parallel rings inside a closed polygon: the offsets of the boundary by R, R + s,
 // R + 2s, ... (each taken from the boundary itself, so every rounded corner is an exact arc of
 // radius equal to the offset about a reflex vertex of the boundary, and is returned as an arc),
-// plus centre passes wherever a point of the tool-centre region is farther than s/2 from every
-// ring. Inputs mm; output closed loops of lines and arcs. Cost O(rings x boundary vertices x
+// plus centre passes along the spine (the last non-empty inward offset, a thin loop about the
+// medial axis) of every piece of the tool-centre region farther than s/2 from every ring. Inputs mm; output closed loops of lines and arcs. Cost O(rings x boundary vertices x
 // log) for the offsets plus one union of all rings' s/2 bands.
 // Method: polygon offsetting with Clipper 6.4 (A. Johnson, ClipperOffset, round joins, integer
 // coordinates), after Vatti's clipping algorithm (Comm. ACM 35(7), 1992).
@@ -56,12 +56,12 @@ struct OffsetRings {
 
 /// Rings of a closed polygon.
 /// @param[in] boundary_mm  simple closed polygon, either orientation, >= 3 vertices
-/// @param[in] first_mm     offset of the first ring (the cutter radius R), > 0
+/// @param[in] first_mm     offset of the first ring: R (wall edge) or 0 (open edge), >= 0
 /// @param[in] stepover_mm  distance between rings, > 0
 /// @param[in] max_elements  stop with InputError (naming path.stepover) beyond this many
 ///                          elements in all
 /// @return loops in Clipper's orientation (outer loops counter-clockwise); empty when the
-///         boundary is narrower than 2 first_mm everywhere.
+///         boundary is narrower than 2 first_mm everywhere. region_mm is ring 0.
 OffsetRings offset_rings(const std::vector<Eigen::Vector2d>& boundary_mm, double first_mm,
                          double stepover_mm, std::size_t max_elements);
 

@@ -26,6 +26,12 @@ enum class RasterDirection {
   Zigzag,  ///< alternate passes reverse, linked at the side
 };
 
+/// What the offset boundary is to the floor ([path] edge).
+enum class OffsetEdge {
+  Open,  ///< an open edge: ring 0's tool centre runs on it, the cutter overhangs (like raster)
+  Wall,  ///< a wall: ring 0 runs R inside it; the band within R of it is the wall band
+};
+
 /// Cutting conditions ([cut]).
 struct CutSpec {
   double rpm = 10000.0;                           ///< spindle speed, rev/min, > 0
@@ -47,6 +53,7 @@ struct PathSpec {
   double loop_diameter_mm = 0.0;                   ///< trochoidal loop diameter (0 = half the tool diameter)
   double advance_mm = 0.0;                         ///< trochoidal advance per loop (0 = a tenth of the tool diameter)
   std::vector<Eigen::Vector2d> boundary_mm;        ///< offset: closed polygon (empty = the patch rectangle)
+  OffsetEdge edge = OffsetEdge::Open;              ///< offset: the boundary is an open edge or a wall
   std::string file;                                ///< gcode: program path
   bool block_delete = true;                        ///< gcode: block delete switch ('/' lines skipped)
 };

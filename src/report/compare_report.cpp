@@ -62,7 +62,7 @@ const std::vector<CompareColumn>& compare_columns() {
        true},
       {"Sa", "Sa_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sa_um; }},
       {"Sz", "Sz_um", true, [](const CompareRow& r) { return r.run.texture.areal.parameters.sz_um; }},
-      {"cusp", "max_scallop_um", true, [](const CompareRow& r) { return r.run.max_scallop_um; }},
+      {"cusp", "cusp_um", true, [](const CompareRow& r) { return r.run.cusp_um; }},
       {"mean sanding depth Sv", "mean_removal_um", true,
        [](const CompareRow& r) { return r.run.texture.areal.parameters.sv_um; }},
       {"path", "path_length_mm", true, [](const CompareRow& r) { return r.run.path_length_mm; }},

@@ -180,8 +180,9 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   row("Rz", height_text(rough.z_um, units));
   row("Sa", height_text(areal.sa_um, units));
   row("Sz", height_text(areal.sz_um, units));
-  row("highest point, relative to nominal", height_text(run.max_scallop_um, units));
-  row("lowest point, relative to nominal", height_text(run.min_height_um, units));
+  row("cusp (peak to valley across the lay)", height_text(run.cusp_um, units));
+  row("highest point, relative to nominal", height_text(run.highest_point_um, units));
+  row("lowest point, relative to nominal", height_text(run.lowest_point_um, units));
   row("path length", length_text(run.path_length_mm, units));
   row("cycle time", display_time(run.cycle_time_s));
   r.tables.push_back(t);

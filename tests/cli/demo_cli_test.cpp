@@ -15,7 +15,7 @@ TEST_CASE("demo: --quick runs the built-in scenario end to end", "[cli]") {
   const auto doc = nlohmann::json::parse(r.out);
   REQUIRE(doc["rows"].size() == 4);
   for (const auto& row : doc["rows"]) {
-    for (const char* key : {"name", "Ra_um", "Rz_um", "Sa_um", "Sz_um", "max_scallop_um",
+    for (const char* key : {"name", "Ra_um", "Rz_um", "Sa_um", "Sz_um", "cusp_um",
                             "path_length_mm", "cycle_time_s"}) {
       CHECK(row.contains(key));
     }

@@ -95,9 +95,7 @@ TEST_CASE("JSON keys: one style across stepover, allowance, plan, texture", "[cl
 }
 
 TEST_CASE("JSON keys: one style across simulate and compare", "[cli]") {
-  // max_scallop_um (simulate/compare) is renamed cusp_um + highest_point_um by the issue 13
-  // work; until it lands it is the one accepted exception.
-  const std::set<std::string> pending = {"max_scallop_um"};
+  const std::set<std::string> pending = {};
   test::TempDir dir;
   const std::string job = test::source_path("examples/pump_cover_ball.toml");
   require_style({"simulate", job, "--out", dir.file("sim"), "--json"}, pending);

@@ -56,11 +56,12 @@ TEST_CASE("simulate --stream: writes profile.png; height.npy only with --npy, eq
   // In memory the native cells give a detail view; a streamed floor keeps none (issue 14).
   CHECK(mem_files == std::vector<std::string>{"height.npy", "height.png", "shaded.png",
                                               "detail.png", "detail_shaded.png", "profile.png",
-                                              "report.json"});
-  CHECK(streamed_files ==
-        std::vector<std::string>{"height.png", "shaded.png", "profile.png", "report.json"});
+                                              "moves.csv", "path.svg", "report.json"});
+  CHECK(streamed_files == std::vector<std::string>{"height.png", "shaded.png", "profile.png",
+                                                   "moves.csv", "path.svg", "report.json"});
   CHECK(npy_files == std::vector<std::string>{"height.npy", "height.png", "shaded.png",
-                                              "profile.png", "report.json"});
+                                              "profile.png", "moves.csv", "path.svg",
+                                              "report.json"});
   // The folders hold exactly the files listed: no temp name left behind.
   for (const auto& [out, files] : {std::pair{"mem", mem_files}, std::pair{"npy", npy_files}}) {
     CAPTURE(out);

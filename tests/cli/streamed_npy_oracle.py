@@ -84,7 +84,7 @@ def main():
     for key, value in want.items():
         if key != "Sdr":  # needs the whole field: not computed when streamed (reported as 0)
             check(key, report["areal"][key], value, REL, 1e-9)
-    check("highest point", report["max_scallop_um"], float(np.nanmax(z)), 0.0, 1e-6)
+    check("highest point", report["highest_point_um"], float(np.nanmax(z)), 0.0, 1e-6)
     print(f"{len(failures)} failed")
     return 1 if failures else 0
 

@@ -52,8 +52,8 @@ void require_same_heights(const JobRun& in_memory, const JobRun& streamed) {
   check_rel(q.sku, p.sku, kSumOrderRel);
   check_rel(q.sp_um, p.sp_um, kFloatUlpRel);
   check_rel(q.sv_um, p.sv_um, kFloatUlpRel);
-  CHECK(streamed.max_scallop_um == in_memory.max_scallop_um);
-  CHECK(streamed.min_height_um == in_memory.min_height_um);
+  CHECK(streamed.highest_point_um == in_memory.highest_point_um);
+  CHECK(streamed.lowest_point_um == in_memory.lowest_point_um);
 }
 
 }  // namespace

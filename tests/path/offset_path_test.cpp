@@ -76,6 +76,7 @@ Toolpath offset(const Polygon& boundary, double s, bool climb = true,
   spec.stepover_mm = s;
   spec.boundary_mm = boundary;
   spec.climb = climb;
+  spec.edge = OffsetEdge::Wall;
   CutSpec cut;
   cut.spindle = spindle;
   return offset_path(spec, cut, test::test_patch(), test::test_ball());
@@ -183,6 +184,7 @@ TEST_CASE("offset_path: links stay down inside, patch default, refusals", "[path
   PathSpec spec;
   spec.kind = PathKind::Offset;
   spec.stepover_mm = 0.5;
+  spec.edge = OffsetEdge::Wall;
   const Toolpath path = offset_path(spec, CutSpec{}, test::test_patch(), test::test_ball());
   int rapids = 0;
   for (const Move& m : path.moves) rapids += m.rapid ? 1 : 0;
