@@ -14,10 +14,13 @@
 #include <vector>
 
 #include "core/parallel_blocks.h"
+#include "texture/fft_autocorrelation.h"
 #include "texture/real_fft_2d.h"
 
 namespace cuspmap {
 namespace {
+
+using ComplexBuf = std::unique_ptr<fftw_complex, FftwFree>;
 
 // Smallest size >= n with no prime factor above 7 (FFTW is fastest on those).
 int fft_size(int n) {
@@ -103,61 +106,46 @@ Acf::Acf(const Heightfield& hf, int threads, Heightfield* release)
 
 // Lay from the Hann-windowed power spectrum: the doubled-angle mean of the wave-vector
 // directions weighted by power is perpendicular to the grooves.
-void lay_from_spectrum(const Heightfield& hf, int threads, TextureDirection& out) {
-  const int nx = hf.nx, ny = hf.ny;
+// Kept in double precision: the lay angle steers the profile traces, and float round-off
+// would tilt an exactly symmetric spectrum by ~1e-6 deg.
+void lay_from_spectrum(const Heightfield& hf, int /*threads*/, TextureDirection& out) {
+  const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
+  FftwRealBuffer z = fftw_real_buffer(static_cast<size_t>(nx) * static_cast<size_t>(ny));
+  ComplexBuf spec(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * ny * bins)));
   const double two_pi = 2.0 * std::numbers::pi;
-  std::vector<double> wx(static_cast<size_t>(nx));
-  for (int i = 0; i < nx; ++i) wx[static_cast<size_t>(i)] = 0.5 - 0.5 * std::cos(two_pi * (i + 0.5) / nx);
-  SpectrumField f(ny, nx);
-  parallel_blocks(ny, threads, [&](int j) {
+  for (int j = 0; j < ny; ++j) {
     const double wy = 0.5 - 0.5 * std::cos(two_pi * (j + 0.5) / ny);
-    float* row = f.row(j);
     for (int i = 0; i < nx; ++i) {
+      const double wx = 0.5 - 0.5 * std::cos(two_pi * (i + 0.5) / nx);
       const float v = hf.z_um(j, i);
-      row[i] = std::isnan(v) ? 0.0f : static_cast<float>(wx[static_cast<size_t>(i)] * wy * v);
+      z.get()[static_cast<size_t>(j) * nx + i] = std::isnan(v) ? 0.0 : wx * wy * v;
     }
-  });
-  // Per column block partial sums, added in block order: the same for any thread count.
-  struct Sums {
-    double c = 0.0, s = 0.0, total = 0.0;
-  };
-  std::vector<Sums> sums(static_cast<size_t>(spectrum_blocks(f)));
-  forward_spectrum(f, ny, threads, [&](int block, int bin0, int bin1) {
-    Sums acc;
-    for (int j = 0; j < ny; ++j) {
-      const double ky = (j <= ny / 2 ? j : j - ny) / static_cast<double>(ny);
-      const std::complex<float>* spec = f.spectrum_row(j);
-      for (int i = bin0; i < bin1; ++i) {
-        if (i == 0 && j == 0) continue;
-        const double kx = i / static_cast<double>(nx);
-        // Columns 0 and nx/2 (even nx) hold both k and -k; the others stand for their mirror too.
-        const double weight = (i == 0 || 2 * i == nx) ? 1.0 : 2.0;
-        const double p = weight * std::norm(std::complex<double>(spec[i]));
-        // cos and sin of twice the wave vector's angle, without trigonometry.
-        const double k2 = kx * kx + ky * ky;
-        acc.c += p * (kx * kx - ky * ky) / k2;
-        acc.s += p * (2.0 * kx * ky) / k2;
-        acc.total += p;
-      }
-    }
-    sums[static_cast<size_t>(block)] = acc;
-  });
+  }
+  fftw_plan plan = fftw_plan_dft_r2c_2d(ny, nx, z.get(), spec.get(), FFTW_ESTIMATE);
+  fftw_execute(plan);
+  fftw_destroy_plan(plan);
   double c = 0.0, s = 0.0, total = 0.0;
-  for (const Sums& b : sums) {
-    c += b.c;
-    s += b.s;
-    total += b.total;
+  for (int j = 0; j < ny; ++j) {
+    const double ky = (j <= ny / 2 ? j : j - ny) / (ny * hf.cell_mm);
+    for (int i = 0; i < bins; ++i) {
+      if (i == 0 && j == 0) continue;
+      const double kx = i / (nx * hf.cell_mm);
+      const double re = spec.get()[static_cast<size_t>(j) * bins + i][0];
+      const double im = spec.get()[static_cast<size_t>(j) * bins + i][1];
+      // Columns 0 and nx/2 (even nx) hold both k and -k; the others stand for their mirror too.
+      const double weight = (i == 0 || 2 * i == nx) ? 1.0 : 2.0;
+      const double p = weight * (re * re + im * im);
+      const double phi2 = 2.0 * std::atan2(ky, kx);
+      c += p * std::cos(phi2);
+      s += p * std::sin(phi2);
+      total += p;
+    }
   }
   if (!(total > 0.0)) return;
   out.lay_strength = std::hypot(c, s) / total;
   double lay = 0.5 * std::atan2(s, c) * 180.0 / std::numbers::pi + 90.0;
-  // The float transform's round-off (~1e-7 relative) tilts a symmetric spectrum by ~1e-7 deg:
-  // round to kLayResolutionDeg so that such a lay reads exactly (0, not 179.9999999).
-  constexpr double kLayResolutionDeg = 1e-6;
-  lay = std::round(lay / kLayResolutionDeg) * kLayResolutionDeg;
   lay = std::fmod(lay, 180.0);
   if (lay < 0.0) lay += 180.0;
-  if (lay >= 180.0 - 0.5 * kLayResolutionDeg) lay = 0.0;
   out.lay_deg = lay;
 }
 
