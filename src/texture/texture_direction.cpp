@@ -1,8 +1,8 @@
 // Areal autocorrelation (FFT, pair-count normalised) with Sal/Str decay search, and the lay
 // direction from the Hann-windowed power spectrum.
 // Inputs: residual heightfield; output: TextureDirection. Cost O(N log N).
-// Method: ISO 25178-2:2012 §4.2; Wiener-Khinchin theorem; FFTW3 single-precision real
-// transforms on threads (texture/real_fft_2d.h), bit-identical for any thread count.
+// Method: ISO 25178-2:2012 §4.2; Wiener-Khinchin theorem; ACF by FFTW3 single-precision real
+// transforms on threads (texture/real_fft_2d.h, bit-identical for any thread count); lay in double.
 #include "texture/texture_direction.h"
 
 #include <algorithm>
