@@ -4,7 +4,6 @@
 // Method: plain dense Z-map (Choi & Jerard, Sculptured Surface Machining, 1998, ch. on Z-maps).
 #include "core/heightfield.h"
 
-#include <sys/mman.h>
 #include <unistd.h>
 
 #include <algorithm>
@@ -14,27 +13,11 @@
 #include <string>
 
 #include "core/input_error.h"
+#include "core/large_buffer.h"
 #include "core/units.h"
 
 namespace cuspmap {
 namespace {
-
-// Transparent huge pages for a large fresh grid: a 256 MB grid in 4 KiB pages takes 65,536 page
-// faults on first touch (about as long as the sweep itself); in 2 MiB pages, 128. Only the
-// 2 MiB-aligned interior is advised; where the kernel does not support it nothing changes.
-constexpr std::uintptr_t kHugePageBytes = std::uintptr_t{2} << 20;
-
-void advise_huge_pages(void* data, std::size_t bytes) {
-#if defined(__linux__) && defined(MADV_HUGEPAGE)
-  const auto begin = reinterpret_cast<std::uintptr_t>(data);
-  const std::uintptr_t lo = (begin + kHugePageBytes - 1) & ~(kHugePageBytes - 1);
-  const std::uintptr_t hi = (begin + bytes) & ~(kHugePageBytes - 1);
-  if (hi > lo) madvise(reinterpret_cast<void*>(lo), hi - lo, MADV_HUGEPAGE);  // advisory only
-#else
-  (void)data;
-  (void)bytes;
-#endif
-}
 
 // Bytes -> "1.5 GiB" style text for messages.
 std::string format_bytes(double bytes) {

@@ -39,13 +39,19 @@ double diff_um_per_cell(const HeightGrid& z, int j, int i, int dj, int di) {
 
 }  // namespace
 
+LightVector light_vector(double light_azimuth_deg, double light_elevation_deg) {
+  const double az = radians(light_azimuth_deg), el = radians(light_elevation_deg);
+  return {std::cos(el) * std::cos(az), std::cos(el) * std::sin(az), std::sin(el)};
+}
+
+double lambert_brightness(double gx, double gy, const LightVector& l) {
+  const double dot = (-gx * l.x - gy * l.y + l.z) / std::sqrt(1.0 + gx * gx + gy * gy);
+  return std::max(0.0, dot);
+}
+
 double lambert_brightness(double gx, double gy, double light_azimuth_deg,
                           double light_elevation_deg) {
-  const double az = radians(light_azimuth_deg), el = radians(light_elevation_deg);
-  const double lx = std::cos(el) * std::cos(az), ly = std::cos(el) * std::sin(az);
-  const double lz = std::sin(el);
-  const double dot = (-gx * lx - gy * ly + lz) / std::sqrt(1.0 + gx * gx + gy * gy);
-  return std::max(0.0, dot);
+  return lambert_brightness(gx, gy, light_vector(light_azimuth_deg, light_elevation_deg));
 }
 
 ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions& options) {
@@ -64,25 +70,24 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
   const int ny = hf.ny, nx = hf.nx;
   // um per cell -> dimensionless slope: divide by the cell size in um.
   const double per_cell_to_slope = 1.0 / (hf.cell_mm * kUmPerMm);
-  HeightGrid gx(ny, nx), gy(ny, nx);
-  for (int j = 0; j < ny; ++j) {
-    for (int i = 0; i < nx; ++i) {
-      if (!std::isfinite(hf.z_um(j, i))) {
-        gx(j, i) = gy(j, i) = kUnreached;
-        continue;
-      }
-      gx(j, i) = static_cast<float>(diff_um_per_cell(hf.z_um, j, i, 0, 1) * per_cell_to_slope);
-      gy(j, i) = static_cast<float>(diff_um_per_cell(hf.z_um, j, i, 1, 0) * per_cell_to_slope);
-    }
-  }
+  // Slopes (dimensionless) at cell (j, i) as floats; false where the cell is unreached.
+  auto slope_at = [&](int j, int i, float& sx, float& sy) {
+    if (!std::isfinite(hf.z_um(j, i))) return false;
+    sx = static_cast<float>(diff_um_per_cell(hf.z_um, j, i, 0, 1) * per_cell_to_slope);
+    sy = static_cast<float>(diff_um_per_cell(hf.z_um, j, i, 1, 0) * per_cell_to_slope);
+    return true;
+  };
 
-  // 95th percentile of |grad z| (nearest rank) over an evenly strided sample of reached cells.
+  // 95th percentile of |grad z| (nearest rank) over an evenly strided sample of reached cells;
+  // slopes are computed where sampled and again in the brightness pass (no slope grids).
   const std::int64_t cells = static_cast<std::int64_t>(nx) * ny;
   const std::int64_t stride = std::max<std::int64_t>(1, cells / kMaxSlopeSamples);
   std::vector<float> slopes;
   for (std::int64_t k = 0; k < cells; k += stride) {
-    const float sx = gx.data()[k], sy = gy.data()[k];
-    if (std::isfinite(sx)) slopes.push_back(std::hypot(sx, sy));
+    float sx = 0.0f, sy = 0.0f;
+    if (slope_at(static_cast<int>(k / nx), static_cast<int>(k % nx), sx, sy)) {
+      slopes.push_back(std::hypot(sx, sy));
+    }
   }
   if (!slopes.empty()) {
     const auto rank = static_cast<std::size_t>(
@@ -96,13 +101,14 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
     out.exaggeration = std::tan(radians(kAutoSlopeDeg)) / out.slope_p95;
   }
 
+  const LightVector light = light_vector(options.light_azimuth_deg, options.light_elevation_deg);
   HeightGrid brightness(ny, nx);
   for (int j = 0; j < ny; ++j) {
     for (int i = 0; i < nx; ++i) {
-      brightness(j, i) = std::isfinite(gx(j, i))
+      float sx = 0.0f, sy = 0.0f;
+      brightness(j, i) = slope_at(j, i, sx, sy)
                              ? static_cast<float>(lambert_brightness(
-                                   out.exaggeration * gx(j, i), out.exaggeration * gy(j, i),
-                                   options.light_azimuth_deg, options.light_elevation_deg))
+                                   out.exaggeration * sx, out.exaggeration * sy, light))
                              : kUnreached;
     }
   }

@@ -45,6 +45,19 @@ inline constexpr double kAutoSlopeDeg = 30.0;
 /// at the patch edge or at a plunge).
 inline constexpr double kAutoSlopePercentile = 0.95;
 
+/// Unit vector toward a distant light (x, y, z; +Z up).
+struct LightVector {
+  double x = 0.0;  ///< cos el cos az
+  double y = 0.0;  ///< cos el sin az
+  double z = 1.0;  ///< sin el
+};
+
+/// The light vector for an azimuth (deg, counter-clockwise from +X) and elevation (deg).
+LightVector light_vector(double light_azimuth_deg, double light_elevation_deg);
+
+/// lambert_brightness below with the light vector computed once (per image, not per cell).
+double lambert_brightness(double gx, double gy, const LightVector& light);
+
 /// Lambert brightness of a surface with gradient (gx, gy) (dimensionless dz/dx, dz/dy, +Y up)
 /// under a distant light: max(0, n . l), n = (-gx, -gy, 1) / |.|,
 /// l = (cos el cos az, cos el sin az, sin el). A flat floor gives sin(el).

@@ -64,12 +64,19 @@ Plane fit_plane(const Heightfield& hf) {
 }
 
 Heightfield remove_plane(const Heightfield& hf, const Plane& plane) {
-  Heightfield out = hf;
+  // Every cell is written once (no copy of the heights first): unreached cells stay NaN.
+  Heightfield out;
+  out.nx = hf.nx;
+  out.ny = hf.ny;
+  out.cell_mm = hf.cell_mm;
+  out.origin_x_mm = hf.origin_x_mm;
+  out.origin_y_mm = hf.origin_y_mm;
+  out.z_um.resize(hf.ny, hf.nx);
   for (int j = 0; j < hf.ny; ++j) {
     const double y = hf.y_mm(j);
     for (int i = 0; i < hf.nx; ++i) {
       const float z = hf.z_um(j, i);
-      if (!std::isnan(z)) out.z_um(j, i) = static_cast<float>(z - plane.at(hf.x_mm(i), y));
+      out.z_um(j, i) = std::isnan(z) ? z : static_cast<float>(z - plane.at(hf.x_mm(i), y));
     }
   }
   return out;

@@ -1,16 +1,21 @@
 // Areal autocorrelation (FFT, pair-count normalised) with Sal/Str decay search, and the lay
 // direction from the Hann-windowed power spectrum.
 // Inputs: residual heightfield; output: TextureDirection. Cost O(N log N).
-// Method: ISO 25178-2:2012 §4.2; Wiener-Khinchin theorem; FFTW3 real transforms.
+// Method: ISO 25178-2:2012 §4.2; Wiener-Khinchin theorem; ACF by FFTW3 single-precision real
+// transforms on threads (texture/real_fft_2d.h, bit-identical for any thread count); lay in double.
 #include "texture/texture_direction.h"
 
 #include <algorithm>
+#include <atomic>
+#include <complex>
 #include <cmath>
 #include <memory>
 #include <numbers>
 #include <vector>
 
+#include "core/parallel_blocks.h"
 #include "texture/fft_autocorrelation.h"
+#include "texture/real_fft_2d.h"
 
 namespace cuspmap {
 namespace {
@@ -28,12 +33,16 @@ int fft_size(int n) {
   }
 }
 
-// Normalised ACF on lags |tx| < nx, |ty| < ny, stored as a (2ny-1) x (2nx-1) grid centred on 0.
-struct Acf {
-  int nx = 0, ny = 0;
-  std::vector<double> v;
+// Normalised ACF read straight from the transformed, padded field (no copy of the lag grid):
+// lags |tx| <= lim_x, |ty| <= lim_y are free of wrap-around; others read as 0.
+class Acf {
+ public:
+  // `release` (may be null) is emptied once the field holds its values: a caller that hands
+  // over its residual does not hold it and the padded transform at once.
+  Acf(const Heightfield& hf, int threads, Heightfield* release);
   double at(int tx, int ty) const {
-    return v[static_cast<size_t>(ty + ny - 1) * (2 * nx - 1) + static_cast<size_t>(tx + nx - 1)];
+    if (std::abs(tx) > lim_x_ || std::abs(ty) > lim_y_ || !(r0_ > 0.0)) return 0.0;
+    return mean_product(tx, ty) / r0_;
   }
   // Bilinear value at a fractional lag (cells).
   double sample(double fx, double fy) const {
@@ -42,63 +51,64 @@ struct Acf {
     return (1 - ty) * ((1 - tx) * at(ix, iy) + tx * at(ix + 1, iy)) +
            ty * ((1 - tx) * at(ix, iy + 1) + tx * at(ix + 1, iy + 1));
   }
+
+ private:
+  double mean_product(int tx, int ty) const {
+    const int r = ty < 0 ? ty + py_ : ty, c = tx < 0 ? tx + px_ : tx;
+    // Pair counts are integers: the mask's float transform is rounded back to one.
+    const double pairs = mask_ ? std::round(mask_->row(r)[c] * scale_)
+                               : static_cast<double>(nx_ - std::abs(tx)) * (ny_ - std::abs(ty));
+    return pairs >= 1.0 ? z_.row(r)[c] * scale_ / pairs : 0.0;
+  }
+  int nx_, ny_, px_, py_, lim_x_, lim_y_;
+  double scale_;  // 1 / (px py): the unnormalised transform pair's factor
+  SpectrumField z_;
+  std::unique_ptr<SpectrumField> mask_;
+  double r0_ = 0.0;
 };
 
-Acf areal_acf(const Heightfield& hf, bool& has_nan) {
-  const int nx = hf.nx, ny = hf.ny;
-  // Lags up to half the field are used; padding to n + n/2 + 1 keeps them free of wrap-around
-  // (a circular lag t mixes in t - p, beyond the data when p >= n + |t|), at half the cost of 2n.
-  const int px = fft_size(nx + nx / 2 + 1), py = fft_size(ny + ny / 2 + 1);
-  const size_t total = static_cast<size_t>(px) * static_cast<size_t>(py);
-  FftwRealBuffer z = fftw_real_buffer(total);
-  has_nan = false;
-  for (int j = 0; j < ny; ++j) {
-    for (int i = 0; i < nx; ++i) {
+Acf::Acf(const Heightfield& hf, int threads, Heightfield* release)
+    : nx_(hf.nx),
+      ny_(hf.ny),
+      // Lags up to half the field are used; padding to n + n/2 + 1 keeps them free of
+      // wrap-around (a circular lag t mixes in t - p, beyond the data when p >= n + |t|), at
+      // half the cost of 2n.
+      px_(fft_size(hf.nx + hf.nx / 2 + 1)),
+      py_(fft_size(hf.ny + hf.ny / 2 + 1)),
+      lim_x_(std::min(hf.nx - 1, px_ - hf.nx)),
+      lim_y_(std::min(hf.ny - 1, py_ - hf.ny)),
+      scale_(1.0 / (static_cast<double>(px_) * py_)),
+      z_(py_, px_) {
+  // The fresh field is zero: only the data cells are written (no zero-fill pass).
+  std::atomic<bool> has_nan{false};
+  parallel_blocks(ny_, threads, [&](int j) {
+    float* row = z_.row(j);
+    bool nan = false;
+    for (int i = 0; i < nx_; ++i) {
       const float v = hf.z_um(j, i);
-      if (std::isnan(v)) has_nan = true;
-      z.get()[static_cast<size_t>(j) * px + i] = std::isnan(v) ? 0.0 : v;
+      nan |= std::isnan(v);
+      row[i] = std::isnan(v) ? 0.0f : v;
     }
-  }
-  fft_autocorrelate(z.get(), py, px);
-  FftwRealBuffer m;
+    if (nan) has_nan = true;
+  });
   if (has_nan) {
-    m = fftw_real_buffer(total);
-    for (int j = 0; j < ny; ++j) {
-      for (int i = 0; i < nx; ++i) {
-        m.get()[static_cast<size_t>(j) * px + i] = std::isnan(hf.z_um(j, i)) ? 0.0 : 1.0;
-      }
-    }
-    fft_autocorrelate(m.get(), py, px);
+    mask_ = std::make_unique<SpectrumField>(py_, px_);
+    parallel_blocks(ny_, threads, [&](int j) {
+      float* row = mask_->row(j);
+      for (int i = 0; i < nx_; ++i) row[i] = std::isnan(hf.z_um(j, i)) ? 0.0f : 1.0f;
+    });
   }
-  Acf acf;
-  acf.nx = nx;
-  acf.ny = ny;
-  acf.v.assign(static_cast<size_t>(2 * nx - 1) * (2 * ny - 1), 0.0);
-  // Pair counts below one half are round-off of an empty overlap (counts are integers).
-  constexpr double kMinPairs = 0.5;
-  auto mean_product = [&](int tx, int ty) {
-    const size_t idx =
-        static_cast<size_t>((ty + py) % py) * px + static_cast<size_t>((tx + px) % px);
-    const double pairs =
-        has_nan ? m.get()[idx] : static_cast<double>(nx - std::abs(tx)) * (ny - std::abs(ty));
-    return pairs >= kMinPairs ? z.get()[idx] / pairs : 0.0;
-  };
-  const double r0 = mean_product(0, 0);
-  if (!(r0 > 0.0)) return acf;
-  // Only lags free of wrap-around are filled (the decay search reaches half the field + 1 cell).
-  const int lim_x = std::min(nx - 1, px - nx), lim_y = std::min(ny - 1, py - ny);
-  for (int ty = -lim_y; ty <= lim_y; ++ty) {
-    for (int tx = -lim_x; tx <= lim_x; ++tx) {
-      acf.v[static_cast<size_t>(ty + ny - 1) * (2 * nx - 1) + static_cast<size_t>(tx + nx - 1)] =
-          mean_product(tx, ty) / r0;
-    }
-  }
-  return acf;
+  if (release != nullptr) release->z_um = HeightGrid();
+  autocorrelate_field(z_, ny_, lim_y_, threads);
+  if (mask_) autocorrelate_field(*mask_, ny_, lim_y_, threads);
+  r0_ = mean_product(0, 0);
 }
 
 // Lay from the Hann-windowed power spectrum: the doubled-angle mean of the wave-vector
 // directions weighted by power is perpendicular to the grooves.
-void lay_from_spectrum(const Heightfield& hf, TextureDirection& out) {
+// Kept in double precision: the lay angle steers the profile traces, and float round-off
+// would tilt an exactly symmetric spectrum by ~1e-6 deg.
+void lay_from_spectrum(const Heightfield& hf, int /*threads*/, TextureDirection& out) {
   const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
   FftwRealBuffer z = fftw_real_buffer(static_cast<size_t>(nx) * static_cast<size_t>(ny));
   ComplexBuf spec(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * ny * bins)));
@@ -139,49 +149,67 @@ void lay_from_spectrum(const Heightfield& hf, TextureDirection& out) {
   out.lay_deg = lay;
 }
 
-}  // namespace
-
-TextureDirection texture_direction(const Heightfield& residual) {
+TextureDirection direction_of(const Heightfield& residual, int threads, Heightfield* release) {
   TextureDirection out;
   if (residual.nx < 2 || residual.ny < 2) return out;
-  bool has_nan = false;
-  const Acf acf = areal_acf(residual, has_nan);
+  // The lay first: its field is freed before the larger padded one is made.
+  lay_from_spectrum(residual, threads, out);
+  // Sizes are kept: `release` may empty the residual's heights below.
+  const int nx = residual.nx, ny = residual.ny;
+  const double cell_mm = residual.cell_mm;
+  const Acf acf(residual, threads, release);
   // Walk rays from the origin in steps of a quarter cell until the ACF falls to s; the reach is
   // half the field in each axis (beyond it too few pairs remain for a stable estimate).
   constexpr double kStepCells = 0.25;
-  const double reach_x = 0.5 * (residual.nx - 1), reach_y = 0.5 * (residual.ny - 1);
-  double shortest = 1e300, longest = 0.0;
-  for (double a = 0.0; a < 180.0; a += kAcfAngleStepDeg) {
+  const double reach_x = 0.5 * (nx - 1), reach_y = 0.5 * (ny - 1);
+  const int rays = static_cast<int>(std::ceil(180.0 / kAcfAngleStepDeg - 1e-9));
+  std::vector<double> found(static_cast<size_t>(rays), -1.0), reach(static_cast<size_t>(rays));
+  parallel_blocks(rays, threads, [&](int k) {
+    const double a = k * kAcfAngleStepDeg;
     const double c = std::cos(a * std::numbers::pi / 180.0),
                  s = std::sin(a * std::numbers::pi / 180.0);
     const double rx = std::abs(c) > 1e-12 ? reach_x / std::abs(c) : 1e300;
     const double ry = std::abs(s) > 1e-12 ? reach_y / std::abs(s) : 1e300;
-    const double reach = std::min(rx, ry);
-    double prev_r = 0.0, prev_v = 1.0, found = -1.0;
-    for (double r = kStepCells; r <= reach; r += kStepCells) {
+    reach[static_cast<size_t>(k)] = std::min(rx, ry);
+    double prev_r = 0.0, prev_v = 1.0;
+    for (double r = kStepCells; r <= reach[static_cast<size_t>(k)]; r += kStepCells) {
       const double v = acf.sample(r * c, r * s);
       if (v <= kAcfThreshold) {
-        found = prev_r + (prev_v - kAcfThreshold) / (prev_v - v) * (r - prev_r);
-        break;
+        found[static_cast<size_t>(k)] =
+            prev_r + (prev_v - kAcfThreshold) / (prev_v - v) * (r - prev_r);
+        return;
       }
       prev_r = r;
       prev_v = v;
     }
-    if (found < 0.0) {
+  });
+  double shortest = 1e300, longest = 0.0;
+  for (int k = 0; k < rays; ++k) {
+    const double f = found[static_cast<size_t>(k)];
+    if (f < 0.0) {
       out.str_upper_bound = true;
-      longest = std::max(longest, reach);
+      longest = std::max(longest, reach[static_cast<size_t>(k)]);
       continue;
     }
     out.sal_found = true;
-    shortest = std::min(shortest, found);
-    longest = std::max(longest, found);
+    shortest = std::min(shortest, f);
+    longest = std::max(longest, f);
   }
   if (out.sal_found) {
-    out.sal_mm = shortest * residual.cell_mm;
+    out.sal_mm = shortest * cell_mm;
     out.str = longest > 0.0 ? shortest / longest : 0.0;
   }
-  lay_from_spectrum(residual, out);
   return out;
+}
+
+}  // namespace
+
+TextureDirection texture_direction(const Heightfield& residual, int threads) {
+  return direction_of(residual, threads, nullptr);
+}
+
+TextureDirection texture_direction(Heightfield&& residual, int threads) {
+  return direction_of(residual, threads, &residual);
 }
 
 }  // namespace cuspmap

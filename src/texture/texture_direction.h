@@ -32,6 +32,12 @@ struct TextureDirection {
 /// Computes Sal, Str and the lay of a residual surface.
 /// @param[in] residual heightfield with its mean plane removed; needs nx, ny >= 2 and a finite
 ///            cell (else all zeros)
-TextureDirection texture_direction(const Heightfield& residual);
+/// @param[in] threads  workers for the transforms and the ray search, 0 = all hardware threads;
+///            the result is bit-identical for any count
+TextureDirection texture_direction(const Heightfield& residual, int threads = 0);
+
+/// As above, taking the residual over: its heights are freed once the padded transform holds
+/// them (so a large floor's residual and transform are not held at once).
+TextureDirection texture_direction(Heightfield&& residual, int threads = 0);
 
 }  // namespace cuspmap

@@ -7,6 +7,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <utility>
 
 #include "core/input_error.h"
 #include "core/units.h"
@@ -44,7 +45,8 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
     a.l_filter_mm = o.l_filter_mm;
   }
   a.parameters = areal_parameters(residual);
-  a.spatial = texture_direction(residual);
+  // The residual is handed over: freed once the padded transform holds it (peak memory).
+  a.spatial = texture_direction(std::move(residual));
   if (!a.parameters.shape_defined) warnings.push_back("surface is flat: Ssk and Sku reported as 0");
   if (!a.spatial.sal_found) {
     warnings.push_back(

@@ -1,0 +1,113 @@
+// Row-column real FFT in single precision: one plan per kind (row forward, row inverse, column
+// block forward and backward) executed on every row / block through FFTW's new-array interface.
+// Inputs/outputs: SpectrumField. Cost O(N log N) / threads.
+// Method: FFTW3 single precision (Frigo & Johnson 2005); Wiener-Khinchin theorem.
+#include "texture/real_fft_2d.h"
+
+#include <fftw3.h>
+
+#include <algorithm>
+#include <cassert>
+
+#include "core/parallel_blocks.h"
+
+namespace cuspmap {
+namespace {
+
+// Rows per work item of the row transforms (enough to amortise the counter).
+constexpr int kRowsPerTask = 16;
+
+struct Plan {
+  fftwf_plan p = nullptr;
+  explicit Plan(fftwf_plan q) : p(q) { assert(p != nullptr && "FFTW could not plan"); }
+  ~Plan() { fftwf_destroy_plan(p); }
+  Plan(const Plan&) = delete;
+  Plan& operator=(const Plan&) = delete;
+};
+
+fftwf_complex* as_fftw(std::complex<float>* c) { return reinterpret_cast<fftwf_complex*>(c); }
+
+// Column transform of one block of kFftColumnBlock bins, in place, over every row.
+fftwf_plan column_plan(SpectrumField& f, int sign) {
+  const int n = f.rows();
+  const int stride = static_cast<int>(f.row_floats() / 2);
+  fftwf_complex* d = as_fftw(f.spectrum_row(0));
+  return fftwf_plan_many_dft(1, &n, kFftColumnBlock, d, nullptr, stride, 1, d, nullptr, stride,
+                             1, sign, FFTW_ESTIMATE);
+}
+
+void transform_rows(SpectrumField& f, const Plan& plan, bool forward, int row_begin, int row_end,
+                    int threads) {
+  const int tasks = (row_end - row_begin + kRowsPerTask - 1) / kRowsPerTask;
+  parallel_blocks(tasks, threads, [&](int t) {
+    const int j0 = row_begin + t * kRowsPerTask, j1 = std::min(row_end, j0 + kRowsPerTask);
+    for (int j = j0; j < j1; ++j) {
+      if (forward) {
+        fftwf_execute_dft_r2c(plan.p, f.row(j), as_fftw(f.spectrum_row(j)));
+      } else {
+        fftwf_execute_dft_c2r(plan.p, as_fftw(f.spectrum_row(j)), f.row(j));
+      }
+    }
+  });
+}
+
+}  // namespace
+
+SpectrumField::SpectrumField(int rows, int cols) : rows_(rows), cols_(cols) {
+  assert(rows >= 1 && cols >= 1 && "a field needs cells");
+  const std::size_t bins = static_cast<std::size_t>(cols / 2 + 1);
+  complex_stride_ = (bins + kFftColumnBlock - 1) / kFftColumnBlock * kFftColumnBlock;
+  data_ = LargeBuffer<float>(static_cast<std::size_t>(rows) * row_floats());
+}
+
+int spectrum_blocks(const SpectrumField& field) {
+  return (field.bins() + kFftColumnBlock - 1) / kFftColumnBlock;
+}
+
+namespace {
+
+// Forward rows, then per column block: forward columns, visit, and (inverse) columns back.
+void run_columns(SpectrumField& f, int filled_rows, int threads, const SpectrumBlockVisit& visit,
+                 bool inverse) {
+  const int n = f.cols();
+  // Plans are made once on this thread (FFTW's planner is not thread-safe), then executed on
+  // every row or block: the same arithmetic whichever thread runs it.
+  const Plan rows_fwd(fftwf_plan_many_dft_r2c(1, &n, 1, f.row(0), nullptr, 1, 0,
+                                              as_fftw(f.spectrum_row(0)), nullptr, 1, 0,
+                                              FFTW_ESTIMATE));
+  const Plan cols_fwd(column_plan(f, FFTW_FORWARD));
+  const Plan cols_inv(column_plan(f, FFTW_BACKWARD));
+  transform_rows(f, rows_fwd, true, 0, filled_rows, threads);
+  parallel_blocks(spectrum_blocks(f), threads, [&](int b) {
+    fftwf_complex* d = as_fftw(f.spectrum_row(0)) + static_cast<std::size_t>(b) * kFftColumnBlock;
+    fftwf_execute_dft(cols_fwd.p, d, d);
+    visit(b, b * kFftColumnBlock, std::min(f.bins(), (b + 1) * kFftColumnBlock));
+    if (inverse) fftwf_execute_dft(cols_inv.p, d, d);
+  });
+}
+
+}  // namespace
+
+void forward_spectrum(SpectrumField& field, int filled_rows, int threads,
+                      const SpectrumBlockVisit& visit) {
+  run_columns(field, filled_rows, threads, visit, false);
+}
+
+void autocorrelate_field(SpectrumField& field, int filled_rows, int lag_rows, int threads) {
+  const int rows = field.rows();
+  run_columns(field, filled_rows, threads, [&](int, int bin0, int bin1) {
+    for (int j = 0; j < rows; ++j) {
+      std::complex<float>* s = field.spectrum_row(j);
+      for (int k = bin0; k < bin1; ++k) s[k] = std::norm(s[k]);
+    }
+  }, true);
+  const int n = field.cols();
+  const Plan rows_inv(fftwf_plan_many_dft_c2r(1, &n, 1, as_fftw(field.spectrum_row(0)), nullptr,
+                                              1, 0, field.row(0), nullptr, 1, 0, FFTW_ESTIMATE));
+  // Only rows holding lags |ty| <= lag_rows are brought back: 0..lag_rows and the wrapped ones.
+  const int top = std::min(rows, lag_rows + 1);
+  transform_rows(field, rows_inv, false, 0, top, threads);
+  transform_rows(field, rows_inv, false, std::max(top, rows - lag_rows), rows, threads);
+}
+
+}  // namespace cuspmap
