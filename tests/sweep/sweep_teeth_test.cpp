@@ -260,3 +260,49 @@ TEST_CASE("simulate_floor: zigzag under tram error alternates the lean of the ri
 }
 
 }  // namespace cuspmap
+
+namespace cuspmap {
+
+TEST_CASE("simulate_floor: issue_13: runout cells near the reach limit keep their crossings",
+          "[sweep]") {
+  // 6 mm dished flat, 5 um runout at phase 0, 10 um cells: the cells whose distance across the
+  // pass lies between R - runout and R + runout are reached only by the tooth the runout throws
+  // out; the sweep must find those crossings as the time-stepping oracle does (Altintas,
+  // Manufacturing Automation, ch. 2; Kline & DeVor's runout model).
+  constexpr double kSlackUm = 2e-3;
+  Patch patch;
+  patch.size_x_mm = 0.2;
+  patch.size_y_mm = 0.04;
+  patch.cell_mm = 0.01;
+  patch.origin_y_mm = 2.98;  // rows at y = 2.985 .. 3.015 mm from the pass at y = 0
+  CutSpec cut;
+  cut.rpm = 6000.0;
+  cut.spindle = SpindleDirection::Cw;
+  Cutter flat;
+  flat.shape = CutterShape::Flat;
+  flat.diameter_mm = 6.0;
+  flat.dish_deg = 1.0;
+  flat.teeth = 3;
+  flat.runout_mm = 0.005;
+  flat.runout_phase_deg = 0.0;
+  Toolpath path;
+  path.moves.push_back(line(-4.0, 0.0, 0.0, 4.2, 0.0, 0.0, 900.0));  // fz 0.05 mm
+  const Heightfield hf = teeth_floor(flat, path, cut, patch);
+  REQUIRE(hf.origin_y_mm == patch.origin_y_mm);  // cell centres in program coordinates
+  int compared = 0;
+  for (int j = 0; j < hf.ny; ++j) {
+    for (int i = 0; i < hf.nx; ++i) {
+      const Eigen::Vector2d p(hf.x_mm(i), hf.y_mm(j));
+      const double ref = test::time_stepped_teeth_um(flat, path, patch.floor_z_mm, p, cut.rpm,
+                                                     true, 500);
+      CAPTURE(i, j, p.y());
+      if (!std::isfinite(ref)) continue;
+      REQUIRE(std::isfinite(hf.z_um(j, i)));
+      REQUIRE_NEAR(hf.z_um(j, i), ref, kSlackUm);
+      ++compared;
+    }
+  }
+  REQUIRE(compared > 20);
+}
+
+}  // namespace cuspmap
