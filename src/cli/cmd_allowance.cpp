@@ -7,6 +7,7 @@
 #include <optional>
 
 #include "cli/command.h"
+#include "cli/shop_flag.h"
 #include "cli/finish_flags.h"
 #include "cli/texture_flags.h"
 #include "core/input_error.h"
@@ -31,6 +32,7 @@ constexpr double kReferenceAreaMm2 = 10000.0;
 
 struct AllowanceOptions {
   CommonOptions common;
+  ShopFlag shop;          // --shop profile
   ToolFlags tool;
   GritFlags grits;
   TextureFlags texture;   // how a heightmap's or job's texture is measured
@@ -254,6 +256,8 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
 
 void run_allowance(const AllowanceOptions& o) {
   const LengthUnit units = o.common.length_unit();
+  ShopFlag shop = o.shop;
+  shop.load();
   StageTimer timer;
   Marks marks;
   if (!o.input.empty()) {
@@ -301,6 +305,7 @@ void run_allowance(const AllowanceOptions& o) {
   print_stage(o.common.verbose, "allowance", timer.lap());
   if (!o.common.json) {
     print_human(a, marks, grits, area_note, units);
+    if (shop.active()) std::printf("%s\n", shop_ra_text(shop, marks.heights.ra_um, units).c_str());
     return;
   }
   nlohmann::json doc = {
@@ -351,6 +356,7 @@ void run_allowance(const AllowanceOptions& o) {
                         {"within", a.within_tolerance},
                         {"verdict", verdict_text(a, LengthUnit::Millimetre)}};
   }
+  if (shop.active()) doc["shop"] = shop_ra_json(shop, marks.heights.ra_um);
   print_json(doc);
 }
 
@@ -377,6 +383,7 @@ void setup_allowance(CLI::App& sub) {
   add_grit_flags(sub, o->grits);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
+  add_shop_flag(sub, o->shop);
   sub.footer(cautions_help_text(sanding_cautions()));
   sub.callback([o] { run_allowance(*o); });
 }

@@ -7,6 +7,7 @@
 #include <string>
 
 #include "cli/command.h"
+#include "cli/shop_flag.h"
 #include "report/html_report.h"
 #include "cli/comparison_run.h"
 #include "cli/output_dir.h"
@@ -21,6 +22,7 @@ namespace {
 
 struct CompareOptions {
   CommonOptions common;
+  ShopFlag shop;  ///< --shop profile
   SimFlags sim;
   TextureFlags texture;
   std::vector<std::string> jobs;
@@ -74,6 +76,8 @@ std::vector<Job> expand_jobs(const CompareOptions& o, LengthUnit unit) {
 
 void run_compare(const CompareOptions& o) {
   const LengthUnit units = o.common.length_unit();
+  ShopFlag shop = o.shop;
+  shop.load();
   const std::vector<Job> jobs = expand_jobs(o, units);
   RunOptions ropt;
   ropt.threads = o.sim.threads;
@@ -82,12 +86,26 @@ void run_compare(const CompareOptions& o) {
   const std::optional<HeightRange> range = parse_height_range(o.sim.range, units);
   OutputDir dir(o.out);
   const Comparison comparison = run_comparison(jobs, ropt, range, units, o.common.verbose);
-  const nlohmann::json doc = write_comparison(dir, comparison, units, o.report_html);
+  nlohmann::json doc = write_comparison(dir, comparison, units, o.report_html);
+  if (shop.active()) {
+    // Beside each row's kinematic Ra, never in its place (the stars stay kinematic).
+    for (size_t k = 0; k < comparison.rows.size(); ++k) {
+      doc["rows"][k]["shop"] =
+          shop_ra_json(shop, comparison.rows[k].run.texture.profile.roughness.a_um);
+    }
+  }
   if (o.common.json) {
     print_json(doc);
     return;
   }
   std::fputs(compare_table_text(comparison.rows, comparison.basis, units).c_str(), stdout);
+  if (shop.active()) {
+    for (size_t k = 0; k < comparison.rows.size(); ++k) {
+      std::printf("%zu: %s\n", k + 1,
+                  shop_ra_text(shop, comparison.rows[k].run.texture.profile.roughness.a_um, units)
+                      .c_str());
+    }
+  }
   std::printf("wrote %zu files to %s/\n", dir.written().size(), dir.path().c_str());
   std::printf("Before cutting: prove the chosen program on the machine as its maker instructs "
               "(guards, workholding, rotating tools); follow local codes and licensed practice.\n");
@@ -113,6 +131,7 @@ void setup_compare(CLI::App& sub) {
   add_sim_flags(sub, o->sim);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
+  add_shop_flag(sub, o->shop);
   sub.footer(cautions_help_text(standard_cautions()));
   sub.callback([o] { run_compare(*o); });
 }

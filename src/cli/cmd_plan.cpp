@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "cli/command.h"
+#include "cli/shop_flag.h"
 #include "cli/finish_flags.h"
 #include "cli/output_dir.h"
 #include "core/height_units.h"
@@ -34,6 +35,7 @@ namespace {
 
 struct PlanOptions {
   CommonOptions common;
+  ShopFlag shop;                  // --shop profile
   ToolFlags tool;
   GritFlags grits;
   std::string tools;              // --tools ball:6,flat:12.7 (else the single-tool flags)
@@ -499,12 +501,20 @@ void print_table(const PlanRequest& r, const PlanResult& plan, LengthUnit u, con
 
 void run_plan(const PlanOptions& o) {
   const LengthUnit units = o.common.length_unit();
+  ShopFlag shop = o.shop;
+  shop.load();
   const PlanRequest request = request_from_flags(o, units);
   StageTimer timer;
   const PlanResult plan = plan_stepover(request);
   print_stage(o.common.verbose, "plan", timer.lap());
   const char* basis = surface_basis(request, o);
-  const nlohmann::json doc = plan_document(request, plan, units, basis);
+  nlohmann::json doc = plan_document(request, plan, units, basis);
+  if (shop.active()) {
+    // The machined Ra of each option as this shop measures; decisions stay kinematic.
+    for (size_t k = 0; k < plan.options.size(); ++k) {
+      doc["options"][k]["shop"] = shop_ra_json(shop, plan.options[k].surface.ra_um);
+    }
+  }
   if (!o.out.empty()) {
     OutputDir dir(o.out);
     dir.write("plan.json", doc.dump(2) + "\n");
@@ -518,6 +528,10 @@ void run_plan(const PlanOptions& o) {
     print_json(doc);
   } else {
     print_table(request, plan, units, basis);
+    if (shop.active() && plan.best) {
+      std::printf("best option machined: %s\n",
+                  shop_ra_text(shop, plan.options[*plan.best].surface.ra_um, units).c_str());
+    }
     if (!o.out.empty())
       std::printf("\nWrote plan.json, plan.csv and plan.svg to %s\n", o.out.c_str());
   }
@@ -572,6 +586,7 @@ void setup_plan(CLI::App& sub) {
                "Take each option's surface from a simulated window (tilt in any direction, dish, "
                "runout) instead of the closed form");
   add_common_flags(sub, o->common);
+  add_shop_flag(sub, o->shop);
   sub.footer(cautions_help_text(plan_cautions()));
   sub.callback([o] { run_plan(*o); });
 }

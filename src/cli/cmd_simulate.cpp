@@ -8,6 +8,7 @@
 #include <string>
 
 #include "cli/command.h"
+#include "cli/shop_flag.h"
 #include "cli/output_dir.h"
 #include "cli/progress_bar.h"
 #include "cli/sim_flags.h"
@@ -33,6 +34,7 @@ namespace {
 
 struct SimulateOptions {
   CommonOptions common;
+  ShopFlag shop;  ///< --shop profile
   SimFlags sim;
   TextureFlags texture;
   std::string job_file;
@@ -132,6 +134,8 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
 
 void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   StageTimer total;
+  ShopFlag shop = o.shop;
+  shop.load();
   if (o.job_file.empty() == o.gcode.empty()) {
     throw InputError("give either a job file or --gcode FILE (with --tool and --diameter)");
   }
@@ -215,12 +219,16 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
     report["memory"]["band_rows"] = run.band_rows;
     report["memory"]["overview_cells_per_pixel"] = run.overview_cells_per_pixel;
   }
+  if (shop.active()) report["shop"] = shop_ra_json(shop, run.texture.profile.roughness.a_um);
   dir.write("report.json", report.dump(2) + "\n");
   print_stage(o.common.verbose, "write", write.seconds());
   if (o.common.json) {
     print_json(report);
   } else {
     print_summary(job, run, dir, units);
+    if (shop.active()) {
+      std::printf("  %s\n", shop_ra_text(shop, run.texture.profile.roughness.a_um, units).c_str());
+    }
   }
 }
 
@@ -258,6 +266,7 @@ void setup_simulate(CLI::App& sub) {
   add_sim_flags(sub, o->sim);
   add_texture_flags(sub, o->texture);
   add_common_flags(sub, o->common);
+  add_shop_flag(sub, o->shop);
   sub.footer(cautions_help_text(standard_cautions()));
   CLI::App* app = &sub;
   sub.callback([o, app] { run_simulate(*o, app->count("--units") > 0); });

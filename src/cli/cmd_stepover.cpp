@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "cli/command.h"
+#include "cli/shop_flag.h"
 #include "cli/stepover_report.h"
 #include "core/height_units.h"
 #include "core/input_error.h"
@@ -34,6 +35,7 @@ struct StepoverOptions {
   std::string nose_radius, feed_per_rev;
   bool both_directions = false;
   CommonOptions common;
+  ShopFlag shop;  ///< --shop profile
 };
 
 // Which flags were given on the command line.
@@ -286,6 +288,8 @@ void run_stepover(const StepoverOptions& o, const CLI::App& app) {
   StageTimer timer;
   const Given given(app);
   const LengthUnit unit = o.common.length_unit();
+  ShopFlag shop = o.shop;
+  shop.load();
   StepoverReport rep;
   rep.unit = unit;
   if (o.tool == "insert") {
@@ -297,9 +301,12 @@ void run_stepover(const StepoverOptions& o, const CLI::App& app) {
   }
   print_stage(o.common.verbose, "cusp", timer.lap());
   if (o.common.json) {
-    print_json(stepover_json(rep));
+    nlohmann::json doc = stepover_json(rep);
+    if (shop.active()) doc["shop"] = shop_ra_json(shop, rep.cusp.stats.ra_um);
+    print_json(doc);
   } else {
     std::cout << stepover_table(rep);
+    if (shop.active()) std::cout << shop_ra_text(shop, rep.cusp.stats.ra_um, unit) << '\n';
   }
   print_stage(o.common.verbose, "output", timer.lap());
 }
@@ -356,6 +363,7 @@ void setup_stepover(CLI::App& sub) {
   sub.add_option("--feed-per-rev", opts->feed_per_rev, "Turning feed per revolution f")
       ->type_name("LENGTH");
   add_common_flags(sub, opts->common);
+  add_shop_flag(sub, opts->shop);
   sub.footer(stepover_help_footer());
   sub.callback([opts, &sub] { run_stepover(*opts, sub); });
 }

@@ -46,3 +46,34 @@ TEST_CASE("cuspmap calibrate: bad input is one line, exit 2, nothing written", "
 }
 
 }  // namespace cuspmap
+
+namespace cuspmap {
+
+TEST_CASE("--shop: calibrated Ra beside the kinematic one, never in its place", "[cli]") {
+  test::TempDir dir;
+  test::write_text(dir.file("history.csv"), kHistory);
+  const test::RunResult fit = test::run_cuspmap(
+      {"calibrate", dir.file("history.csv"), "--out", dir.file("out"), "--json"});
+  REQUIRE(fit.exit_code == 0);
+  const nlohmann::json cal = nlohmann::json::parse(fit.out);
+  const std::string profile = dir.file("out/shop.toml");
+  const test::RunResult r = test::run_cuspmap(
+      {"stepover", "--tool", "ball", "--diameter", "6", "--stepover", "0.5", "--shop", profile,
+       "--json"});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json doc = nlohmann::json::parse(r.out);
+  const double kin = doc["Ra_um"].get<double>();
+  REQUIRE(doc["shop"]["kinematic_Ra_um"].get<double>() == kin);  // the kinematic value stays
+  // Derived: calibrated = floor + scale x kinematic (docs/calibration.md).
+  REQUIRE_NEAR(doc["shop"]["calibrated_Ra_um"].get<double>(),
+               cal["floor_um"].get<double>() + cal["scale"].get<double>() * kin, 1e-12);
+  const test::RunResult text = test::run_cuspmap(
+      {"stepover", "--tool", "ball", "--diameter", "6", "--stepover", "0.5", "--shop", profile});
+  REQUIRE(text.out.find("shop-calibrated Ra ") != std::string::npos);
+  test::require_input_error({"stepover", "--tool", "ball", "--diameter", "6", "--stepover", "0.5",
+                             "--shop", dir.file("missing.toml")},
+                            "--shop " + dir.file("missing.toml") + ": cannot read the file");
+}
+
+}  // namespace cuspmap
