@@ -38,6 +38,7 @@ void setup_texture(CLI::App& sub);
 void setup_allowance(CLI::App& sub);
 void setup_plan(CLI::App& sub);
 void setup_demo(CLI::App& sub);
+void setup_diagnose(CLI::App& sub);
 
 /// One row of the command table: name, one-line help, and its setup function.
 struct CommandEntry {
@@ -54,6 +55,7 @@ inline constexpr CommandEntry kCommands[] = {
     {"texture", "ISO 4287 / 25178-2 texture parameters of a simulated or measured surface", setup_texture},
     {"allowance", "Sanding depth, programmed stock and grit sequence to erase the marks", setup_allowance},
     {"plan", "Cheapest stepover once machine and bench time are both counted", setup_plan},
+    {"diagnose", "Read a measured floor or trace back to stepover, cutter radius and feed marks", setup_diagnose},
     {"demo", "Run the built-in pump-cover scenario end to end", setup_demo},
 };
 
