@@ -12,7 +12,7 @@
 
 namespace cuspmap {
 
-CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm) {
+CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, bool detrend) {
   CuspShape c;
   if (traces.empty()) return c;
   const double dx = traces.front().spacing_mm;
@@ -24,7 +24,7 @@ CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm) 
   for (const ProfileTrace& t : traces) {
     z = t.z_um;
     if (z.size() < 3) continue;
-    remove_least_squares_line(z);
+    if (detrend) remove_least_squares_line(z);
     for (size_t i = 0; i < z.size(); ++i) {
       const double x = t.start_mm + static_cast<double>(i) * t.spacing_mm;
       double phase = std::fmod(x, period_mm);

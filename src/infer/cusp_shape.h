@@ -39,6 +39,9 @@ struct CuspShape {
 /// Folds the traces on `period_mm` and fits the valley.
 /// @param[in] traces     traces across the lay, positions start_mm + i * spacing from the centre
 /// @param[in] period_mm  the across-lay period (> 2 samples)
-CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm);
+/// @param[in] detrend    remove each trace's least-squares line first (a raw measured trace);
+///                       false for traces of a field whose plane is already removed, where
+///                       short runs between missing points would each be shifted differently
+CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, bool detrend);
 
 }  // namespace cuspmap

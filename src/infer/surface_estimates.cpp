@@ -28,6 +28,12 @@ constexpr double kAlternationMargin = 0.15;
 // source: front-only rim arcs mirror at ~0.5, crossing arcs at ~1).
 constexpr double kMirrorRecut = 0.85;
 constexpr double kMirrorLifted = 0.65;
+// Pass matches at least this good support a zigzag / one-way verdict (common practice, no
+// source: noise-free simulated ball floors match at 0.98-1.0, dished flat floors at 0.5-0.7).
+constexpr double kClearPassMatch = 0.8;
+// More marks per revolution than this is no runout signature but a long-lag fluctuation (end
+// mills for finishing have at most 8 flutes: common practice, no source).
+constexpr int kMaxMarksPerRevolution = 8;
 // A revolution repeat stands out when its peak beats the first (tooth) peak by this much.
 constexpr double kRevolutionMargin = 0.1;
 
@@ -42,15 +48,28 @@ FeedMarks feed_marks(const std::vector<ProfileTrace>& along, const SurfaceOption
   for (const ProfileTrace& t : along) longest = std::max(longest, t.z_um.size());
   if (longest < 16) return f;
   const double dx = along.front().spacing_mm;
-  const RepeatPeriod r =
-      repeat_period(mean_autocorrelation(along, static_cast<int>(longest / 2)), dx);
+  const std::vector<double> acf = mean_autocorrelation(along, static_cast<int>(longest / 2));
+  const RepeatPeriod r = repeat_period(acf, dx);
   if (!r.found) return f;
   f.found = true;
   f.period_mm = r.period_mm;
   f.period_sigma_mm = r.sigma_mm;
-  if (r.strongest_peak > r.first_peak + kRevolutionMargin && r.strongest_mm > 1.5 * r.period_mm) {
+  if (r.strongest_peak > r.first_peak + kRevolutionMargin && r.strongest_mm > 1.5 * r.period_mm &&
+      r.strongest_mm < (kMaxMarksPerRevolution + 0.5) * r.period_mm) {
     f.marks_per_revolution = static_cast<int>(std::lround(r.strongest_mm / r.period_mm));
     f.revolution_mm = f.marks_per_revolution * r.period_mm;
+  } else if (o.teeth && *o.teeth > 1) {
+    // Runout can leave the teeth's own marks below the repeat threshold: the first clear repeat
+    // is then the revolution, and a local maximum of the ACF at 1/teeth of it shows the teeth.
+    const double lag = r.period_mm / *o.teeth;
+    const int i = static_cast<int>(std::lround(lag / dx));
+    if (i >= 2 && i + 1 < static_cast<int>(acf.size()) && acf[i] > 0.0 &&
+        acf[i] >= acf[i - 1] && acf[i] >= acf[i + 1]) {
+      f.revolution_mm = r.period_mm;
+      f.marks_per_revolution = *o.teeth;
+      f.period_mm = lag;
+      f.period_sigma_mm = r.sigma_mm / *o.teeth;
+    }
   }
   f.feed_per_tooth_mm = f.period_mm;
   if (o.teeth && f.revolution_mm > 0.0) f.feed_per_tooth_mm = f.revolution_mm / *o.teeth;
@@ -109,7 +128,7 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
         " mm: traces across the lay are " + format_number(span_mm) + " mm, at least " +
         format_number(kMinPeriodsInField * e.stepover.period_mm) + " mm (4 periods) are needed");
   }
-  e.cusp = cusp_shape(across, e.stepover.period_mm);
+  e.cusp = cusp_shape(across, e.stepover.period_mm, false);
   e.valley_mm = e.cusp.valley_phase_mm;
   if (!e.cusp.curved) {
     e.notes.push_back("the cusp valley does not curve upwards: no effective radius");
@@ -133,12 +152,18 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
         "and heel recut undetermined");
     return e;
   }
-  e.direction =
-      e.passes.second_pass - e.passes.next_pass >= kAlternationMargin ? "zigzag" : "alike";
-  if (e.direction == "alike") {
+  // A verdict on the pass direction needs passes that match well (kClearPassMatch); between
+  // that and kMinPassCorrelation the marks are too blurred to say.
+  const double diff = e.passes.second_pass - e.passes.next_pass;
+  if (e.passes.second_pass >= kClearPassMatch && diff >= kAlternationMargin) {
+    e.direction = "zigzag";
+  } else if (e.passes.next_pass >= kClearPassMatch && std::abs(diff) < kAlternationMargin) {
+    e.direction = "alike";
     e.notes.push_back(
         "neighbouring passes look alike: one-way, or zigzag on a floor whose marks do not show "
         "the pass direction");
+  } else {
+    e.notes.push_back("passes match too loosely to tell zigzag from one-way");
   }
   if (e.passes.mirror >= kMirrorRecut * ref) {
     e.heel = "recuts";

@@ -32,7 +32,7 @@ TraceEstimates trace_estimates(const std::vector<ProfileTrace>& runs) {
                      format_number(kMinPeriodsInField * t.period.period_mm) +
                      " mm (4 periods) are needed");
   }
-  t.cusp = cusp_shape(runs, t.period.period_mm);
+  t.cusp = cusp_shape(runs, t.period.period_mm, true);
   return t;
 }
 

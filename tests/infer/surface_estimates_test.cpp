@@ -38,14 +38,16 @@ TEST_CASE("surface_estimates: ball floor, one-way and zigzag, noise, plane, miss
     REQUIRE(e.cusp.curved);
     REQUIRE_NEAR(e.cusp.radius_mm, 3.0, 0.15);
     // Machinery's Handbook cusp height h = R - sqrt(R^2 - (s/2)^2) = 3.75 um; the folded mean
-    // profile averages the feed marks over the valley (10 %).
-    REQUIRE_NEAR(e.cusp.cusp_um, 3.0 - std::sqrt(9.0 - 0.0225), 0.1 * 3.75);
+    // profile averages the feed marks over the valley and crest (15 %).
+    REQUIRE_NEAR(e.cusp.cusp_um, (3.0 - std::sqrt(9.0 - 0.0225)) * 1000.0, 0.15 * 3.75);
     // Along the lay the teeth repeat every fz = 0.08 mm (derived: feed / (teeth * rpm)).
     REQUIRE(e.feed.found);
     REQUIRE_NEAR(e.feed.period_mm, 0.08, 0.0016);
     // Setup plane: the added 2 um/mm and -1 um/mm (the floor itself is level).
     REQUIRE_NEAR(e.setup_plane.gx_um_per_mm, 2.0, 0.05);
     REQUIRE_NEAR(e.setup_plane.gy_um_per_mm, -1.0, 0.05);
+    // Zigzag passes alternate their tooth-mark pattern; one-way passes repeat it (derived).
+    CHECK(e.direction == (dir == RasterDirection::Zigzag ? "zigzag" : "alike"));
   }
 }
 

