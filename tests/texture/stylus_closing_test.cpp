@@ -78,7 +78,9 @@ TEST_CASE("stylus_closing: a sine whose valleys are wider than the tip passes", 
   const auto z =
       sample([&](double x) { return A * std::sin(2 * kPi * x / lambda); }, n, dx_um, 0.0);
   const std::vector<double> c = stylus_closing(z, dx_um * 1e-3, 10.0);
-  for (int i = 0; i < n; ++i) {  // within the sampling error of the tip positions (above)
+  // Away from the ends (one tip radius = 100 samples), where the element is one-sided; within
+  // the sampling error of the tip positions (above).
+  for (int i = 100; i < n - 100; ++i) {
     CAPTURE(i);
     REQUIRE_NEAR(c[i], z[i], 1e-3);
   }
