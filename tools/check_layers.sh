@@ -1,10 +1,10 @@
 #!/usr/bin/env bash
 # Layering check (DESIGN.md): a folder of src/ includes only itself and folders earlier in
-#   core <- tool <- cusp <- path <- sweep <- texture <- finish <- job <- io <- report <- cli
+#   core <- tool <- cusp <- path <- sweep <- texture <- finish <- job <- infer <- io <- report <- cli
 # Prints each offending include and exits 1; exits 0 when the layering holds.
 set -u
 src=${1:-$(dirname "$0")/../src}
-layers=(core tool cusp path sweep texture finish job io report cli)
+layers=(core tool cusp path sweep texture finish job infer io report cli)
 rank() { local k; for k in "${!layers[@]}"; do [ "${layers[$k]}" = "$1" ] && { echo "$k"; return; }; done; echo -1; }
 bad=0
 for dir in "${layers[@]}"; do

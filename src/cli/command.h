@@ -45,6 +45,7 @@ void setup_allowance(CLI::App& sub);
 void setup_plan(CLI::App& sub);
 void setup_demo(CLI::App& sub);
 void setup_calibrate(CLI::App& sub);
+void setup_diagnose(CLI::App& sub);
 
 /// One row of the command table: name, one-line help, and its setup function.
 struct CommandEntry {
@@ -62,6 +63,7 @@ inline constexpr CommandEntry kCommands[] = {
     {"allowance", "Sanding depth, programmed stock and grit sequence to erase the marks", setup_allowance},
     {"plan", "Cheapest stepover once machine and bench time are both counted", setup_plan},
     {"calibrate", "Fit a shop's measured Ra against the predictions of its past jobs", setup_calibrate},
+    {"diagnose", "Read a measured floor or trace back to stepover, cutter radius and feed marks", setup_diagnose},
     {"demo", "Run the built-in pump-cover scenario end to end", setup_demo},
 };
 

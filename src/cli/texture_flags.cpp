@@ -24,6 +24,23 @@ void add_texture_flags(CLI::App& sub, TextureFlags& flags) {
                  "Areal S-filter nesting index (Gaussian, ISO 16610-61); default none");
   sub.add_option("--l-filter", flags.l_filter,
                  "Areal L-filter nesting index (Gaussian); default none (plane removal only)");
+  // Reason for the flag: a stylus profilometer's tip bridges narrow valleys; predicted and
+  // measured profiles compare only through the same tip (ISO 3274, ISO 16610-41).
+  sub.add_option("--stylus-tip", flags.stylus_tip,
+                 "Stylus tip radius (ISO 3274 nominal 2, 5 or 10 um): profiles are closed by it "
+                 "before the filters; default none");
+}
+
+double parse_stylus_tip_um(const std::string& text, LengthUnit unit) {
+  // A bare "5" in mm would be a 5 mm tip: refuse radii no stylus has rather than guess.
+  constexpr double kLargestTipUm = 50.0;  // 5x ISO 3274's largest nominal 10 um (derived bound)
+  const double tip_um = parse_positive_length_mm(text, unit, "--stylus-tip") * kUmPerMm;
+  if (tip_um > kLargestTipUm) {
+    throw InputError("--stylus-tip " + text + ": " + format_number(tip_um) +
+                     " um is larger than any stylus tip; allowed up to 50 um, e.g. 5um (ISO "
+                     "3274 nominal 2, 5, 10 um)");
+  }
+  return tip_um;
 }
 
 TextureOptions texture_options(const TextureFlags& o, LengthUnit unit) {
@@ -51,6 +68,7 @@ TextureOptions texture_options(const TextureFlags& o, LengthUnit unit) {
   }
   if (!o.s_filter.empty()) t.s_filter_mm = parse_positive_length_mm(o.s_filter, unit, "--s-filter");
   if (!o.l_filter.empty()) t.l_filter_mm = parse_positive_length_mm(o.l_filter, unit, "--l-filter");
+  if (!o.stylus_tip.empty()) t.stylus_tip_um = parse_stylus_tip_um(o.stylus_tip, unit);
   return t;
 }
 

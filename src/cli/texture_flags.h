@@ -18,10 +18,15 @@ struct TextureFlags {
   std::string lay;                   ///< known lay direction, deg (else detected)
   std::string s_filter;              ///< areal S-filter nesting index (length)
   std::string l_filter;              ///< areal L-filter nesting index (length)
+  std::string stylus_tip;            ///< stylus tip radius (length); empty = no tip
 };
 
-/// Adds --cutoff, --lambda-s, --direction, --lay, --s-filter, --l-filter to a subcommand.
+/// Adds --cutoff, --lambda-s, --direction, --lay, --s-filter, --l-filter, --stylus-tip.
 void add_texture_flags(CLI::App& sub, TextureFlags& flags);
+
+/// Parses a --stylus-tip value to um (bare numbers in `unit`).
+/// @throws InputError naming the value when it is not a length in (0, 50] um
+double parse_stylus_tip_um(const std::string& text, LengthUnit unit);
 
 /// Parses the flags (lengths in `unit` when bare).
 /// @throws InputError naming the flag and value when one is malformed or out of range.

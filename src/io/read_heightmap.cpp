@@ -24,14 +24,6 @@ namespace {
 // --cell and a cell stated by the file agree when within 1e-6 of each other.
 constexpr double kSameCellRel = 1e-6;
 
-std::string read_all(const std::string& path) {
-  std::ifstream f(path, std::ios::binary);
-  if (!f) throw InputError(path + ": cannot open the file");
-  std::ostringstream ss;
-  ss << f.rdbuf();
-  return ss.str();
-}
-
 std::string lower_extension(const std::string& path) {
   std::string ext = std::filesystem::path(path).extension().string();
   std::transform(ext.begin(), ext.end(), ext.begin(),
@@ -74,6 +66,14 @@ std::optional<double> sidecar_cell(const std::string& path) {
 }
 
 }  // namespace
+
+std::string read_all(const std::string& path) {
+  std::ifstream f(path, std::ios::binary);
+  if (!f) throw InputError(path + ": cannot open the file");
+  std::ostringstream ss;
+  ss << f.rdbuf();
+  return ss.str();
+}
 
 double z_units_to_um(const std::string& units) {
   if (units == "um" || units == "µm") return 1.0;

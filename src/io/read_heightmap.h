@@ -40,6 +40,10 @@ HeightmapFile read_heightmap(const std::string& path, const HeightmapReadOptions
 /// @throws InputError naming the path when the extension is none of those
 std::string encode_heightmap(const Heightfield& hf, const std::string& path);
 
+/// The bytes of a file.
+/// @throws InputError "<path>: cannot open the file"
+std::string read_all(const std::string& path);
+
 /// Micrometres per unit of a --z-units value: um 1, nm 1e-3, mm 1e3, m 1e6.
 /// @throws InputError naming the value when it is none of those
 double z_units_to_um(const std::string& units);

@@ -54,6 +54,7 @@ nlohmann::json profile_json(const ProfileReport& p) {
   j["periodic"] = p.periodic;
   j["acf_peak"] = p.acf_peak;
   j["iso1302_grade"] = p.iso1302_grade;
+  j["stylus_tip_um"] = p.stylus_tip_um;
   j["primary"] = letter_json('P', p.primary);
   j["waviness"] = letter_json('W', p.waviness);
   return j;
@@ -87,6 +88,18 @@ nlohmann::json texture_report_json(const TextureReport& r) {
   j["size_mm"] = {r.size_x_mm, r.size_y_mm};
   j["cells"] = r.cells;
   j["reached_cells"] = r.reached_cells;
+  j["warnings"] = r.warnings;
+  return j;
+}
+
+nlohmann::json trace_report_json(const TraceReport& r, int points, int missing_points) {
+  nlohmann::json j;
+  j["kind"] = "trace";
+  j["profile"] = profile_json(r.profile);
+  j["spacing_mm"] = r.spacing_mm;
+  j["length_mm"] = r.length_mm;
+  j["points"] = points;
+  j["missing_points"] = missing_points;
   j["warnings"] = r.warnings;
   return j;
 }

@@ -7,6 +7,7 @@
 #include <nlohmann/json.hpp>
 
 #include "texture/texture_report.h"
+#include "texture/trace_report.h"
 
 namespace cuspmap {
 
@@ -22,5 +23,9 @@ nlohmann::json areal_json(const ArealReport& areal);
 /// The whole `texture --json` object: {profile, areal, cell_mm, size_mm: [x, y], cells,
 /// reached_cells, warnings: [...]}.
 nlohmann::json texture_report_json(const TextureReport& report);
+
+/// The `texture --json` object of a measured trace: {kind: "trace", profile, spacing_mm,
+/// length_mm, points, missing_points, warnings: [...]}.
+nlohmann::json trace_report_json(const TraceReport& report, int points, int missing_points);
 
 }  // namespace cuspmap

@@ -16,6 +16,7 @@
 #include "texture/iso1302_grade.h"
 #include "texture/iso4288_cutoff.h"
 #include "texture/select_cutoff.h"
+#include "texture/stylus_closing.h"
 
 namespace cuspmap {
 namespace {
@@ -101,7 +102,17 @@ void note_undefined(const char* name, const ProfileParameters& p, std::vector<st
 
 void fill_profile_report(const std::vector<ProfileTrace>& traces, const TextureOptions& options,
                          ProfileReport& p, std::vector<std::string>& warnings) {
-  const CutoffSelection sel = select_cutoff(traces, options.cutoff_mm, options.lambda_s_um);
+  // The instrument's view: the stylus tip closes each trace before any filter (ISO 3274).
+  std::vector<ProfileTrace> tipped;
+  if (options.stylus_tip_um > 0.0) {
+    tipped = traces;
+    for (ProfileTrace& t : tipped) {
+      t.z_um = stylus_closing(t.z_um, t.spacing_mm, options.stylus_tip_um);
+    }
+  }
+  const std::vector<ProfileTrace>& seen = options.stylus_tip_um > 0.0 ? tipped : traces;
+  p.stylus_tip_um = options.stylus_tip_um;
+  const CutoffSelection sel = select_cutoff(seen, options.cutoff_mm, options.lambda_s_um);
   const ProfileEvaluation& e = sel.evaluation;
   warnings.insert(warnings.end(), sel.warnings.begin(), sel.warnings.end());
   p.roughness = e.roughness;

@@ -46,6 +46,8 @@ struct TextureOptions {
   double s_filter_mm = 0.0;       ///< areal S-filter nesting index; 0 = none
   double l_filter_mm = 0.0;       ///< areal L-filter nesting index; 0 = none (plane removal only)
   int max_traces = kDefaultMaxTraces;  ///< parallel traces averaged
+  double stylus_tip_um = 0.0;     ///< stylus tip radius: traces are closed by this disk (ISO
+                                  ///< 16610-41) before the profile filters; 0 = the surface itself
 };
 
 /// Profile side of the report.
@@ -70,6 +72,7 @@ struct ProfileReport {
   bool periodic = false;       ///< the autocorrelation test's verdict
   double acf_peak = 0.0;       ///< its score (>= 0.5 periodic)
   std::string iso1302_grade;   ///< grade of Ra, e.g. "N7"
+  double stylus_tip_um = 0.0;  ///< tip radius the traces were closed with (0 = none)
 };
 
 /// Areal side of the report.

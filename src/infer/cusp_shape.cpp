@@ -1,0 +1,77 @@
+// Cusp shape by phase folding and a least-squares parabola about the valley.
+// Inputs: traces, period; output: CuspShape. Cost O(samples).
+// Method: see cusp_shape.h.
+#include "infer/cusp_shape.h"
+
+#include <Eigen/Dense>
+#include <algorithm>
+#include <cmath>
+
+#include "core/units.h"
+#include "texture/remove_least_squares_line.h"
+
+namespace cuspmap {
+
+CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, bool detrend) {
+  CuspShape c;
+  if (traces.empty()) return c;
+  const double dx = traces.front().spacing_mm;
+  const int bins = std::max(4, static_cast<int>(std::lround(period_mm / dx)));
+  c.bin_mm = period_mm / bins;
+  std::vector<double> sum(bins, 0.0), count(bins, 0.0);
+  std::vector<std::vector<double>> values(bins);
+  std::vector<double> z;
+  for (const ProfileTrace& t : traces) {
+    z = t.z_um;
+    if (z.size() < 3) continue;
+    if (detrend) remove_least_squares_line(z);
+    for (size_t i = 0; i < z.size(); ++i) {
+      const double x = t.start_mm + static_cast<double>(i) * t.spacing_mm;
+      double phase = std::fmod(x, period_mm);
+      if (phase < 0.0) phase += period_mm;
+      const int b = std::min(bins - 1, static_cast<int>(phase / c.bin_mm));
+      sum[b] += z[i];
+      count[b] += 1.0;
+      values[b].push_back(z[i]);
+    }
+  }
+  std::vector<double> mean(bins, 0.0);
+  for (int b = 0; b < bins; ++b) mean[b] = count[b] > 0.0 ? sum[b] / count[b] : 0.0;
+  const int low = static_cast<int>(std::min_element(mean.begin(), mean.end()) - mean.begin());
+  c.valley_phase_mm = (low + 0.5) * c.bin_mm;
+  c.mean_um.resize(bins);
+  for (int b = 0; b < bins; ++b) c.mean_um[b] = mean[(low + b) % bins];
+  c.cusp_um = *std::max_element(mean.begin(), mean.end()) - mean[low];
+  // The valley's shape is the cutter's where the marks along the lay are deepest: a low quantile
+  // per bin follows the tool's swept circle under the feed marks (their bottoms lie on it).
+  std::vector<double> low_q(bins, 0.0);
+  for (int b = 0; b < bins; ++b) {
+    std::vector<double>& v = values[(low + b) % bins];
+    if (v.empty()) continue;
+    const size_t k = static_cast<size_t>(kValleyQuantile * static_cast<double>(v.size() - 1));
+    std::nth_element(v.begin(), v.begin() + static_cast<std::ptrdiff_t>(k), v.end());
+    low_q[b] = v[k];
+  }
+  // Parabola over the valley window, positions u from the lowest bin (mm), heights in mm.
+  const int half = std::max(2, static_cast<int>(kValleyWindow * bins));
+  const int m = 2 * half + 1;
+  Eigen::MatrixXd a(m, 3);
+  Eigen::VectorXd h(m);
+  for (int k = -half; k <= half; ++k) {
+    const double u = k * c.bin_mm;
+    a.row(k + half) << 1.0, u, u * u;
+    h(k + half) = low_q[((k % bins) + bins) % bins] / kUmPerMm;
+  }
+  const Eigen::Vector3d coef = a.colPivHouseholderQr().solve(h);
+  if (coef(2) <= 0.0) return c;
+  c.curved = true;
+  c.radius_mm = 1.0 / (2.0 * coef(2));
+  const Eigen::VectorXd res = h - a * coef;
+  const double var = res.squaredNorm() / std::max(1, m - 3);
+  const Eigen::Matrix3d cov = var * (a.transpose() * a).inverse();
+  // dR/dc2 = -1 / (2 c2^2).
+  c.radius_sigma_mm = std::sqrt(std::max(0.0, cov(2, 2))) / (2.0 * coef(2) * coef(2));
+  return c;
+}
+
+}  // namespace cuspmap

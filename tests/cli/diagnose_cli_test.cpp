@@ -1,0 +1,72 @@
+// `cuspmap diagnose` through the real binary: a simulated floor written as .npy is read back
+// (JSON keys, stepover, diagnose.json under --out); a trace; refusals are one line, exit 2.
+#include <catch2/catch.hpp>
+#include <cmath>
+#include <nlohmann/json.hpp>
+#include <string>
+
+#include "infer/diagnose_floors.h"
+#include "io/npy.h"
+#include "test_support.h"
+
+namespace cuspmap {
+
+TEST_CASE("diagnose: a simulated ball floor read back from .npy", "[cli]") {
+  test::TempDir dir;
+  const Job job = test::raster_job(CutterShape::Ball, 6.0, 0.25, 2.5, 0.01, 0.06, 2);
+  Heightfield hf = test::simulate(job);
+  test::damage(hf, 0.02, 0.5, 0.0, 0.005, 99u);
+  test::write_text(dir.file("floor.npy"), encode_npy(hf));
+  const test::RunResult r = test::run_cuspmap({"diagnose", dir.file("floor.npy"), "--cell", "0.01",
+                                               "--json", "--out", dir.file("out")});
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json j = nlohmann::json::parse(r.out);
+  for (const char* key : {"kind", "lay_deg", "stepover_mm", "stepover_sigma_mm", "cusp", "feed",
+                          "passes", "direction", "heel", "setup_plane", "notes", "cautions",
+                          "cell_mm", "size_mm", "stylus_tip_um"}) {
+    CAPTURE(key);
+    CHECK(j.contains(key));
+  }
+  // Issue 17 tolerance: stepover within 1 % of the programmed 0.25 mm.
+  REQUIRE_NEAR(j["stepover_mm"].get<double>(), 0.25, 0.0025);
+  // Derived: feed 0.06 mm per tooth (feed / (teeth rpm)).
+  REQUIRE_NEAR(j["feed"]["period_mm"].get<double>(), 0.06, 0.0012);
+  const nlohmann::json saved = nlohmann::json::parse(test::read_text(dir.file("out/diagnose.json")));
+  CHECK(saved["stepover_mm"] == j["stepover_mm"]);
+}
+
+TEST_CASE("diagnose: a measured trace across the lay gives the stepover and the radius", "[cli]") {
+  // Ball cusp circles of R = 2 mm every 0.2 mm (machining handbook geometry), 0.5 um steps.
+  test::TempDir dir;
+  const double R = 2.0, s = 0.2, dx = 0.0005;
+  std::string text;
+  for (int i = 0; i < 6000; ++i) {  // 3 mm, 15 passes
+    const double x = i * dx, d = x - s * std::round(x / s);
+    text += std::to_string(x) + " " + std::to_string((R - std::sqrt(R * R - d * d)) * 1000.0) + "\n";
+  }
+  test::write_text(dir.file("trace.txt"), text);
+  const test::RunResult r = test::run_cuspmap({"diagnose", dir.file("trace.txt"), "--json"});
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json j = nlohmann::json::parse(r.out);
+  CHECK(j["kind"] == "trace");
+  REQUIRE_NEAR(j["period_mm"].get<double>(), s, 0.01 * s);
+  // Derived: the valley is the ball's circle (3 %: the parabola against the circle).
+  REQUIRE_NEAR(j["cusp"]["effective_radius_mm"].get<double>(), R, 0.03 * R);
+  // Machining handbook: h = R - sqrt(R^2 - (s/2)^2) = 2.5016 um.
+  REQUIRE_NEAR(j["cusp"]["cusp_um"].get<double>(), (R - std::sqrt(R * R - s * s / 4)) * 1000.0,
+               0.05);
+}
+
+TEST_CASE("diagnose: too few cells is refused in one line", "[cli]") {
+  test::TempDir dir;
+  Heightfield hf;
+  hf.nx = hf.ny = 20;
+  hf.cell_mm = 0.01;
+  hf.z_um = HeightGrid::Zero(20, 20);
+  test::write_text(dir.file("tiny.npy"), encode_npy(hf));
+  test::require_input_error({"diagnose", dir.file("tiny.npy"), "--cell", "0.01"},
+                            "too few cells to diagnose: 400 with a height, at least 4096 (64 x "
+                            "64) are needed");
+}
+
+}  // namespace cuspmap
