@@ -142,7 +142,11 @@ JobRun run_job(const Job& job, const RunOptions& options) {
     run_streamed(job, cut, sim, options, run, timer);
     return run;
   }
-  if (options.before_sweep) {
+  // The forecast only for a grid that will be made: one over the limit is refused first, in one
+  // line (make_heightfield), with nothing printed before it.
+  const std::int64_t limit =
+      options.max_memory_bytes > 0 ? options.max_memory_bytes : physical_memory_bytes() / 2;
+  if (options.before_sweep && heightfield_bytes(run.patch) <= limit) {
     std::int64_t nx = 0, ny = 0;
     grid_dimensions(run.patch, nx, ny);
     options.before_sweep(estimate_run(nx, ny, sim.tooth_marks, false, 0, tooth_work(job, run)));

@@ -203,7 +203,7 @@ TEST_CASE("allowance: issue_13: marks finer than the last grade leaves get no sa
   REQUIRE(doc["stock_valleys_nominal_um"] == 0.0);
   REQUIRE(doc["stock_mean_nominal_um"] == 0.0);
   REQUIRE(doc["sanding_time_s"] == 0.0);
-  REQUIRE(doc["final_ra_um"].get<double>() <= doc["marks"]["ra_um"].get<double>());
+  REQUIRE(doc["final_Ra_um"].get<double>() <= doc["marks"]["Ra_um"].get<double>());
   REQUIRE(doc["model"].get<std::string>().find("kinematic best case") != std::string::npos);
   const auto human = run_cuspmap(
       {"allowance", "--tool", "flat", "--diameter", "0.5", "--stepover", "0.020", "--units", "in"});
@@ -221,7 +221,7 @@ TEST_CASE("allowance: issue_13: each grade's predicted Ra is shown", "[cli]") {
   const auto doc = nlohmann::json::parse(r.out);
   REQUIRE(doc["sanding_needed"] == true);
   for (const auto& g : doc["grits"]) REQUIRE(g.contains("Ra_after_um"));
-  REQUIRE(doc["grits"].back()["Ra_after_um"] == doc["final_ra_um"]);
+  REQUIRE(doc["grits"].back()["Ra_after_um"] == doc["final_Ra_um"]);
   const auto meets = run_cuspmap({"allowance", "--tool", "ball", "--diameter", "6", "--stepover",
                                   "0.5", "--target-ra", "3.2um", "--json"});
   REQUIRE(meets.exit_code == 0);

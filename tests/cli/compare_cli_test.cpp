@@ -73,7 +73,7 @@ TEST_CASE("compare: issue_13: every row's profile on one cut-off, shown per row"
     REQUIRE(row["direction"] == "across");
     REQUIRE(row.contains("direction_deg"));
   }
-  REQUIRE(doc["best"]["Ra_um"] == 0);
+  REQUIRE(doc["best_index"]["Ra_um"] == 0);
   const std::string csv = read_text(dir.file("out/compare.csv"));
   REQUIRE(csv.find(",cutoff_mm,direction,direction_deg\n") != std::string::npos);
   const RunResult table = run_cuspmap(

@@ -37,14 +37,14 @@ TEST_CASE("stepover: issue_13 a tilted bull-nose leaves its flat rim's ellipse, 
   const nlohmann::json j = run_json({"stepover", "--tool", "bullnose", "--diameter", "10",
                                      "--corner-radius", "1", "--tilt", "0.02", "--stepover", "6"});
   const double h_um = tan_deg(0.02) * (4.0 - std::sqrt(7.0)) * 1000.0;
-  REQUIRE_NEAR(j["scallop_height_um"].get<double>(), h_um, 1e-3 * h_um);
+  REQUIRE_NEAR(j["cusp_um"].get<double>(), h_um, 1e-3 * h_um);
   REQUIRE(j["tool"]["tilt_deg"] == 0.02);
   REQUIRE(any_contains(j["notes"], "ellipses"));
   // Inverse, flat end tilted across the feed: a saw-tooth h = s tan(tau) (derived), so a bare
   // 0.3 (um) gives s = 0.3 um / tan(0.02 deg).
   const nlohmann::json inv = run_json({"stepover", "--tool", "flat", "--diameter", "10", "--tilt",
                                        "0.02", "--tilt-toward", "90", "--target-scallop", "0.3"});
-  REQUIRE_NEAR(inv["scallop_height_um"].get<double>(), 0.3, 1e-6);
+  REQUIRE_NEAR(inv["cusp_um"].get<double>(), 0.3, 1e-6);
   REQUIRE_NEAR(inv["stepover_mm"].get<double>(), 0.3e-3 / tan_deg(0.02), 1e-6);
   cuspmap::test::require_input_error(
       {"stepover", "--tool", "flat", "--diameter", "10", "--tilt", "0.1", "--slope", "5",
@@ -59,7 +59,7 @@ TEST_CASE("stepover: issue_13 a feed mark larger than the designed cusp is said"
   const Args base = {"stepover", "--diameter", "10", "--target-ra", "0.1um", "--feed-per-tooth",
                      "0.08",     "--teeth",    "2"};
   const nlohmann::json j = run_json(base);
-  REQUIRE(j["scallop_height_um"].get<double>() < 0.4);
+  REQUIRE(j["cusp_um"].get<double>() < 0.4);
   REQUIRE(j["feed_mark_per_rev_um"].get<double>() > 0.6);
   REQUIRE(any_contains(j["warnings"], "is larger than the cross-feed cusp"));
   REQUIRE(any_contains(j["warnings"], "add --both-directions"));
@@ -82,7 +82,7 @@ TEST_CASE("stepover: issue_13 Ra that hides wide bull-nose ridges gets a caution
   const nlohmann::json j = run_json({"stepover", "--tool", "bullnose", "--diameter", "10",
                                      "--corner-radius", "1", "--target-ra", "0.8um"});
   REQUIRE(j["stepover_mm"].get<double>() > 4.0);
-  REQUIRE(j["scallop_height_um"].get<double>() > 10.0);
+  REQUIRE(j["cusp_um"].get<double>() > 10.0);
   REQUIRE(any_contains(j["cautions"], "Ra hides these ridges"));
   const nlohmann::json ball = run_json({"stepover", "--diameter", "6", "--target-ra", "0.8um"});
   REQUIRE_FALSE(any_contains(ball["cautions"], "Ra hides"));
@@ -110,7 +110,7 @@ TEST_CASE("stepover: issue_13 inch prints: bare uin targets, N-grades, fractions
       run_json({"plan", "--units", "in", "--tool", "ball", "--diameter", "1/4", "--size", "3x2",
                 "--feed", "60", "--machine-rate", "90", "--bench-rate", "45", "--stepovers",
                 "0.005,0.01", "--target-ra", "63"});
-  REQUIRE_NEAR(plan["spec"]["target_ra_um"].get<double>(), 63.0 * 0.0254, 1e-12);
+  REQUIRE_NEAR(plan["spec"]["target_Ra_um"].get<double>(), 63.0 * 0.0254, 1e-12);
 }
 
 TEST_CASE("plan: issue_13 a best option at an end of the range says so", "[cli]") {
@@ -119,7 +119,7 @@ TEST_CASE("plan: issue_13 a best option at an end of the range says so", "[cli]"
   const nlohmann::json j = run_json({"plan", "--tool", "ball", "--diameter", "6", "--size", "80x50",
                                      "--feed", "1500", "--machine-rate", "90", "--bench-rate", "45",
                                      "--stepovers", "0.05,0.1,0.2", "--target-ra", "5um"});
-  REQUIRE(j["best"] == 2);
+  REQUIRE(j["best_index"] == 2);
   REQUIRE(j["range_edge"]["at"] == "largest");
   REQUIRE_NEAR(j["range_edge"]["next_stepovers_mm"][0].get<double>(), 0.4, 1e-9);
   REQUIRE(any_contains(j["notes"], "the optimum may lie outside the range"));
@@ -129,7 +129,7 @@ TEST_CASE("plan: issue_13 a best option at an end of the range says so", "[cli]"
       run_json({"plan", "--tool", "ball", "--diameter", "6", "--size", "80x50", "--feed", "1500",
                 "--machine-rate", "90", "--bench-rate", "45", "--stepovers", "0.05,0.3,3",
                 "--target-ra", "0.5um"});
-  REQUIRE(inside["best"] == 1);
+  REQUIRE(inside["best_index"] == 1);
   REQUIRE(inside["range_edge"].is_null());
 }
 
@@ -138,7 +138,7 @@ TEST_CASE("plan: issue_13 a bull-nose meeting Ra with wide ridges is cautioned",
       run_json({"plan", "--tool", "bullnose", "--diameter", "10", "--corner-radius", "1", "--size",
                 "80x50", "--feed", "1500", "--machine-rate", "90", "--bench-rate", "45",
                 "--stepovers", "2,5,8.4", "--target-ra", "0.8um"});
-  REQUIRE(j["best"] == 2);
+  REQUIRE(j["best_index"] == 2);
   REQUIRE(any_contains(j["cautions"], "Ra hides these ridges"));
 }
 
@@ -150,8 +150,8 @@ TEST_CASE("plan: issue_13 --job prices the surface simulate sweeps for that job"
   const nlohmann::json plan =
       run_json({"plan", "--job", job, "--stepovers", "0.5", "--machine-rate", "90", "--bench-rate",
                 "45", "--target-ra", "0.1um"});
-  const double plan_sa = plan["options"][0]["ra_um"].get<double>();
-  const double plan_sz = plan["options"][0]["scallop_um"].get<double>();
+  const double plan_sa = plan["options"][0]["Ra_um"].get<double>();
+  const double plan_sz = plan["options"][0]["cusp_um"].get<double>();
   REQUIRE(plan_sa > 0.01);
   REQUIRE(plan["basis"]["surface"].get<std::string>().find("tooth by tooth") != std::string::npos);
   cuspmap::test::TempDir dir;

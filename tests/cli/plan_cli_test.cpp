@@ -143,7 +143,7 @@ TEST_CASE("cuspmap plan: issue_13: --sand always never ends rougher than machine
   int unsanded = 0;
   for (const auto& o : doc["options"]) {
     CAPTURE(o["tool"], o["stepover_mm"]);
-    REQUIRE(o["final_ra_um"].get<double>() <= o["ra_um"].get<double>() + 1e-12);
+    REQUIRE(o["final_Ra_um"].get<double>() <= o["Ra_um"].get<double>() + 1e-12);
     if (!o["sanded"].get<bool>()) {
       ++unsanded;
       REQUIRE(o["bench_time_s"] == 0.0);

@@ -64,7 +64,7 @@ TEST_CASE("texture: a two-column file is a trace, evaluated like the same profil
   // The table names the trace.
   const test::RunResult table = test::run_cuspmap({"texture", dir.file("trace.csv")});
   REQUIRE(table.exit_code == 0);
-  CHECK(table.out.find("x, z trace, 3000 points every 0.002 mm over 5.998 mm") !=
+  CHECK(table.out.find("x, z trace, 3000 points every 0.002 mm over 6 mm") !=
         std::string::npos);
 }
 
