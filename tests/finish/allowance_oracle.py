@@ -112,7 +112,7 @@ def main():
         if not used:
             close("stock_valleys_nominal_um", doc["stock_valleys_nominal_um"], 0.0, failures, 0.0)
             close("stock_mean_nominal_um", doc["stock_mean_nominal_um"], 0.0, failures, 0.0)
-            close("final_ra_um", doc["final_ra_um"], doc["marks"]["ra_um"], failures, 0.0)
+            close("final_Ra_um", doc["final_Ra_um"], doc["marks"]["Ra_um"], failures, 0.0)
             continue
         prev = None
         for g, step_doc in zip(used, doc["grits"]):
