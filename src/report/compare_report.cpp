@@ -15,8 +15,6 @@
 namespace cuspmap {
 namespace {
 
-std::string length_text(double mm, LengthUnit units) { return display_length(mm, units); }
-
 // Full precision for CSV: the shortest text that reads back to the same double.
 std::string full_precision(double v) {
   char buf[64];
@@ -206,7 +204,7 @@ std::string compare_table_text(const std::vector<CompareRow>& rows, const Profil
   }
   out += std::string(kKinematicBestCase) + "\n";
   if (basis.rankable()) {
-    out += "Ra and Rz of every row: cut-off " + length_text(basis.cutoff_mm, units) + " (" +
+    out += "Ra and Rz of every row: cut-off " + display_length(basis.cutoff_mm, units) + " (" +
            basis.cutoff_rule + "), traced " + rows.front().run.texture.profile.direction +
            " each row's lay\n";
   } else {
@@ -226,7 +224,7 @@ Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units) {
     t.mm_per_px = row.pictures.shaded.mm_per_px;
     t.label_lines = {std::to_string(r + 1) + ". " + describe_path(row.job.path, units),
                      describe_tool(row.job.cutter, units),
-                     "feed " + length_text(row.job.cut.feed_mm_per_min, units) + "/min, " +
+                     "feed " + display_length(row.job.cut.feed_mm_per_min, units) + "/min, " +
                          format_number(row.job.cut.rpm) + " rpm"};
     tiles.push_back(std::move(t));
     if (!row.pictures.has_detail) continue;
@@ -234,10 +232,10 @@ Image compare_montage(const std::vector<CompareRow>& rows, LengthUnit units) {
     MontageTile d;
     d.image = row.pictures.detail_shaded.image;
     d.mm_per_px = row.pictures.detail_shaded.mm_per_px;
-    d.label_lines = {std::to_string(r + 1) + ". detail, x " + length_text(w.x0_mm, units) + " to " +
-                         length_text(w.x0_mm + w.size_x_mm, units),
-                     "y " + length_text(w.y0_mm, units) + " to " +
-                         length_text(w.y0_mm + w.size_y_mm, units),
+    d.label_lines = {std::to_string(r + 1) + ". detail, x " + display_length(w.x0_mm, units) + " to " +
+                         display_length(w.x0_mm + w.size_x_mm, units),
+                     "y " + display_length(w.y0_mm, units) + " to " +
+                         display_length(w.y0_mm + w.size_y_mm, units),
                      "exaggerated x " + format_significant(row.pictures.detail_shaded.exaggeration, 3)};
     details.push_back(std::move(d));
   }

@@ -5,29 +5,18 @@
 
 #include <algorithm>
 
+#include "core/display_quantity.h"
+
 namespace cuspmap {
-namespace {
-
-std::string length_text(double mm, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(mm / kMmPerInch) + " in";
-  return format_number(mm) + " mm";
-}
-
-std::string height_text(double um, LengthUnit units) {
-  if (units == LengthUnit::Inch) return format_number(um * kUinPerUm) + " uin";
-  return format_number(um) + " um";
-}
-
-}  // namespace
 
 DetailView render_detail_view(const Heightfield& floor, const DetailWindow& w, LengthUnit units) {
   const Heightfield cells = crop_heightfield(floor, w);
   const int longest = std::max(w.nx, w.ny);
   const int zoom = std::max(1, kDetailTargetPx / longest);
-  const std::string where = "x " + length_text(w.x0_mm, units) + " to " +
-                            length_text(w.x0_mm + w.size_x_mm, units) + ", y " +
-                            length_text(w.y0_mm, units) + " to " +
-                            length_text(w.y0_mm + w.size_y_mm, units);
+  const std::string where = "x " + display_length(w.x0_mm, units) + " to " +
+                            display_length(w.x0_mm + w.size_x_mm, units) + ", y " +
+                            display_length(w.y0_mm, units) + " to " +
+                            display_length(w.y0_mm + w.size_y_mm, units);
   DetailView view;
   HeightImageOptions hopt;
   hopt.units = units;
@@ -41,7 +30,7 @@ DetailView render_detail_view(const Heightfield& floor, const DetailWindow& w, L
   view.shaded = render_shaded_image(cells, sopt);
   view.caption = "Detail at native resolution (outlined in orange on the whole-floor pictures): " +
                  where + " from the patch origin, placed where the marks are deepest (Sq about " +
-                 "the window's own plane " + height_text(w.sq_um, units) +
+                 "the window's own plane " + display_roughness(w.sq_um, units) +
                  "). Heights on the window's own range. " +
                  height_image_caption(view.height, units) + " Relief: " +
                  shaded_image_caption(view.shaded);

@@ -12,6 +12,7 @@
 #include <string_view>
 #include <vector>
 
+#include "core/display_quantity.h"
 #include "core/units.h"
 #include "report/html_report.h"
 
@@ -254,7 +255,7 @@ std::string encode_plan_svg(const PlanResult& plan, const PlanSvgOptions& o) {
   if (plan.best) {
     const PlanOption& b = plan.options[*plan.best];
     text_lines("ringed: best", lx, " font-weight=\"bold\"");
-    text_lines(b.tool + " at " + format_number(b.stepover_mm / unit) + (o.inch ? " in" : " mm"), lx,
+    text_lines(b.tool + " at " + display_length(b.stepover_mm, o.inch ? LengthUnit::Inch : LengthUnit::Millimetre), lx,
                "");
     text_lines("cost " + num(b.cost, 2), lx, "");
   } else {

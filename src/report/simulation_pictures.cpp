@@ -18,10 +18,6 @@
 namespace cuspmap {
 namespace {
 
-std::string height_text(double um, LengthUnit units) { return display_roughness(um, units); }
-
-std::string length_text(double mm, LengthUnit units) { return display_length(mm, units); }
-
 // The longest finite run of the centre trace, with its mean line.
 std::optional<ProfilePlotData> centre_profile(const std::vector<ProfileTrace>& traces,
                                               double cutoff_mm, double lambda_s_um,
@@ -161,11 +157,11 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   r.inputs = {{"tool", describe_tool(job.cutter, units) + ", " + std::to_string(job.cutter.teeth) +
                            " teeth"},
               {"path", describe_path(job.path, units)},
-              {"patch", length_text(run.patch.size_x_mm, units) + " x " +
-                            length_text(run.patch.size_y_mm, units) + ", cell " +
-                            length_text(run.floor.cell_mm, units)},
+              {"patch", display_length(run.patch.size_x_mm, units) + " x " +
+                            display_length(run.patch.size_y_mm, units) + ", cell " +
+                            display_length(run.floor.cell_mm, units)},
               {"cut", format_number(job.cut.rpm) + " rpm, feed " +
-                          length_text(job.cut.feed_mm_per_min, units) + "/min"},
+                          display_length(job.cut.feed_mm_per_min, units) + "/min"},
               {"sweep", job.sim.tooth_marks ? "tooth by tooth" : "envelope of the revolving tool"}};
   const ProfileParameters& rough = run.texture.profile.roughness;
   const ArealParameters& areal = run.texture.areal.parameters;
@@ -175,15 +171,15 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   const auto row = [&](const std::string& name, const std::string& value) {
     t.rows.push_back({{name}, {value}});
   };
-  row("Ra (across the lay)", height_text(rough.a_um, units) + " (" +
+  row("Ra (across the lay)", display_roughness(rough.a_um, units) + " (" +
                                  run.texture.profile.iso1302_grade + ")");
-  row("Rz", height_text(rough.z_um, units));
-  row("Sa", height_text(areal.sa_um, units));
-  row("Sz", height_text(areal.sz_um, units));
-  row("cusp (peak to valley across the lay)", height_text(run.cusp_um, units));
-  row("highest point, relative to nominal", height_text(run.highest_point_um, units));
-  row("lowest point, relative to nominal", height_text(run.lowest_point_um, units));
-  row("path length", length_text(run.path_length_mm, units));
+  row("Rz", display_roughness(rough.z_um, units));
+  row("Sa", display_roughness(areal.sa_um, units));
+  row("Sz", display_roughness(areal.sz_um, units));
+  row("cusp (peak to valley across the lay)", display_roughness(run.cusp_um, units));
+  row("highest point, relative to nominal", display_roughness(run.highest_point_um, units));
+  row("lowest point, relative to nominal", display_roughness(run.lowest_point_um, units));
+  row("path length", display_length(run.path_length_mm, units));
   row("cycle time", display_time(run.cycle_time_s));
   r.tables.push_back(t);
   r.images.push_back({pictures.height_png, "height map", pictures.height_caption});
@@ -198,8 +194,8 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
   }
   const ProfileReport& p = run.texture.profile;
   r.filters = {"Profile: ISO 16610-21 Gaussian, lambda-c " + display_cutoff(p.cutoff_mm, units) +
-                   " (" + p.cutoff_rule + "), lambda-s " + height_text(p.lambda_s_um, units) +
-                   ", evaluation length " + length_text(p.evaluation_length_mm, units) + " (" +
+                   " (" + p.cutoff_rule + "), lambda-s " + display_roughness(p.lambda_s_um, units) +
+                   ", evaluation length " + display_length(p.evaluation_length_mm, units) + " (" +
                    std::to_string(p.sampling_lengths) + " sampling lengths, " +
                    std::to_string(p.traces) + " traces)",
                "Areal: least-squares plane removed (F-operator)"};
