@@ -4,6 +4,7 @@
 
 #include <cassert>
 
+#include "core/display_quantity.h"
 #include "core/units.h"
 
 namespace cuspmap {
@@ -28,21 +29,21 @@ StrategyChoice choose_strategy(const std::vector<StrategyScore>& options, double
     }
   }
   c.closest = closest;
-  const std::string target = "Ra " + format_number(target_ra_um) + " um";
+  const std::string target = "Ra " + display_number(target_ra_um, 1e-6) + " um";
   if (c.best) {
     const StrategyScore& b = options[*c.best];
     size_t meeting = 0;
     for (bool m : c.meets) meeting += m ? 1 : 0;
-    c.reason = b.name + ": meets " + target + " (predicted Ra " + format_number(b.ra_um) +
+    c.reason = b.name + ": meets " + target + " (predicted Ra " + display_number(b.ra_um, 1e-6) +
                " um) with the shortest machine time of the " + std::to_string(meeting) +
-               " options that meet it (" + format_number(b.cycle_time_s) +
-               " s); its marks are " + format_number(b.sz_um) +
+               " options that meet it (" + display_number(b.cycle_time_s, 1e-6) +
+               " s); its marks are " + display_number(b.sz_um, 1e-6) +
                " um deep (Sz) if they must be sanded out.";
   } else {
     const StrategyScore& n = options[closest];
     c.reason = "No option meets " + target + "; the closest is " + n.name + " (Ra " +
-               format_number(n.ra_um) + " um): use a finer stepover or plan to sand " +
-               format_number(n.sz_um) + " um (Sz).";
+               display_number(n.ra_um, 1e-6) + " um): use a finer stepover or plan to sand " +
+               display_number(n.sz_um, 1e-6) + " um (Sz).";
   }
   return c;
 }
