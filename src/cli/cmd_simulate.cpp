@@ -112,6 +112,9 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
               display_roughness(run.lowest_point_um, units).c_str());
   std::printf("  path %s, cycle %s\n", display_length(run.path_length_mm, units).c_str(),
               display_time(run.cycle_time_s).c_str());
+  if (const std::string margin = margin_passes_note(run.built); !margin.empty()) {
+    std::printf("  note: %s\n", margin.c_str());
+  }
   for (const PathWarning& w : run.built.warnings) {
     std::printf("  warning: %s%s\n", w.line > 0 ? ("line " + std::to_string(w.line) + ": ").c_str() : "",
                 w.message.c_str());

@@ -31,7 +31,8 @@ struct StepoverOptions {
   std::string tool = "ball";
   std::string diameter, corner_radius, dish, tilt, tilt_toward;
   std::string surface = "flat", surface_radius, slope;
-  std::string feed_per_tooth, teeth, stepover, target_scallop, target_ra, target_rz;
+  std::string feed_per_tooth, teeth, stepover, target_scallop, target_ra, target_rz, target_sa;
+  std::string pass_direction = "one-way";
   std::string nose_radius, feed_per_rev;
   bool both_directions = false;
   CommonOptions common;
@@ -80,7 +81,7 @@ std::string single_mode(const Given& given, const std::vector<const char*>& flag
 }
 
 FinishTarget target_kind(const std::string& flag) {
-  if (flag == "--target-ra") return FinishTarget::Ra;
+  if (flag == "--target-ra" || flag == "--target-sa") return FinishTarget::Ra;
   if (flag == "--target-rz") return FinishTarget::Rz;
   return FinishTarget::Scallop;
 }
@@ -92,7 +93,8 @@ std::string target_word(FinishTarget t) {
 // The parsed value of the --target-* flag `mode`, in um.
 double target_value_um(const StepoverOptions& o, const std::string& mode, LengthUnit unit) {
   const FinishTarget t = target_kind(mode);
-  const std::string& text = t == FinishTarget::Ra   ? o.target_ra
+  const std::string& text = mode == "--target-sa"    ? o.target_sa
+                            : t == FinishTarget::Ra   ? o.target_ra
                             : t == FinishTarget::Rz ? o.target_rz
                                                     : o.target_scallop;
   return positive_height_um(text, unit, mode.c_str());
@@ -131,7 +133,7 @@ void run_turning(const StepoverOptions& o, const Given& given, LengthUnit unit,
   const double r = positive_length_mm(o.nose_radius, unit, "--nose-radius");
   note_ignored(given,
                {"--diameter", "--corner-radius", "--dish", "--surface", "--surface-radius",
-                "--slope", "--feed-per-tooth", "--teeth"},
+                "--slope", "--feed-per-tooth", "--teeth", "--target-sa", "--pass-direction"},
                "turning uses --nose-radius and --feed-per-rev", rep);
   rep.turning = true;
   rep.nose_radius_mm = r;
@@ -243,13 +245,64 @@ CuspSetup read_setup(const StepoverOptions& o, const Given& given, LengthUnit un
   return setup;
 }
 
+// --target-sa: with --feed-per-tooth the stepover is designed on simulated windows (the marks
+// along the feed count); without it the floor is the cross-feed profile extruded, Sa = Ra.
+void run_areal_target(const StepoverOptions& o, const Given& given, LengthUnit unit,
+                      const CuspSetup& setup, StepoverReport& rep) {
+  if (setup.surface != SurfaceKind::Plane || setup.slope_deg != 0.0) {
+    throw InputError("--target-sa: the areal design simulates a level floor; use --surface flat "
+                     "without --slope, or --target-ra for cylinders and slopes");
+  }
+  if (o.pass_direction != "one-way" && o.pass_direction != "zigzag") {
+    throw InputError("--pass-direction '" + o.pass_direction + "': allowed are one-way, zigzag");
+  }
+  rep.areal_target = true;
+  rep.pass_direction =
+      o.pass_direction == "zigzag" ? RasterDirection::Zigzag : RasterDirection::OneWay;
+  const double target_um = target_value_um(o, "--target-sa", unit);
+  if (!given("--feed-per-tooth")) {
+    const StepoverSolution sol = inverse_stepover(setup, FinishTarget::Ra, target_um);
+    if (!sol.reachable) {
+      throw InputError(unreachable_message(setup, "--target-sa", FinishTarget::Ra, target_um, sol));
+    }
+    record_inverse(FinishTarget::Ra, target_um, sol, rep);
+    return;
+  }
+  const double fz = positive_length_mm(o.feed_per_tooth, unit, "--feed-per-tooth");
+  if (fz * setup.cutter.teeth >= setup.cutter.diameter_mm) {
+    throw InputError("--feed-per-tooth " + format_number(fz) + " mm: the feed per revolution (x" +
+                     std::to_string(setup.cutter.teeth) + " teeth) must stay below the diameter " +
+                     format_number(setup.cutter.diameter_mm) + " mm");
+  }
+  const ArealStepover a = stepover_for_sa(setup.cutter, fz, rep.pass_direction, target_um);
+  if (!a.reachable) {
+    throw InputError("--target-sa " + format_number(target_um) +
+                     " um: unreachable at --feed-per-tooth " + format_number(fz) +
+                     " mm: the marks along the feed leave Sa " + format_number(a.sa_um) +
+                     " um even at stepover " + format_number(a.smallest_tried_mm) +
+                     " mm; reduce the feed per tooth (--both-directions --target-ra gives the "
+                     "largest for a profile target)");
+  }
+  StepoverSolution sol;
+  sol.reachable = true;
+  sol.stepover_mm = a.stepover_mm;
+  sol.cusp = cross_feed_cusp(setup, a.stepover_mm);
+  record_inverse(FinishTarget::Ra, target_um, sol, rep);
+  rep.areal = a;
+}
+
 void run_milling(const StepoverOptions& o, const Given& given, LengthUnit unit,
                  StepoverReport& rep) {
   const CuspSetup setup = read_setup(o, given, unit, rep);
   rep.setup = setup;
-  const std::string mode =
-      single_mode(given, {"--stepover", "--target-scallop", "--target-ra", "--target-rz"});
-  if (mode == "--stepover") {
+  const std::string mode = single_mode(
+      given, {"--stepover", "--target-scallop", "--target-ra", "--target-rz", "--target-sa"});
+  if (mode != "--target-sa") {
+    note_ignored(given, {"--pass-direction"}, "it shapes the --target-sa design only", rep);
+  }
+  if (mode == "--target-sa") {
+    run_areal_target(o, given, unit, setup, rep);
+  } else if (mode == "--stepover") {
     rep.cusp = cross_feed_cusp(setup, positive_length_mm(o.stepover, unit, "--stepover"));
     if (rep.cusp.limit == CuspLimit::PassesDoNotOverlap) {
       throw InputError(no_overlap_message(setup, rep.cusp.stepover_mm));
@@ -318,7 +371,7 @@ void setup_stepover(CLI::App& sub) {
   sub.description(
       "Closed-form cusp height, Ra/Rq/Rz and feed marks of a finishing pass for a given stepover\n"
       "(--stepover), or the stepover that meets a target (--target-scallop | --target-ra |\n"
-      "--target-rz). Exact geometry first, the small-stepover approximation beside it.");
+      "--target-rz | --target-sa). Exact geometry first, the small-stepover approximation beside it.");
   sub.add_option("--tool", opts->tool, "ball | bullnose | flat (end mills) | insert (turning)")
       ->type_name("KIND")
       ->capture_default_str();
@@ -350,6 +403,15 @@ void setup_stepover(CLI::App& sub) {
       ->type_name("HEIGHT");
   sub.add_option("--target-rz", opts->target_rz, "Target Rz of the ideal profile, e.g. 4um")
       ->type_name("HEIGHT");
+  // Reason: an areal Sa sees the marks along the feed as well as the cusps across it, so the
+  // stepover for it comes from simulated floor windows (issue 13).
+  sub.add_option("--target-sa", opts->target_sa,
+                 "Target Sa of the floor; with --feed-per-tooth designed on simulated windows")
+      ->type_name("HEIGHT");
+  sub.add_option("--pass-direction", opts->pass_direction,
+                 "one-way | zigzag: passes of the --target-sa design")
+      ->type_name("KIND")
+      ->capture_default_str();
   sub.add_option("--feed-per-tooth", opts->feed_per_tooth, "Feed per tooth fz: adds feed marks")
       ->type_name("LENGTH");
   sub.add_option("--teeth", opts->teeth, "Teeth: adds the once-per-revolution mark (runout)")

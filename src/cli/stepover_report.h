@@ -12,6 +12,7 @@
 #include "core/units.h"
 #include "cusp/cusp_setup.h"
 #include "cusp/inverse_stepover.h"
+#include "finish/areal_stepover.h"
 
 namespace cuspmap {
 
@@ -35,6 +36,11 @@ struct StepoverReport {
   std::optional<double> feed_per_tooth_max_mm;  ///< largest fz whose feed mark meets the target
                                                 ///< (both directions, inverse, ball/bull-nose)
   std::vector<std::string> notes;               ///< notes gathered while reading flags
+  /// --target-sa with --feed-per-tooth: the stepover designed on windows swept tooth by tooth
+  /// (the target is then Sa, the cusp is the cross-feed cusp at that stepover).
+  std::optional<ArealStepover> areal;
+  bool areal_target = false;                    ///< --target-sa was given (with or without fz)
+  RasterDirection pass_direction = RasterDirection::OneWay;  ///< passes of the areal design
 };
 
 /// The one JSON object (mm, um), with warnings[], notes[] and cautions[].

@@ -38,11 +38,19 @@ SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
                                 kMaxCellsPerPeriod, std::ceil(stepover_mm / tooth_cell_mm))));
   }
   if (cells % 2 == 0) ++cells;
-  // The window sits between two guard bands of whole periods at least R + s wide, so every
-  // evaluated cell has all the passes within the cutter's reach on both sides (a tilted end face
-  // can cut lowest with its rim up to R away).
+  // The window sits between two guard bands of whole periods, so every evaluated cell has all
+  // the passes that can cut it lowest on both sides: a tilted, dished or running-out end can cut
+  // lowest with its rim up to R away; an end whose lowest point is on its axis cuts no cell
+  // lower from beyond the distance that bounds the nearest pass's cut, half a stepover across
+  // and half the feed per revolution along (derived: its profile rises with the distance).
   const double cell_mm = stepover_mm / cells;
-  const int guard_periods = static_cast<int>(std::ceil(cutter.radius_mm() / stepover_mm)) + 1;
+  PathSpec probe;
+  probe.stepover_mm = stepover_mm;
+  const double reach_mm =
+      raster_margin_passes(probe, cutter) > 0
+          ? cutter.radius_mm() + cutter.runout_mm
+          : std::hypot(0.5 * stepover_mm, sweep.tooth_marks ? 0.5 * feed_per_rev_mm : 0.0);
+  const int guard_periods = static_cast<int>(std::ceil(reach_mm / stepover_mm)) + 1;
   const int rows = kWindowPeriods * cells;
   const int guard_rows = guard_periods * cells;
   Patch patch;

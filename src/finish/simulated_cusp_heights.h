@@ -2,7 +2,8 @@
 // periods across the passes (between guard bands wider than the cutter's reach), a few cells
 // along them, swept by the revolving-cutter envelope, then ISO 25178-2 parameters after
 // least-squares plane removal. Heights um, lengths mm.
-// Cost: one envelope sweep of (kWindowPeriods + 2 (R/s + 2)) x cells/period x kWindowCellsAlong.
+// Cost: one sweep of (kWindowPeriods + 2 guard periods) x cells/period x cells along; guards
+// span R (tilt, dish, runout) or only the nearest pass's reach (ends lowest on their axis).
 // Method: simulate_floor (DESIGN.md "Geometry") + texture/fit_plane + areal_parameters.
 #pragma once
 

@@ -63,6 +63,10 @@ nlohmann::json path_json(const Job& job, const JobRun& run) {
     j["angle_deg"] = p.angle_deg;
     j["direction"] = p.direction == RasterDirection::OneWay ? "one-way" : "zigzag";
   }
+  if (p.kind == PathKind::Raster) {
+    j["margin_passes_each_side"] = run.built.margin_passes;
+    j["program_moves"] = program_moves(run.built).moves.size();
+  }
   nlohmann::json warnings = nlohmann::json::array();
   for (const PathWarning& w : run.built.warnings) {
     warnings.push_back({{"line", w.line}, {"message", w.message}});

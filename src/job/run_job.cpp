@@ -127,8 +127,8 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   if (job.patch_from_program) {
     run.patch = patch_from_extent(run.built.path, job.patch.cell_mm, job.patch.floor_z_mm);
   }
-  run.path_length_mm = path_length_mm(run.built.path, true);
-  run.cycle_time_s = cycle_time_s(run.built.path);
+  run.path_length_mm = path_length_mm(program_moves(run.built), true);
+  run.cycle_time_s = cycle_time_s(program_moves(run.built));
   run.path_s = timer.lap();
   run.walled = !run.built.wall_region_mm.empty();
 

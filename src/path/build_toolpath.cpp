@@ -23,13 +23,29 @@ BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& 
   BuiltPath built;
   built.spindle = cut.spindle;
   switch (spec.kind) {
-    case PathKind::Raster: built.path = raster_path(spec, cut, patch, cutter); break;
+    case PathKind::Raster:
+      built.margin_passes = raster_margin_passes(spec, cutter);
+      built.path = raster_path(spec, cut, patch, cutter, built.margin_passes);
+      if (built.margin_passes > 0) built.program = raster_path(spec, cut, patch, cutter);
+      break;
     case PathKind::Offset: built.path = offset_path(spec, cut, patch, cutter, &built.wall_region_mm); break;
     case PathKind::Spiral: built.path = spiral_path(spec, cut, patch, cutter); break;
     case PathKind::Trochoidal: built.path = trochoidal_path(spec, cut, patch, cutter); break;
     case PathKind::Gcode: assert(false && "handled above"); break;
   }
   return built;
+}
+
+std::string margin_passes_note(const BuiltPath& built) {
+  if (built.margin_passes == 0) return {};
+  return std::to_string(built.margin_passes) +
+         " passes added on each side across the lay: the cutter's lowest point is off its axis "
+         "(tilt, dish or runout), so passes beyond the patch cut its edge cells; simulated as "
+         "inside a larger floor, not counted in path length or cycle time";
+}
+
+const Toolpath& program_moves(const BuiltPath& built) {
+  return built.margin_passes > 0 ? built.program : built.path;
 }
 
 }  // namespace cuspmap

@@ -2,6 +2,9 @@
 // trochoidal) or reads the user's G-code program. Lengths mm.
 #pragma once
 
+#include <string>
+#include <vector>
+
 #include "core/heightfield.h"
 #include "path/move.h"
 #include "path/path_spec.h"
@@ -23,7 +26,19 @@ struct BuiltPath {
   /// Offset with a wall edge: polygons of the region the tool centre may visit, mm; the floor's
   /// cells outside it are the wall band (job/wall_band.h). Empty otherwise.
   std::vector<std::vector<Eigen::Vector2d>> wall_region_mm;
+  /// Raster whose cutter can finish a cell from a pass beyond the patch (tilt, dish, runout):
+  /// passes added on each side across the lay (path.raster_margin_passes), so the patch's edge
+  /// cells are finished as inside a larger floor. 0 otherwise.
+  int margin_passes = 0;
+  /// With margin passes: the program without them (path length and cycle time are its own).
+  Toolpath program;
 };
+
+/// The moves a shop runs: `program` when margin passes were added, else `path`.
+const Toolpath& program_moves(const BuiltPath& built);
+
+/// One line saying that margin passes were added and why; empty when none were.
+std::string margin_passes_note(const BuiltPath& built);
 
 /// @param[in] spec, cut, patch, cutter  validated job parts (mm, deg, mm/min)
 /// @throws InputError for an unreadable or malformed G-code file (file:line, the word, why).

@@ -9,6 +9,7 @@
 #include <array>
 #include <cassert>
 #include <cmath>
+#include <cstddef>
 #include <limits>
 #include <numbers>
 #include <vector>
@@ -68,8 +69,20 @@ Move line_move(const Eigen::Vector3d& from, const Eigen::Vector3d& to, double fe
 
 }  // namespace
 
+int raster_margin_passes(const PathSpec& spec, const Cutter& cutter) {
+  assert(spec.stepover_mm > 0.0 && "raster needs a stepover");
+  // An untilted cutter without runout whose end rises from its axis (ball, bull-nose, undished
+  // flat) cuts each cell lowest from the nearest pass: passes beyond the patch change nothing.
+  const bool lowest_on_axis = cutter.tilt_deg == 0.0 && cutter.runout_mm == 0.0 &&
+                              (cutter.shape == CutterShape::Ball || cutter.dish_deg == 0.0);
+  if (lowest_on_axis) return 0;
+  const double reach = cutter.radius_mm() + cutter.runout_mm;
+  return static_cast<int>(std::ceil(reach / spec.stepover_mm - kCountSlack));
+}
+
 Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
-                     const Cutter& cutter) {
+                     const Cutter& cutter, int margin_passes) {
+  assert(margin_passes >= 0 && "a margin adds passes");
   assert(spec.kind == PathKind::Raster && spec.stepover_mm > 0.0 && "raster needs a stepover");
   const double step = spec.stepover_mm;
   // The cutter clears the patch when its axis is its reach away: R, plus the runout circle.
@@ -90,8 +103,10 @@ Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
   const double offset0 = -hy;
   const double half_n =
       0.5 * (patch.size_x_mm * std::abs(n.x()) + patch.size_y_mm * std::abs(n.y()));
-  const long k_first = static_cast<long>(std::floor((-half_n - offset0) / step + kCountSlack));
-  const long k_last = static_cast<long>(std::ceil((half_n - offset0) / step - kCountSlack));
+  const long k_first =
+      static_cast<long>(std::floor((-half_n - offset0) / step + kCountSlack)) - margin_passes;
+  const long k_last =
+      static_cast<long>(std::ceil((half_n - offset0) / step - kCountSlack)) + margin_passes;
 
   // Pass ends along d: the patch within max(reach, step) of the pass, plus the reach, so every
   // patch point the cutter (or a zigzag link between two passes) can touch is behind the ends.
@@ -115,8 +130,10 @@ Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
   const bool zigzag = spec.direction == RasterDirection::Zigzag;
   if (zigzag) {
     // Both ends of a side link at the outer of the two pass ends, so the link stays clear.
+    // Pairs follow the program's own passes (margin passes continue the alternation outward).
+    const std::size_t shift = static_cast<std::size_t>(margin_passes) % 2;
     for (std::size_t k = 0; k + 1 < passes.size(); ++k) {
-      if (k % 2 == 0) {
+      if ((k + shift) % 2 == 0) {
         passes[k].hi = passes[k + 1].hi = std::max(passes[k].hi, passes[k + 1].hi);
       } else {
         passes[k].lo = passes[k + 1].lo = std::min(passes[k].lo, passes[k + 1].lo);
@@ -131,9 +148,10 @@ Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
     return Eigen::Vector3d(xy.x(), xy.y(), z);
   };
   Toolpath path;
+  const std::size_t margin = static_cast<std::size_t>(margin_passes);
   for (std::size_t k = 0; k < passes.size(); ++k) {
     const Pass& p = passes[k];
-    const bool forward = !zigzag || k % 2 == 0;
+    const bool forward = !zigzag || (k + margin) % 2 == 0;
     const Eigen::Vector3d start = at(p.offset, forward ? p.lo : p.hi, z_cut);
     const Eigen::Vector3d end = at(p.offset, forward ? p.hi : p.lo, z_cut);
     if (k > 0) {

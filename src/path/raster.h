@@ -20,8 +20,15 @@ namespace cuspmap {
 /// @param[in] cut    feed (feed moves), rapid rate (links), depth (tip Z = floor_z + depth)
 /// @param[in] patch  the floor region, mm
 /// @param[in] cutter for the lead-in/out distance R
+/// @param[in] margin_passes  >= 0 extra passes on each side of the patch across the lay,
+///                           continuing the pattern (raster_margin_passes); 0 = the program
 /// @return moves in execution order; rapids flagged.
 Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,
-                     const Cutter& cutter);
+                     const Cutter& cutter, int margin_passes = 0);
+
+/// Passes a floor window needs on each side across the lay so that its edge cells are cut by
+/// every pass that reaches them: 0 when the cutter's lowest point lies on its axis (untilted,
+/// no runout, an end that rises from the axis), else ceil((R + runout) / stepover).
+int raster_margin_passes(const PathSpec& spec, const Cutter& cutter);
 
 }  // namespace cuspmap

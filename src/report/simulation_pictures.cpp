@@ -201,6 +201,9 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
                "Areal: least-squares plane removed (F-operator)"};
   if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) r.notes.push_back(fine);
   for (const std::string& w : run.texture.warnings) r.notes.push_back(w);
+  if (const std::string margin = margin_passes_note(run.built); !margin.empty()) {
+    r.notes.push_back(margin);
+  }
   for (const PathWarning& w : run.built.warnings) {
     r.notes.push_back((w.line > 0 ? "line " + std::to_string(w.line) + ": " : "") + w.message);
   }

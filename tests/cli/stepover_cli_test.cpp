@@ -195,9 +195,9 @@ TEST_CASE("stepover: bad input exits 2 with one line naming the value", "[cli]")
   require_bad({"--diameter", "6", "--stepover", "1", "--units", "cm"},
               "--units 'cm': allowed units are mm, in");
   require_bad({"--diameter", "6"},
-              "one of --stepover, --target-scallop, --target-ra, --target-rz is required");
+              "one of --stepover, --target-scallop, --target-ra, --target-rz, --target-sa is required");
   require_bad({"--diameter", "6", "--stepover", "1", "--target-ra", "1um"},
-              "give only one of --stepover, --target-scallop, --target-ra, --target-rz (got "
+              "give only one of --stepover, --target-scallop, --target-ra, --target-rz, --target-sa (got "
               "--stepover and --target-ra)");
   require_bad({"--tool", "drill", "--diameter", "6", "--stepover", "1"},
               "--tool 'drill': allowed tools are ball, bullnose, flat, insert");
@@ -235,4 +235,28 @@ TEST_CASE("stepover: bad input exits 2 with one line naming the value", "[cli]")
   require_bad({"--tool", "insert", "--nose-radius", "0.8", "--feed-per-rev", "2"},
               "--feed-per-rev 2 mm: must be smaller than twice the nose radius (1.6 mm)");
   require_bad({"--diameter", "abc", "--stepover", "1"}, "--diameter 'abc': not a number");
+}
+
+TEST_CASE("issue_13: stepover --target-sa designs for the marks along the feed", "[cli][areal]") {
+  // The issue's case: a 10 mm ball at fz 0.08 mm; the profile alone allows 0.125 mm for
+  // Ra 0.1 um (handbook arc), the areal design less (the marks along the feed count).
+  const nlohmann::json j = run_json({"--tool", "ball", "--diameter", "10", "--target-sa", "0.1",
+                                     "--feed-per-tooth", "0.08", "--teeth", "2"});
+  CHECK(j["target"]["quantity"] == "Sa");
+  CHECK(j["stepover_mm"].get<double>() < 0.95 * 0.1249);
+  CHECK(j["areal_design"]["Sa_um"].get<double>() <= 0.1);
+  CHECK(j["areal_design"]["profile_stepover_mm"].get<double>() == Approx(0.1249).epsilon(0.002));
+  // Without feed marks Sa is the extruded profile's Ra: the --target-ra stepover (ISO 25178-2 /
+  // ISO 4287 definitions over whole periods).
+  const nlohmann::json sa = run_json({"--tool", "ball", "--diameter", "10", "--target-sa", "0.1"});
+  const nlohmann::json ra = run_json({"--tool", "ball", "--diameter", "10", "--target-ra", "0.1"});
+  CHECK(sa["stepover_mm"].get<double>() ==
+        Approx(ra["stepover_mm"].get<double>()).epsilon(1e-12));
+  // Bad input: one line naming the value, exit 2.
+  require_bad({"--tool", "ball", "--diameter", "10", "--target-sa", "0.1", "--slope", "10"},
+              "--target-sa: the areal design simulates a level floor; use --surface flat without "
+              "--slope, or --target-ra for cylinders and slopes");
+  require_bad({"--tool", "ball", "--diameter", "10", "--target-sa", "0.1", "--feed-per-tooth",
+               "0.05", "--pass-direction", "sideways"},
+              "--pass-direction 'sideways': allowed are one-way, zigzag");
 }
