@@ -48,9 +48,9 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
   v.weak = v.explained < kWellExplained;
   if (v.weak) {
     v.lines.push_back("the model explains only " + n3(100.0 * v.explained) +
-                      " % of this floor's variance (marks faint against noise, or marks the "
-                      "model lacks): other tilts fit nearly as well, treat the values below as "
-                      "rough and their +- as too small");
+                      " % of this floor's variance: the marks are faint against noise or carry "
+                      "what the model lacks (see fit.png); other tilts may fit nearly as well, "
+                      "treat the values below as rough and their +- as too small");
   }
   v.lines.push_back("stepover " + n3(stepover) + " mm (+-" + n3(f.stepover_mm.sigma) +
                     "), passes along " + n3(fit.model.lay_deg) + " deg from +X");

@@ -20,9 +20,9 @@ inline constexpr double kInvisibleStepUm = 0.1;
 
 /// Share of the window's variance the model must explain for its values to stand on their own;
 /// below it the marks are faint against noise and neighbouring parameter sets fit about as well
-/// (common practice, no source: the round trips of tests/infer/floor_fit_test.cpp explain over
-/// 99 %, a 0.04 um cusp under 0.01 um noise only ~65 % with a tilt 20 % off).
-inline constexpr double kWellExplained = 0.9;
+/// (common practice, no source; measured: a 0.5 um step under 0.02 um noise is 82 % explained
+/// and recovered within 1 %, a 0.04 um cusp under 0.01 um noise 64 % with a tilt 20 % off).
+inline constexpr double kWellExplained = 0.75;
 
 /// What the fit tells, in words and the numbers behind them.
 struct FitVerdict {
