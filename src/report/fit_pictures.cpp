@@ -9,12 +9,16 @@
 #include <string>
 #include <vector>
 
+#include "core/display_quantity.h"
 #include "report/height_image.h"
 #include "report/legend.h"
 #include "report/montage.h"
 
 namespace cuspmap {
 namespace {
+
+// Longest side of each picture, px (three side by side stay under ~1000 px).
+constexpr int kTilePixels = 320;
 
 void extend(const Heightfield& hf, double& lo, double& hi) {
   for (int j = 0; j < hf.ny; ++j) {
@@ -33,10 +37,12 @@ MontageTile tile(const Heightfield& hf, const HeightRange& range, LengthUnit uni
   o.range = range;
   o.units = units;
   o.legend = false;
-  o.max_pixels = 320;
+  o.max_pixels = kTilePixels;
+  // Small windows are drawn a whole number of pixels per sample so the labels fit under them.
+  o.zoom = std::max(1, kTilePixels / std::max(1, std::max(hf.nx, hf.ny)));
   const HeightImage img = render_height_image(hf, o);
-  labels.push_back("black " + format_number(height_in_display_unit(range.lo_um, units)) +
-                   ", gray " + format_number(height_in_display_unit(range.hi_um, units)) + " " +
+  labels.push_back(display_number(height_in_display_unit(range.lo_um, units), 1e-6) + ".." +
+                   display_number(height_in_display_unit(range.hi_um, units), 1e-6) + " " +
                    height_unit_label(units));
   return MontageTile{img.image, img.mm_per_px, labels};
 }
@@ -55,16 +61,16 @@ Image render_fit_pictures(const FloorFit& fit, LengthUnit units) {
   // The residual on the same um per gray level, centred on zero.
   const HeightRange centred{-0.5 * (hi - lo), 0.5 * (hi - lo)};
   std::vector<MontageTile> tiles;
-  tiles.push_back(tile(fit.measured, shared, units, {"measured", "setup plane removed"}));
-  tiles.push_back(tile(fit.simulated, shared, units, {"best-fit simulated", "same scale"}));
+  tiles.push_back(tile(fit.measured, shared, units, {"measured, plane off"}));
+  tiles.push_back(tile(fit.simulated, shared, units, {"best-fit simulated"}));
   tiles.push_back(tile(fit.residual, centred, units,
-                       {"residual", "rms " + format_number(height_in_display_unit(
-                                                 fit.residual_rms_um, units)) +
-                                        " " + height_unit_label(units)}));
+                       {"residual, rms " +
+                        display_number(height_in_display_unit(fit.residual_rms_um, units), 1e-6) +
+                        " " + height_unit_label(units)}));
   MontageOptions mo;
   mo.columns = 3;
   mo.units = units;
-  mo.title = "diagnose fit window: measured, simulated, residual (one height scale)";
+  mo.title = "diagnose fit: measured, simulated, residual on one height scale";
   return render_montage(tiles, mo);
 }
 
