@@ -14,9 +14,17 @@
 #include "core/input_error.h"
 #include "core/stage_timer.h"
 #include "core/units.h"
+#include "cli/finish_flags.h"
+#include "infer/fit_uncertainty.h"
+#include "infer/fit_verdict.h"
+#include "infer/floor_fit.h"
 #include "infer/surface_estimates.h"
 #include "infer/trace_estimates.h"
 #include "io/diagnose_json.h"
+#include "io/floor_fit_json.h"
+#include "io/png.h"
+#include "job/job.h"
+#include "report/fit_pictures.h"
 #include "io/measured_trace.h"
 #include "io/read_heightmap.h"
 
@@ -32,7 +40,11 @@ struct DiagnoseCliOptions {
   std::string lay;              ///< known lay, deg
   int teeth = 0;                ///< flutes when known (0 = unknown)
   std::string stylus_tip;       ///< tip radius the measurement was taken with
-  std::string out;              ///< folder for diagnose.json
+  std::string out;              ///< folder for diagnose.json (and fit.png)
+  ToolFlags tool;               ///< known tool: the fit runs when --diameter or --job is given
+  std::string direction;        ///< one-way | zigzag (known pass pattern)
+  std::string job;              ///< job file: tool, pass pattern and lay
+  int threads = 0;              ///< sweep threads of the fit (0 = all)
 };
 
 // Caution printed with any reading that may send someone to the machine (rules: rotating tools,
@@ -44,7 +56,8 @@ constexpr const char* kMachineCaution =
 
 std::string mm(double v) { return format_number(v); }
 
-void print_surface(const std::string& path, const Heightfield& hf, const SurfaceEstimates& e) {
+void print_surface(const std::string& path, const Heightfield& hf, const SurfaceEstimates& e,
+                   bool caution) {
   std::printf("%s: %d x %d cells of %s mm\n\n", path.c_str(), hf.nx, hf.ny, mm(hf.cell_mm).c_str());
   std::printf(
       "  lay          %.3g deg from +X (%s)\n", e.lay_deg,
@@ -76,7 +89,7 @@ void print_surface(const std::string& path, const Heightfield& hf, const Surface
   std::printf("  setup plane  %.3g deg, falling toward %.3g deg from +X\n", e.setup_tilt_deg,
               e.setup_tilt_toward_deg);
   for (const std::string& n : e.notes) std::printf("  note: %s\n", n.c_str());
-  std::printf("\n%s\n", kMachineCaution);
+  if (caution) std::printf("\n%s\n", kMachineCaution);
 }
 
 void print_trace(const std::string& path, const TraceEstimates& t) {
@@ -92,6 +105,60 @@ void print_trace(const std::string& path, const TraceEstimates& t) {
   }
 }
 
+void print_fit(const FloorFit& fit, const FittedErrors& f, const FitVerdict& v) {
+  std::printf("\n  inverse simulation (%s, %d x %d samples of %s mm, %d sweeps)\n",
+              fit.model.tooth_marks ? "tooth-resolved" : "revolving envelope", fit.measured.nx,
+              fit.measured.ny, mm(fit.sample_mm).c_str(), fit.evaluations);
+  auto row = [](const char* name, const FittedValue& x, const char* unit) {
+    if (!x.fitted) return;
+    if (x.resolved) {
+      std::printf("  %-13s %.3g %s (+-%.2g)\n", name, x.value, unit, x.sigma);
+    } else {
+      std::printf("  %-13s under %.3g %s (not resolved: %.3g +-%.2g)\n", name, x.bound, unit,
+                  x.value, x.sigma);
+    }
+  };
+  row("tilt", f.tilt_deg, "deg");
+  if (f.tilt_deg.resolved) row("toward", f.tilt_toward_deg, "deg from +X");
+  row("along feed", f.tilt_along_deg, "deg");
+  row("across feed", f.tilt_across_deg, "deg");
+  row("stepover", f.stepover_mm, "mm");
+  std::printf("  setup plane   %.3g um/mm (+-%.2g) along X, %.3g um/mm (+-%.2g) along Y\n",
+              f.setup_gx_um_per_mm.value, f.setup_gx_um_per_mm.sigma, f.setup_gy_um_per_mm.value,
+              f.setup_gy_um_per_mm.sigma);
+  std::printf("  residual      %.3g um rms (measured %.3g um rms about its plane)\n",
+              fit.residual_rms_um, fit.measured_rms_um);
+  for (const std::string& line : v.lines) std::printf("  verdict: %s\n", line.c_str());
+  for (const std::string& line : v.cannot_tell) std::printf("  cannot tell: %s\n", line.c_str());
+}
+
+// The known tool and pass pattern from --job or the tool flags; empty when neither is given.
+std::optional<FloorFitOptions> fit_options(const DiagnoseCliOptions& o, LengthUnit unit,
+                                           SurfaceOptions& sopt) {
+  FloorFitOptions f;
+  if (!o.job.empty()) {
+    const Job job = load_job(o.job);
+    f.cutter = job.cutter;
+    f.direction = job.path.direction;
+    if (!sopt.lay_deg && job.path.kind == PathKind::Raster) sopt.lay_deg = job.path.angle_deg;
+    if (!sopt.teeth) sopt.teeth = job.cutter.teeth;
+  } else if (!o.tool.diameter.empty()) {
+    f.cutter = tool_from_flags(o.tool, unit);
+  } else {
+    return std::nullopt;
+  }
+  if (o.direction == "zigzag") {
+    f.direction = RasterDirection::Zigzag;
+  } else if (o.direction == "one-way") {
+    f.direction = RasterDirection::OneWay;
+  } else if (!o.direction.empty()) {
+    throw InputError("--direction '" + o.direction + "': allowed values are one-way, zigzag");
+  }
+  if (o.teeth > 0) f.cutter.teeth = o.teeth;
+  f.threads = o.threads;
+  return f;
+}
+
 void run_diagnose(const DiagnoseCliOptions& o) {
   const LengthUnit unit = o.common.length_unit();
   double tip_um = 0.0;
@@ -99,6 +166,7 @@ void run_diagnose(const DiagnoseCliOptions& o) {
   if (o.teeth < 0) throw InputError("--teeth " + std::to_string(o.teeth) + ": must be >= 1");
   StageTimer timer;
   nlohmann::json doc;
+  std::string fit_png;
   if (is_trace_file(o.file, parse_input_layout(o.layout))) {
     const double z_um = o.z_units.empty() ? 1.0 : z_units_to_um(o.z_units);
     const MeasuredTrace trace =
@@ -122,6 +190,7 @@ void run_diagnose(const DiagnoseCliOptions& o) {
     SurfaceOptions sopt;
     if (!o.lay.empty()) sopt.lay_deg = parse_angle_deg(o.lay, "--lay");
     if (o.teeth > 0) sopt.teeth = o.teeth;
+    const std::optional<FloorFitOptions> fopt = fit_options(o, unit, sopt);
     SurfaceEstimates e = surface_estimates(file.field, sopt);
     print_stage(o.common.verbose, "estimate", timer.lap());
     if (tip_um > 0.0 && e.cusp.curved && e.cusp.radius_mm * kUmPerMm <= 2.0 * tip_um) {
@@ -132,11 +201,26 @@ void run_diagnose(const DiagnoseCliOptions& o) {
     doc["size_mm"] = {file.field.nx * file.field.cell_mm, file.field.ny * file.field.cell_mm};
     doc["stylus_tip_um"] = tip_um;
     doc["cautions"] = {kMachineCaution};
-    if (!o.common.json) print_surface(o.file, file.field, e);
+    if (fopt) {
+      const FloorFit fit = fit_floor(file.field, e, *fopt);
+      const FittedErrors f = fitted_errors(fit);
+      const FitVerdict v = fit_verdict(f, fit, e);
+      print_stage(o.common.verbose, "fit", timer.lap());
+      doc["fit"] = floor_fit_json(fit, f, v);
+      if (!o.out.empty()) fit_png = encode_png(render_fit_pictures(fit, unit));
+      if (!o.common.json) {
+        print_surface(o.file, file.field, e, false);
+        print_fit(fit, f, v);
+        std::printf("\n%s\n", kMachineCaution);
+      }
+    } else if (!o.common.json) {
+      print_surface(o.file, file.field, e, true);
+    }
   }
   if (!o.out.empty()) {
     OutputDir dir(o.out);
     dir.write("diagnose.json", doc.dump(2) + "\n");
+    if (!fit_png.empty()) dir.write("fit.png", fit_png);
   }
   if (o.common.json) print_json(doc);
 }
@@ -159,7 +243,17 @@ void setup_diagnose(CLI::App& sub) {
   sub.add_option("--teeth", o->teeth, "Flutes of the cutter, when known");
   sub.add_option("--stylus-tip", o->stylus_tip,
                  "Stylus tip radius the measurement was taken with (e.g. 2um, 5um, 10um)");
-  sub.add_option("--out", o->out, "Folder to write diagnose.json into");
+  sub.add_option("--out", o->out, "Folder to write diagnose.json (and fit.png) into");
+  // Reason for the flags: the fit needs the tool that cut the floor (as simulate's tool flags).
+  sub.add_option("--tool", o->tool.tool, "Tool that cut the floor: ball, bullnose or flat")
+      ->capture_default_str();
+  sub.add_option("--diameter", o->tool.diameter, "Its diameter: runs the inverse simulation");
+  sub.add_option("--corner-radius", o->tool.corner_radius, "Bull-nose corner radius");
+  sub.add_option("--dish", o->tool.dish, "End-face dish angle, deg")->capture_default_str();
+  sub.add_option("--direction", o->direction, "Pass pattern when known: one-way or zigzag");
+  sub.add_option("--job", o->job, "Job file that cut the floor: tool, pass pattern and lay");
+  sub.add_option("--threads", o->threads, "Threads of the fit's sweeps (0 = all)")
+      ->check(CLI::Range(0, 1024));
   add_common_flags(sub, o->common);
   sub.callback([o] { run_diagnose(*o); });
 }

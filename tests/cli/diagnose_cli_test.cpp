@@ -1,5 +1,6 @@
 // `cuspmap diagnose` through the real binary: a simulated floor written as .npy is read back
-// (JSON keys, stepover, diagnose.json under --out); a trace; refusals are one line, exit 2.
+// (JSON keys, stepover, diagnose.json under --out); a trace; the inverse simulation with
+// --tool/--diameter (fit keys, fit.png); refusals are one line, exit 2.
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <nlohmann/json.hpp>
@@ -67,6 +68,56 @@ TEST_CASE("diagnose: too few cells is refused in one line", "[cli]") {
   test::require_input_error({"diagnose", dir.file("tiny.npy"), "--cell", "0.01"},
                             "too few cells to diagnose: 400 with a height, at least 4096 (64 x "
                             "64) are needed");
+}
+
+TEST_CASE("diagnose: --tool and --diameter fit the tilt of a flat end mill", "[cli]") {
+  test::TempDir dir;
+  // 3 mm flat, 1 deg dish, tilted 0.04 deg toward 90 deg (across the passes), stepover 1 mm.
+  Job job = test::raster_job(CutterShape::Flat, 3.0, 1.0, 7.0, 0.02, 0.05, 2);
+  job.sim.tooth_marks = false;
+  job.cutter.dish_deg = 1.0;
+  job.cutter.tilt_deg = 0.04;
+  job.cutter.tilt_toward_deg = 90.0;
+  Heightfield hf = test::crop(test::simulate(job), 50);
+  test::damage(hf, 0.01, 0.0, 0.5, 0.0, 7u);
+  test::write_text(dir.file("floor.npy"), encode_npy(hf));
+  const test::RunResult r =
+      test::run_cuspmap({"diagnose", dir.file("floor.npy"), "--cell", "0.02", "--lay", "0",
+                         "--tool", "flat", "--diameter", "3", "--dish", "1", "--threads", "2",
+                         "--json", "--out", dir.file("out")});
+  INFO(r.err);
+  REQUIRE(r.exit_code == 0);
+  const nlohmann::json j = nlohmann::json::parse(r.out);
+  REQUIRE(j.contains("fit"));
+  const nlohmann::json& f = j["fit"];
+  for (const char* key : {"tilt_deg", "tilt_toward_deg", "tilt_toward_alt_deg", "tilt_along_deg",
+                          "tilt_across_deg", "stepover_mm", "offset_mm", "setup_plane",
+                          "residual_rms_um", "measured_rms_um", "verdict", "cannot_tell",
+                          "window", "tram_target_deg"}) {
+    CAPTURE(key);
+    CHECK(f.contains(key));
+  }
+  // Issue 17 tolerances: tilt within 10 % or 0.002 deg; direction within 10 deg (tilt across
+  // the feed: no ahead/behind ambiguity, derived).
+  REQUIRE_NEAR(f["tilt_deg"]["value"].get<double>(), 0.04, 0.004);
+  REQUIRE_NEAR(f["tilt_toward_deg"]["value"].get<double>(), 90.0, 10.0);
+  REQUIRE_NEAR(f["stepover_mm"]["value"].get<double>(), 1.0, 0.01);
+  const nlohmann::json saved =
+      nlohmann::json::parse(test::read_text(dir.file("out/diagnose.json")));
+  CHECK(saved["fit"]["tilt_deg"] == f["tilt_deg"]);
+  CHECK(test::read_text(dir.file("out/fit.png")).substr(1, 3) == "PNG");
+}
+
+TEST_CASE("diagnose: a bad --direction is refused in one line", "[cli]") {
+  test::TempDir dir;
+  const Job job = test::raster_job(CutterShape::Ball, 6.0, 0.25, 2.5, 0.01, 0.06, 2);
+  test::write_text(dir.file("floor.npy"), encode_npy(test::simulate(job)));
+  const test::RunResult r =
+      test::run_cuspmap({"diagnose", dir.file("floor.npy"), "--cell", "0.01", "--tool", "ball",
+                         "--diameter", "6", "--direction", "sideways"});
+  REQUIRE(r.exit_code == 2);
+  REQUIRE(r.err ==
+          "cuspmap: error: --direction 'sideways': allowed values are one-way, zigzag\n");
 }
 
 }  // namespace cuspmap

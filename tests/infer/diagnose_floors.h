@@ -55,4 +55,16 @@ inline void damage(Heightfield& hf, double noise_um, double gx_um_per_mm, double
   }
 }
 
+/// The field without a margin of `margin` cells on every side: an interior window, as a
+/// measurement of a part is (the simulated floor's edges lack the passes beyond the patch).
+inline Heightfield crop(const Heightfield& hf, int margin) {
+  Heightfield c = hf;
+  c.nx = hf.nx - 2 * margin;
+  c.ny = hf.ny - 2 * margin;
+  c.origin_x_mm = hf.origin_x_mm + margin * hf.cell_mm;
+  c.origin_y_mm = hf.origin_y_mm + margin * hf.cell_mm;
+  c.z_um = hf.z_um.block(margin, margin, c.ny, c.nx);
+  return c;
+}
+
 }  // namespace cuspmap::test

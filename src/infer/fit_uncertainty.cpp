@@ -1,0 +1,68 @@
+// Fitted values with standard errors: covariance of the fit propagated to tilt magnitude and
+// direction by first-order (linearised) propagation.
+// Inputs: FloorFit; output: FittedErrors. Cost O(1).
+// Method: GUM (JCGM 100:2008) §5.1.2 law of propagation of uncertainty.
+#include "infer/fit_uncertainty.h"
+
+#include <cmath>
+#include <limits>
+#include <numbers>
+
+namespace cuspmap {
+namespace {
+
+constexpr double kRadToDeg = 180.0 / std::numbers::pi;
+
+FittedValue value_of(double v, double var, bool fitted) {
+  FittedValue f;
+  f.value = v;
+  f.fitted = fitted;
+  f.sigma = std::isfinite(var) && var > 0.0 ? std::sqrt(var)
+            : std::isfinite(var)            ? 0.0
+                                            : std::numeric_limits<double>::infinity();
+  f.resolved = fitted && std::abs(v) > kResolvedSigmas * f.sigma;
+  f.bound = std::abs(v) + kBoundSigmas * f.sigma;
+  return f;
+}
+
+double wrap360(double deg) {
+  const double a = std::fmod(deg, 360.0);
+  return a < 0.0 ? a + 360.0 : a;
+}
+
+}  // namespace
+
+FittedErrors fitted_errors(const FloorFit& fit) {
+  FittedErrors e;
+  const Eigen::VectorXd& p = fit.params;
+  const Eigen::MatrixXd& c = fit.covariance;
+  const bool tilt_fitted = fit.free[kTiltAlongDeg];
+  e.tilt_along_deg = value_of(p[kTiltAlongDeg], c(0, 0), tilt_fitted);
+  e.tilt_across_deg = value_of(p[kTiltAcrossDeg], c(1, 1), tilt_fitted);
+  e.stepover_mm = value_of(p[kStepoverMm], c(2, 2), true);
+  e.offset_mm = value_of(p[kOffsetMm], c(3, 3), true);
+  e.setup_gx_um_per_mm = value_of(fit.setup_plane.gx_um_per_mm,
+                                  fit.plane_sigma_gx_um_per_mm * fit.plane_sigma_gx_um_per_mm, true);
+  e.setup_gy_um_per_mm = value_of(fit.setup_plane.gy_um_per_mm,
+                                  fit.plane_sigma_gy_um_per_mm * fit.plane_sigma_gy_um_per_mm, true);
+
+  // Magnitude and direction: gradients of hypot(a, b) and atan2(b, a) (GUM §5.1.2).
+  const double a = p[kTiltAlongDeg], b = p[kTiltAcrossDeg];
+  const double t = std::hypot(a, b);
+  double var_t = std::numeric_limits<double>::infinity(), var_dir = var_t;
+  if (t > 0.0 && std::isfinite(c(0, 0)) && std::isfinite(c(1, 1))) {
+    const Eigen::Vector2d gt(a / t, b / t), gd(-b / (t * t), a / (t * t));
+    const Eigen::Matrix2d cc = c.topLeftCorner<2, 2>();
+    var_t = gt.dot(cc * gt);
+    var_dir = gd.dot(cc * gd) * kRadToDeg * kRadToDeg;
+  }
+  e.tilt_deg = value_of(t, tilt_fitted ? var_t : 0.0, tilt_fitted);
+  const double dir = std::atan2(b, a) * kRadToDeg;
+  e.tilt_toward_deg = value_of(wrap360(fit.model.lay_deg + dir), var_dir, tilt_fitted);
+  e.tilt_toward_deg.resolved = e.tilt_deg.resolved;
+  e.tilt_toward_alt_deg = wrap360(fit.model.lay_deg + std::atan2(b, -a) * kRadToDeg);
+  e.along_sign_known = false;
+  return e;
+}
+
+}  // namespace cuspmap

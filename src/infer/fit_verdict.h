@@ -1,0 +1,44 @@
+// Plain verdicts from the fitted machine errors, one line each, that a machinist acts on: how far
+// and which way the spindle is out of tram (or the bound when the floor only bounds it), what the
+// heel does, the tram that stops the marks, and what this floor cannot tell.
+// Inputs: FittedErrors, FloorFit, SurfaceEstimates, the known cutter; output: FitVerdict.
+// Method: first-order tilt geometry (DESIGN.md "Geometry"): a tilt across the feed leaves a step
+// s tan(tilt) between passes; the heel lifts when 2 R tan(tilt) exceeds the marks' depth.
+#pragma once
+
+#include <string>
+#include <vector>
+
+#include "infer/fit_uncertainty.h"
+#include "infer/surface_estimates.h"
+
+namespace cuspmap {
+
+/// Step between passes that does not show, um: the tram target aims under it (common practice,
+/// no source: steps below 0.1 um are under what eye and fingernail find on a machined floor).
+inline constexpr double kInvisibleStepUm = 0.1;
+
+/// Share of the window's variance the model must explain for its values to stand on their own;
+/// below it the marks are faint against noise and neighbouring parameter sets fit about as well
+/// (common practice, no source; measured: a 0.5 um step under 0.02 um noise is 82 % explained
+/// and recovered within 1 %, a 0.04 um cusp under 0.01 um noise 64 % with a tilt 20 % off).
+inline constexpr double kWellExplained = 0.75;
+
+/// What the fit tells, in words and the numbers behind them.
+struct FitVerdict {
+  std::vector<std::string> lines;  ///< verdicts, one sentence each
+  std::vector<std::string> cannot_tell;  ///< what this floor cannot tell and why
+  bool heel_lifted = false;        ///< the marks run one way only (surface estimate)
+  double heel_min_tilt_deg = 0.0;  ///< with a lifted heel: tilt along the feed at least this
+  double tram_target_deg = 0.0;    ///< tilt across the feed that leaves kInvisibleStepUm
+  double explained = 0.0;          ///< 1 - (residual rms / measured rms)^2 over the window
+  bool weak = false;               ///< explained < kWellExplained: values are rough
+};
+
+/// Words for the fit.
+/// @param[in] f       fitted values with standard errors
+/// @param[in] fit     the fit (cutter, lay)
+/// @param[in] e       surface estimates (heel, marks along the lay)
+FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e);
+
+}  // namespace cuspmap

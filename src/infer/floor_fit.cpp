@@ -1,0 +1,327 @@
+// Inverse simulation: window and decimation of the measured floor, a coarse start search over
+// the pass offset and tilt, Levenberg-Marquardt with the setup plane projected out of the
+// residual, covariance sigma^2 (J^T J)^-1 at the optimum.
+// Inputs: Heightfield, SurfaceEstimates, FloorFitOptions; output: FloorFit. Cost: see header.
+// Method: Moré 1978 (MINPACK lmder, Eigen unsupported NonLinearOptimization); variable
+// projection for the linear plane (Golub & Pereyra 1973); covariance as in Bates & Watts 1988.
+#include "infer/floor_fit.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <utility>
+#include <vector>
+#include <Eigen/Dense>
+#include <unsupported/Eigen/NonLinearOptimization>
+
+namespace cuspmap {
+namespace {
+
+// Finite-difference steps of the Jacobian, one per parameter. A tilt of 0.002 deg moves a rim
+// 3 mm out by 0.1 um (well above float rounding of um heights); stepover and offset steps are a
+// small fraction of the period (derived). Forward differences: the sweep is piecewise smooth
+// (minimum over passes), so a step that spans a crest averages the two slopes.
+constexpr double kTiltStepDeg = 0.002;
+constexpr double kPeriodStepFraction = 2e-3;
+// Start search: pass offsets tried per stepover, and tilt components (deg) tried (common
+// practice, no source: tram errors of 0.005-0.1 deg are what a shop meets).
+constexpr int kStartOffsets = 8;
+constexpr double kStartAlongDeg[] = {0.005, 0.03, 0.1};
+constexpr double kStartAcrossDeg[] = {-0.03, 0.0, 0.03};
+// Solver limits: sweeps the solver may run, and its relative tolerances (MINPACK defaults
+// tightened: the residual is in float um).
+constexpr int kMaxSolverSweeps = 200;
+// Starts the solver runs from (the best of the start grid; derived: 4 covers the neighbouring
+// offset and tilt basins on the round-trip floors of tests/infer/floor_fit_test.cpp).
+constexpr size_t kSolverStarts = 4;
+constexpr double kSolverTolerance = 1e-7;
+
+// The measured window and the plane basis over its finite samples.
+struct Window {
+  Patch patch;
+  Heightfield measured;          // window samples, um (NaN = missing)
+  std::vector<int> index;        // finite sample -> cell index in the window (row-major)
+  Eigen::MatrixXd q;             // thin Q of [1, x, y] over the finite samples
+  Eigen::MatrixXd basis;         // [1, x - x0, y - y0]
+  double x0_mm = 0.0, y0_mm = 0.0;
+};
+
+Window make_window(const Heightfield& hf, double stepover_mm) {
+  Window w;
+  const double cell = hf.cell_mm;
+  const int max_cells = static_cast<int>(std::ceil(kMaxFitPeriods * stepover_mm / cell));
+  const int cx = std::min(hf.nx, std::max(max_cells, 1)), cy = std::min(hf.ny, std::max(max_cells, 1));
+  const int stride = std::max(1, (std::max(cx, cy) + kMaxFitSamples - 1) / kMaxFitSamples);
+  const int nx = cx / stride, ny = cy / stride;
+  const int i0 = (hf.nx - nx * stride) / 2, j0 = (hf.ny - ny * stride) / 2;
+  Heightfield& m = w.measured;
+  m.nx = nx;
+  m.ny = ny;
+  m.cell_mm = stride * cell;
+  // Sample (a, b) is measured cell (i0 + a stride, j0 + b stride): its centre is the window
+  // cell's centre when the window starts half a window cell before it.
+  m.origin_x_mm = hf.x_mm(i0) - 0.5 * m.cell_mm;
+  m.origin_y_mm = hf.y_mm(j0) - 0.5 * m.cell_mm;
+  m.z_um.resize(ny, nx);
+  for (int b = 0; b < ny; ++b) {
+    for (int a = 0; a < nx; ++a) m.z_um(b, a) = hf.z_um(j0 + b * stride, i0 + a * stride);
+  }
+  w.patch.cell_mm = m.cell_mm;
+  w.patch.origin_x_mm = m.origin_x_mm;
+  w.patch.origin_y_mm = m.origin_y_mm;
+  // Half a cell short of whole: the grid takes ceil(size / cell) cells, exactly nx and ny.
+  w.patch.size_x_mm = (nx - 0.5) * m.cell_mm;
+  w.patch.size_y_mm = (ny - 0.5) * m.cell_mm;
+  w.x0_mm = m.origin_x_mm + 0.5 * nx * m.cell_mm;
+  w.y0_mm = m.origin_y_mm + 0.5 * ny * m.cell_mm;
+  for (int b = 0; b < ny; ++b) {
+    for (int a = 0; a < nx; ++a) {
+      if (std::isfinite(m.z_um(b, a))) w.index.push_back(b * nx + a);
+    }
+  }
+  const int n = static_cast<int>(w.index.size());
+  w.basis.resize(n, 3);
+  for (int k = 0; k < n; ++k) {
+    const int a = w.index[k] % nx, b = w.index[k] / nx;
+    w.basis(k, 0) = 1.0;
+    w.basis(k, 1) = m.x_mm(a) - w.x0_mm;
+    w.basis(k, 2) = m.y_mm(b) - w.y0_mm;
+  }
+  Eigen::HouseholderQR<Eigen::MatrixXd> qr(w.basis);
+  w.q = qr.householderQ() * Eigen::MatrixXd::Identity(n, 3);
+  return w;
+}
+
+// Residual functor for Eigen's Levenberg-Marquardt over the free parameters.
+struct FitResidual {
+  using Scalar = double;
+  using InputType = Eigen::VectorXd;
+  using ValueType = Eigen::VectorXd;
+  using JacobianType = Eigen::MatrixXd;
+  enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
+
+  const FitModel* model = nullptr;
+  const Window* window = nullptr;
+  Eigen::VectorXd full;          // all parameters; the free ones are overwritten
+  std::vector<int> free_index;   // free parameter -> FitParam
+  double stepover0_mm = 0.0;      // the surface estimate of the stepover (prior)
+  double prior_weight = 0.0;      // residual scale / its standard error
+  mutable int sweeps = 0;
+
+  int inputs() const { return static_cast<int>(free_index.size()); }
+  int samples() const { return static_cast<int>(window->index.size()); }
+  // One residual per finite sample, plus the stepover prior.
+  int values() const { return samples() + 1; }
+
+  Eigen::VectorXd expand(const Eigen::VectorXd& x) const {
+    Eigen::VectorXd p = full;
+    for (size_t k = 0; k < free_index.size(); ++k) p[free_index[k]] = x[static_cast<int>(k)];
+    return p;
+  }
+  // Measured minus simulated at the finite samples, before the plane is projected out.
+  Eigen::VectorXd raw(const Eigen::VectorXd& p) const {
+    ++sweeps;
+    const Heightfield sim = simulate_fit_window(*model, p);
+    const int n = samples();
+    Eigen::VectorXd r(n);
+    for (int k = 0; k < n; ++k) {
+      const int i = window->index[k];
+      const float s = sim.z_um(i / sim.nx, i % sim.nx);
+      // A sample no pass reached cannot be matched: it counts as its measured height.
+      r[k] = window->measured.z_um(i / sim.nx, i % sim.nx) - (std::isfinite(s) ? s : 0.0f);
+    }
+    return r;
+  }
+  int operator()(const Eigen::VectorXd& x, Eigen::VectorXd& f) const {
+    const Eigen::VectorXd p = expand(x);
+    const Eigen::VectorXd r = raw(p);
+    f.resize(values());
+    f.head(samples()) = r - window->q * (window->q.transpose() * r);
+    f[samples()] = prior_weight * (p[kStepoverMm] - stepover0_mm);
+    return 0;
+  }
+  int df(const Eigen::VectorXd& x, Eigen::MatrixXd& jac) const {
+    Eigen::VectorXd f0, f1;
+    (*this)(x, f0);
+    jac.resize(values(), inputs());
+    for (int k = 0; k < inputs(); ++k) {
+      const int which = free_index[static_cast<size_t>(k)];
+      const double h = (which == kTiltAlongDeg || which == kTiltAcrossDeg)
+                           ? kTiltStepDeg
+                           : kPeriodStepFraction * full[kStepoverMm];
+      Eigen::VectorXd xh = x;
+      xh[k] += h;
+      (*this)(xh, f1);
+      jac.col(k) = (f1 - f0) / h;
+    }
+    return 0;
+  }
+};
+
+double rms(const Eigen::VectorXd& v) {
+  return v.size() ? std::sqrt(v.squaredNorm() / static_cast<double>(v.size())) : 0.0;
+}
+
+}  // namespace
+
+FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const FloorFitOptions& o) {
+  const double stepover = e.stepover.period_mm;
+  const Window w = make_window(hf, stepover);
+  FloorFit fit;
+  fit.model.cutter = o.cutter;
+  fit.model.cutter.tilt_deg = 0.0;
+  fit.model.cutter.runout_mm = 0.0;
+  fit.model.lay_deg = e.lay_deg;
+  fit.model.direction = o.direction;
+  fit.model.window = w.patch;
+  fit.model.threads = o.threads;
+  fit.sample_mm = w.measured.cell_mm;
+  fit.samples = static_cast<int>(w.index.size());
+  // A ball is tilt-invariant apart from the contact shift (DESIGN.md): tilt stays fixed at 0.
+  const bool tilt_shows = o.cutter.shape != CutterShape::Ball;
+  fit.free = {tilt_shows, tilt_shows, true, true};
+
+  FitResidual res;
+  res.model = &fit.model;
+  res.window = &w;
+  res.full = Eigen::VectorXd::Zero(kFitParams);
+  res.full[kStepoverMm] = stepover;
+  // The surface estimate of the stepover (autocorrelation, independent of the model) enters as
+  // a prior: one residual (stepover - estimate) sigma_r / sigma_estimate, sigma_r taken as the
+  // window's rms about its plane (an upper bound of the noise: the prior weighs at least as
+  // much as it should). Without it a floor the model barely moves (faint tilt, strong tooth
+  // marks) lets the stepover wander to fit the marks (Bates & Watts 1988, prior as data).
+  res.stepover0_mm = stepover;
+  {
+    Eigen::VectorXd meas(static_cast<int>(w.index.size()));
+    for (size_t k = 0; k < w.index.size(); ++k) {
+      meas[static_cast<int>(k)] = w.measured.z_um(w.index[k] / w.measured.nx, w.index[k] % w.measured.nx);
+    }
+    const double scale = rms(meas - w.q * (w.q.transpose() * meas));
+    res.prior_weight = scale / std::max(e.stepover.sigma_mm, 1e-6 * stepover);
+  }
+  for (int k = 0; k < kFitParams; ++k) {
+    if (fit.free[static_cast<size_t>(k)]) res.free_index.push_back(k);
+  }
+
+  // Start search: the cost is periodic in the offset and has a fold at zero along-tilt (the
+  // revolving envelope is the same with the lowest point ahead or behind), so LM starts from the
+  // best of a coarse grid rather than from zero.
+  std::vector<std::pair<double, Eigen::VectorXd>> starts;
+  std::vector<double> alongs{0.0}, acrosses{0.0};
+  if (tilt_shows) {
+    alongs.assign(std::begin(kStartAlongDeg), std::end(kStartAlongDeg));
+    acrosses.assign(std::begin(kStartAcrossDeg), std::end(kStartAcrossDeg));
+  }
+  for (int s = 0; s < kStartOffsets; ++s) {
+    for (double along : alongs) {
+      for (double across : acrosses) {
+        Eigen::VectorXd p = res.full;
+        p[kOffsetMm] = (s + 0.5) * stepover / kStartOffsets - 0.5 * stepover;
+        p[kTiltAlongDeg] = along;
+        p[kTiltAcrossDeg] = across;
+        Eigen::VectorXd f0;
+        Eigen::VectorXd xs(res.inputs());
+        for (int i = 0; i < res.inputs(); ++i) xs[i] = p[res.free_index[static_cast<size_t>(i)]];
+        FitResidual at = res;
+        at.full = p;
+        at(xs, f0);
+        res.sweeps = at.sweeps;
+        starts.emplace_back(f0.squaredNorm(), p);
+      }
+    }
+  }
+  // The solver from the few best starts; the lowest optimum wins (the faint floors of small
+  // tilts have neighbouring basins a single start can fall into).
+  std::sort(starts.begin(), starts.end(),
+            [](const auto& l, const auto& r) { return l.first < r.first; });
+  const FitResidual base = res;
+  double best_cost = std::numeric_limits<double>::infinity();
+  Eigen::VectorXd best_x;
+  for (size_t k = 0; k < std::min<size_t>(kSolverStarts, starts.size()); ++k) {
+    FitResidual trial = base;
+    trial.full = starts[k].second;
+    Eigen::VectorXd xk(trial.inputs());
+    for (int i = 0; i < trial.inputs(); ++i) {
+      xk[i] = trial.full[trial.free_index[static_cast<size_t>(i)]];
+    }
+    Eigen::LevenbergMarquardt<FitResidual> lm(trial);
+    lm.parameters.maxfev = kMaxSolverSweeps;
+    lm.parameters.xtol = kSolverTolerance;
+    lm.parameters.ftol = kSolverTolerance;
+    const int status = static_cast<int>(lm.minimize(xk));
+    res.sweeps += trial.sweeps;
+    Eigen::VectorXd fk;
+    trial(xk, fk);
+    ++res.sweeps;
+    if (fk.squaredNorm() < best_cost) {
+      best_cost = fk.squaredNorm();
+      best_x = trial.expand(xk);
+      fit.solver_status = status;
+    }
+  }
+  res.full = best_x;
+  // The envelope cannot tell the lowest point ahead from behind: report the fold >= 0.
+  res.full[kTiltAlongDeg] = std::abs(res.full[kTiltAlongDeg]);
+  Eigen::VectorXd x(res.inputs());
+  for (int k = 0; k < res.inputs(); ++k) x[k] = res.full[res.free_index[static_cast<size_t>(k)]];
+  fit.params = res.full;
+
+  // Covariance at the optimum: sigma^2 (J^T J)^-1, sigma^2 = |r|^2 / (m - free - 3 plane).
+  Eigen::VectorXd f;
+  res(x, f);
+  Eigen::MatrixXd jac;
+  res.df(x, jac);
+  const int dof = std::max(1, res.samples() - res.inputs() - 3);
+  const double var = f.head(res.samples()).squaredNorm() / dof;
+  const Eigen::MatrixXd jtj = jac.transpose() * jac;
+  const Eigen::MatrixXd inv = jtj.completeOrthogonalDecomposition().pseudoInverse();
+  fit.covariance = Eigen::MatrixXd::Zero(kFitParams, kFitParams);
+  for (int a = 0; a < res.inputs(); ++a) {
+    for (int b = 0; b < res.inputs(); ++b) {
+      fit.covariance(res.free_index[a], res.free_index[b]) = var * inv(a, b);
+    }
+  }
+  // A column the floor does not move (a parameter it does not show) has no inverse: give it an
+  // infinite sigma rather than the pseudo-inverse's zero.
+  for (int a = 0; a < res.inputs(); ++a) {
+    if (jtj(a, a) <= 0.0) {
+      fit.covariance(res.free_index[a], res.free_index[a]) =
+          std::numeric_limits<double>::infinity();
+    }
+  }
+  fit.residual_rms_um = rms(f.head(res.samples()));
+  fit.evaluations = res.sweeps;
+
+  // The plane of measured minus simulated, with its standard errors sigma^2 (A^T A)^-1.
+  const Eigen::VectorXd r = res.raw(fit.params);
+  const Eigen::Vector3d c = w.basis.colPivHouseholderQr().solve(r);
+  const Eigen::Matrix3d ata_inv = (w.basis.transpose() * w.basis).inverse();
+  fit.setup_plane.x0_mm = w.x0_mm;
+  fit.setup_plane.y0_mm = w.y0_mm;
+  fit.setup_plane.z0_um = c[0];
+  fit.setup_plane.gx_um_per_mm = c[1];
+  fit.setup_plane.gy_um_per_mm = c[2];
+  fit.plane_sigma_gx_um_per_mm = std::sqrt(var * ata_inv(1, 1));
+  fit.plane_sigma_gy_um_per_mm = std::sqrt(var * ata_inv(2, 2));
+
+  // Window pictures: measured and simulated on one datum (measured minus the fitted plane).
+  fit.measured = w.measured;
+  fit.simulated = simulate_fit_window(fit.model, fit.params);
+  ++fit.evaluations;
+  fit.residual = w.measured;
+  Eigen::VectorXd meas(res.samples());
+  for (int k = 0; k < res.samples(); ++k) {
+    const int i = w.index[static_cast<size_t>(k)];
+    const int a = i % w.measured.nx, b = i / w.measured.nx;
+    const float plane = static_cast<float>(fit.setup_plane.at(w.measured.x_mm(a), w.measured.y_mm(b)));
+    fit.measured.z_um(b, a) -= plane;
+    fit.residual.z_um(b, a) = fit.measured.z_um(b, a) - fit.simulated.z_um(b, a);
+    meas[k] = w.measured.z_um(b, a);
+  }
+  const Eigen::VectorXd detrended = meas - w.q * (w.q.transpose() * meas);
+  fit.measured_rms_um = rms(detrended);
+  return fit;
+}
+
+}  // namespace cuspmap

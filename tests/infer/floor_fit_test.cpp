@@ -1,0 +1,156 @@
+// Round trips for the inverse simulation: floors simulated with known tilt (magnitude and
+// direction), stepover and pass pattern, damaged like a measurement (noise, a setup plane,
+// missing points), read back by surface_estimates + fit_floor.
+#include "infer/floor_fit.h"
+
+#include <catch2/catch.hpp>
+#include <chrono>
+#include <cmath>
+
+#include "infer/diagnose_floors.h"
+#include "infer/fit_uncertainty.h"
+#include "infer/fit_verdict.h"
+#include "test_support.h"
+
+namespace cuspmap {
+namespace {
+
+double angle_error_deg(double got, double want) {
+  const double d = std::fmod(std::abs(got - want), 360.0);
+  return std::min(d, 360.0 - d);
+}
+
+// A tilted flat end mill on a raster (revolving envelope), measured-like.
+Heightfield tilted_flat_floor(RasterDirection dir, double tilt_deg, double toward_deg,
+                              double stepover_mm) {
+  Job job = test::raster_job(CutterShape::Flat, 3.0, stepover_mm, 8.0, 0.02, 0.05, 2);
+  job.sim.tooth_marks = false;
+  job.cutter.dish_deg = 1.0;
+  job.cutter.tilt_deg = tilt_deg;
+  job.cutter.tilt_toward_deg = toward_deg;
+  job.path.direction = dir;
+  // The interior 6 x 6 mm: a pass missing beyond the patch edge changes the floor up to
+  // R - s = 0.3 mm inside it (derived); a measured field lies inside its part likewise.
+  Heightfield hf = test::crop(test::simulate(job), 50);
+  test::damage(hf, 0.02, 1.5, -0.7, 0.02, 31u);
+  return hf;
+}
+
+}  // namespace
+
+TEST_CASE("fit_floor: tilted flat, one-way and zigzag, recovers tilt, direction, stepover",
+          "[infer]") {
+  for (RasterDirection dir : {RasterDirection::OneWay, RasterDirection::Zigzag}) {
+    CAPTURE(dir == RasterDirection::Zigzag);
+    const double tilt = 0.05, toward = 30.0, stepover = 1.2;
+    const Heightfield hf = tilted_flat_floor(dir, tilt, toward, stepover);
+    SurfaceOptions so;
+    so.lay_deg = 0.0;
+    const SurfaceEstimates e = surface_estimates(hf, so);
+    FloorFitOptions o;
+    o.cutter.shape = CutterShape::Flat;
+    o.cutter.diameter_mm = 3.0;
+    o.cutter.dish_deg = 1.0;
+    o.direction = dir;
+    o.threads = 2;
+    const auto t0 = std::chrono::steady_clock::now();
+    const FloorFit fit = fit_floor(hf, e, o);
+    const double secs =
+        std::chrono::duration<double>(std::chrono::steady_clock::now() - t0).count();
+    const FittedErrors f = fitted_errors(fit);
+    CAPTURE(secs, fit.evaluations, fit.residual_rms_um, f.tilt_deg.value, f.tilt_deg.sigma,
+            f.tilt_toward_deg.value, f.tilt_toward_deg.sigma, f.tilt_toward_alt_deg,
+            f.stepover_mm.value, f.stepover_mm.sigma, f.tilt_along_deg.value,
+            f.tilt_across_deg.value);
+    // Issue 17's tolerances: tilt within 10 % or 0.002 deg, and within its reported uncertainty
+    // (3 sigma); direction within 10 deg (of one of the two candidates the envelope allows:
+    // lowest point ahead or behind, derived); stepover within 1 %.
+    REQUIRE(std::abs(f.tilt_deg.value - tilt) <= std::max(0.1 * tilt, 0.002));
+    REQUIRE(std::abs(f.tilt_deg.value - tilt) <= 3.0 * f.tilt_deg.sigma + 1e-4);
+    const double dir_err = std::min(angle_error_deg(f.tilt_toward_deg.value, toward),
+                                    angle_error_deg(f.tilt_toward_alt_deg, toward));
+    REQUIRE(dir_err <= 10.0);
+    REQUIRE(std::abs(f.stepover_mm.value - stepover) <= 0.01 * stepover);
+    REQUIRE(std::abs(f.stepover_mm.value - stepover) <= 3.0 * f.stepover_mm.sigma + 1e-5);
+    // The added setup plane (1.5 and -0.7 um/mm; the tilted floor itself has no mean slope
+    // beyond its saw-tooth, which the model carries).
+    REQUIRE_NEAR(f.setup_gx_um_per_mm.value, 1.5, 0.05);
+    REQUIRE_NEAR(f.setup_gy_um_per_mm.value, -0.7, 0.05);
+    // The residual is the added noise (0.02 um rms) and little else.
+    REQUIRE(fit.residual_rms_um < 0.03);
+  }
+}
+
+TEST_CASE("fit_floor: heel lifted, tilt along the feed bounded, not measured", "[infer]") {
+  // 6 mm flat end mill, 1 deg dish, tilted 0.05 deg toward +X, one-way passes toward +X,
+  // tooth-resolved (the floor of surface_estimates_test's heel case): only the leading rim
+  // marks the floor. Along the feed the tilt changes the floor by tan(0.05 deg) (3 - sqrt(9 -
+  // 0.25)) mm = 0.037 um (derived, DESIGN.md first-order tilt), under the tooth marks the
+  // envelope model leaves in the residual: the fit may only bound it.
+  Job job = test::raster_job(CutterShape::Flat, 6.0, 1.0, 8.0, 0.02, 0.1, 2);
+  job.cutter.dish_deg = 1.0;
+  job.cutter.tilt_deg = 0.05;
+  job.cutter.tilt_toward_deg = 0.0;
+  Heightfield hf = test::crop(test::simulate(job), 75);  // interior 5 x 5 mm
+  test::damage(hf, 0.005, 0.8, 0.3, 0.01, 11u);
+  SurfaceOptions so;
+  so.lay_deg = 0.0;
+  const SurfaceEstimates e = surface_estimates(hf, so);
+  REQUIRE(e.heel == "lifted");
+  FloorFitOptions o;
+  o.cutter = job.cutter;
+  o.threads = 2;
+  const FloorFit fit = fit_floor(hf, e, o);
+  const FittedErrors f = fitted_errors(fit);
+  const FitVerdict v = fit_verdict(f, fit, e);
+  CAPTURE(f.tilt_along_deg.value, f.tilt_along_deg.sigma, f.tilt_along_deg.bound,
+          f.tilt_across_deg.value, f.tilt_across_deg.sigma, v.heel_min_tilt_deg,
+          fit.residual_rms_um);
+  REQUIRE(v.heel_lifted);
+  // The true 0.05 deg lies between the heel's lower bound and the fit's upper bound (or, when
+  // the fit resolves it, within its uncertainty and issue 17's 10 % / 0.002 deg).
+  REQUIRE(v.heel_min_tilt_deg <= 0.05);
+  if (f.tilt_along_deg.resolved) {
+    REQUIRE(std::abs(f.tilt_along_deg.value - 0.05) <= std::max(0.005, 3 * f.tilt_along_deg.sigma));
+  } else {
+    REQUIRE(f.tilt_along_deg.bound >= 0.05);
+  }
+  // No tilt across the feed (derived: tilt toward +X is along the passes).
+  REQUIRE(std::abs(f.tilt_across_deg.value) <= std::max(0.002, 3 * f.tilt_across_deg.sigma));
+  bool says_lifted = false;
+  for (const std::string& line : v.lines) says_lifted |= line.find("heel is lifted") != std::string::npos;
+  REQUIRE(says_lifted);
+  // Stepover within 1 % (issue 17).
+  REQUIRE(std::abs(f.stepover_mm.value - 1.0) <= 0.01);
+}
+
+TEST_CASE("fit_floor: ball floor fits stepover and plane, refuses tilt", "[infer]") {
+  // 6 mm ball, stepover 0.3 mm, zigzag, tooth-resolved, noise, plane and missing points.
+  Job job = test::raster_job(CutterShape::Ball, 6.0, 0.3, 3.0, 0.01, 0.08, 2);
+  job.path.direction = RasterDirection::Zigzag;
+  Heightfield hf = test::crop(test::simulate(job), 30);  // interior 2.4 x 2.4 mm
+  test::damage(hf, 0.02, 2.0, -1.0, 0.01, 17u);
+  const SurfaceEstimates e = surface_estimates(hf, {});
+  FloorFitOptions o;
+  o.cutter = job.cutter;
+  o.direction = RasterDirection::Zigzag;
+  o.threads = 2;
+  const FloorFit fit = fit_floor(hf, e, o);
+  const FittedErrors f = fitted_errors(fit);
+  const FitVerdict v = fit_verdict(f, fit, e);
+  CAPTURE(f.stepover_mm.value, f.stepover_mm.sigma, fit.residual_rms_um, fit.measured_rms_um);
+  REQUIRE(!f.tilt_deg.fitted);
+  // Issue 17: within 1 %. Not checked against sigma here: the residual is the feed marks the
+  // envelope model lacks, correlated along every pass, so sigma from independent residuals is
+  // a lower bound (docs/diagnose.md); the noise-only floors above check the sigma.
+  REQUIRE(std::abs(f.stepover_mm.value - 0.3) <= 0.003);
+  REQUIRE_NEAR(f.setup_gx_um_per_mm.value, 2.0, 0.05);
+  REQUIRE_NEAR(f.setup_gy_um_per_mm.value, -1.0, 0.05);
+  // The ball's cusps (3.75 um, Machinery's Handbook) are matched: what is left is the feed
+  // marks and the noise, well under the measured rms.
+  REQUIRE(fit.residual_rms_um < 0.5 * fit.measured_rms_um);
+  REQUIRE(!v.cannot_tell.empty());
+  CHECK(v.cannot_tell.front().find("ball") != std::string::npos);
+}
+
+}  // namespace cuspmap
