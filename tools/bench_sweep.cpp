@@ -11,6 +11,9 @@
 #include <thread>
 #include <vector>
 
+#include "job/job.h"
+#include "job/run_estimate.h"
+#include "path/build_toolpath.h"
 #include "path/raster.h"
 #include "sweep/brute_force_stamp.h"
 #include "sweep/bin_moves.h"
@@ -237,6 +240,36 @@ BENCHMARK(BM_TeethFlat)
     ->Iterations(1)
     ->MeasureProcessCPUTime()
     ->UseRealTime();
+
+// Tooth-resolved sweeps of example jobs, the run forecast's calibration (job/run_estimate.cpp,
+// docs/performance.md "Run forecast"): counters give the sweep's visits per move kind
+// (teeth_work) and the forecast wall time; compare it with the measured wall time (unloaded
+// machine) or half the process CPU time (2 threads, loaded machine).
+void BM_TeethExample(benchmark::State& state, const char* example) {
+  cuspmap::Job job = load_job(std::string(CUSPMAP_SOURCE_DIR) + "/" + example);
+  job.sim.tooth_marks = true;
+  job.sim.threads = 2;
+  const BuiltPath built = build_toolpath(job.path, job.cut, job.patch, job.cutter);
+  CutSpec cut = job.cut;
+  cut.spindle = built.spindle;
+  for (auto _ : state) {
+    const Heightfield hf = simulate_floor(job.cutter, built.path, cut, job.patch, job.sim);
+    benchmark::DoNotOptimize(hf.z_um.data());
+  }
+  const TeethWork work = teeth_work(job.cutter, built.path, cut, job.patch);
+  state.counters["line_visits"] = work.line_visits;
+  state.counters["arc_visits"] = work.arc_visits;
+  state.counters["families"] = work.families;
+  state.counters["forecast_s"] = teeth_sweep_seconds(work);
+}
+BENCHMARK_CAPTURE(BM_TeethExample, flat_zigzag_tram, "examples/pump_cover_flat_zigzag_tram.toml")
+    ->Unit(benchmark::kMillisecond)->Iterations(1)->MeasureProcessCPUTime()->UseRealTime();
+BENCHMARK_CAPTURE(BM_TeethExample, flat_one_way, "examples/pump_cover_flat_oneway.toml")
+    ->Unit(benchmark::kMillisecond)->Iterations(1)->MeasureProcessCPUTime()->UseRealTime();
+BENCHMARK_CAPTURE(BM_TeethExample, trochoidal, "examples/bracket_trochoidal.toml")
+    ->Unit(benchmark::kMillisecond)->Iterations(1)->MeasureProcessCPUTime()->UseRealTime();
+BENCHMARK_CAPTURE(BM_TeethExample, pocket_gcode, "examples/bracket_pocket_gcode.toml")
+    ->Unit(benchmark::kMillisecond)->Iterations(1)->MeasureProcessCPUTime()->UseRealTime();
 
 }  // namespace
 }  // namespace cuspmap

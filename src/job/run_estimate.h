@@ -1,10 +1,13 @@
 // A rough forecast of one simulate run before it starts: grid cells, wall time and peak memory,
-// from the grid size, the sweep kind and whether the floor is streamed in bands.
-// Inputs: grid columns/rows, tooth_marks, streamed (+ band bytes); output: RunEstimate.
-// Method: cell rates measured on the reference 2-core machine (docs/performance.md), derived.
+// from the grid size, the sweep kind and whether the floor is streamed in bands; tooth-resolved
+// runs from the sweep's own cell visits per move kind (sweep/teeth_work.h).
+// Inputs: grid columns/rows, tooth_marks, streamed (+ band bytes), TeethWork; output: RunEstimate.
+// Method: rates measured on the reference 2-core machine (docs/performance.md), derived.
 #pragma once
 
 #include <cstdint>
+
+#include "sweep/teeth_work.h"
 
 namespace cuspmap {
 
@@ -17,23 +20,17 @@ struct RunEstimate {
   std::int64_t bytes = 0;     ///< expected peak memory of the grids, bytes
 };
 
-/// What the tooth-resolved sweep's cost depends on (all > 0 when tooth_marks is set).
-struct ToothWork {
-  double path_length_mm = 0.0;   ///< feed and rapid moves
-  double diameter_mm = 0.0;      ///< cutter diameter D
-  double cell_mm = 0.0;          ///< grid cell
-  double rpm = 0.0;              ///< spindle speed
-  double feed_mm_per_min = 0.0;  ///< cutting feed
-  int teeth = 1;                 ///< flutes
-};
-
 /// Forecasts a run.
 /// @param[in] nx, ny       grid columns and rows, >= 0
 /// @param[in] tooth_marks  tooth-resolved sweep
 /// @param[in] streamed     swept in bands (two passes) instead of in memory
 /// @param[in] band_bytes   bytes of one band when streamed (ignored otherwise)
-/// @param[in] work         tooth-resolved cost inputs (ignored for the envelope)
+/// @param[in] work         the tooth-resolved sweep's cell visits (teeth_work; ignored for the
+///                         envelope)
 RunEstimate estimate_run(std::int64_t nx, std::int64_t ny, bool tooth_marks, bool streamed,
-                         std::int64_t band_bytes, const ToothWork& work = {});
+                         std::int64_t band_bytes, const TeethWork& work = {});
+
+/// Wall time of the tooth-resolved sweep alone (one pass), s, on the reference machine.
+double teeth_sweep_seconds(const TeethWork& work);
 
 }  // namespace cuspmap

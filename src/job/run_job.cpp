@@ -53,10 +53,11 @@ bool should_stream(const Patch& patch, const RunOptions& options) {
   return heightfield_bytes(patch) > limit / kInMemoryGrids;
 }
 
-// What the tooth-resolved sweep's cost depends on, for the forecast.
-ToothWork tooth_work(const Job& job, const JobRun& run) {
-  return {run.path_length_mm, job.cutter.diameter_mm, run.patch.cell_mm, job.cut.rpm,
-          job.cut.feed_mm_per_min, job.cutter.teeth};
+// What the tooth-resolved sweep's cost depends on, for the forecast: its cell visits per move
+// kind (counted only when the run is tooth-resolved; O(moves x rows)).
+TeethWork tooth_work(const Job& job, const CutSpec& cut, const SimSpec& sim, const JobRun& run) {
+  if (!sim.tooth_marks) return {};
+  return teeth_work(job.cutter, run.built.path, cut, run.patch);
 }
 
 void set_cusp(const std::vector<ProfileTrace>& across_lay, JobRun& run) {
@@ -72,7 +73,7 @@ void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
   if (options.stream_begin) options.stream_begin(plan.nx, plan.ny);
   if (options.before_sweep) {
     options.before_sweep(estimate_run(plan.nx, plan.ny, sim.tooth_marks, true, plan.band_bytes,
-                                      tooth_work(job, run)));
+                                      tooth_work(job, cut, sim, run)));
   }
   StreamedTexture texture(plan.nx, plan.ny, run.patch.cell_mm, run.patch.origin_x_mm,
                           run.patch.origin_y_mm, lay_options(job, options),
@@ -149,7 +150,8 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   if (options.before_sweep && heightfield_bytes(run.patch) <= limit) {
     std::int64_t nx = 0, ny = 0;
     grid_dimensions(run.patch, nx, ny);
-    options.before_sweep(estimate_run(nx, ny, sim.tooth_marks, false, 0, tooth_work(job, run)));
+    options.before_sweep(
+        estimate_run(nx, ny, sim.tooth_marks, false, 0, tooth_work(job, cut, sim, run)));
   }
   run.floor = simulate_floor(job.cutter, run.built.path, cut, run.patch, sim, &run.sweep);
   split_wall_band(run.built.wall_region_mm, run.floor, run.walls);

@@ -35,9 +35,12 @@ struct ArcHeight {
   const RevolvedProfile& q;
   const PreparedMove& m;
   Eigen::Vector2d p;
+  double e_sin2 = 0.0;  // squared runout across the tooth (0 for the envelope)
   double operator()(double t) const {
     const Eigen::Vector2d v = p - m.point_at(t);
-    return m.z_at(t) + q.height_mm(v.norm()) - s.tilt.dot(v);
+    const double rho =
+        e_sin2 == 0.0 ? v.norm() : std::sqrt(std::max(0.0, v.squaredNorm() - e_sin2));
+    return m.z_at(t) + q.height_mm(rho) - s.tilt.dot(v);
   }
 };
 
@@ -73,15 +76,63 @@ void minimise_stretch(const ArcHeight& f, double ta, double tb, MoveMinima& out)
   }
 }
 
+// Level arc, untilted: h(t) = z + q(rho(d(t))) with d monotone between the closest and the
+// farthest point and q(rho(d)) monotone on either side of d* (rho(d*) = argmin), so between
+// consecutive points of {ends, closest, farthest, d = d*} h is monotone and the local minima
+// are among them (closed forms, no sampling).
+void level_minima(const ArcHeight& f, double argmin_mm, double e_sin_mm, MoveMinima& out) {
+  const PreparedMove& m = f.m;
+  const Eigen::Vector2d rel = f.p - m.centre_mm;
+  const double rho = rel.norm(), ra = m.arc_radius_mm, psi = std::atan2(rel.y(), rel.x());
+  std::array<double, 2 + 6 * 8> ts{};
+  int n = 0;
+  ts[n++] = 0.0;
+  ts[n++] = 1.0;
+  const double phi0 = m.start_angle_rad, sweep = m.sweep_rad;
+  const double lo = std::min(phi0, phi0 + sweep), hi = std::max(phi0, phi0 + sweep);
+  auto add_angles = [&](double centre) {
+    for (double k = std::ceil((lo - centre) / kTwoPi); n < static_cast<int>(ts.size()); k += 1.0) {
+      const double phi = centre + kTwoPi * k;
+      if (phi > hi) break;
+      ts[n++] = std::clamp((phi - phi0) / sweep, 0.0, 1.0);
+    }
+  };
+  if (rho > 0.0) {
+    add_angles(psi);                    // closest
+    add_angles(psi + std::numbers::pi);  // farthest
+    const double d_star2 = argmin_mm * argmin_mm + e_sin_mm * e_sin_mm;
+    const double cd = (rho * rho + ra * ra - d_star2) / (2.0 * rho * ra);
+    if (std::abs(cd) <= 1.0) {
+      const double delta = std::acos(cd);
+      add_angles(psi - delta);
+      add_angles(psi + delta);
+    }
+  }
+  std::sort(ts.begin(), ts.begin() + n);
+  std::array<double, ts.size()> hs{};
+  for (int i = 0; i < n; ++i) hs[i] = f(ts[i]);
+  for (int i = 0; i < n; ++i) {
+    if (i > 0 && ts[i] == ts[i - 1]) continue;
+    if ((i > 0 && hs[i - 1] < hs[i]) || (i + 1 < n && hs[i + 1] < hs[i])) continue;
+    add_minimum(out, ts[i], hs[i]);
+  }
+}
+
 }  // namespace
 
 MoveMinima arc_minima(const SweepSetup& setup, const RevolvedProfile& q, const PreparedMove& move,
-                      const Eigen::Vector2d& p_mm) {
+                      const Eigen::Vector2d& p_mm, double e_sin_mm) {
   MoveMinima out;
   out.value_mm = kInf;
-  const ArcHeight f{setup, q, move, p_mm};
+  const ArcHeight f{setup, q, move, p_mm, e_sin_mm * e_sin_mm};
+  if (move.z0_mm == move.z1_mm && setup.tilt.x() == 0.0 && setup.tilt.y() == 0.0) {
+    level_minima(f, q.argmin_mm, e_sin_mm, out);
+    return out;
+  }
   const Eigen::Vector2d rel = p_mm - move.centre_mm;
-  const double rho = rel.norm(), ra = move.arc_radius_mm, reach = q.reach_mm;
+  // rho <= reach where the distance is within sqrt(reach^2 + e_sin^2).
+  const double rho = rel.norm(), ra = move.arc_radius_mm,
+               reach = std::sqrt(q.reach_mm * q.reach_mm + e_sin_mm * e_sin_mm);
   // |P - c(phi)|^2 = rho^2 + ra^2 - 2 rho ra cos(phi - psi) <= reach^2  <=>  cos >= kc.
   const double denom = 2.0 * rho * ra;
   const double kc =

@@ -23,13 +23,15 @@ struct MoveMinima {
   std::array<double, kMaxMoveMinima> t{};  ///< parameters of local minima, any order
 };
 
-/// Local minima along an arc of h(t) = z(t) + q(|P - c(t)|) - tilt . (P - c(t)).
-/// @param[in] setup  tilt
-/// @param[in] q      the profile to use (setup.envelope, or setup.tooth)
-/// @param[in] move   an Arc move
-/// @param[in] p_mm   the cell centre, patch-local
+/// Local minima along an arc of h(t) = z(t) + q(rho) - tilt . (P - c(t)),
+/// rho = sqrt(|P - c(t)|^2 - e_sin^2).
+/// @param[in] setup     tilt
+/// @param[in] q         the profile to use (setup.envelope, or a ToothFamily's reach)
+/// @param[in] move      an Arc move
+/// @param[in] p_mm      the cell centre, patch-local
+/// @param[in] e_sin_mm  a tooth's runout across its edge (ToothFamily); 0 for the envelope
 MoveMinima arc_minima(const SweepSetup& setup, const RevolvedProfile& q, const PreparedMove& move,
-                      const Eigen::Vector2d& p_mm);
+                      const Eigen::Vector2d& p_mm, double e_sin_mm = 0.0);
 
 /// Envelope height of an arc at a cell, mm above the floor (axial offset not included);
 /// +infinity when out of reach. Closed form for level arcs without tilt, else arc_minima.

@@ -28,6 +28,7 @@ SweepSetup sweep_setup(const Cutter& cutter, const CutSpec& cut, const Patch& pa
   s.axial_min_mm = *std::min_element(s.axial_mm.begin(), s.axial_mm.end());
   const double axial_max = *std::max_element(s.axial_mm.begin(), s.axial_mm.end());
   s.teeth_alike = s.runout_mm == 0.0 && axial_max == s.axial_min_mm;
+  s.families = tooth_families(s.tooth, s.teeth, s.runout_mm, s.runout_phase_rad, s.axial_mm);
   const double sign = cut.spindle == SpindleDirection::Cw ? -1.0 : 1.0;
   s.omega_rad_per_s = sign * 2.0 * std::numbers::pi * cut.rpm / 60.0;
   std::int64_t nx = 0, ny = 0;

@@ -9,6 +9,7 @@
 
 #include "core/heightfield.h"
 #include "path/path_spec.h"
+#include "sweep/tooth_families.h"
 #include "tool/cutter.h"
 #include "tool/revolved_profile.h"
 
@@ -27,6 +28,7 @@ struct SweepSetup {
   double axial_min_mm = 0.0;      ///< lowest axial offset: the revolving envelope's tooth
   double omega_rad_per_s = 0.0;   ///< spindle angular speed, signed (+ = ccw seen from above)
   bool teeth_alike = true;        ///< no runout and equal offsets: teeth differ only in phase
+  std::vector<ToothFamily> families;  ///< teeth grouped for the crossing search (1 when alike)
   int nx = 0;                     ///< grid columns
   int ny = 0;                     ///< grid rows
   double cell_mm = 0.0;           ///< cell size

@@ -121,8 +121,15 @@ std::int64_t sweep_tile(const SweepSetup& setup, const std::vector<PreparedMove>
       if (!row_span(m, y, setup.envelope.reach_mm, cell, tile.i0, tile.i1 - 1, i_lo, i_hi)) {
         continue;
       }
-      sweep_row(setup, m, mode, line_teeth ? &*line_teeth : nullptr, y, i_lo, i_hi, row_of(j));
       visits += i_hi - i_lo + 1;
+      if (line_teeth && m.perp.x() == 0.0) {
+        // A row parallel to the move: one bound for the whole run; skip it when every cell is
+        // already at or below it (the tooth sweep's per-cell test, once per row).
+        const double low_um = line_teeth->row_low_mm((y - m.a_mm.y()) * m.perp.y()) * kUmPerMm;
+        const Eigen::Map<const Eigen::ArrayXf> run(row_of(j) + i_lo, i_hi - i_lo + 1);
+        if (run.maxCoeff() <= low_um) continue;
+      }
+      sweep_row(setup, m, mode, line_teeth ? &*line_teeth : nullptr, y, i_lo, i_hi, row_of(j));
     }
   }
 

@@ -1,9 +1,12 @@
-// Tooth-resolved height an arc, helix or vertical move leaves at a cell. From each local minimum
-// of the revolving envelope along the move, the unwrapped bearing of the cell minus the tooth
-// angle is followed outwards in steps short enough that it cannot skip a tooth, and each
-// crossing is refined by bisection. Cost O(teeth x ~10) bearing evaluations per cell.
+// Tooth-resolved height an arc, helix or vertical move leaves at a cell: the lowest of the tooth
+// edges that pass over it, found without time stepping. Cost O(teeth) root solves per cell
+// next to each local minimum of that tooth's heights along the move.
 // Method: DESIGN.md "Tooth-resolved" (Altintas, Manufacturing Automation, ch. 2; Kline & DeVor
-// 1983 runout), crossings bracketed by a sign change and bisected (Numerical Recipes §9.1).
+// 1983 runout): tooth k passes when the cell's unwrapped bearing from the axis minus the tooth
+// angle hits its lattice. Along an arc the bearing's rate is S ra (ra - rho cos(phi - psi)) / d^2,
+// so the turning points of bearing minus tooth angle are closed forms in phi; between them each
+// crossing is a bracketed Newton root (Numerical Recipes 3rd ed., §9.4, rtsafe). Plunges: the
+// bearing is fixed and crossings are closed forms.
 #pragma once
 
 #include <Eigen/Core>
@@ -15,7 +18,7 @@ namespace cuspmap {
 
 /// Lowest tooth-edge height over a cell from an arc or vertical move, mm above the floor (axial
 /// offsets included); +infinity when no tooth passes, or when the envelope is not below bound_mm.
-/// @param[in] setup     profiles, teeth, runout, tilt, spindle speed
+/// @param[in] setup     profiles, tooth families, tilt, spindle speed
 /// @param[in] move      an Arc move, or a vertical Line
 /// @param[in] p_mm      cell centre, patch-local
 /// @param[in] bound_mm  the cell's current height (mm); +infinity when unreached

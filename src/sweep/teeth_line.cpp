@@ -29,6 +29,9 @@ constexpr double kOnLineOffsetMm = 1e-12;
 constexpr double kWalkRevolutions = 2.0;
 // Plain Newton from a minimum converges in 2-4 steps on a monotone bearing; more means trouble.
 constexpr int kNewtonSteps = 8;
+// Newton steps shorter than this (mm) are in the quadratic regime, where the error estimate
+// |F''| h^2 / |F'| holds: a hundredth of the shortest crossing spacing of practical feeds.
+constexpr double kAsymptoticStepMm = 1e-4;
 // Largest angle step (rad, as its tangent) summed by series instead of a library call.
 constexpr double kSeriesMaxArg = 0.1;
 constexpr double kNaN = std::numeric_limits<double>::quiet_NaN();
@@ -44,6 +47,7 @@ struct Settled {
 struct Family {
   double target = 0.0;  // F(x) = target (mod period) at a crossing, rad
   double period = kTwoPi;
+  double inv_period = 1.0 / kTwoPi;
   double e_sin = 0.0;  // runout across the tooth (mm): bearing offset asin(e_sin / d)
   double e_cos = 0.0;  // runout along the tooth (mm): the edge radius is d cos(offset) - e_cos
   double axial_mm = 0.0;
@@ -52,6 +56,8 @@ struct Family {
 struct Crossings {
   const SweepSetup& s;
   double w, w2, kappa, c, k, lo, hi;
+  double walk_mm;  // kWalkRevolutions of travel
+  double turn_mm;  // |x| of the turning points of atan2(w, x) + kappa x; 0 when there are none
 
   double offset(const Family& f, double d) const {
     return f.e_sin == 0.0 ? 0.0 : std::asin(std::clamp(f.e_sin / d, -1.0, 1.0));
@@ -87,6 +93,18 @@ struct Crossings {
       if (std::abs(ratio) < 1.0) slope += ratio * (x / d2) / std::sqrt(1.0 - ratio * ratio);
     }
     return slope;
+  }
+  // Second derivative of the bearing without the runout term, 2 w x / d^4 (the runout adds
+  // under e / d^3, far smaller): only used to start Newton.
+  double curvature(const Family&, double x) const {
+    const double d2 = w2 + x * x;
+    return 2.0 * w * x / (d2 * d2);
+  }
+  // An upper bound of |F''| near x, runout included (|d^2/dx^2 asin(e/d)| <= 2 e / d^3 for
+  // e << d, derived), for the convergence test.
+  double curvature_bound(const Family& f, double x) const {
+    const double d2 = w2 + x * x;
+    return std::abs(2.0 * w * x) / (d2 * d2) + 2.0 * std::abs(f.e_sin) / (d2 * std::sqrt(d2));
   }
   // Root of bearing = target between a and b (bearing - target changes sign over [a, b]).
   double solve(const Family& f, double a, double b, double target) const {
@@ -131,21 +149,20 @@ struct Crossings {
   }
   // Nearest crossing from x0 (cell bearing a0 = atan2(w, x0), f0 = bearing_at there) walking in
   // direction `dir` (+1/-1); NaN when none within reach.
-  double walk(const Family& f, double x0, double a0, double f0, double dir) const {
-    const double limit = std::clamp(x0 + dir * kWalkRevolutions * kTwoPi / std::abs(kappa), lo, hi);
+  double walk(const Family& f, double x0, double a0, double f0, double s0,
+              const BearingSeries& series, double dir) const {
+    const double limit = std::clamp(x0 + dir * walk_mm, lo, hi);
     if ((limit - x0) * dir <= 0.0) return kNaN;
-    // Turning points of atan2(w, x) + kappa x: w / (x^2 + w^2) = kappa.
     std::array<double, 3> ends{};
     int n = 0;
-    const double q = w / kappa - w2;
-    if (w / kappa > 0.0 && q > 0.0) {
-      const double xc = std::sqrt(q);
+    if (turn_mm > 0.0) {
+      const double xc = turn_mm;
       for (double t : {dir * -xc, dir * xc}) {  // in walking order
         if ((t - x0) * dir > 0.0 && (limit - t) * dir > 0.0) ends[n++] = t;
       }
     }
     if (n == 0) {
-      const Settled r = newton_from(f, x0, a0, f0, dir, limit);
+      const Settled r = newton_from(f, x0, a0, f0, s0, series, dir, limit);
       if (r.settled) return r.x;  // the root, or NaN: none within reach
     }
     ends[n++] = limit;
@@ -166,14 +183,24 @@ struct Crossings {
   }
   // On a monotone stretch: the first lattice value in the direction the bearing moves, reached
   // by plain Newton from x0. Not settled when Newton wanders (the bracketed search takes over).
-  Settled newton_from(const Family& f, double x0, double a0, double f0, double dir,
-                      double limit) const {
-    const double s0 = bearing_slope(f, x0);
+  Settled newton_from(const Family& f, double x0, double a0, double f0, double s0,
+                      const BearingSeries& series, double dir, double limit) const {
     if (s0 == 0.0) return {};
     const bool rising = s0 * dir > 0.0;
-    const double target = rising ? f.target + f.period * std::ceil((f0 - f.target) / f.period)
-                                 : f.target + f.period * std::floor((f0 - f.target) / f.period);
-    double x = x0 + (target - f0) / s0;
+    const double steps = (f0 - f.target) * f.inv_period;
+    const double target = f.target + f.period * (rising ? std::ceil(steps) : std::floor(steps));
+    // Closed form first: the series root with its error bound (no runout), settled when the
+    // bound is met and the root is clearly inside or beyond the stretch.
+    const double h = bearing_series_root(series, target - f0, kRootTolMm);
+    if (h == h) {
+      const double xs = x0 + h;
+      if ((xs - limit) * dir > kRootTolMm) return {true, kNaN};
+      if ((xs - x0) * dir >= 0.0 && (limit - xs) * dir > kRootTolMm) return {true, xs};
+    }
+    // Second-order start: F(x0 + h) ~ f0 + s0 h + F'' h^2 / 2 = target, solved by one fixed-point
+    // step, so the first Newton step usually lands within the tolerance.
+    const double delta = (target - f0) / s0;
+    double x = x0 + delta - 0.5 * curvature(f, x0) / s0 * delta * delta;
     double x_ref = x0, angle_ref = a0;
     for (int it = 0; it < kNewtonSteps; ++it) {
       if ((x - x0) * dir < 0.0) return {};  // went backwards: not monotone enough here
@@ -186,9 +213,14 @@ struct Crossings {
       const double angle = angle_from(x, x_ref, angle_ref);
       x_ref = x;
       angle_ref = angle;
-      const double step = (bearing_at(f, x, angle) - target) / bearing_slope(f, x);
+      const double slope = bearing_slope(f, x);
+      const double step = (bearing_at(f, x, angle) - target) / slope;
       x -= step;
-      if (std::abs(step) < kRootTolMm) {
+      // Newton converges quadratically: after a step h the error is about |F''| h^2 / (2 |F'|)
+      // (Numerical Recipes §9.4), so a short enough step needs no further evaluation.
+      if (std::abs(step) < kRootTolMm ||
+          (std::abs(step) < kAsymptoticStepMm &&
+           std::abs(curvature_bound(f, x) / slope) * step * step < kRootTolMm)) {
         if ((x - x0) * dir < 0.0 || (x - limit) * dir > 0.0) return {};
         return {true, x};
       }
@@ -208,6 +240,70 @@ LineTeeth::LineTeeth(const SweepSetup& setup, const PreparedMove& move)
   const double speed = length / move.duration_s;  // XY mm/s
   kappa_ = setup.omega_rad_per_s / speed;         // tooth angle per mm of travel
   phase0_ = move.spindle_phase_rad - std::atan2(move.dir.y(), move.dir.x());
+  walk_mm_ = kWalkRevolutions * kTwoPi / std::abs(kappa_);
+}
+
+void LineTeeth::prepare_chord(double w_mm, double lo, double hi) {
+  if (cached_ && w_mm == cache_w_ && lo == cache_lo_ && hi == cache_hi_) return;
+  const std::vector<ToothFamily>& families = setup_.families;
+  // A new chord: per family, the local minima of that tooth's heights along it. Each tooth
+  // reaches its own radius (R plus its share of the runout), and its lowest crossing lies
+  // next to its own minima, not the revolving envelope's (issue 13: near the reach limit the
+  // envelope is flat and says nothing about where a given tooth is lowest). The cell's
+  // bearing at each (atan2(w, -x) = +-pi - atan2(w, x), so the two rim ends of a dished face
+  // share one library call).
+  minima_.resize(families.size());
+  angles_.resize(families.size());
+  starts_.resize(families.size());
+  low_mm_ = kInf;
+  for (std::size_t f = 0; f < families.size(); ++f) {
+    ChordMin& m = minima_[f];
+    m = chord_min(families[f].reach, family_offset_mm(families[f], w_mm), slope_, lo, hi, true);
+    if (m.count == 0 && m.value_mm < kInf) {  // rounding only: the global minimum qualifies
+      m.candidates[0] = {m.x_mm, m.value_mm};
+      m.count = 1;
+    }
+    low_mm_ = std::min(low_mm_, m.value_mm + families[f].axial_mm);
+    for (int i = 0; i < m.count; ++i) {
+      const double x0 = m.candidates[i].x_mm;
+      angles_[f][i] = (i > 0 && x0 == -m.candidates[0].x_mm && x0 != 0.0)
+                          ? std::copysign(std::numbers::pi, w_mm) - angles_[f][0]
+                          : std::atan2(w_mm, x0);
+      const ToothFamily& tf = families[f];
+      Start& st = starts_[f][i];
+      st.f0 = angles_[f][i] + kappa_ * x0;
+      if (tf.e_sin_mm != 0.0) {
+        const double d = std::sqrt(w_mm * w_mm + x0 * x0);
+        st.f0 -= std::asin(std::clamp(tf.e_sin_mm / d, -1.0, 1.0));
+        st.series = BearingSeries{};  // the runout offset is not in the series: Newton
+      } else {
+        st.series = bearing_series(w_mm, kappa_, x0, tf.period_rad);
+      }
+      Family fam;
+      fam.e_sin = tf.e_sin_mm;
+      const Crossings at{setup_, w_mm, w_mm * w_mm, kappa_, 0, 0, 0, 0, 0, 0};
+      st.s0 = at.bearing_slope(fam, x0);
+    }
+  }
+  // Turning points of atan2(w, x) + kappa x: w / (x^2 + w^2) = kappa.
+  const double q = w_mm / kappa_ - w_mm * w_mm;
+  turn_mm_ = (w_mm / kappa_ > 0.0 && q > 0.0) ? std::sqrt(q) : 0.0;
+  cached_ = true;
+  cache_w_ = w_mm;
+  cache_lo_ = lo;
+  cache_hi_ = hi;
+}
+
+double LineTeeth::row_low_mm(double w_mm) {
+  // A ramp's chord carries the rise, which cells beyond the move's ends extrapolate: no bound.
+  if (rise_ != 0.0) return -kInf;
+  const double reach = setup_.envelope.reach_mm;
+  if (w_mm == 0.0) w_mm = setup_.omega_rad_per_s > 0.0 ? -kOnLineOffsetMm : kOnLineOffsetMm;
+  if (w_mm * w_mm > reach * reach) return kInf;
+  // Every cell's chord lies within the whole chord [-half, half], whose minima are no higher.
+  const double half = std::sqrt(reach * reach - w_mm * w_mm);
+  prepare_chord(w_mm, -half, half);
+  return move_.z0_mm - w_mm * tilt_across_ + low_mm_;
 }
 
 double LineTeeth::height_mm(double u_mm, double w_mm, double bound_mm) {
@@ -216,57 +312,41 @@ double LineTeeth::height_mm(double u_mm, double w_mm, double bound_mm) {
   if (w_mm == 0.0) w_mm = setup_.omega_rad_per_s > 0.0 ? -kOnLineOffsetMm : kOnLineOffsetMm;
   const double w2 = w_mm * w_mm;
   if (w2 > reach * reach) return kInf;
-  const double half = std::sqrt(reach * reach - w2);
+  if (!(w_mm == half_w_)) {  // the chord's half length, once per lateral offset (a row)
+    half_w_ = w_mm;
+    half_ = std::sqrt(reach * reach - w2);
+  }
+  const double half = half_;
   const double lo = std::max(u_mm - length, -half), hi = std::min(u_mm, half);
   if (!(lo <= hi)) return kInf;
 
   const double c = move_.z0_mm + rise_ * u_mm - w_mm * tilt_across_;
-  if (!(cached_ && w_mm == cache_w_ && lo == cache_lo_ && hi == cache_hi_)) {
-    // A new chord: its local minima and the cell's bearing there (atan2(w, -x) = +-pi -
-    // atan2(w, x), so the two rim ends of a dished face share one library call).
-    minima_ = chord_min(setup_.envelope, w_mm, slope_, lo, hi, true);
-    if (minima_.count == 0) {  // rounding only: the global minimum always qualifies
-      minima_.candidates[0] = {minima_.x_mm, minima_.value_mm};
-      minima_.count = 1;
-    }
-    for (int i = 0; i < minima_.count; ++i) {
-      const double x0 = minima_.candidates[i].x_mm;
-      angles_[i] = (i > 0 && x0 == -minima_.candidates[0].x_mm && x0 != 0.0)
-                       ? std::copysign(std::numbers::pi, w_mm) - angles_[0]
-                       : std::atan2(w_mm, x0);
-    }
-    cached_ = true;
-    cache_w_ = w_mm;
-    cache_lo_ = lo;
-    cache_hi_ = hi;
-  }
-  if (!(c + minima_.value_mm + setup_.axial_min_mm < bound_mm)) return kInf;
+  prepare_chord(w_mm, lo, hi);
+  if (!(c + low_mm_ < bound_mm)) return kInf;
 
-  const Crossings cr{setup_, w_mm, w2, kappa_, c, slope_, lo, hi};
+  const std::vector<ToothFamily>& families = setup_.families;
+  const Crossings cr{setup_, w_mm, w2, kappa_, c, slope_, lo, hi, walk_mm_, turn_mm_};
   // Tooth k passes when atan2(w, x) + kappa x - offset = theta_0 + kappa u + 2 pi k / Z - dir
   // angle (mod 2 pi), x = u - s the cell's lead over the axis.
   const double base = phase0_ + kappa_ * u_mm;
-  const int families = setup_.teeth_alike ? 1 : setup_.teeth;
   double best = kInf;
-  for (int t = 0; t < families; ++t) {
+  for (std::size_t t = 0; t < families.size(); ++t) {
+    const ToothFamily& tf = families[t];
+    const ChordMin& m = minima_[t];
+    // A tooth whose lowest point along the chord cannot beat what is known adds nothing.
+    if (!(c + m.value_mm + tf.axial_mm < std::min(best, bound_mm))) continue;
     Family f;
-    if (setup_.teeth_alike) {
-      f.target = base;
-      f.period = kTwoPi / setup_.teeth;
-      f.axial_mm = setup_.axial_mm[0];
-    } else {
-      const double spacing = kTwoPi * t / setup_.teeth;
-      const double beta = setup_.runout_phase_rad - spacing;
-      f.target = base + spacing;
-      f.e_sin = setup_.runout_mm * std::sin(beta);
-      f.e_cos = setup_.runout_mm * std::cos(beta);
-      f.axial_mm = setup_.axial_mm[t];
-    }
-    for (int i = 0; i < minima_.count; ++i) {
-      const double x0 = minima_.candidates[i].x_mm;
-      const double f0 = cr.bearing_at(f, x0, angles_[i]);
+    f.target = base + tf.spacing_rad;
+    f.period = tf.period_rad;
+    f.inv_period = 1.0 / tf.period_rad;
+    f.e_sin = tf.e_sin_mm;
+    f.e_cos = tf.e_cos_mm;
+    f.axial_mm = tf.axial_mm;
+    for (int i = 0; i < m.count; ++i) {
+      const double x0 = m.candidates[i].x_mm;
+      const Start& st = starts_[t][i];
       for (double dir : {-1.0, 1.0}) {
-        const double x = cr.walk(f, x0, angles_[i], f0, dir);
+        const double x = cr.walk(f, x0, angles_[t][i], st.f0, st.s0, st.series, dir);
         if (x == x) best = std::min(best, cr.height(f, x));
       }
     }

@@ -9,7 +9,10 @@
 #pragma once
 
 #include <array>
+#include <limits>
+#include <vector>
 
+#include "sweep/bearing_series.h"
 #include "sweep/prepare_moves.h"
 #include "sweep/sweep_setup.h"
 #include "tool/chord_min.h"
@@ -34,7 +37,15 @@ class LineTeeth {
   /// @param[in] bound_mm  the cell's current height (mm); +infinity when unreached
   double height_mm(double u_mm, double w_mm, double bound_mm);
 
+  /// Lower bound of every height this move leaves on cells at lateral offset w_mm (a grid row
+  /// parallel to the move), mm; +infinity out of reach. Also prepares the chord of the cells
+  /// beside the move, so height_mm on that row reuses it.
+  double row_low_mm(double w_mm);
+
  private:
+  // Prepares minima_, angles_ and low_mm_ for the chord [lo, hi] at offset w (cached).
+  void prepare_chord(double w_mm, double lo, double hi);
+
   const SweepSetup& setup_;
   const PreparedMove& move_;
   double rise_ = 0.0;         // tip rise per mm along the move
@@ -42,10 +53,25 @@ class LineTeeth {
   double tilt_across_ = 0.0;  // tilt's drop per mm to the move's left
   double kappa_ = 0.0;        // tooth angle turned per mm of travel, rad/mm (signed)
   double phase0_ = 0.0;       // tooth 0's angle at the start less the move's direction, rad
-  bool cached_ = false;       // minima_ and angles_ hold the chord below
+  double walk_mm_ = 0.0;      // travel of the longest walk from a minimum (two revolutions)
+  double turn_mm_ = 0.0;      // turning points of the chord's bearing at +-turn_mm_ (0: none)
+  double half_w_ = std::numeric_limits<double>::quiet_NaN();  // offset half_ was computed for
+  double half_ = 0.0;         // half length of the chord within reach at offset half_w_
+  bool cached_ = false;       // minima_, angles_ and low_mm_ hold the chord below
   double cache_w_ = 0.0, cache_lo_ = 0.0, cache_hi_ = 0.0;
-  ChordMin minima_;                                   // local minima of the envelope
-  std::array<double, kMaxChordCandidates> angles_{};  // atan2(w, x) at each minimum
+  double low_mm_ = 0.0;  // lowest family minimum plus its axial offset: bound of every crossing
+  // Per tooth family (setup.families): local minima of that tooth's heights along the chord,
+  // where its lowest crossings lie, and atan2(w, x) at each.
+  std::vector<ChordMin> minima_;
+  std::vector<std::array<double, kMaxChordCandidates>> angles_;
+  // Per family and minimum: the lattice value there (bearing less tooth advance and runout
+  // offset, without the cell's target) and the bearing series for closed-form crossings.
+  struct Start {
+    double f0 = 0.0;
+    double s0 = 0.0;  // slope of the lattice value there, rad/mm
+    BearingSeries series;
+  };
+  std::vector<std::array<Start, kMaxChordCandidates>> starts_;
 };
 
 }  // namespace cuspmap
