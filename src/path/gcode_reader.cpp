@@ -26,7 +26,7 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
   if (program.size() == 0) throw_gcode_error(name, 1, "", "empty file: no G-code program in it");
   GcodeParameters parameters;
   GcodeControlFlow flow(program, parameters);
-  GcodeInterpreter interp(name, cut, patch, cutter);
+  GcodeInterpreter interp(name, cut, patch, cutter, options.d_radius_mm);
   GcodeLine lexed;
   GcodeBlock block;
   bool seen_words = false, percent_open = false, ended = false;
@@ -131,6 +131,9 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
 }  // namespace
 
 BuiltPath GcodeInterpreter::finish() {
+  std::vector<Move> held;
+  comp_.flush(held);  // compensation still on at the end: the held move ends at its offset
+  emit_all(held);
   line_ = 0;
   if (rapid_warnings_ > kMaxRapidWarnings) {
     warn(std::to_string(rapid_warnings_ - kMaxRapidWarnings) +
