@@ -39,6 +39,8 @@ class GcodeInterpreter {
   /// Runs one sorted block of line `line` (1-based), in the order of RS274NGC v3 Table 8.
   void execute(const GcodeBlock& b, long long line);
 
+  /// Makes `line` (1-based) the current line for warnings on a line without words.
+  void at_line(long long line) { line_ = line; }
   /// Adds a warning for the current line.
   void warn(std::string message);
   /// Adds a warning about the whole program (no line).

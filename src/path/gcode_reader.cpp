@@ -49,6 +49,11 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
         parameters.set_named(a.target.name, a.value);
       }
     }
+    // A message comment warns once, on a line of its own (the usual form) or beside words.
+    if (lexed.message) {
+      interp.at_line(line);
+      interp.warn_once("MSG", "program messages (MSG, DEBUG, PRINT) read past");
+    }
     switch (lexed.kind) {
       case GcodeLineKind::Blank:
       case GcodeLineKind::Deleted: break;
@@ -70,7 +75,6 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
       case GcodeLineKind::OWord: flow.oword(lexed.oword, k); break;
       case GcodeLineKind::Words:
         seen_words = true;
-        if (lexed.message) interp.warn_once("MSG", "program messages (MSG, DEBUG, PRINT) read past");
         sort_gcode_block(lexed, name, line, block);
         interp.execute(block, line);
         if (block.call_program) {

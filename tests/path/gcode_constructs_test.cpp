@@ -102,6 +102,11 @@ TEST_CASE("read_gcode_text: codes that move nothing are read past, one warning p
   CHECK(has_warning(b, "M50 read past (feed/speed override switch; programmed feeds are used): "
                        "it moves nothing"));
   CHECK(b.warnings.size() == 7);  // the second M8 adds nothing
+  // issue_16: a message on a line of its own (the usual form) warns too, with its line.
+  const BuiltPath own = read("G21 G90 M3 S10000\n(MSG, finish pass next)\nG0 X0 Y0 Z1\nG1 Z0 F100\n");
+  REQUIRE(own.warnings.size() == 1);
+  CHECK(own.warnings[0].line == 2);
+  CHECK(own.warnings[0].message == "program messages (MSG, DEBUG, PRINT) read past");
 }
 
 TEST_CASE("read_gcode_text: G28, G30 and G53 read as retracts", "[path]") {
