@@ -205,40 +205,6 @@ TEST_CASE("cutter comp: D from a D-word table, and D changes while on", "[path]"
         "--d-radius)");
 }
 
-TEST_CASE("cutter comp: what cannot be modelled is refused with line, word and why", "[path]") {
-  const std::string at = kStart + "G0 X10 Y3 Z1\nG1 Z-1\n";
-  // Inside arc of 2 mm with a 3 mm tool radius (RS274NGC v3: tool radius not less than arc
-  // radius with compensation).
-  CHECK(error_of(at + "G41 G1 X15 Y0\nX28\nG3 X30 Y2 I0 J2\n") ==
-        "part.nc:6: 'G3': the arc's radius 2 mm is not larger than the tool radius 3 mm on its "
-        "inside: the tool cannot follow it; use a smaller D or a larger arc");
-  // A slot 4 mm wide for a 6 mm tool: the offsets of its end wall do not meet the far side.
-  CHECK(error_of(at + "G41 G1 X15 Y0\nX30\nY4\nX0\n") ==
-        "part.nc:7: 'G1': inside corner at X30 Y4 (after line 6): the tool radius 3 mm does not "
-        "fit, its offset moves do not meet (the tool would gouge); use a smaller D or longer moves "
-        "beside the corner");
-  CHECK(error_of(at + "G41 G1 X12 Y3\n") ==
-        "part.nc:4: 'G1': the first move after G41 ends 2 mm from where the tool stands, within "
-        "the tool radius 3 mm: the tool cannot reach its offset; make the entry move longer than "
-        "the tool radius");
-  CHECK(error_of(kStart + "G18 G41 G1 X1\n") ==
-        "part.nc:2: 'G41': cutter radius compensation is modelled in the G17 (XY) plane only; G18 "
-        "is in force: select G17 or post the program with compensation off");
-  CHECK(error_of(at + "G41 G1 X15 Y0\nG19\n") ==
-        "part.nc:5: 'G19': the plane cannot leave G17 while cutter radius compensation is on "
-        "(G41/G42): program G40 first");
-  CHECK(error_of(at + "G41 G1 X15 Y0\nG81 X5 Y5 Z-2 R1\n") ==
-        "part.nc:5: 'G81': a canned cycle cannot run with cutter radius compensation on (G41/G42): "
-        "program G40 before it");
-  CHECK(error_of(at + "G41 G1 X15 Y0\nG28\n") ==
-        "part.nc:5: 'G28': a return to home cannot run with cutter radius compensation on "
-        "(G41/G42): program G40 before it");
-  CHECK(error_of(at + "G1 X20 D1\n") ==
-        "part.nc:4: 'D1': D is used only with G41/G42 or while cutter radius compensation is on");
-  CHECK(error_of(at + "G40 D1\n") ==
-        "part.nc:4: 'D1': D is used only with G41/G42 (cutter radius compensation)");
-}
-
 TEST_CASE("issue_16: the side-wall fixture posted with compensation on is read", "[path]") {
   // tests/data/gcode/cutter_comp.nc: T (-5,-5), G41 D3 to (0,0) with r = 3 (no table: the tool
   // radius), then X40. Derived: the entry ends at E with |E| = 3 and E square to the entry; the
