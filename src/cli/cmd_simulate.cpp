@@ -28,6 +28,7 @@
 #include "job/job.h"
 #include "job/run_job.h"
 #include "job/validate_cutter.h"
+#include "path/gcode_d_radius.h"
 
 namespace cuspmap {
 namespace {
@@ -55,6 +56,7 @@ struct SimulateOptions {
   bool stream = false;
   bool npy = false;
   std::string block_delete = "on";
+  std::string d_radius;  ///< --d-radius "1=3mm,2=2.5": the D-word table of G41/G42
 };
 
 // A Job from --gcode and the tool flags (no job file).
@@ -145,6 +147,9 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   Job job = o.gcode.empty() ? load_job(o.job_file) : gcode_job(o);
   job.path.block_delete = o.block_delete == "on";
   const LengthUnit units = units_flag_given ? o.common.length_unit() : job.units;
+  if (!o.d_radius.empty()) {
+    job.path.d_radius_mm = parse_d_radius_list(o.d_radius, units, "--d-radius");
+  }
   RunOptions ropt;
   ropt.threads = o.sim.threads;
   ropt.stream = o.stream ? StreamMode::Always : StreamMode::Auto;
@@ -260,6 +265,11 @@ void setup_simulate(CLI::App& sub) {
                  "G-code block delete switch: on skips lines starting with '/', off runs them")
       ->check(CLI::IsMember({"on", "off"}))
       ->capture_default_str();
+  // Reason for the flag: G41/G42 D words name the control's tool offsets, which are not in the
+  // program; with --gcode there is no job file to carry [path] d_radius.
+  sub.add_option("--d-radius", o->d_radius,
+                 "G-code D-word table for G41/G42: D=RADIUS pairs, e.g. 1=3mm,2=2.5 (replaces "
+                 "[path] d_radius; default: every D but D0 is the tool radius)");
   sub.add_flag("--stream", o->stream,
                "Sweep in bands even when the grid fits the memory limit (automatic above it)");
   // Reason for the flag: a streamed floor's .npy can be tens of GB, so it is written on request.

@@ -13,6 +13,7 @@
 #include "job/nearest_key.h"
 #include "job/toml_fields.h"
 #include "job/validate_cutter.h"
+#include "path/gcode_d_radius.h"
 
 namespace cuspmap {
 namespace {
@@ -28,7 +29,7 @@ const std::map<std::string, std::vector<std::string>>& known_keys() {
       {"cut", {"rpm", "feed", "depth", "spindle", "rapid_feed", "retract"}},
       {"path",
        {"kind", "stepover", "angle_deg", "direction", "file", "boundary", "edge", "milling", "outward",
-        "loop_diameter", "advance"}},
+        "loop_diameter", "advance", "d_radius"}},
       {"sim", {"tooth_marks", "threads"}},
   };
   return keys;
@@ -172,6 +173,13 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
                           "loop_diameter", "advance"}) {
       if (t.contains(k)) job.ignored_keys.push_back(std::string("path.") + k + " (gcode)");
     }
+    // The D-word table of G41/G42 (docs/gcode.md): D number -> tool radius.
+    if (const auto table = f.numbered_lengths_mm(t, "path", "d_radius")) {
+      for (const auto& entry : *table) {
+        check_d_radius(entry.number, entry.mm, entry.where);
+        p.d_radius_mm[static_cast<int>(entry.number)] = entry.mm;
+      }
+    }
     return;
   }
   const auto stepover = f.length_mm(t, "path", "stepover");
@@ -212,6 +220,7 @@ void read_path(const toml::table& t, const TomlFields& f, Job& job, const std::s
   applies("loop_diameter", p.kind == PathKind::Trochoidal, "trochoidal only");
   applies("advance", p.kind == PathKind::Trochoidal, "trochoidal only");
   applies("file", false, "gcode only");
+  applies("d_radius", false, "gcode only");
 }
 
 // Geometry the sweep would compute silently wrong: passes that leave uncut strips between them,

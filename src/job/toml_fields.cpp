@@ -2,6 +2,7 @@
 // Inputs: toml++ nodes; outputs: mm, deg, counts, choices. Method: toml++ 3 node API.
 #include "job/toml_fields.h"
 
+#include <charconv>
 #include <cmath>
 
 #include "core/input_error.h"
@@ -135,6 +136,27 @@ std::optional<std::vector<double>> TomlFields::lengths_mm(const toml::table& tab
   }
   std::vector<double> out;
   for (const toml::node& item : *arr) out.push_back(to_length_mm(item, table_name, key));
+  return out;
+}
+
+std::optional<std::vector<TomlFields::NumberedLength>> TomlFields::numbered_lengths_mm(
+    const toml::table& table, std::string_view table_name, std::string_view key) const {
+  const toml::node* node = table.get(key);
+  if (node == nullptr) return std::nullopt;
+  const toml::table* t = node->as_table();
+  if (t == nullptr) fail(*node, table_name, key, "must be a table of numbers to lengths, e.g. { 1 = 3.0 }");
+  std::vector<NumberedLength> out;
+  for (const auto& [k, value] : *t) {
+    const std::string_view text = k.str();
+    NumberedLength entry;
+    const auto [end, ec] = std::from_chars(text.data(), text.data() + text.size(), entry.number);
+    if (ec != std::errc() || end != text.data() + text.size()) {
+      fail(value, table_name, key, "key '" + std::string(text) + "' must be a whole number");
+    }
+    entry.mm = to_length_mm(value, table_name, key);
+    entry.where = where(value) + full_name(table_name, key);
+    out.push_back(std::move(entry));
+  }
   return out;
 }
 

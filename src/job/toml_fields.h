@@ -44,6 +44,16 @@ class TomlFields {
   std::optional<std::vector<double>> lengths_mm(const toml::table& table,
                                                 std::string_view table_name, std::string_view key,
                                                 size_t count) const;
+  /// Table of whole-number keys to lengths ({ 1 = 3.0, 2 = "2.5mm" }), mm, in key order; each
+  /// entry with its "file:line:col: table.key" position for the caller's own checks.
+  struct NumberedLength {
+    long long number = 0;   ///< the key as a whole number
+    double mm = 0.0;        ///< the value, mm
+    std::string where;      ///< "<file>:<line>:<col>: <table>.<key>" of the value
+  };
+  std::optional<std::vector<NumberedLength>> numbered_lengths_mm(const toml::table& table,
+                                                                 std::string_view table_name,
+                                                                 std::string_view key) const;
   /// Array of [x, y] points, mm.
   std::optional<std::vector<std::pair<double, double>>> points_mm(
       const toml::table& table, std::string_view table_name, std::string_view key) const;

@@ -18,6 +18,7 @@ BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& 
   if (spec.kind == PathKind::Gcode) {
     GcodeReadOptions options;
     options.block_delete = spec.block_delete;
+    options.d_radius_mm = spec.d_radius_mm;
     return read_gcode_file(spec.file, cut, patch, cutter, options);
   }
   BuiltPath built;

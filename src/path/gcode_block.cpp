@@ -65,9 +65,6 @@ class BlockSorter {
     if (b_['L'].present && !b_.set_offsets && !cycle && !b_.call_program && !b_.output_words) {
       fail(b_['L'].text, "L is used only with G10, canned cycles and M98");
     }
-    if (b_['D'].present && b_.cutter_comp != 41 && b_.cutter_comp != 42) {
-      fail(b_['D'].text, "D is used only with G41/G42 (cutter radius compensation)");
-    }
   }
 
  private:
@@ -241,6 +238,7 @@ class BlockSorter {
       case 19: read_past(w, "spindle orient"); return;
       case 48: case 49: case 50: case 51: case 52: case 53:
         claim(kMOverride, w.text);
+        b_.override_words = true;
         read_past(w, "feed/speed override switch; programmed feeds are used");
         return;
       case 62: case 63: case 64: case 65: case 66: case 67: case 68:

@@ -80,6 +80,7 @@ struct GcodeBlock {
   bool call_program = false;                   ///< M98 on the line
   bool return_program = false;                 ///< M99 on the line
   bool output_words = false;                   ///< M62-M68 on the line (their P/Q/L words)
+  bool override_words = false;                 ///< M48-M53 on the line (M50-M53 take a P word)
   std::vector<std::string> read_past;          ///< codes that move nothing, as "M8: coolant"
 
   int work_offset_tenths = 0;                  ///< G54..G59.3 x 10 (540..593), 0 = absent

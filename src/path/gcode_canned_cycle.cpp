@@ -13,6 +13,7 @@
 namespace cuspmap {
 
 void GcodeInterpreter::canned_cycle(const GcodeBlock& b, const std::string& word) {
+  refuse_under_comp(word, "a canned cycle");
   if (plane_ != GcodePlane::XY) {
     fail(word, "canned cycles are modelled in the G17 (XY) plane only; " + plane_word_ +
                    " is in force");

@@ -8,6 +8,7 @@
 #include <cmath>
 #include <numbers>
 
+#include "path/gcode_chars.h"
 #include "path/gcode_lexer.h"
 
 namespace cuspmap {
@@ -17,10 +18,6 @@ namespace {
 // operations treat a value as true when it is not zero.
 constexpr double kIntegerTolerance = 1e-4;
 constexpr double kDegPerRad = 180.0 / std::numbers::pi;
-
-bool is_digit(char c) { return c >= '0' && c <= '9'; }
-bool is_alpha(char c) { return (c >= 'A' && c <= 'Z') || (c >= 'a' && c <= 'z'); }
-char upper(char c) { return (c >= 'a' && c <= 'z') ? static_cast<char>(c - 'a' + 'A') : c; }
 
 class ExprReader {
  public:
@@ -39,8 +36,8 @@ class ExprReader {
     const char c = s_[i_];
     if (c == '[') return bracket();
     if (c == '#') return parameter();
-    if (is_digit(c) || c == '.') return number();
-    if (is_alpha(c)) return function();
+    if (gcode_is_digit(c) || c == '.') return number();
+    if (gcode_is_letter(c)) return function();
     fail("a number, #parameter, [expression] or function is expected here");
   }
 
@@ -87,7 +84,7 @@ class ExprReader {
 
   double number() {
     std::string digits;
-    while (i_ < s_.size() && (is_digit(s_[i_]) || s_[i_] == '.' || s_[i_] == ' ' || s_[i_] == '\t')) {
+    while (i_ < s_.size() && (gcode_is_digit(s_[i_]) || s_[i_] == '.' || s_[i_] == ' ' || s_[i_] == '\t')) {
       if (s_[i_] != ' ' && s_[i_] != '\t') digits.push_back(s_[i_]);
       ++i_;
     }
@@ -132,9 +129,9 @@ class ExprReader {
       name.assign(1, c);
       return c == '/' ? 4 : 3;
     }
-    if (!is_alpha(c)) return 0;
+    if (!gcode_is_letter(c)) return 0;
     std::size_t j = i_;
-    while (j < s_.size() && is_alpha(s_[j])) name.push_back(upper(s_[j++]));
+    while (j < s_.size() && gcode_is_letter(s_[j])) name.push_back(gcode_upper(s_[j++]));
     if (name == "MOD") return 4;
     if (name == "EQ" || name == "NE" || name == "GT" || name == "GE" || name == "LT" ||
         name == "LE") {
@@ -190,7 +187,7 @@ class ExprReader {
 
   double function() {
     std::string name;
-    while (i_ < s_.size() && is_alpha(s_[i_])) name.push_back(upper(s_[i_++]));
+    while (i_ < s_.size() && gcode_is_letter(s_[i_])) name.push_back(gcode_upper(s_[i_++]));
     skip_gcode_spaces(s_, i_);
     if (name == "EXISTS") {
       if (i_ + 1 >= s_.size() || s_[i_] != '[') fail("EXISTS takes [#<name>]");

@@ -26,8 +26,10 @@ int system_of_p(double p, int active) {
 }  // namespace
 
 GcodeInterpreter::GcodeInterpreter(const std::string& name, const CutSpec& cut,
-                                   const Patch& patch, const Cutter& cutter)
-    : name_(name), cut_(cut), patch_(patch), cutter_(cutter) {
+                                   const Patch& patch, const Cutter& cutter,
+                                   const std::map<int, double>& d_radius_mm)
+    : name_(name), cut_(cut), patch_(patch), cutter_(cutter), d_radius_table_mm_(d_radius_mm),
+      comp_(name) {
   out_.spindle = cut.spindle;
 }
 
@@ -71,14 +73,15 @@ void GcodeInterpreter::execute(const GcodeBlock& b, long long line) {
   }
   if (b.dwell) warn_once("G4", "dwell (G4) ignored: dwell times are not counted in cycle_time_s");
   if (b.has_plane) {
+    if (comp_.active() && b.plane != GcodePlane::XY) {
+      fail(b.plane_word, "the plane cannot leave G17 while cutter radius compensation is on "
+                         "(G41/G42): program G40 first");
+    }
     plane_ = b.plane;
     plane_word_ = b.plane_word;
     plane_line_ = line_;
   }
-  if (b.cutter_comp == 41 || b.cutter_comp == 42) {
-    fail(b.cutter_comp_word, "cutter radius compensation is not supported; post the program "
-                             "with compensation off");
-  }
+  if (b.cutter_comp != 0 || b['D'].present) cutter_comp(b);
   if (b.work_offset_tenths != 0) select_work_system(b);
   if (b.distance != 0) absolute_ = b.distance > 0;
   if (b.arc_distance != 0) arc_absolute_ = b.arc_distance > 0;
@@ -227,6 +230,7 @@ bool GcodeInterpreter::clear_of_floor() const {
 
 void GcodeInterpreter::go_home(const GcodeBlock& b) {
   const std::string word = b.home == 28 ? "G28" : "G30";
+  refuse_under_comp(word, "a return to home");
   warn_once(word, word + " (return to home) read as a retract: the machine's home is not in "
                          "the program, so axes sent home are unknown until the next absolute move");
   std::array<double, 3> via = pos_;
@@ -261,6 +265,7 @@ void GcodeInterpreter::go_home(const GcodeBlock& b) {
 
 void GcodeInterpreter::machine_move(const GcodeBlock& b) {
   if (!b.has_axis_words()) return;
+  refuse_under_comp("G53", "a move in machine coordinates");
   if (motion_ != GcodeMotion::Rapid && motion_ != GcodeMotion::Linear) {
     fail("G53", "G53 needs G0 or G1 in force");
   }

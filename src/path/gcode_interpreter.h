@@ -1,7 +1,8 @@
 // The RS-274 interpreter's state and the steps that run one sorted block against it: modal
 // state (units, distance modes, plane, feed, spindle), coordinate offsets (G54-G59.3 set by G10
 // L2/L20, G92), home and machine-coordinate retracts (G28/G30/G53), motion (lines, arcs in any
-// plane, helices, full circles) and canned cycles as plunges. Internal to path/ (gcode_reader).
+// plane, helices, full circles), cutter radius compensation (G41/G42, gcode_cutter_comp) and
+// canned cycles as plunges. Internal to path/ (gcode_reader).
 // Lengths mm in the frame of the first work system used (floor_z is read in it), feeds mm/min.
 // Method: RS274NGC v3 (Kramer, Proctor & Messina, NIST IR 6556, 2000) §3.5 (G codes), §3.6 (M
 // codes), Table 8 order of execution, §3.5.16 canned cycles, §3.5.18 G92 offsets.
@@ -16,6 +17,7 @@
 #include "core/units.h"
 #include "path/build_toolpath.h"
 #include "path/gcode_block.h"
+#include "path/gcode_cutter_comp.h"
 #include "path/path_spec.h"
 #include "tool/cutter.h"
 
@@ -29,12 +31,16 @@ inline constexpr double kPlaneArcChordToleranceMm = 0.0005;
 /// Interpreter state and block execution; gcode_reader.cpp drives it line by line.
 class GcodeInterpreter {
  public:
+  /// @param[in] d_radius_mm  D-word table (D number -> tool radius, mm); empty: every D but D0
+  ///            is the cutter's radius
   GcodeInterpreter(const std::string& name, const CutSpec& cut, const Patch& patch,
-                   const Cutter& cutter);
+                   const Cutter& cutter, const std::map<int, double>& d_radius_mm);
 
   /// Runs one sorted block of line `line` (1-based), in the order of RS274NGC v3 Table 8.
   void execute(const GcodeBlock& b, long long line);
 
+  /// Makes `line` (1-based) the current line for warnings on a line without words.
+  void at_line(long long line) { line_ = line; }
   /// Adds a warning for the current line.
   void warn(std::string message);
   /// Adds a warning about the whole program (no line).
@@ -62,6 +68,12 @@ class GcodeInterpreter {
   void line_to(const std::array<double, 3>& to, bool rapid, const std::string& word);
   void arc(const GcodeBlock& b, const std::string& word, const std::array<double, 3>& to);
   void emit(const Move& m);
+  // Cutter radius compensation (gcode_cutter_comp_steps.cpp).
+  void cutter_comp(const GcodeBlock& b);
+  double d_radius_mm(const GcodeValue& d);
+  void compensate(Move m, const std::string& word);
+  void emit_all(const std::vector<Move>& moves);
+  void refuse_under_comp(std::string_view word, std::string_view what) const;
   void check_spindle(const std::string& word);
   double feed_mm_per_min(const std::string& word) const;
   // Canned cycles (gcode_canned_cycle.cpp).
@@ -71,6 +83,8 @@ class GcodeInterpreter {
   const CutSpec& cut_;
   const Patch& patch_;
   const Cutter& cutter_;
+  const std::map<int, double>& d_radius_table_mm_;
+  GcodeCutterComp comp_;
   BuiltPath out_;
   long long line_ = 0;
   // Modal state (RS274NGC defaults, G21 assumed until G20/G21).

@@ -6,15 +6,10 @@
 #include <cstdio>
 
 #include "core/input_error.h"
+#include "path/gcode_chars.h"
 
 namespace cuspmap {
 namespace {
-
-bool is_space(char c) { return c == ' ' || c == '\t' || c == '\v' || c == '\f'; }
-bool is_digit(char c) { return c >= '0' && c <= '9'; }
-bool is_letter(char c) { return (c >= 'A' && c <= 'Z') || (c >= 'a' && c <= 'z'); }
-char upper(char c) { return (c >= 'a' && c <= 'z') ? static_cast<char>(c - 'a' + 'A') : c; }
-char lower(char c) { return (c >= 'A' && c <= 'Z') ? static_cast<char>(c - 'A' + 'a') : c; }
 
 std::string byte_name(char c) {
   char buf[8];
@@ -58,14 +53,14 @@ class LineLexer {
     bool first_item = true;  // a line number or O-word may only come before every word
     while (i_ < s_.size()) {
       const char c = s_[i_];
-      if (is_space(c)) {
+      if (gcode_is_space(c)) {
         ++i_;
       } else if (c == '(') {
         skip_comment(out);
       } else if (c == ';') {
         break;  // comment to the end of the line
-      } else if (is_letter(c)) {
-        const char letter = upper(c);
+      } else if (gcode_is_letter(c)) {
+        const char letter = gcode_upper(c);
         ++i_;
         if (letter == 'N') {
           read_line_number(first_item);
@@ -98,7 +93,7 @@ class LineLexer {
   }
 
   void skip_spaces() {
-    while (i_ < s_.size() && is_space(s_[i_])) ++i_;
+    while (i_ < s_.size() && gcode_is_space(s_[i_])) ++i_;
   }
 
   // Comments: no nesting, must close on the same line (§3.3.4). Any byte may appear inside.
@@ -108,7 +103,7 @@ class LineLexer {
       if (s_[j] == ')') {
         std::string head;
         for (std::size_t k = i_ + 1; k < j && head.size() < 7; ++k) {
-          if (!is_space(s_[k])) head.push_back(upper(s_[k]));
+          if (!gcode_is_space(s_[k])) head.push_back(gcode_upper(s_[k]));
         }
         if (head.rfind("MSG,", 0) == 0 || head.rfind("DEBUG,", 0) == 0 ||
             head.rfind("PRINT,", 0) == 0) {
@@ -127,7 +122,7 @@ class LineLexer {
     int n = 0;
     for (;;) {
       skip_spaces();
-      if (i_ < s_.size() && is_digit(s_[i_])) {
+      if (i_ < s_.size() && gcode_is_digit(s_[i_])) {
         text.push_back(s_[i_++]);
         ++n;
       } else {
@@ -156,7 +151,7 @@ class LineLexer {
     skip_spaces();
     if (i_ < s_.size() && s_[i_] == '<') {
       while (i_ < s_.size() && s_[i_] != '>') {
-        if (!is_space(s_[i_])) o.label.push_back(lower(s_[i_]));
+        if (!gcode_is_space(s_[i_])) o.label.push_back(gcode_lower(s_[i_]));
         ++i_;
       }
       if (i_ == s_.size()) fail(o.text + o.label, "an O-word name needs its closing '>'");
@@ -171,7 +166,7 @@ class LineLexer {
     if (!first_item) fail(o.text, "an O-word must come first on its line");
     if (o.label.empty() || o.label == "<>") fail(o.text, "an O-word needs a number or a <name>");
     skip_spaces();
-    while (i_ < s_.size() && is_letter(s_[i_])) o.keyword.push_back(lower(s_[i_++]));
+    while (i_ < s_.size() && gcode_is_letter(s_[i_])) o.keyword.push_back(gcode_lower(s_[i_++]));
     if (o.keyword.empty()) {
       while (i_ < s_.size() && s_[i_] == '(') {
         skip_comment(out);
@@ -234,10 +229,10 @@ class LineLexer {
     bool value_follows = false;
     if (i_ < s_.size()) {
       const char c = s_[i_];
-      value_follows = is_digit(c) || c == '.' || c == '+' || c == '-' || c == '#' || c == '[';
-      if (is_letter(c)) {  // a unary function such as SIN[30] is a real value (§3.3.2.2)
+      value_follows = gcode_is_digit(c) || c == '.' || c == '+' || c == '-' || c == '#' || c == '[';
+      if (gcode_is_letter(c)) {  // a unary function such as SIN[30] is a real value (§3.3.2.2)
         std::size_t j = i_;
-        while (j < s_.size() && is_letter(s_[j])) ++j;
+        while (j < s_.size() && gcode_is_letter(s_[j])) ++j;
         skip_spaces_from(j);
         value_follows = j < s_.size() && s_[j] == '[' && j - i_ >= 2;
       }
@@ -250,7 +245,7 @@ class LineLexer {
   }
 
   void skip_spaces_from(std::size_t& j) const {
-    while (j < s_.size() && is_space(s_[j])) ++j;
+    while (j < s_.size() && gcode_is_space(s_[j])) ++j;
   }
 
   std::string_view s_;

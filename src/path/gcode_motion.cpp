@@ -73,8 +73,9 @@ void GcodeInterpreter::motion(const GcodeBlock& b) {
   }
   if (b['P'].present && !b.dwell && !b.path_control && !(arc_mode && moves) &&
       motion_ != GcodeMotion::Cycle && !b.call_program && !b.set_offsets &&
-      !b.output_words) {
-    fail(b['P'].text, "P is used only with G4, G10, G64, M98, canned cycles or G2/G3 here");
+      !b.output_words && !b.override_words) {
+    fail(b['P'].text, "P is used only with G4, G10, G64, M50-M53, M62-M68, M98, canned cycles or "
+                      "G2/G3 here");
   }
   // A motion mode with no axis words moves nothing (RS274NGC v3 §3.3.7: the mode is executed
   // again only when axis words are on the line).
@@ -102,6 +103,11 @@ void GcodeInterpreter::motion(const GcodeBlock& b) {
     }
     pos_ = to;  // positioning from an unknown place: nothing to sweep
     known_ = to_known;
+    if (comp_.active() && known_[0] && known_[1] && known_[2]) {
+      std::vector<Move> ready;
+      comp_.restart_at({to[0], to[1], to[2]}, ready);  // the next X/Y move enters again
+      emit_all(ready);
+    }
     return;
   }
   if (arc_mode) {
@@ -122,6 +128,10 @@ void GcodeInterpreter::line_to(const std::array<double, 3>& to, bool rapid,
   pos_ = to;
   known_ = {true, true, true};
   if ((m.end_mm - m.start_mm).norm() == 0.0) return;  // a zero-length line moves nothing
+  if (comp_.active()) {
+    compensate(m, word);
+    return;
+  }
   emit(m);
 }
 
@@ -158,6 +168,11 @@ void GcodeInterpreter::arc(const GcodeBlock& b, const std::string& word,
   Eigen::Vector2d centre;
   if (b['R'].present) {
     if (b['R'].value == 0.0) fail(b['R'].text, "an arc radius must not be 0");
+    if (comp_.entry_pending()) {
+      fail(b['R'].text, "an R-form arc cannot be the first move after G41/G42: give its centre "
+                        "with " + std::string(1, first) + "/" + second + " or enter with a "
+                        "straight move");
+    }
     const ArcCentre c = arc_centre_from_radius(start, end, b['R'].value * unit_mm(), ccw, tol_mm);
     if (c.status == ArcCentreStatus::EndAtStart) {
       fail(b['R'].text, std::string("an R-form arc cannot end where it starts; program a full "
@@ -179,7 +194,8 @@ void GcodeInterpreter::arc(const GcodeBlock& b, const std::string& word,
     if (c.status == ArcCentreStatus::ZeroRadius) {
       fail(word, "the arc's centre is at its start point (radius 0)");
     }
-    if (c.status == ArcCentreStatus::EndOffCircle) {
+    // An entry arc under G41/G42 starts one tool radius off its circle: GcodeCutterComp checks it.
+    if (c.status == ArcCentreStatus::EndOffCircle && !comp_.entry_pending()) {
       fail(word, "end point is not on the arc: radius " + format_number(c.start_radius_mm) +
                      " mm at the start, " + format_number(c.end_radius_mm) +
                      " mm at the end; RS274NGC v3 allows " + tol_text + " difference");
@@ -204,6 +220,10 @@ void GcodeInterpreter::arc(const GcodeBlock& b, const std::string& word,
   pos_ = to;
   if (plane_ == GcodePlane::XY) {
     m.centre_mm = centre;
+    if (comp_.active()) {
+      compensate(m, word);
+      return;
+    }
     emit(m);
     return;
   }

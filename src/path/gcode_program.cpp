@@ -6,16 +6,13 @@
 
 #include <algorithm>
 
+#include "path/gcode_chars.h"
+
 namespace cuspmap {
 namespace {
 
-bool is_space(char c) { return c == ' ' || c == '\t' || c == '\v' || c == '\f'; }
-bool is_digit(char c) { return c >= '0' && c <= '9'; }
-bool is_letter(char c) { return (c >= 'A' && c <= 'Z') || (c >= 'a' && c <= 'z'); }
-char lower(char c) { return (c >= 'A' && c <= 'Z') ? static_cast<char>(c - 'A' + 'a') : c; }
-
 void skip(std::string_view s, std::size_t& i) {
-  while (i < s.size() && is_space(s[i])) ++i;
+  while (i < s.size() && gcode_is_space(s[i])) ++i;
 }
 
 // O-word label and keyword at the start of a line ("" when the line has no leading O-word).
@@ -28,14 +25,14 @@ void scan_oword(std::string_view s, std::string& label, std::string& keyword) {
   skip(s, i);
   if (i < s.size() && (s[i] == 'N' || s[i] == 'n')) {
     ++i;
-    while (i < s.size() && (is_digit(s[i]) || is_space(s[i]))) ++i;
+    while (i < s.size() && (gcode_is_digit(s[i]) || gcode_is_space(s[i]))) ++i;
   }
   if (i >= s.size() || (s[i] != 'O' && s[i] != 'o')) return;
   ++i;
   skip(s, i);
   if (i < s.size() && s[i] == '<') {
     while (i < s.size() && s[i] != '>') {
-      if (!is_space(s[i])) label.push_back(lower(s[i]));
+      if (!gcode_is_space(s[i])) label.push_back(gcode_lower(s[i]));
       ++i;
     }
     if (i == s.size()) {
@@ -45,14 +42,14 @@ void scan_oword(std::string_view s, std::string& label, std::string& keyword) {
     label.push_back('>');
     ++i;
   } else {
-    while (i < s.size() && (is_digit(s[i]) || is_space(s[i]))) {
-      if (!is_space(s[i])) label.push_back(s[i]);
+    while (i < s.size() && (gcode_is_digit(s[i]) || gcode_is_space(s[i]))) {
+      if (!gcode_is_space(s[i])) label.push_back(s[i]);
       ++i;
     }
     while (label.size() > 1 && label[0] == '0') label.erase(0, 1);
   }
   skip(s, i);
-  while (i < s.size() && is_letter(s[i])) keyword.push_back(lower(s[i++]));
+  while (i < s.size() && gcode_is_letter(s[i])) keyword.push_back(gcode_lower(s[i++]));
 }
 
 // True when the line has an M99 word outside comments.
@@ -69,8 +66,8 @@ bool has_m99(std::string_view s) {
     } else if (c == 'M' || c == 'm') {
       std::size_t j = i + 1;
       std::string digits;
-      while (j < s.size() && (is_digit(s[j]) || is_space(s[j]))) {
-        if (!is_space(s[j])) digits.push_back(s[j]);
+      while (j < s.size() && (gcode_is_digit(s[j]) || gcode_is_space(s[j]))) {
+        if (!gcode_is_space(s[j])) digits.push_back(s[j]);
         ++j;
       }
       while (digits.size() > 1 && digits[0] == '0') digits.erase(0, 1);
@@ -180,7 +177,7 @@ bool GcodeProgram::blank(std::size_t k) const {
       in_comment = true;
     } else if (c == ';') {
       return true;
-    } else if (!is_space(c) && c != '%') {
+    } else if (!gcode_is_space(c) && c != '%') {
       return false;
     }
   }

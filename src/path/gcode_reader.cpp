@@ -26,7 +26,7 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
   if (program.size() == 0) throw_gcode_error(name, 1, "", "empty file: no G-code program in it");
   GcodeParameters parameters;
   GcodeControlFlow flow(program, parameters);
-  GcodeInterpreter interp(name, cut, patch, cutter);
+  GcodeInterpreter interp(name, cut, patch, cutter, options.d_radius_mm);
   GcodeLine lexed;
   GcodeBlock block;
   bool seen_words = false, percent_open = false, ended = false;
@@ -49,6 +49,11 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
         parameters.set_named(a.target.name, a.value);
       }
     }
+    // A message comment warns once, on a line of its own (the usual form) or beside words.
+    if (lexed.message) {
+      interp.at_line(line);
+      interp.warn_once("MSG", "program messages (MSG, DEBUG, PRINT) read past");
+    }
     switch (lexed.kind) {
       case GcodeLineKind::Blank:
       case GcodeLineKind::Deleted: break;
@@ -70,7 +75,6 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
       case GcodeLineKind::OWord: flow.oword(lexed.oword, k); break;
       case GcodeLineKind::Words:
         seen_words = true;
-        if (lexed.message) interp.warn_once("MSG", "program messages (MSG, DEBUG, PRINT) read past");
         sort_gcode_block(lexed, name, line, block);
         interp.execute(block, line);
         if (block.call_program) {
@@ -131,6 +135,9 @@ BuiltPath run_program(GcodeLineReader& reader, const CutSpec& cut, const Patch& 
 }  // namespace
 
 BuiltPath GcodeInterpreter::finish() {
+  std::vector<Move> held;
+  comp_.flush(held);  // compensation still on at the end: the held move ends at its offset
+  emit_all(held);
   line_ = 0;
   if (rapid_warnings_ > kMaxRapidWarnings) {
     warn(std::to_string(rapid_warnings_ - kMaxRapidWarnings) +

@@ -7,6 +7,7 @@
 // of execution; G90.1/G91.1, the G2/G3 P word, O-words and M98/M99 as common controls extend it.
 #pragma once
 
+#include <map>
 #include <string>
 #include <string_view>
 
@@ -31,6 +32,9 @@ struct GcodeReadOptions {
   bool block_delete = true;
   /// Most lines run, loops and calls counted again (kMaxGcodeLinesRun; fuzzing sets fewer).
   long long max_lines_run = kMaxGcodeLinesRun;
+  /// D-word table for G41/G42: D number -> tool radius, mm (>= 0). Empty: D0 is 0 and every
+  /// other D is the cutter's radius (one warning); a D not in a non-empty table is refused.
+  std::map<int, double> d_radius_mm;
 };
 
 /// Reads a G-code program file. docs/gcode.md lists what is read, warned and refused.
@@ -40,7 +44,9 @@ struct GcodeReadOptions {
 /// by I/J/K alone, P turns, R and centre formats; a motion mode with no axis words moves nothing;
 /// G80 beside a motion code is dropped; G20/G21 (feeds keep their physical rate), G90/G91,
 /// G90.1/G91.1, G94, G4 P or X (seconds); G54-G59.3 with offsets set by G10 L2/L20, G92/G92.1-3;
-/// G28/G30/G53 as retracts (warning); canned cycles G73, G74, G81-G86, G89 as plunges; numbered
+/// G28/G30/G53 as retracts (warning); G41/G42/G40 cutter radius compensation in G17 with the
+/// radius of options.d_radius_mm or the cutter (RS274NGC v3 entry moves and outside-corner arcs,
+/// inside corners cut where the offset moves meet); canned cycles G73, G74, G81-G86, G89 as plunges; numbered
 /// and named parameters, [..] expressions (§3.3.2-3.3.3); O-word sub/call/return, if/elseif/
 /// else, while/do/repeat/break/continue; M98/M99 subprograms of the same file; F, S, M3/M4/M5.
 /// Read past with one warning per code: coolant, outputs, orient, overrides, path blending,

@@ -4,6 +4,7 @@
 #pragma once
 
 #include <Eigen/Core>
+#include <map>
 #include <string>
 #include <vector>
 
@@ -56,6 +57,7 @@ struct PathSpec {
   OffsetEdge edge = OffsetEdge::Open;              ///< offset: the boundary is an open edge or a wall
   std::string file;                                ///< gcode: program path
   bool block_delete = true;                        ///< gcode: block delete switch ('/' lines skipped)
+  std::map<int, double> d_radius_mm;               ///< gcode: D-word table, D number -> tool radius (G41/G42)
 };
 
 }  // namespace cuspmap

@@ -43,11 +43,11 @@ test::RunResult simulate(const test::TempDir& dir, const std::string& program, b
 
 TEST_CASE("simulate: unsupported G-code exits 2 with file:line, word and why", "[cli]") {
   test::TempDir dir;
-  const test::RunResult r = simulate(dir, "G21 G90\nG0 X0 Y0 Z5\nG41 D1 G1 X1 F100\n");
+  const test::RunResult r = simulate(dir, "G21 G90\nG0 X0 Y0 Z5\nG93 G1 X1 F100\n");
   CHECK(r.exit_code == 2);
   CHECK(r.err.rfind("cuspmap: error: ", 0) == 0);
-  CHECK(ends_with(r.err, "part.nc:3: 'G41': cutter radius compensation is not supported; post the "
-                         "program with compensation off\n"));
+  CHECK(ends_with(r.err, "part.nc:3: 'G93': inverse-time feed (G93) is not supported; post the "
+                         "program with feed per minute (G94)\n"));
   CHECK(r.err.find('\n') == r.err.size() - 1);  // one line
   CHECK(no_output(dir.file("out")));
 }

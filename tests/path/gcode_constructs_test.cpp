@@ -91,14 +91,22 @@ TEST_CASE("read_gcode_text: full circles by I/J alone and helices", "[path]") {
 TEST_CASE("read_gcode_text: codes that move nothing are read past, one warning per code", "[path]") {
   const BuiltPath b = read(
       "G21 G90 M3 S10000 (MSG, roughing done)\nM8\nM62 P1\nM19\nM100\nM8\nG0 X0 Y0 Z1\nG1 Z0 "
-      "F100\nM9\n");
+      "F100\nM9\nM50 P0\n");
   REQUIRE(b.path.moves.size() == 1);
   CHECK(has_warning(b, "program messages (MSG, DEBUG, PRINT) read past"));
   CHECK(has_warning(b, "M8 read past (coolant): it moves nothing"));
   CHECK(has_warning(b, "M62 read past (digital/analog output or input wait): it moves nothing"));
   CHECK(has_warning(b, "M19 read past (spindle orient): it moves nothing"));
   CHECK(has_warning(b, "M100 read past (user M-code): it moves nothing"));
-  CHECK(b.warnings.size() == 6);  // the second M8 adds nothing
+  // issue_16: an override switch with its P word (M50 P0: feed override off) is read past too.
+  CHECK(has_warning(b, "M50 read past (feed/speed override switch; programmed feeds are used): "
+                       "it moves nothing"));
+  CHECK(b.warnings.size() == 7);  // the second M8 adds nothing
+  // issue_16: a message on a line of its own (the usual form) warns too, with its line.
+  const BuiltPath own = read("G21 G90 M3 S10000\n(MSG, finish pass next)\nG0 X0 Y0 Z1\nG1 Z0 F100\n");
+  REQUIRE(own.warnings.size() == 1);
+  CHECK(own.warnings[0].line == 2);
+  CHECK(own.warnings[0].message == "program messages (MSG, DEBUG, PRINT) read past");
 }
 
 TEST_CASE("read_gcode_text: G28, G30 and G53 read as retracts", "[path]") {

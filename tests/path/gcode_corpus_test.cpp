@@ -1,6 +1,7 @@
 // Corpus test: programs written in the styles of common posts and senders (tests/data/gcode/
 // corpus/, described in tests/data/gcode_corpus.toml) are read as a controller runs them; each
-// gives its hand-computed move count, feed length and end point, and the warnings expected.
+// gives its hand-computed move count, feed length and end point, and the warnings expected
+// (with the control's D-word table where the program compensates the cutter radius).
 // Reference: RS274NGC v3 (Kramer, Proctor & Messina, NIST IR 6556, 2000).
 #include <toml++/toml.h>
 
@@ -22,8 +23,14 @@ TEST_CASE("read_gcode_file: corpus of programs in the styles of common posts", "
     const std::string file = p["file"].value_or(std::string{});
     const double tol = p["tolerance"].value_or(0.0);
     CAPTURE(file, p["source"].value_or(std::string{}));
+    GcodeReadOptions options;  // the control's D-word table, where the program uses one
+    if (const toml::table* d = p["d_radius"].as_table()) {
+      for (const auto& [key, radius] : *d) {
+        options.d_radius_mm[std::stoi(std::string(key.str()))] = radius.value_or(-1.0);
+      }
+    }
     const BuiltPath b = read_gcode_file(test::data_path("gcode/corpus/" + file), CutSpec{},
-                                        test::test_patch(), test::test_ball());
+                                        test::test_patch(), test::test_ball(), options);
     CHECK(b.path.moves.size() == p["moves"].value_or(std::size_t{0}));
     REQUIRE_NEAR(path_length_mm(b.path, false), p["feed_length_mm"].value_or(-1.0), tol);
     const toml::array& end = *p["end_mm"].as_array();

@@ -67,11 +67,6 @@ TEST_CASE("read_gcode_file: binary bytes, long lines and missing files are refus
 }
 
 TEST_CASE("read_gcode_file: fixtures of tests/data/gcode", "[path]") {
-  // Unsupported programs as a post might write them.
-  CHECK(file_error(test::data_path("gcode/cutter_comp.nc")) ==
-        test::data_path("gcode/cutter_comp.nc") +
-            ":7: 'G41': cutter radius compensation is not supported; post the program with "
-            "compensation off");
   // issue_16: canned cycles and parameters are read now. G83 peck drill from Z5, R1 to Z-8
   // (RS274NGC v3 §3.5.16.3, modelled as one plunge): rapid to R, feed 9 mm, rapid back to Z5
   // (G98), then the G0 Z20 of the next line.
