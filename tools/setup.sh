@@ -3,7 +3,7 @@
 # clang and libclang-rt-14-dev (libFuzzer and the sanitizer runtimes) serve tools/ci_checks.sh.
 set -euo pipefail
 packages=(cmake g++ make libeigen3-dev libcli11-dev libstb-dev catch2 libtomlplusplus-dev
-          nlohmann-json3-dev libpolyclipping-dev libfftw3-dev libzip-dev libpugixml-dev
+          nlohmann-json3-dev libpolyclipping-dev libfftw3-dev libzip-dev zlib1g-dev libpugixml-dev
           libbenchmark-dev python3 python3-numpy python3-scipy
           clang libclang-rt-14-dev)
 missing=()

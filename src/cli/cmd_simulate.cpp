@@ -184,20 +184,20 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   // traces copied at full resolution from the bands; its height.npy (only with --npy) is
   // already on disk under a temp name and is published here.
   if (!run.streamed) {
-    dir.write("height.npy", pics.height_npy);
+    dir.stage("height.npy", pics.height_npy);
   } else if (npy) {
     npy->commit();
     dir.add_committed("height.npy");
   }
-  dir.write("height.png", pics.height_png);
-  dir.write("shaded.png", pics.shaded_png);
+  dir.stage("height.png", pics.height_png);
+  dir.stage("shaded.png", pics.shaded_png);
   if (pics.has_detail) {
-    dir.write("detail.png", pics.detail_png);
-    dir.write("detail_shaded.png", pics.detail_shaded_png);
+    dir.stage("detail.png", pics.detail_png);
+    dir.stage("detail_shaded.png", pics.detail_shaded_png);
   }
-  if (!pics.profile_png.empty()) dir.write("profile.png", pics.profile_png);
-  dir.write("moves.csv", encode_moves_csv(run.built.path));
-  dir.write("path.svg", encode_path_svg(run.built.path, run.patch, job.path.boundary_mm,
+  if (!pics.profile_png.empty()) dir.stage("profile.png", pics.profile_png);
+  dir.stage("moves.csv", encode_moves_csv(run.built.path));
+  dir.stage("path.svg", encode_path_svg(run.built.path, run.patch, job.path.boundary_mm,
                                         run.patch.floor_z_mm));
   if (!o.report_html.empty()) {
     write_file_atomic(o.report_html,
@@ -228,7 +228,8 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
     report["memory"]["overview_cells_per_pixel"] = run.overview_cells_per_pixel;
   }
   if (shop.active()) report["shop"] = shop_ra_json(shop, run.texture.profile.roughness.a_um);
-  dir.write("report.json", report.dump(2) + "\n");
+  dir.stage("report.json", report.dump(2) + "\n");
+  dir.publish();
   print_stage(o.common.verbose, "write", write.seconds());
   if (o.common.json) {
     print_json(report);

@@ -26,6 +26,13 @@ void OutputDir::write(std::string_view name, std::string_view bytes) {
   written_.emplace_back(name);
 }
 
+void OutputDir::stage(std::string_view name, std::string_view bytes) {
+  staged_.add(path_of(name), bytes);
+  written_.emplace_back(name);
+}
+
+void OutputDir::publish() { staged_.commit(); }
+
 void OutputDir::add_committed(std::string_view name) { written_.emplace_back(name); }
 
 std::string OutputDir::path_of(std::string_view name) const {

@@ -7,6 +7,8 @@
 #include <string_view>
 #include <vector>
 
+#include "core/atomic_file_batch.h"
+
 namespace cuspmap {
 
 /// An output folder and the files written into it so far.
@@ -19,6 +21,13 @@ class OutputDir {
   /// Writes `bytes` to <folder>/<name> atomically. `name` must be a plain file name made by
   /// cuspmap (no '/', no "..", not empty): anything else is a programming error.
   void write(std::string_view name, std::string_view bytes);
+
+  /// Like write(), but the file appears only at publish(), together with the others staged
+  /// (one journal commit for the set, core/atomic_file_batch.h); if publish() is never reached
+  /// none of them appears. Listed in written() at once.
+  void stage(std::string_view name, std::string_view bytes);
+  /// Publishes the staged files (fsync each, rename each, fsync the folder).
+  void publish();
 
   /// Records a file published in the folder by a streamed writer (an AtomicFileStream opened
   /// on path_of(name) and committed), so written() lists it. Same rules for `name` as write().
@@ -34,6 +43,7 @@ class OutputDir {
  private:
   std::string path_;
   std::vector<std::string> written_;
+  AtomicFileBatch staged_;
 };
 
 /// A file name derived from user text (a job name) reduced to [A-Za-z0-9_-.], at most 60 chars,

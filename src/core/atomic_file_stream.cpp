@@ -20,6 +20,7 @@ AtomicFileStream::AtomicFileStream(std::string path)
     : path_(std::move(path)), temp_(temp_file_name(path_)) {
   slot_ = register_temp_file(temp_);
   fd_ = open(temp_.c_str(), O_WRONLY | O_CREAT | O_TRUNC | O_CLOEXEC, 0644);
+  temp_exists_ = fd_ >= 0;
   if (fd_ < 0) {
     const int err = errno;
     unregister_temp_file(slot_);
@@ -34,8 +35,9 @@ void AtomicFileStream::abandon() {
   if (fd_ >= 0) {
     close(fd_);
     fd_ = -1;
-    unlink(temp_.c_str());
   }
+  if (temp_exists_) unlink(temp_.c_str());
+  temp_exists_ = false;
   unregister_temp_file(slot_);
   slot_ = -1;
 }
@@ -58,20 +60,28 @@ void AtomicFileStream::append(std::string_view bytes) {
 }
 
 void AtomicFileStream::commit() {
-  assert(fd_ >= 0 && "commit twice or after a failure");
+  flush();
+  publish();
+}
+
+void AtomicFileStream::start_flush() {
+  assert(fd_ >= 0 && "start_flush after flush or after a failure");
+  // Only a hint: flush() below reports any write-back error through fsync.
+  (void)sync_file_range(fd_, 0, 0, SYNC_FILE_RANGE_WRITE);
+}
+
+void AtomicFileStream::flush() {
+  assert(fd_ >= 0 && "flush twice or after a failure");
   if (fsync(fd_) != 0) fail("flush", errno);
   const int fd = fd_;
   fd_ = -1;  // closed below either way
-  if (close(fd) != 0) {
-    const int err = errno;
-    unlink(temp_.c_str());
-    fail("flush", err);
-  }
-  if (std::rename(temp_.c_str(), path_.c_str()) != 0) {
-    const int err = errno;
-    unlink(temp_.c_str());
-    fail("rename", err);
-  }
+  if (close(fd) != 0) fail("flush", errno);
+}
+
+void AtomicFileStream::publish() {
+  assert(fd_ < 0 && temp_exists_ && "publish before flush, or twice");
+  if (std::rename(temp_.c_str(), path_.c_str()) != 0) fail("rename", errno);
+  temp_exists_ = false;
   unregister_temp_file(slot_);
   slot_ = -1;
 }

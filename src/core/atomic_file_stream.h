@@ -33,6 +33,15 @@ class AtomicFileStream {
   ///         removed first
   void commit();
 
+  /// commit() in steps, for several files published together (core/atomic_file_batch.h):
+  /// start_flush() starts writing the bytes back without waiting; flush() waits for them to
+  /// reach the disk (fsync) and closes the temp; publish() renames it over `path`. Each once, in
+  /// that order (start_flush may be skipped).
+  /// @throws std::runtime_error as commit()
+  void start_flush();
+  void flush();
+  void publish();
+
   /// Bytes appended so far.
   std::int64_t bytes_written() const { return written_; }
   /// The destination path.
@@ -46,6 +55,7 @@ class AtomicFileStream {
   std::string temp_;
   int slot_ = -1;
   int fd_ = -1;
+  bool temp_exists_ = false;  // the temp file is on disk, not yet renamed
   std::int64_t written_ = 0;
 };
 

@@ -70,9 +70,21 @@ std::optional<double> sidecar_cell(const std::string& path) {
 std::string read_all(const std::string& path) {
   std::ifstream f(path, std::ios::binary);
   if (!f) throw InputError(path + ": cannot open the file");
-  std::ostringstream ss;
-  ss << f.rdbuf();
-  return ss.str();
+  // One read into a buffer of the file's size (no growing stream buffer and copy out: a 64 MB
+  // heightmap was copied twice and paged in three times).
+  f.seekg(0, std::ios::end);
+  const std::streamoff size = f.tellg();
+  f.seekg(0, std::ios::beg);
+  if (size < 0 || !f) {
+    std::ostringstream ss;  // not seekable (a pipe): read as it comes
+    f.clear();
+    ss << f.rdbuf();
+    return std::move(ss).str();
+  }
+  std::string bytes(static_cast<std::size_t>(size), '\0');
+  f.read(bytes.data(), size);
+  bytes.resize(static_cast<std::size_t>(f.gcount()));
+  return bytes;
 }
 
 double z_units_to_um(const std::string& units) {

@@ -50,35 +50,64 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
   HeightGrid sum(ny, out_nx), weight(ny, out_nx);
   // Whether block (j / k, bi) has a finite cell: the same "not reached" rule as the other modes.
   std::vector<std::uint8_t> reached(static_cast<std::size_t>(out_ny) * out_nx, 0);
+  // Each block's total weight when every cell is finite (summed in the same order as below).
+  std::vector<double> full_weight(static_cast<std::size_t>(out_nx), 0.0);
+  for (int bi = 0; bi < out_nx; ++bi) {
+    for (double w : tx[bi].w) full_weight[bi] += w;
+  }
   for (int j = 0; j < ny; ++j) {
+    const float* row = &z(j, 0);
+    bool all_finite = true;
+    for (int i = 0; i < nx; ++i) all_finite &= std::isfinite(row[i]);
     for (int bi = 0; bi < out_nx; ++bi) {
       const Taps& t = tx[bi];
+      const float* v = row + t.first;
+      const int taps = static_cast<int>(t.w.size());
       double s = 0.0, w = 0.0;
-      for (std::size_t q = 0; q < t.w.size(); ++q) {
-        const float v = z(j, t.first + static_cast<int>(q));
-        if (!std::isfinite(v)) continue;
-        s += t.w[q] * v;
-        w += t.w[q];
+      if (all_finite) {
+        // The common case, without a test per tap: the same sums in the same order.
+        for (int q = 0; q < taps; ++q) s += t.w[q] * v[q];
+        w = full_weight[bi];
+      } else {
+        for (int q = 0; q < taps; ++q) {
+          if (!std::isfinite(v[q])) continue;
+          s += t.w[q] * v[q];
+          w += t.w[q];
+        }
       }
       sum(j, bi) = static_cast<float>(s);
       weight(j, bi) = static_cast<float>(w);
     }
-    for (int i = 0; i < nx; ++i) {
-      if (std::isfinite(z(j, i))) reached[static_cast<std::size_t>(j / k) * out_nx + i / k] = 1;
+    std::uint8_t* mark = &reached[static_cast<std::size_t>(j / k) * out_nx];
+    if (all_finite) {
+      std::fill(mark, mark + out_nx, std::uint8_t{1});
+    } else {
+      for (int i = 0; i < nx; ++i) {
+        if (std::isfinite(row[i])) mark[i / k] = 1;
+      }
     }
   }
   HeightGrid out(out_ny, out_nx);
+  // Columns: each output's sums take the taps in order, accumulated a whole output row at a time
+  // (contiguous, so the loop over bi vectorises).
+  std::vector<double> s(static_cast<std::size_t>(out_nx)), w(static_cast<std::size_t>(out_nx));
   for (int bj = 0; bj < out_ny; ++bj) {
     const Taps& t = ty[bj];
-    for (int bi = 0; bi < out_nx; ++bi) {
-      double s = 0.0, w = 0.0;
-      for (std::size_t q = 0; q < t.w.size(); ++q) {
-        const int j = t.first + static_cast<int>(q);
-        s += t.w[q] * sum(j, bi);
-        w += t.w[q] * weight(j, bi);
+    std::fill(s.begin(), s.end(), 0.0);
+    std::fill(w.begin(), w.end(), 0.0);
+    for (std::size_t q = 0; q < t.w.size(); ++q) {
+      const int j = t.first + static_cast<int>(q);
+      const double tw = t.w[q];
+      const float* sr = &sum(j, 0);
+      const float* wr = &weight(j, 0);
+      for (int bi = 0; bi < out_nx; ++bi) {
+        s[bi] += tw * sr[bi];
+        w[bi] += tw * wr[bi];
       }
+    }
+    for (int bi = 0; bi < out_nx; ++bi) {
       const bool any = reached[static_cast<std::size_t>(bj) * out_nx + bi] != 0;
-      out(bj, bi) = any && w > 0.0 ? static_cast<float>(s / w) : kUnreached;
+      out(bj, bi) = any && w[bi] > 0.0 ? static_cast<float>(s[bi] / w[bi]) : kUnreached;
     }
   }
   return out;

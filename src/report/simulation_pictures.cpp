@@ -6,6 +6,8 @@
 
 #include <algorithm>
 #include <cmath>
+#include <future>
+#include <string>
 
 #include "cusp/kinematic_limits.h"
 #include "io/npy.h"
@@ -93,6 +95,24 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
   // cannot be drawn, so its pictures have none.
   pics.has_detail = !run.streamed;
   if (pics.has_detail) pics.detail = choose_detail_window(run.floor);
+  // The shaded relief and the detail view are independent of the height pictures: they are
+  // drawn on their own threads meanwhile (each picture's bytes are the same either way).
+  std::future<ShadedImage> shaded = std::async(std::launch::async, [&] {
+    ShadedImageOptions sopt;
+    sopt.cells_per_pixel = cells_per_pixel;
+    ShadedImage img = render_shaded_image(run.floor, sopt);
+    if (pics.has_detail) {
+      img.image = outline_detail_window(img.image, 0, 0, img.image.height, img.cells_per_pixel,
+                                        pics.detail);
+    }
+    return img;
+  });
+  std::future<DetailView> detail;
+  if (pics.has_detail) {
+    detail = std::async(std::launch::async, [&] {
+      return render_detail_view(run.floor, pics.detail, units);
+    });
+  }
   const HeightPictures heights = render_height_pictures(run.floor, units, range, own_range_too);
   const auto outlined = [&](const HeightImage& h) {
     return pics.has_detail ? outline_detail_window(h.image, h.map_x_px, h.map_y_px,
@@ -100,27 +120,25 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
                            : h.image;
   };
   const HeightImage& height = heights.shared;
-  pics.height_png = encode_png(outlined(height));
-  pics.height_caption = heights.shared_caption;
+  // Encoding runs beside the next picture's drawing.
+  std::future<std::string> height_png =
+      std::async(std::launch::async, [&] { return encode_png(outlined(height)); });
   if (heights.own) {
     pics.height_own_png = encode_png(outlined(*heights.own));
     pics.height_own_caption = heights.own_caption;
   }
+  pics.height_caption = heights.shared_caption;
 
-  ShadedImageOptions sopt;
-  sopt.cells_per_pixel = cells_per_pixel;
-  pics.shaded = render_shaded_image(run.floor, sopt);
-  if (pics.has_detail) {
-    pics.shaded.image = outline_detail_window(pics.shaded.image, 0, 0, pics.shaded.image.height,
-                                              pics.shaded.cells_per_pixel, pics.detail);
-  }
-  pics.shaded_png = encode_png(pics.shaded.image);
+  pics.shaded = shaded.get();
+  std::future<std::string> shaded_png =
+      std::async(std::launch::async, [&] { return encode_png(pics.shaded.image); });
   pics.shaded_caption = shaded_image_caption(pics.shaded);
-
   if (pics.has_detail) {
-    DetailView view = render_detail_view(run.floor, pics.detail, units);
-    pics.detail_png = encode_png(view.height.image);
+    DetailView view = detail.get();
+    std::future<std::string> detail_height =
+        std::async(std::launch::async, [&] { return encode_png(view.height.image); });
     pics.detail_shaded_png = encode_png(view.shaded.image);
+    pics.detail_png = detail_height.get();
     pics.detail_shaded = std::move(view.shaded);
     pics.detail_caption = std::move(view.caption);
   }
@@ -138,6 +156,8 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
   // A streamed run's floor is the overview: its full-resolution .npy is written band by band
   // (io/npy_band_writer.h) by the caller, never encoded here.
   if (!run.streamed) pics.height_npy = encode_npy(run.floor);
+  pics.height_png = height_png.get();
+  pics.shaded_png = shaded_png.get();
 
   pics.facts.height_lo_um = height.lo_um;
   pics.facts.height_hi_um = height.hi_um;

@@ -1,22 +1,32 @@
 // Areal height parameters through ArealMoments, and Sdr from cell-square slopes.
-// Inputs: residual heightfield um; output: ArealParameters. Cost O(cells).
+// Inputs: residual heightfield um; output: ArealParameters. Cost O(cells) / threads, summed in
+// fixed row blocks (the same result for any thread count).
 // Method: ISO 25178-2:2012 §4.1 and §4.3.2.
 #include "texture/areal_parameters.h"
 
+#include <algorithm>
 #include <cassert>
 #include <cmath>
+#include <vector>
 
+#include "core/parallel_blocks.h"
 #include "core/units.h"
 #include "texture/areal_moments.h"
 
 namespace cuspmap {
+namespace {
 
-double developed_area_ratio(const Heightfield& hf, std::int64_t& squares) {
-  squares = 0;
-  double sum = 0.0;
+// Rows per partial sum: the field is cut into fixed row blocks whatever the thread count, and
+// the blocks' sums are added in order, so results do not depend on the threads.
+constexpr int kRowsPerBlock = 64;
+
+int row_blocks(int rows) { return (rows + kRowsPerBlock - 1) / kRowsPerBlock; }
+
+// Sdr sums over the squares whose lower-left cell is in rows [j0, j1).
+void sdr_rows(const Heightfield& hf, int j0, int j1, double& sum, std::int64_t& squares) {
   // Slopes are height (um -> mm) over run (mm); the 1/(2 cell) averages the two edges.
   const double k = 1.0 / (kUmPerMm * 2.0 * hf.cell_mm);
-  for (int j = 0; j + 1 < hf.ny; ++j) {
+  for (int j = j0; j < j1; ++j) {
     for (int i = 0; i + 1 < hf.nx; ++i) {
       const double z00 = hf.z_um(j, i), z10 = hf.z_um(j, i + 1);
       const double z01 = hf.z_um(j + 1, i), z11 = hf.z_um(j + 1, i + 1);
@@ -29,13 +39,37 @@ double developed_area_ratio(const Heightfield& hf, std::int64_t& squares) {
       ++squares;
     }
   }
+}
+
+}  // namespace
+
+double developed_area_ratio(const Heightfield& hf, std::int64_t& squares) {
+  const int rows = std::max(hf.ny - 1, 0);
+  std::vector<double> sums(static_cast<std::size_t>(row_blocks(rows)), 0.0);
+  std::vector<std::int64_t> counts(sums.size(), 0);
+  parallel_blocks(row_blocks(rows), 0, [&](int b) {
+    sdr_rows(hf, b * kRowsPerBlock, std::min(rows, (b + 1) * kRowsPerBlock), sums[b], counts[b]);
+  });
+  squares = 0;
+  double sum = 0.0;
+  for (std::size_t b = 0; b < sums.size(); ++b) {
+    sum += sums[b];
+    squares += counts[b];
+  }
   return squares > 0 ? sum / static_cast<double>(squares) : 0.0;
 }
 
 ArealParameters areal_parameters(const Heightfield& residual) {
+  std::vector<ArealMoments> part(static_cast<std::size_t>(row_blocks(residual.ny)));
+  parallel_blocks(row_blocks(residual.ny), 0, [&](int b) {
+    const int j1 = std::min(residual.ny, (b + 1) * kRowsPerBlock);
+    for (int j = b * kRowsPerBlock; j < j1; ++j) {
+      const float* z = &residual.z_um(j, 0);
+      for (int i = 0; i < residual.nx; ++i) part[b].add(z[i]);
+    }
+  });
   ArealMoments m;
-  const float* z = residual.z_um.data();
-  for (std::int64_t k = 0; k < residual.cells(); ++k) m.add(z[k]);
+  for (const ArealMoments& p : part) m.merge(p);
   assert(m.count > 0 && "areal parameters need a finite cell");
   const AmplitudeParameters a = amplitude_parameters(m);
   ArealParameters p;

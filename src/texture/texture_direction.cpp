@@ -2,7 +2,8 @@
 // direction from the Hann-windowed power spectrum.
 // Inputs: residual heightfield; output: TextureDirection. Cost O(N log N).
 // Method: ISO 25178-2:2012 §4.2; Wiener-Khinchin theorem; ACF by FFTW3 single-precision real
-// transforms on threads (texture/real_fft_2d.h, bit-identical for any thread count); lay in double.
+// transforms on threads (texture/real_fft_2d.h, bit-identical for any thread count); lay in double
+// on threads (texture/lay_spectrum.h).
 #include "texture/texture_direction.h"
 
 #include <algorithm>
@@ -15,12 +16,11 @@
 
 #include "core/parallel_blocks.h"
 #include "texture/fft_autocorrelation.h"
+#include "texture/lay_spectrum.h"
 #include "texture/real_fft_2d.h"
 
 namespace cuspmap {
 namespace {
-
-using ComplexBuf = std::unique_ptr<fftw_complex, FftwFree>;
 
 // Smallest size >= n with no prime factor above 7 (FFTW is fastest on those).
 int fft_size(int n) {
@@ -108,39 +108,8 @@ Acf::Acf(const Heightfield& hf, int threads, Heightfield* release)
 // directions weighted by power is perpendicular to the grooves.
 // Kept in double precision: the lay angle steers the profile traces, and float round-off
 // would tilt an exactly symmetric spectrum by ~1e-6 deg.
-void lay_from_spectrum(const Heightfield& hf, int /*threads*/, TextureDirection& out) {
-  const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
-  FftwRealBuffer z = fftw_real_buffer(static_cast<size_t>(nx) * static_cast<size_t>(ny));
-  ComplexBuf spec(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * ny * bins)));
-  const double two_pi = 2.0 * std::numbers::pi;
-  for (int j = 0; j < ny; ++j) {
-    const double wy = 0.5 - 0.5 * std::cos(two_pi * (j + 0.5) / ny);
-    for (int i = 0; i < nx; ++i) {
-      const double wx = 0.5 - 0.5 * std::cos(two_pi * (i + 0.5) / nx);
-      const float v = hf.z_um(j, i);
-      z.get()[static_cast<size_t>(j) * nx + i] = std::isnan(v) ? 0.0 : wx * wy * v;
-    }
-  }
-  fftw_plan plan = fftw_plan_dft_r2c_2d(ny, nx, z.get(), spec.get(), FFTW_ESTIMATE);
-  fftw_execute(plan);
-  fftw_destroy_plan(plan);
-  double c = 0.0, s = 0.0, total = 0.0;
-  for (int j = 0; j < ny; ++j) {
-    const double ky = (j <= ny / 2 ? j : j - ny) / (ny * hf.cell_mm);
-    for (int i = 0; i < bins; ++i) {
-      if (i == 0 && j == 0) continue;
-      const double kx = i / (nx * hf.cell_mm);
-      const double re = spec.get()[static_cast<size_t>(j) * bins + i][0];
-      const double im = spec.get()[static_cast<size_t>(j) * bins + i][1];
-      // Columns 0 and nx/2 (even nx) hold both k and -k; the others stand for their mirror too.
-      const double weight = (i == 0 || 2 * i == nx) ? 1.0 : 2.0;
-      const double p = weight * (re * re + im * im);
-      const double phi2 = 2.0 * std::atan2(ky, kx);
-      c += p * std::cos(phi2);
-      s += p * std::sin(phi2);
-      total += p;
-    }
-  }
+void lay_from_sums(const LaySums& sums, TextureDirection& out) {
+  const double c = sums.c, s = sums.s, total = sums.total;
   if (!(total > 0.0)) return;
   out.lay_strength = std::hypot(c, s) / total;
   double lay = 0.5 * std::atan2(s, c) * 180.0 / std::numbers::pi + 90.0;
@@ -149,11 +118,12 @@ void lay_from_spectrum(const Heightfield& hf, int /*threads*/, TextureDirection&
   out.lay_deg = lay;
 }
 
-TextureDirection direction_of(const Heightfield& residual, int threads, Heightfield* release) {
+TextureDirection direction_of(const Heightfield& residual, int threads, Heightfield* release,
+                              const LaySums* lay) {
   TextureDirection out;
   if (residual.nx < 2 || residual.ny < 2) return out;
   // The lay first: its field is freed before the larger padded one is made.
-  lay_from_spectrum(residual, threads, out);
+  lay_from_sums(lay != nullptr ? *lay : lay_spectrum(residual, threads), out);
   // Sizes are kept: `release` may empty the residual's heights below.
   const int nx = residual.nx, ny = residual.ny;
   const double cell_mm = residual.cell_mm;
@@ -205,11 +175,11 @@ TextureDirection direction_of(const Heightfield& residual, int threads, Heightfi
 }  // namespace
 
 TextureDirection texture_direction(const Heightfield& residual, int threads) {
-  return direction_of(residual, threads, nullptr);
+  return direction_of(residual, threads, nullptr, nullptr);
 }
 
-TextureDirection texture_direction(Heightfield&& residual, int threads) {
-  return direction_of(residual, threads, &residual);
+TextureDirection texture_direction(Heightfield&& residual, int threads, const LaySums* lay) {
+  return direction_of(residual, threads, &residual, lay);
 }
 
 }  // namespace cuspmap

@@ -9,6 +9,7 @@
 #pragma once
 
 #include "core/heightfield.h"
+#include "texture/lay_spectrum.h"
 
 namespace cuspmap {
 
@@ -38,6 +39,10 @@ TextureDirection texture_direction(const Heightfield& residual, int threads = 0)
 
 /// As above, taking the residual over: its heights are freed once the padded transform holds
 /// them (so a large floor's residual and transform are not held at once).
-TextureDirection texture_direction(Heightfield&& residual, int threads = 0);
+/// @param[in] lay  optional lay sums of this residual already taken (texture/lay_spectrum.h,
+///                 e.g. from the floor and its plane before the residual was made); null =
+///                 computed here
+TextureDirection texture_direction(Heightfield&& residual, int threads = 0,
+                                   const LaySums* lay = nullptr);
 
 }  // namespace cuspmap

@@ -7,6 +7,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <optional>
 #include <utility>
 
 #include "core/input_error.h"
@@ -15,6 +16,7 @@
 #include "texture/gaussian_areal_filter.h"
 #include "texture/iso1302_grade.h"
 #include "texture/iso4288_cutoff.h"
+#include "texture/lay_spectrum.h"
 #include "texture/select_cutoff.h"
 #include "texture/stylus_closing.h"
 
@@ -33,6 +35,12 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
                        std::vector<std::string>& warnings) {
   ArealReport a;
   a.plane = fit_plane(hf);
+  // Without filters the lay's transform reads the floor less its plane before the residual is
+  // made (the same float values), so the floor, the residual and that transform (8 bytes per
+  // cell) are never held at once.
+  const bool filtered = o.s_filter_mm > 0.0 || o.l_filter_mm > 0.0;
+  std::optional<LaySums> lay;
+  if (!filtered && hf.nx >= 2 && hf.ny >= 2) lay = lay_spectrum(hf, 0, &a.plane);
   Heightfield residual = remove_plane(hf, a.plane);
   if (o.s_filter_mm > 0.0) {
     residual = gaussian_areal_filter(residual, o.s_filter_mm);
@@ -47,7 +55,7 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
   }
   a.parameters = areal_parameters(residual);
   // The residual is handed over: freed once the padded transform holds it (peak memory).
-  a.spatial = texture_direction(std::move(residual));
+  a.spatial = texture_direction(std::move(residual), 0, lay ? &*lay : nullptr);
   if (!a.parameters.shape_defined) warnings.push_back("surface is flat: Ssk and Sku reported as 0");
   if (!a.spatial.sal_found) {
     warnings.push_back(

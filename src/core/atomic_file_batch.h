@@ -1,0 +1,38 @@
+// Several output files published together: each is written to its own temp name when added,
+// and commit() makes them all durable, then renames them, so the disk's journal commits about
+// once for the whole set instead of once per file; an abandoned batch leaves none of them.
+// Method: POSIX rename(2) atomicity as core/atomic_file_stream.h; Linux sync_file_range(2) to
+// start every file's write-back before the first fsync(2) waits.
+#pragma once
+
+#include <memory>
+#include <string>
+#include <string_view>
+#include <vector>
+
+#include "core/atomic_file_stream.h"
+
+namespace cuspmap {
+
+/// Files staged under temp names and published by one commit().
+class AtomicFileBatch {
+ public:
+  /// Writes `bytes` to a temp name beside `path` now (not yet fsynced or renamed).
+  /// @param[in] path   destination file; its folder must exist
+  /// @param[in] bytes  complete file contents
+  /// @throws std::runtime_error as AtomicFileStream (the temp file is removed first)
+  void add(const std::string& path, std::string_view bytes);
+
+  /// Starts every file's write-back, waits for each (fsync), renames each over its
+  /// destination in the order added, then fsyncs their folders once each. Call once.
+  /// @throws std::runtime_error as AtomicFileStream::commit(); files not yet renamed are removed
+  void commit();
+
+  /// Files added so far.
+  std::size_t size() const { return files_.size(); }
+
+ private:
+  std::vector<std::unique_ptr<AtomicFileStream>> files_;
+};
+
+}  // namespace cuspmap
