@@ -246,7 +246,7 @@ void print_human(const Allowance& a, const Marks& m, const GritChoice& g,
     std::printf("Predicted Ra: %s as machined, unsanded\n",
                 display_roughness(m.heights.ra_um, u).c_str());
   }
-  if (const std::string c = fine_ra_caution(m.heights.ra_um); !c.empty()) {
+  if (const std::string c = fine_ra_caution(m.heights.ra_um, u); !c.empty()) {
     std::printf("  caution: %s\n", c.c_str());
   }
   std::printf("%s\n", kKinematicBestCase);

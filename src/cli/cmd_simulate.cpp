@@ -103,7 +103,7 @@ void print_summary(const Job& job, const JobRun& run, const OutputDir& dir, Leng
               run.texture.profile.iso1302_grade.c_str(),
               display_roughness(rough.z_um, units).c_str(),
               display_cutoff(run.texture.profile.cutoff_mm, units).c_str());
-  if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) {
+  if (const std::string fine = fine_ra_caution(rough.a_um, units); !fine.empty()) {
     std::printf("  caution: %s\n", fine.c_str());
   }
   std::printf("  Sa %s  Sz %s  cusp %s\n", display_roughness(areal.sa_um, units).c_str(),

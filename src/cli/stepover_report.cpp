@@ -334,7 +334,7 @@ std::string stepover_table(const StepoverReport& rep) {
   for (const std::string& w : m.warnings) out << "warning: " << w << '\n';
   for (const std::string& n : m.notes) out << "note: " << n << '\n';
   for (const std::string& c : m.cautions) out << "caution: " << c << '\n';
-  if (const std::string fine = fine_ra_caution(r.stats.ra_um); !fine.empty()) {
+  if (const std::string fine = fine_ra_caution(r.stats.ra_um, u); !fine.empty()) {
     out << "caution: " << fine << '\n';
   }
   out << "model: " << kKinematicBestCase << '\n';

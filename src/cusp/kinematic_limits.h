@@ -7,6 +7,8 @@
 
 #include <string>
 
+#include "core/units.h"
+
 namespace cuspmap {
 
 /// Said once in every human output and report that carries a prediction.
@@ -21,6 +23,7 @@ inline constexpr double kFineRaCautionUm = 0.2;
 
 /// The caution for a predicted Ra below kFineRaCautionUm, or "" when ra_um is at or above it.
 /// @param[in] ra_um  predicted Ra, um (finite)
-std::string fine_ra_caution(double ra_um);
+/// @param[in] unit   display unit of the text: um (mm) or uin (in), 3 significant figures
+std::string fine_ra_caution(double ra_um, LengthUnit unit = LengthUnit::Millimetre);
 
 }  // namespace cuspmap

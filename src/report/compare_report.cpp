@@ -308,7 +308,7 @@ HtmlReport compare_html_report(const std::vector<CompareRow>& rows, const Profil
   for (const std::string& why : basis.reasons) r.notes.push_back(why);
   for (const std::string& note : basis.notes) r.notes.push_back(note);
   for (size_t k = 0; k < rows.size(); ++k) {
-    const std::string fine = fine_ra_caution(rows[k].run.texture.profile.roughness.a_um);
+    const std::string fine = fine_ra_caution(rows[k].run.texture.profile.roughness.a_um, units);
     if (!fine.empty()) r.notes.push_back(std::to_string(k + 1) + ": " + fine);
   }
   r.tables.push_back(std::move(t));

@@ -219,7 +219,7 @@ HtmlReport simulation_html_report(const Job& job, const JobRun& run,
                    std::to_string(p.sampling_lengths) + " sampling lengths, " +
                    std::to_string(p.traces) + " traces)",
                "Areal: least-squares plane removed (F-operator)"};
-  if (const std::string fine = fine_ra_caution(rough.a_um); !fine.empty()) r.notes.push_back(fine);
+  if (const std::string fine = fine_ra_caution(rough.a_um, units); !fine.empty()) r.notes.push_back(fine);
   for (const std::string& w : run.texture.warnings) r.notes.push_back(w);
   if (const std::string margin = margin_passes_note(run.built); !margin.empty()) {
     r.notes.push_back(margin);

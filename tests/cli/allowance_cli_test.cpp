@@ -210,7 +210,7 @@ TEST_CASE("allowance: issue_13: marks finer than the last grade leaves get no sa
   REQUIRE(human.exit_code == 0);
   REQUIRE(human.out.find("no sanding needed") != std::string::npos);
   REQUIRE(human.out.find("kinematic best case") != std::string::npos);
-  REQUIRE(human.out.find("is below 0.2 um") != std::string::npos);  // Ra 0: the fine-Ra caution
+  REQUIRE(human.out.find("is below 8 uin (0.2 um)") != std::string::npos);  // Ra 0: the fine-Ra caution, in uin (ISO 1302:1992 inch column)
 }
 
 TEST_CASE("allowance: issue_13: each grade's predicted Ra is shown", "[cli]") {
