@@ -1,8 +1,9 @@
 // The largest raster stepover whose floor meets a target Sa once the marks along the feed count
 // too: the cross-feed profile's closed form brackets it, then bisection on windows swept tooth
 // by tooth (simulated_cusp_heights: ISO 25178-2 Sa after least-squares plane removal).
-// Method: bisection on a monotone bracket (Sa grows with the stepover); closed form of
-// cusp_profile_heights for the upper end (the profile alone is Sa's lower bound at any stepover).
+// Method: bisection on the stepover (Sa grows with it); the upper end is the stepover at which
+// the closed-form profile of cusp_profile_heights alone meets the target, taken as the answer
+// when its simulated window already does (the marks along the feed then do not matter).
 #include "finish/areal_stepover.h"
 
 #include <cassert>

@@ -44,10 +44,8 @@ SurfaceHeights simulated_cusp_heights(const Cutter& cutter, double stepover_mm,
   // lower from beyond the distance that bounds the nearest pass's cut, half a stepover across
   // and half the feed per revolution along (derived: its profile rises with the distance).
   const double cell_mm = stepover_mm / cells;
-  PathSpec probe;
-  probe.stepover_mm = stepover_mm;
   const double reach_mm =
-      raster_margin_passes(probe, cutter) > 0
+      raster_margin_passes(stepover_mm, cutter) > 0
           ? cutter.radius_mm() + cutter.runout_mm
           : std::hypot(0.5 * stepover_mm, sweep.tooth_marks ? 0.5 * feed_per_rev_mm : 0.0);
   const int guard_periods = static_cast<int>(std::ceil(reach_mm / stepover_mm)) + 1;

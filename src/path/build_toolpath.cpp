@@ -25,7 +25,7 @@ BuiltPath build_toolpath(const PathSpec& spec, const CutSpec& cut, const Patch& 
   built.spindle = cut.spindle;
   switch (spec.kind) {
     case PathKind::Raster:
-      built.margin_passes = raster_margin_passes(spec, cutter);
+      built.margin_passes = raster_margin_passes(spec.stepover_mm, cutter);
       built.path = raster_path(spec, cut, patch, cutter, built.margin_passes);
       if (built.margin_passes > 0) built.program = raster_path(spec, cut, patch, cutter);
       break;

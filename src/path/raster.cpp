@@ -69,15 +69,15 @@ Move line_move(const Eigen::Vector3d& from, const Eigen::Vector3d& to, double fe
 
 }  // namespace
 
-int raster_margin_passes(const PathSpec& spec, const Cutter& cutter) {
-  assert(spec.stepover_mm > 0.0 && "raster needs a stepover");
+int raster_margin_passes(double stepover_mm, const Cutter& cutter) {
+  assert(stepover_mm > 0.0 && "raster needs a stepover");
   // An untilted cutter without runout whose end rises from its axis (ball, bull-nose, undished
   // flat) cuts each cell lowest from the nearest pass: passes beyond the patch change nothing.
   const bool lowest_on_axis = cutter.tilt_deg == 0.0 && cutter.runout_mm == 0.0 &&
                               (cutter.shape == CutterShape::Ball || cutter.dish_deg == 0.0);
   if (lowest_on_axis) return 0;
   const double reach = cutter.radius_mm() + cutter.runout_mm;
-  return static_cast<int>(std::ceil(reach / spec.stepover_mm - kCountSlack));
+  return static_cast<int>(std::ceil(reach / stepover_mm - kCountSlack));
 }
 
 Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patch,

@@ -29,6 +29,7 @@ Toolpath raster_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
 /// Passes a floor window needs on each side across the lay so that its edge cells are cut by
 /// every pass that reaches them: 0 when the cutter's lowest point lies on its axis (untilted,
 /// no runout, an end that rises from the axis), else ceil((R + runout) / stepover).
-int raster_margin_passes(const PathSpec& spec, const Cutter& cutter);
+/// @param[in] stepover_mm  > 0
+int raster_margin_passes(double stepover_mm, const Cutter& cutter);
 
 }  // namespace cuspmap

@@ -80,24 +80,22 @@ TEST_CASE("issue_13: a trammed dished flat finishes the raster's edge rows like 
 
 TEST_CASE("raster_margin_passes: only cutters whose lowest point is off their axis",
           "[path][edge]") {
-  PathSpec spec;
-  spec.kind = PathKind::Raster;
-  spec.stepover_mm = 0.4;
+  const double stepover_mm = 0.4;
   Cutter c;
   c.diameter_mm = 6.0;
-  CHECK(raster_margin_passes(spec, c) == 0);  // ball: nearest pass cuts lowest (derived)
+  CHECK(raster_margin_passes(stepover_mm, c) == 0);  // ball: nearest pass cuts lowest (derived)
   c.shape = CutterShape::Flat;
-  CHECK(raster_margin_passes(spec, c) == 0);  // level undished face
+  CHECK(raster_margin_passes(stepover_mm, c) == 0);  // level undished face
   c.dish_deg = 0.5;
-  CHECK(raster_margin_passes(spec, c) == 8);  // rim lowest: ceil(3 / 0.4) = 8
+  CHECK(raster_margin_passes(stepover_mm, c) == 8);  // rim lowest: ceil(3 / 0.4) = 8
   c.dish_deg = 0.0;
   c.runout_mm = 0.005;
-  CHECK(raster_margin_passes(spec, c) == 8);  // ceil(3.005 / 0.4) = 8
+  CHECK(raster_margin_passes(stepover_mm, c) == 8);  // ceil(3.005 / 0.4) = 8
   c.runout_mm = 0.0;
   c.shape = CutterShape::BullNose;
   c.corner_radius_mm = 1.0;
   c.tilt_deg = 0.02;
-  CHECK(raster_margin_passes(spec, c) == 8);
+  CHECK(raster_margin_passes(stepover_mm, c) == 8);
 }
 
 TEST_CASE("raster_path: margin passes continue the pattern; the program's passes keep direction",

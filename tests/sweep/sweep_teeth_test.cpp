@@ -9,6 +9,7 @@
 #include "path/raster.h"
 #include "sweep/brute_force_stamp.h"
 #include "sweep/simulate_floor.h"
+#include "sweep/teeth_fixtures.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -55,14 +56,7 @@ TEST_CASE("simulate_floor: tooth crossings equal a time-stepping oracle", "[swee
   flat.teeth = 3;
   flat.runout_mm = 0.01;
   flat.runout_phase_deg = 30.0;
-  Cutter bull;
-  bull.shape = CutterShape::BullNose;
-  bull.diameter_mm = 1.6;
-  bull.corner_radius_mm = 0.3;
-  bull.teeth = 4;
-  bull.axial_offsets_um = {0.0, 1.5, -0.5, 0.8};
-  bull.tilt_deg = 0.3;
-  bull.tilt_toward_deg = 120.0;
+  const Cutter bull = test::offset_tilted_bull();
 
   struct Case {
     const char* name;

@@ -9,6 +9,7 @@
 #include "path/trochoidal_path.h"
 #include "sweep/brute_force_stamp.h"
 #include "sweep/simulate_floor.h"
+#include "sweep/teeth_fixtures.h"
 #include "test_support.h"
 
 namespace cuspmap {
@@ -144,14 +145,7 @@ TEST_CASE("simulate_floor: tooth crossings along arcs, helices and full loops eq
   ball.shape = CutterShape::Ball;
   ball.diameter_mm = 2.0;
   ball.teeth = 2;
-  Cutter bull;
-  bull.shape = CutterShape::BullNose;
-  bull.diameter_mm = 1.6;
-  bull.corner_radius_mm = 0.3;
-  bull.teeth = 4;
-  bull.axial_offsets_um = {0.0, 1.5, -0.5, 0.8};
-  bull.tilt_deg = 0.3;
-  bull.tilt_toward_deg = 120.0;
+  const Cutter bull = test::offset_tilted_bull();
   struct Case {
     const char* name;
     Cutter cutter;
