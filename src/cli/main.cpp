@@ -8,6 +8,7 @@
 
 #include "cli/command.h"
 #include "core/input_error.h"
+#include "core/process_memory.h"
 #include "core/write_file_atomic.h"
 
 namespace {
@@ -23,6 +24,7 @@ void print_error_line(const char* kind, std::string message) {
 }  // namespace
 
 int main(int argc, char** argv) {
+  cuspmap::tune_process_memory();
   cuspmap::install_temp_cleanup_handlers();
   CLI::App app{
       "cuspmap predicts the surface a CNC finishing pass leaves: cusp heights, simulated floors,\n"
