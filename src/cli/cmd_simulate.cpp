@@ -3,6 +3,7 @@
 // a streamed floor writes height.npy only with --npy, band by band, after a free-space check.
 // cli/ holds no computation: flags -> job/ -> run_job -> io/ encoders -> OutputDir.
 #include <cstdio>
+#include <future>
 #include <memory>
 #include <optional>
 #include <string>
@@ -168,6 +169,18 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
     };
     ropt.stream_band = [&](const Heightfield& band, int j0) { npy->append(band, j0); };
   }
+  // An in-memory floor's pictures and height.npy need only the floor: they are made beside the
+  // texture report. height.npy is the grid's own bytes behind a header, written to its temp
+  // name while the pictures are drawn (the kernel's copy into the page cache overlaps them).
+  std::string npy_header, npy_swapped;
+  std::optional<SimulationPictures> floor_pictures;
+  ropt.beside_texture = [&](const Heightfield& floor) {
+    std::future<void> npy_staged = std::async(std::launch::async, [&] {
+      dir.stage("height.npy", npy_file_parts(floor, npy_header, npy_swapped));
+    });
+    floor_pictures = render_floor_pictures(floor, /*streamed=*/false, units, range);
+    npy_staged.get();
+  };
   JobRun run;
   {
     ProgressBar bar("sweep");
@@ -179,13 +192,14 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   print_stage(o.common.verbose, "sweep", run.sweep_s);
   print_stage(o.common.verbose, "texture", run.texture_s);
   StageTimer write;
-  const SimulationPictures pics = render_simulation_pictures(run, units, range);
+  SimulationPictures pics = floor_pictures
+                                ? std::move(*floor_pictures)
+                                : render_floor_pictures(run.floor, run.streamed, units, range);
+  add_profile_picture(run, units, pics);
   // A streamed floor's pictures show the block-mean overview and its profile.png the centre
   // traces copied at full resolution from the bands; its height.npy (only with --npy) is
   // already on disk under a temp name and is published here.
-  if (!run.streamed) {
-    dir.stage("height.npy", pics.height_npy);
-  } else if (npy) {
+  if (run.streamed && npy) {
     npy->commit();
     dir.add_committed("height.npy");
   }

@@ -27,7 +27,11 @@ void OutputDir::write(std::string_view name, std::string_view bytes) {
 }
 
 void OutputDir::stage(std::string_view name, std::string_view bytes) {
-  staged_.add(path_of(name), bytes);
+  stage(name, std::span<const std::string_view>(&bytes, 1));
+}
+
+void OutputDir::stage(std::string_view name, std::span<const std::string_view> parts) {
+  staged_.add(path_of(name), parts);
   written_.emplace_back(name);
 }
 

@@ -3,6 +3,7 @@
 // (or, for a file too large to hold, an AtomicFileStream on path_of(name)).
 #pragma once
 
+#include <span>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -26,6 +27,8 @@ class OutputDir {
   /// (one journal commit for the set, core/atomic_file_batch.h); if publish() is never reached
   /// none of them appears. Listed in written() at once.
   void stage(std::string_view name, std::string_view bytes);
+  /// As stage(name, bytes) for a file given in parts (written in order, never joined).
+  void stage(std::string_view name, std::span<const std::string_view> parts);
   /// Publishes the staged files (fsync each, rename each, fsync the folder).
   void publish();
 

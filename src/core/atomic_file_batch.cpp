@@ -34,8 +34,12 @@ void sync_folder(const std::string& folder) {
 }  // namespace
 
 void AtomicFileBatch::add(const std::string& path, std::string_view bytes) {
+  add(path, std::span<const std::string_view>(&bytes, 1));
+}
+
+void AtomicFileBatch::add(const std::string& path, std::span<const std::string_view> parts) {
   auto file = std::make_unique<AtomicFileStream>(path);
-  file->append(bytes);
+  for (std::string_view part : parts) file->append(part);
   files_.push_back(std::move(file));
 }
 

@@ -6,6 +6,7 @@
 #pragma once
 
 #include <memory>
+#include <span>
 #include <string>
 #include <string_view>
 #include <vector>
@@ -22,6 +23,8 @@ class AtomicFileBatch {
   /// @param[in] bytes  complete file contents
   /// @throws std::runtime_error as AtomicFileStream (the temp file is removed first)
   void add(const std::string& path, std::string_view bytes);
+  /// As add(path, bytes) for a file given in parts (written in order, never joined in memory).
+  void add(const std::string& path, std::span<const std::string_view> parts);
 
   /// Starts every file's write-back, waits for each (fsync), renames each over its
   /// destination in the order added, then fsyncs their folders once each. Call once.

@@ -116,6 +116,22 @@ std::int64_t npy_file_bytes(std::int64_t ny, std::int64_t nx) {
   return static_cast<std::int64_t>(encode_npy_header(ny, nx).size()) + 4 * ny * nx;
 }
 
+std::vector<std::string_view> npy_file_parts(const Heightfield& hf, std::string& header,
+                                             std::string& swapped) {
+  header = encode_npy_header(hf.ny, hf.nx);
+  std::vector<std::string_view> parts{header};
+  const auto bytes = static_cast<std::size_t>(hf.cells()) * 4;
+  if constexpr (std::endian::native == std::endian::little) {
+    // IEEE float32 in the host's (little-endian) order is already the file's byte order.
+    parts.emplace_back(reinterpret_cast<const char*>(hf.z_um.data()), bytes);
+  } else {
+    swapped.clear();
+    append_npy_values(hf.z_um.data(), hf.cells(), swapped);
+    parts.emplace_back(swapped);
+  }
+  return parts;
+}
+
 std::string encode_npy(const Heightfield& hf) {
   std::string out = encode_npy_header(hf.ny, hf.nx);
   out.reserve(out.size() + static_cast<size_t>(hf.cells()) * 4);

@@ -9,6 +9,7 @@
 #include <cstdint>
 #include <string>
 #include <string_view>
+#include <vector>
 
 #include "core/heightfield.h"
 
@@ -32,6 +33,16 @@ std::string encode_npy_header(std::int64_t ny, std::int64_t nx);
 /// @param[in] count   number of values
 /// @param[out] out    bytes appended (4 per value)
 void append_npy_values(const float* z_um, std::int64_t count, std::string& out);
+
+/// The file encode_npy would write, as views: the header (kept in `header`) and the grid's own
+/// memory on a little-endian host (no copy of the values; else a byte-swapped copy kept in
+/// `swapped`). The views live as long as hf, header and swapped.
+/// @param[in]  hf       heightfield (um)
+/// @param[out] header   storage for the header bytes
+/// @param[out] swapped  storage for the values on a big-endian host (untouched otherwise)
+/// @return the parts in file order; their concatenation == encode_npy(hf)
+std::vector<std::string_view> npy_file_parts(const Heightfield& hf, std::string& header,
+                                             std::string& swapped);
 
 /// Size of the file encode_npy writes for an ny x nx grid: header + 4 nx ny bytes.
 std::int64_t npy_file_bytes(std::int64_t ny, std::int64_t nx);

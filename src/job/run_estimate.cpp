@@ -20,9 +20,11 @@ constexpr double kStreamedCellsPerS = 1.5e8;
 constexpr double kLineVisitsPerS = 5.4e7;
 constexpr double kArcVisitsPerS = 9.3e5;
 
-// Peak grids of an in-memory run (job/run_job.cpp kInMemoryGrids: floor, residual, filtered
-// and FFT copies of the texture report) and of a streamed run (band, next band, overview).
-constexpr double kInMemoryGrids = 16.0;
+// Peak memory of an in-memory run in float grids of the floor's size: measured 14 bytes per
+// cell on 48 M cells (670 MiB: floor, residual or brightness grid, the padded float ACF field,
+// docs/performance.md), rounded up to 4 grids. (job/run_job.cpp streams above 16 grids' worth
+// of the limit, a deliberate margin.) A streamed run holds a band, the next band, the overview.
+constexpr double kInMemoryGrids = 4.0;
 constexpr double kStreamedBands = 3.0;
 
 }  // namespace

@@ -4,6 +4,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <future>
 #include <limits>
 #include <string>
 
@@ -173,6 +174,12 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   run.highest_point_um = hi;
   run.lowest_point_um = lo;
 
+  // Whatever the caller does with the floor alone runs beside the texture report (both only read
+  // the floor); waited for before the floor can move with `run`.
+  std::future<void> beside;
+  if (options.beside_texture) {
+    beside = std::async(std::launch::async, [&] { options.beside_texture(run.floor); });
+  }
   // Built-in lanes have a known lay: the pass direction. Others are detected from the surface.
   const TextureOptions texture = lay_options(job, options);
   run.texture = texture_report(run.floor, texture);
@@ -180,6 +187,7 @@ JobRun run_job(const Job& job, const RunOptions& options) {
                             texture.max_traces, 0.0),
            run);
   run.texture_s = timer.lap();
+  if (beside.valid()) beside.get();
   return run;
 }
 

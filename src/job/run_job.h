@@ -34,6 +34,10 @@ struct RunOptions {
   /// Called once, after the path is built and before the sweep, with the run's forecast (for the
   /// line a long run prints first). Empty = not wanted.
   std::function<void(const RunEstimate&)> before_sweep;
+  /// In-memory runs only: called on its own thread with the swept floor while the texture report
+  /// is computed (the caller draws its pictures meanwhile); run_job waits for it before it
+  /// returns and rethrows what it threw. The floor must only be read. May be empty.
+  std::function<void(const Heightfield&)> beside_texture;
   TextureOptions texture;                  ///< cut-off and direction overrides
   /// Streamed runs only (in-memory runs never call it): called once with the grid's columns and
   /// rows after the bands are planned and before any sweep; it may throw InputError to refuse

@@ -10,6 +10,8 @@
 #include <limits>
 #include <vector>
 
+#include "core/large_buffer.h"
+
 namespace cuspmap {
 namespace {
 
@@ -48,6 +50,8 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
   const int out_nx = static_cast<int>(tx.size()), out_ny = static_cast<int>(ty.size());
   // Float intermediates keep memory at 2 x ny x out_nx x 4 bytes; each sum is formed in double.
   HeightGrid sum(ny, out_nx), weight(ny, out_nx);
+  advise_huge_pages(sum.data(), static_cast<std::size_t>(sum.size()) * sizeof(float));
+  advise_huge_pages(weight.data(), static_cast<std::size_t>(weight.size()) * sizeof(float));
   // Whether block (j / k, bi) has a finite cell: the same "not reached" rule as the other modes.
   std::vector<std::uint8_t> reached(static_cast<std::size_t>(out_ny) * out_nx, 0);
   // Each block's total weight when every cell is finite (summed in the same order as below).
@@ -125,9 +129,9 @@ HeightGrid reduce_blocks(const HeightGrid& z, int k, BlockReduce mode) {
   const int block = std::max(k, 1);
   const int ny = static_cast<int>(z.rows()), nx = static_cast<int>(z.cols());
   const int out_ny = (ny + block - 1) / block, out_nx = (nx + block - 1) / block;
-  HeightGrid out(out_ny, out_nx);
   if (block == 1) return z;
   if (mode == BlockReduce::AntiAlias) return anti_alias_reduce(z, block);
+  HeightGrid out(out_ny, out_nx);
   // One pass over the input rows, accumulating into per-output-column sums and counts.
   std::vector<double> acc(static_cast<std::size_t>(out_nx));
   std::vector<int> count(static_cast<std::size_t>(out_nx));

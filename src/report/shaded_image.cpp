@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "core/input_error.h"
+#include "core/large_buffer.h"
 #include "core/parallel_blocks.h"
 #include "core/units.h"
 #include "report/legend.h"
@@ -107,6 +108,7 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
 
   const LightVector light = light_vector(options.light_azimuth_deg, options.light_elevation_deg);
   HeightGrid brightness(ny, nx);
+  advise_huge_pages(brightness.data(), static_cast<std::size_t>(brightness.size()) * sizeof(float));
   // Rows whose cells are all reached: between two more such rows, every interior cell takes the
   // central differences without a test per neighbour (the same arithmetic as slope_at).
   std::vector<std::uint8_t> row_full(static_cast<std::size_t>(ny));

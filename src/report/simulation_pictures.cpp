@@ -10,7 +10,6 @@
 #include <string>
 
 #include "cusp/kinematic_limits.h"
-#include "io/npy.h"
 #include "io/png.h"
 #include "core/display_quantity.h"
 #include "texture/evaluate_profiles.h"
@@ -87,20 +86,20 @@ HeightPictures render_height_pictures(const Heightfield& floor, LengthUnit units
   return out;
 }
 
-SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,
-                                              const std::optional<HeightRange>& range,
-                                              int cells_per_pixel, bool own_range_too) {
+SimulationPictures render_floor_pictures(const Heightfield& floor, bool streamed,
+                                         LengthUnit units, const std::optional<HeightRange>& range,
+                                         int cells_per_pixel, bool own_range_too) {
   SimulationPictures pics;
   // A streamed floor is only an overview (block means): a native-resolution detail of it
   // cannot be drawn, so its pictures have none.
-  pics.has_detail = !run.streamed;
-  if (pics.has_detail) pics.detail = choose_detail_window(run.floor);
+  pics.has_detail = !streamed;
+  if (pics.has_detail) pics.detail = choose_detail_window(floor);
   // The shaded relief and the detail view are independent of the height pictures: they are
   // drawn on their own threads meanwhile (each picture's bytes are the same either way).
   std::future<ShadedImage> shaded = std::async(std::launch::async, [&] {
     ShadedImageOptions sopt;
     sopt.cells_per_pixel = cells_per_pixel;
-    ShadedImage img = render_shaded_image(run.floor, sopt);
+    ShadedImage img = render_shaded_image(floor, sopt);
     if (pics.has_detail) {
       img.image = outline_detail_window(img.image, 0, 0, img.image.height, img.cells_per_pixel,
                                         pics.detail);
@@ -110,10 +109,10 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
   std::future<DetailView> detail;
   if (pics.has_detail) {
     detail = std::async(std::launch::async, [&] {
-      return render_detail_view(run.floor, pics.detail, units);
+      return render_detail_view(floor, pics.detail, units);
     });
   }
-  const HeightPictures heights = render_height_pictures(run.floor, units, range, own_range_too);
+  const HeightPictures heights = render_height_pictures(floor, units, range, own_range_too);
   const auto outlined = [&](const HeightImage& h) {
     return pics.has_detail ? outline_detail_window(h.image, h.map_x_px, h.map_y_px,
                                                    h.map_height_px, h.cells_per_pixel, pics.detail)
@@ -142,20 +141,6 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
     pics.detail_shaded = std::move(view.shaded);
     pics.detail_caption = std::move(view.caption);
   }
-
-  ProfilePlotOptions popt;
-  popt.units = units;
-  const std::vector<ProfilePlotData> profiles = simulation_profiles(run);
-  if (!profiles.empty()) {
-    pics.profile_png = encode_png(render_profile_plot(profiles, popt).image);
-  }
-  pics.profile_caption =
-      "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
-      "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
-      "the table gives the mean of several parallel traces across the lay.";
-  // A streamed run's floor is the overview: its full-resolution .npy is written band by band
-  // (io/npy_band_writer.h) by the caller, never encoded here.
-  if (!run.streamed) pics.height_npy = encode_npy(run.floor);
   pics.height_png = height_png.get();
   pics.shaded_png = shaded_png.get();
 
@@ -166,6 +151,28 @@ SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit unit
   pics.facts.light_azimuth_deg = pics.shaded.light_azimuth_deg;
   pics.facts.light_elevation_deg = pics.shaded.light_elevation_deg;
   pics.facts.exaggeration = pics.shaded.exaggeration;
+  return pics;
+}
+
+void add_profile_picture(const JobRun& run, LengthUnit units, SimulationPictures& pics) {
+  ProfilePlotOptions popt;
+  popt.units = units;
+  const std::vector<ProfilePlotData> profiles = simulation_profiles(run);
+  if (!profiles.empty()) {
+    pics.profile_png = encode_png(render_profile_plot(profiles, popt).image);
+  }
+  pics.profile_caption =
+      "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
+      "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
+      "the table gives the mean of several parallel traces across the lay.";
+}
+
+SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,
+                                              const std::optional<HeightRange>& range,
+                                              int cells_per_pixel, bool own_range_too) {
+  SimulationPictures pics =
+      render_floor_pictures(run.floor, run.streamed, units, range, cells_per_pixel, own_range_too);
+  add_profile_picture(run, units, pics);
   return pics;
 }
 

@@ -28,8 +28,6 @@ struct SimulationPictures {
                                        ///< beside a shared range (compare, demo), else empty
   std::string shaded_png;              ///< shaded.png bytes
   std::string profile_png;             ///< profile.png bytes
-  std::string height_npy;              ///< height.npy bytes (float32 um, rows along Y); empty
-                                       ///< when streamed (see io/npy_band_writer.h)
   ShadedImage shaded;                  ///< the shaded picture (for montages) and its light; RGB
                                        ///< with the detail window outlined when there is one
   bool has_detail = false;             ///< false for a streamed floor (no native cells kept)
@@ -60,7 +58,22 @@ HeightPictures render_height_pictures(const Heightfield& floor, LengthUnit units
                                       const std::optional<HeightRange>& range,
                                       bool own_range_too);
 
-/// Renders the pictures.
+/// Renders the pictures of the floor itself (height, shaded relief, detail view), everything
+/// but profile.png; needs only the floor, so it can run beside the texture report.
+/// @param[in] floor     the swept floor (um), or a streamed run's overview
+/// @param[in] streamed  the floor is an overview of block means: no detail view
+/// @param[in] units, range, cells_per_pixel, own_range_too  as render_simulation_pictures
+SimulationPictures render_floor_pictures(const Heightfield& floor, bool streamed,
+                                         LengthUnit units, const std::optional<HeightRange>& range,
+                                         int cells_per_pixel = 0, bool own_range_too = false);
+
+/// Adds profile.png (needs the texture report's lay and cut-off) and its caption.
+/// @param[in]  run    a finished simulation
+/// @param[in]  units  axis units
+/// @param[out] pics   pictures from render_floor_pictures of run.floor
+void add_profile_picture(const JobRun& run, LengthUnit units, SimulationPictures& pics);
+
+/// Renders the pictures: render_floor_pictures, then add_profile_picture.
 /// @param[in] run     a finished simulation
 /// @param[in] units   legend and axis units
 /// @param[in] range   fixed height range for height.png (shared scale); empty = auto

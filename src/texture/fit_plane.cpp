@@ -8,6 +8,8 @@
 #include <cassert>
 #include <cmath>
 
+#include "core/large_buffer.h"
+
 namespace cuspmap {
 
 void PlaneSums::add(double x_mm, double y_mm, double z_um) {
@@ -72,6 +74,7 @@ Heightfield remove_plane(const Heightfield& hf, const Plane& plane) {
   out.origin_x_mm = hf.origin_x_mm;
   out.origin_y_mm = hf.origin_y_mm;
   out.z_um.resize(hf.ny, hf.nx);
+  advise_huge_pages(out.z_um.data(), static_cast<std::size_t>(out.z_um.size()) * sizeof(float));
   for (int j = 0; j < hf.ny; ++j) {
     const double y = hf.y_mm(j);
     for (int i = 0; i < hf.nx; ++i) {
