@@ -6,6 +6,7 @@
 
 #include <stdexcept>
 #include <string>
+#include <string_view>
 #include <vector>
 
 #include "test_support.h"
@@ -28,6 +29,15 @@ TEST_CASE("AtomicFileBatch: files appear only at commit, with their bytes", "[co
   REQUIRE(cuspmap::test::read_text(dir.file("height.png")) == "new picture");
   REQUIRE(cuspmap::test::read_text(dir.file("height.npy")) == binary);
   REQUIRE(cuspmap::test::read_text(dir.file("report.json")).empty());
+}
+
+TEST_CASE("AtomicFileBatch: a file given in parts is written in order", "[core]") {
+  cuspmap::test::TempDir dir;
+  cuspmap::AtomicFileBatch batch;
+  const std::vector<std::string_view> parts{"header|", "", "values"};
+  batch.add(dir.file("height.npy"), parts);
+  batch.commit();
+  REQUIRE(cuspmap::test::read_text(dir.file("height.npy")) == "header|values");
 }
 
 TEST_CASE("AtomicFileBatch: an abandoned batch leaves nothing", "[core]") {

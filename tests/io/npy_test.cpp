@@ -3,6 +3,7 @@
 // length, header padded so the data starts on a 64-byte boundary.
 #include "io/npy.h"
 
+#include <bit>
 #include <cmath>
 #include <cstring>
 
@@ -51,6 +52,19 @@ TEST_CASE("encode_npy: v1.0 header, 64-byte aligned, float32 rows along Y", "[io
   float first = 0.0f;
   std::memcpy(&first, bytes.data() + 10 + header_len, 4);
   REQUIRE(first == -1.0f);
+}
+
+TEST_CASE("npy_file_parts: the parts joined are encode_npy's file, values not copied", "[io]") {
+  const Heightfield hf = sample_field();
+  std::string header, swapped;
+  const std::vector<std::string_view> parts = npy_file_parts(hf, header, swapped);
+  std::string joined;
+  for (std::string_view part : parts) joined += part;
+  REQUIRE(joined == encode_npy(hf));
+  REQUIRE(parts.size() == 2);
+  if constexpr (std::endian::native == std::endian::little) {
+    CHECK(parts[1].data() == reinterpret_cast<const char*>(hf.z_um.data()));  // a view, no copy
+  }
 }
 
 TEST_CASE("decode_npy: round trip keeps values and NaN", "[io]") {
