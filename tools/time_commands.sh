@@ -3,7 +3,8 @@
 # median (hyperfine, Debian package 'hyperfine'), page faults and peak memory of one more run
 # (/usr/bin/time -v). Beside the Google Benchmark microbenchmarks (tools/bench_*.cpp).
 # Usage: tools/time_commands.sh [BIN=build/cuspmap] [BEFORE=binary to compare, optional]
-#   RUNS (default 5), SETS (default "simulate12 texture16m simulate48m"), THREADS (0 = all).
+#   RUNS (default 5), SETS (default "simulate12 texture16m simulate48m"; also teeth10,
+#   compare_flat), THREADS (0 = all).
 # Prints Markdown tables: command, binary, median / min / max wall s; page faults; peak RSS.
 set -euo pipefail
 bin="$(realpath "${1:-build/cuspmap}")"
@@ -93,7 +94,43 @@ for set in $sets; do
         time_it "simulate 40 x 30 mm at 5 um" "$(basename "$b")" \
           "$b simulate $work/j48.toml --out $work/o48 --threads $threads"
       done ;;
-    *) echo "time_commands.sh: unknown set '$set' (simulate12, texture16m, simulate48m)" >&2
+    teeth10)  # tooth-resolved 10 x 10 mm at 2 um (25 M cells): bench_sweep's BM_TeethFlat job
+              # (6 mm 3-flute flat, 1 deg dish, 0.01 deg tram across, fz 0.05, 0.5 mm zigzag)
+              # as a user runs it: with the margin passes and the texture report
+      cat >"$work/t10.toml" <<TOML
+name = "mould insert floor, tooth by tooth"
+units = "mm"
+[patch]
+size = [10, 10]
+cell = 0.002
+[tool]
+shape = "flat"
+diameter = 6
+dish_deg = 1
+teeth = 3
+tilt_deg = 0.01
+tilt_toward_deg = 90
+[cut]
+rpm = 10000
+feed = 1500
+depth = 0
+[path]
+kind = "raster"
+stepover = 0.5
+direction = "zigzag"
+[sim]
+tooth_marks = true
+TOML
+      for b in "${binaries[@]}"; do
+        time_it "simulate 10 x 10 mm at 2 um, tooth by tooth" "$(basename "$b")" \
+          "$b simulate $work/t10.toml --out $work/ot10 --threads $threads"
+      done ;;
+    compare_flat)  # the README's compare: two tooth-resolved 6 x 6 mm floors at 5 um
+      for b in "${binaries[@]}"; do
+        time_it "compare two tooth-resolved 6 x 6 mm floors" "$(basename "$b")" \
+          "$b compare $here/../examples/pump_cover_flat_oneway.toml $here/../examples/pump_cover_flat_zigzag_tram.toml --out $work/oc"
+      done ;;
+    *) echo "time_commands.sh: unknown set '$set' (simulate12, texture16m, simulate48m, teeth10, compare_flat)" >&2
        exit 2 ;;
   esac
 done
