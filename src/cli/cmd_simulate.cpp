@@ -2,6 +2,7 @@
 // and writes height.npy, height.png, shaded.png, profile.png and report.json (+ an HTML page);
 // a streamed floor writes height.npy only with --npy, band by band, after a free-space check.
 // cli/ holds no computation: flags -> job/ -> run_job -> io/ encoders -> OutputDir.
+#include <cstdint>
 #include <cstdio>
 #include <future>
 #include <memory>
@@ -172,9 +173,13 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   // An in-memory floor's pictures and height.npy need only the floor: they are made beside the
   // texture report. height.npy is the grid's own bytes behind a header, written to its temp
   // name while the pictures are drawn (the kernel's copy into the page cache overlaps them).
+  // Above kBesideTextureMaxCells the pictures follow the texture report instead, so that their
+  // grids (~6 bytes per cell) do not add to the report's peak (measured 14 bytes per cell).
+  constexpr std::int64_t kBesideTextureMaxCells = std::int64_t{16} << 20;
   std::string npy_header, npy_swapped;
   std::optional<SimulationPictures> floor_pictures;
   ropt.beside_texture = [&](const Heightfield& floor) {
+    if (floor.cells() > kBesideTextureMaxCells) return;
     std::future<void> npy_staged = std::async(std::launch::async, [&] {
       dir.stage("height.npy", npy_file_parts(floor, npy_header, npy_swapped));
     });
@@ -192,6 +197,9 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   print_stage(o.common.verbose, "sweep", run.sweep_s);
   print_stage(o.common.verbose, "texture", run.texture_s);
   StageTimer write;
+  if (!run.streamed && npy_header.empty()) {
+    dir.stage("height.npy", npy_file_parts(run.floor, npy_header, npy_swapped));
+  }
   SimulationPictures pics = floor_pictures
                                 ? std::move(*floor_pictures)
                                 : render_floor_pictures(run.floor, run.streamed, units, range);
