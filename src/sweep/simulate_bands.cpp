@@ -97,7 +97,8 @@ void simulate_bands(const Cutter& cutter, const Toolpath& path, const CutSpec& c
       band.z_um.resize(rows, plan.nx);
       // Fresh pages, first touched by the sweep: 2 MiB pages take 1/512 of the faults (a
       // 64 MiB band cost ~16k faults of several us each on virtual machines).
-      advise_huge_pages(band.z_um.data(), static_cast<std::size_t>(band.z_um.size()) * sizeof(float));
+      advise_huge_pages(band.z_um.data(),
+                        static_cast<std::size_t>(band.z_um.size()) * sizeof(float));
     }
     band.ny = rows;
     band.origin_y_mm = patch.origin_y_mm + j0 * cell;

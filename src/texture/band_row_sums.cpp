@@ -187,13 +187,12 @@ int block_sums_chains(const float* z, int blocks, int k, double* sums, int* coun
 // loaded as one row of an 8 x 8 tile, the tile transposed so that each vector holds one cell of
 // each of 8 blocks, then added step by step (a masked add skips a non-finite cell exactly as
 // the sequential loop does); the last k % 8 cells of each block are gathered (stride k).
-__attribute__((target("avx512f,avx512vl"))) int block_sums_tiles(const float* z, int blocks,
-                                                                 int k, double* sums,
-                                                                 int* counts) {
+__attribute__((target("avx512f,avx512vl"))) int block_sums_tiles(const float* z, int blocks, int k,
+                                                                 double* sums, int* counts) {
   // Cell offsets of 8 neighbouring blocks; the gather indices are 32-bit.
   if (static_cast<std::int64_t>(k) * 16 > std::numeric_limits<int>::max()) return 0;
-  const __m256i offsets = _mm256_mullo_epi32(_mm256_setr_epi32(0, 1, 2, 3, 4, 5, 6, 7),
-                                             _mm256_set1_epi32(k));
+  const __m256i offsets =
+      _mm256_mullo_epi32(_mm256_setr_epi32(0, 1, 2, 3, 4, 5, 6, 7), _mm256_set1_epi32(k));
   const __m256 largest = _mm256_set1_ps(std::numeric_limits<float>::max());
   const __m256 magnitude = _mm256_castsi256_ps(_mm256_set1_epi32(0x7fffffff));
   const __m256i one = _mm256_set1_epi32(1);
@@ -204,19 +203,19 @@ __attribute__((target("avx512f,avx512vl"))) int block_sums_tiles(const float* z,
                     _mm256_loadu_si256(reinterpret_cast<const __m256i*>(counts + b + 8))};
     const float* base[2] = {z + static_cast<std::int64_t>(b) * k,
                             z + static_cast<std::int64_t>(b + 8) * k};
-#define CUSPMAP_ADD_CELLS(h, cells)                                                        \
-  do {                                                                                     \
-    const __m256 v_ = (cells);                                                             \
-    const __mmask8 ok_ =                                                                   \
-        _mm256_cmp_ps_mask(_mm256_and_ps(v_, magnitude), largest, _CMP_LE_OQ);             \
-    s[h] = _mm512_mask_add_pd(s[h], ok_, s[h], _mm512_cvtps_pd(v_));                       \
-    c[h] = _mm256_mask_add_epi32(c[h], ok_, c[h], one);                                    \
+#define CUSPMAP_ADD_CELLS(h, cells)                                                             \
+  do {                                                                                          \
+    const __m256 v_ = (cells);                                                                  \
+    const __mmask8 ok_ = _mm256_cmp_ps_mask(_mm256_and_ps(v_, magnitude), largest, _CMP_LE_OQ); \
+    s[h] = _mm512_mask_add_pd(s[h], ok_, s[h], _mm512_cvtps_pd(v_));                            \
+    c[h] = _mm256_mask_add_epi32(c[h], ok_, c[h], one);                                         \
   } while (false)
     int t = 0;
     for (; t + 8 <= k; t += 8) {
       for (int h = 0; h < 2; ++h) {
         __m256 r[8];
-        for (int g = 0; g < 8; ++g) r[g] = _mm256_loadu_ps(base[h] + static_cast<std::int64_t>(g) * k + t);
+        for (int g = 0; g < 8; ++g)
+          r[g] = _mm256_loadu_ps(base[h] + static_cast<std::int64_t>(g) * k + t);
         const __m256 t0 = _mm256_unpacklo_ps(r[0], r[1]), t1 = _mm256_unpackhi_ps(r[0], r[1]);
         const __m256 t2 = _mm256_unpacklo_ps(r[2], r[3]), t3 = _mm256_unpackhi_ps(r[2], r[3]);
         const __m256 t4 = _mm256_unpacklo_ps(r[4], r[5]), t5 = _mm256_unpackhi_ps(r[4], r[5]);
@@ -236,7 +235,8 @@ __attribute__((target("avx512f,avx512vl"))) int block_sums_tiles(const float* z,
       }
     }
     for (; t < k; ++t) {
-      for (int h = 0; h < 2; ++h) CUSPMAP_ADD_CELLS(h, _mm256_i32gather_ps(base[h] + t, offsets, 4));
+      for (int h = 0; h < 2; ++h)
+        CUSPMAP_ADD_CELLS(h, _mm256_i32gather_ps(base[h] + t, offsets, 4));
     }
 #undef CUSPMAP_ADD_CELLS
     _mm512_storeu_pd(sums + b, s[0]);
@@ -254,7 +254,8 @@ __attribute__((target("avx512f,avx512vl"))) int block_sums_tiles(const float* z,
 }  // namespace
 
 void positions_about(const RowAxis& axis, int count, double* x_mm) {
-  for (int i = 0; i < count; ++i) x_mm[i] = (axis.origin_mm + (i + 0.5) * axis.cell_mm) - axis.centre_mm;
+  for (int i = 0; i < count; ++i)
+    x_mm[i] = (axis.origin_mm + (i + 0.5) * axis.cell_mm) - axis.centre_mm;
 }
 
 CUSPMAP_CLONES AxisSums axis_sums(const double* x_mm, int count) {
@@ -328,8 +329,7 @@ void row_block_sums(const float* z, int count, int k, double* sums, int* counts)
   const int whole = count / k;
   int b = 0;
 #if CUSPMAP_GATHER
-  static const bool tiles =
-      __builtin_cpu_supports("avx512f") && __builtin_cpu_supports("avx512vl");
+  static const bool tiles = __builtin_cpu_supports("avx512f") && __builtin_cpu_supports("avx512vl");
   if (tiles) b = block_sums_tiles(z, whole, k, sums, counts);
 #endif
   b += block_sums_chains(z + static_cast<std::int64_t>(b) * k, whole - b, k, sums + b, counts + b);

@@ -39,11 +39,11 @@ AxisSums axis_sums(const double* x_mm, int count);
 
 /// Plane-fit sums and raw extremes of a run of cells (x about the plane's centre, mm; z um).
 struct RowPlaneSums {
-  double n = 0.0;    ///< finite cells
-  double sx = 0.0;   ///< sum x
-  double sxx = 0.0;  ///< sum x^2
-  double sz = 0.0;   ///< sum z
-  double sxz = 0.0;  ///< sum x z
+  double n = 0.0;                                        ///< finite cells
+  double sx = 0.0;                                       ///< sum x
+  double sxx = 0.0;                                      ///< sum x^2
+  double sz = 0.0;                                       ///< sum z
+  double sxz = 0.0;                                      ///< sum x z
   double lo = std::numeric_limits<double>::infinity();   ///< lowest finite z
   double hi = -std::numeric_limits<double>::infinity();  ///< highest finite z
 };

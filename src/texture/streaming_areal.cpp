@@ -1,5 +1,6 @@
 // Streaming plane sums (with the overview in the same read) and residual moments, row-parallel
-// with per-row partials merged in row order. Inputs: bands (um, mm); outputs: PlaneSums, extremes, ArealMoments.
+// with per-row partials merged in row order. Inputs: bands (um, mm); outputs: PlaneSums,
+// extremes, ArealMoments.
 // Method: see streaming_areal.h.
 #include "texture/streaming_areal.h"
 

@@ -2,14 +2,15 @@
 // vectorise), with unreached cells in the lanes and the tail, and of StreamedTexture's
 // independence of the thread count.
 // Method: sums of ISO 25178-2:2012 §4.1 / §3.1.8 taken cell by cell in double (derived).
+#include "texture/band_row_sums.h"
+
 #include <cmath>
 #include <cstring>
 #include <random>
 #include <vector>
 
-#include "texture/band_row_sums.h"
-#include "texture/streamed_texture.h"
 #include "test_support.h"
+#include "texture/streamed_texture.h"
 
 namespace cuspmap {
 namespace {
