@@ -54,15 +54,19 @@ bool any_lane(const IntLanes& v) {
   return false;
 }
 
-// The plane sums of a run that holds NaN cells: every sum masked.
-CUSPMAP_CLONES void plane_sums_masked(const float* z, const double* x_mm, int count,
-                                      RowPlaneSums& sums) {
+// Plane sums and extremes of z[0 .. count), added to `sums`. Masked: NaN cells skipped, n, sx,
+// sxx summed per cell. Unmasked (a row's common case): every cell summed, n, sx, sxx left to the
+// caller, and false returned (sums untouched) when a cell is NaN.
+template <bool kMasked>
+CUSPMAP_CLONES bool plane_sums_lanes(const float* z, const double* x_mm, int count,
+                                     RowPlaneSums& sums) {
   const Lanes zero = {};
   const Lanes one = zero + 1.0;
   const FloatLanes fzero = {};
   const FloatLanes inf = fzero + std::numeric_limits<float>::infinity();
   Lanes n = zero, sx = zero, sxx = zero, sz = zero, sxz = zero;
   FloatLanes lo = inf, hi = -inf;
+  IntLanes nan_seen = {};
   int i = 0;
   for (; i + kLanes <= count; i += kLanes) {
     FloatLanes f;
@@ -70,28 +74,40 @@ CUSPMAP_CLONES void plane_sums_masked(const float* z, const double* x_mm, int co
     Lanes x;
     std::memcpy(&x, x_mm + i, sizeof x);
     const Lanes v = __builtin_convertvector(f, Lanes);
-    const auto ok = v == v;  // false for NaN (unreached)
-    const Lanes xk = ok ? x : zero, vk = ok ? v : zero;
-    n += ok ? one : zero;
-    sx += xk;
-    sxx += xk * xk;
-    sz += vk;
-    sxz += xk * vk;
+    if constexpr (kMasked) {
+      const auto ok = v == v;  // false for NaN (unreached)
+      const Lanes xk = ok ? x : zero, vk = ok ? v : zero;
+      n += ok ? one : zero;
+      sx += xk;
+      sxx += xk * xk;
+      sz += vk;
+      sxz += xk * vk;
+    } else {
+      nan_seen |= f != f;
+      sz += v;
+      sxz += x * v;
+    }
     lo = f < lo ? f : lo;  // a NaN compares false and is left out
     hi = f > hi ? f : hi;
   }
   RowPlaneSums r;
   for (; i < count; ++i) {
     const double v = z[i], x = x_mm[i];
-    if (std::isnan(v)) continue;
-    r.n += 1.0;
-    r.sx += x;
-    r.sxx += x * x;
+    if (std::isnan(v)) {
+      if (!kMasked) return false;
+      continue;
+    }
+    if (kMasked) {
+      r.n += 1.0;
+      r.sx += x;
+      r.sxx += x * x;
+    }
     r.sz += v;
     r.sxz += x * v;
     r.lo = std::fmin(r.lo, v);
     r.hi = std::fmax(r.hi, v);
   }
+  if (!kMasked && any_lane(nan_seen)) return false;
   sums.n += lane_sum(n) + r.n;
   sums.sx += lane_sum(sx) + r.sx;
   sums.sxx += lane_sum(sxx) + r.sxx;
@@ -99,30 +115,41 @@ CUSPMAP_CLONES void plane_sums_masked(const float* z, const double* x_mm, int co
   sums.sxz += lane_sum(sxz) + r.sxz;
   sums.lo = std::fmin(sums.lo, std::fmin(lane_min(lo), r.lo));
   sums.hi = std::fmax(sums.hi, std::fmax(lane_max(hi), r.hi));
+  return true;
 }
 
-// The residual moments of a row that holds NaN cells: every sum masked.
-CUSPMAP_CLONES void residual_moments_masked(const float* z, const double* plane_x_um, int count,
-                                            double y_part_um, ArealMoments& moments) {
+// Residual moments of z[0 .. count) about the plane, added to `moments`. Masked: NaN cells
+// skipped. Unmasked: false returned (moments untouched) when a cell is NaN.
+// sum |r| = 2 sum max(r, 0) - sum r: one maximum per cell instead of an absolute value.
+template <bool kMasked>
+CUSPMAP_CLONES bool residual_lanes(const float* z, const double* plane_x_um, int count,
+                                   double y_part_um, ArealMoments& moments) {
   const Lanes zero = {};
   const Lanes one = zero + 1.0;
   const FloatLanes fzero = {};
   const FloatLanes inf = fzero + std::numeric_limits<float>::infinity();
-  Lanes n = zero, sa = zero, s1 = zero, s2 = zero, s3 = zero, s4 = zero;
+  Lanes n = zero, sp = zero, s1 = zero, s2 = zero, s3 = zero, s4 = zero;
   FloatLanes lo = inf, hi = -inf;
+  IntLanes nan_seen = {};
   int i = 0;
   for (; i + kLanes <= count; i += kLanes) {
     FloatLanes f;
     std::memcpy(&f, z + i, sizeof f);
     Lanes q;
     std::memcpy(&q, plane_x_um + i, sizeof q);
-    const Lanes v = __builtin_convertvector(f, Lanes);
-    const auto ok = v == v;
-    const FloatLanes rf = __builtin_convertvector(v - (q + y_part_um), FloatLanes);
-    const Lanes r = ok ? __builtin_convertvector(rf, Lanes) : zero;
+    // Plane::at(x, y) = (z0 + gx (x - x0)) + gy (y - y0), rounded to float as remove_plane does.
+    const FloatLanes rf =
+        __builtin_convertvector(__builtin_convertvector(f, Lanes) - (q + y_part_um), FloatLanes);
+    Lanes r = __builtin_convertvector(rf, Lanes);
+    if constexpr (kMasked) {
+      const auto ok = r == r;  // NaN exactly where the height is
+      r = ok ? r : zero;
+      n += ok ? one : zero;
+    } else {
+      nan_seen |= f != f;
+    }
     const Lanes r2 = r * r;
-    n += ok ? one : zero;
-    sa += r < zero ? -r : r;
+    sp += r > zero ? r : zero;
     s1 += r;
     s2 += r2;
     s3 += r2 * r;
@@ -131,19 +158,25 @@ CUSPMAP_CLONES void residual_moments_masked(const float* z, const double* plane_
     hi = rf > hi ? rf : hi;
   }
   ArealMoments m;
-  m.count = static_cast<std::int64_t>(lane_sum(n));
-  m.sum_abs_um = lane_sum(sa);
-  m.sum_um = lane_sum(s1);
-  m.sum_um2 = lane_sum(s2);
-  m.sum_um3 = lane_sum(s3);
-  m.sum_um4 = lane_sum(s4);
-  m.min_um = lane_min(lo);
-  m.max_um = lane_max(hi);
-  for (; i < count; ++i) {
-    if (std::isnan(z[i])) continue;
-    m.add(static_cast<float>(z[i] - (plane_x_um[i] + y_part_um)));
+  for (int t = i; t < count; ++t) {
+    if (std::isnan(z[t])) {
+      if (!kMasked) return false;
+      continue;
+    }
+    m.add(static_cast<float>(z[t] - (plane_x_um[t] + y_part_um)));
   }
+  if (!kMasked && any_lane(nan_seen)) return false;
+  m.count += kMasked ? static_cast<std::int64_t>(lane_sum(n)) : i;
+  const double lanes_sum = lane_sum(s1);
+  m.sum_abs_um = 2.0 * lane_sum(sp) - lanes_sum + m.sum_abs_um;
+  m.sum_um += lanes_sum;
+  m.sum_um2 += lane_sum(s2);
+  m.sum_um3 += lane_sum(s3);
+  m.sum_um4 += lane_sum(s4);
+  m.min_um = std::fmin(m.min_um, lane_min(lo));
+  m.max_um = std::fmax(m.max_um, lane_max(hi));
   moments.merge(m);
+  return true;
 }
 
 // Blocks [0, blocks) of whole k-cell blocks, kBlockChains at a time, the chains side by side;
@@ -280,49 +313,16 @@ CUSPMAP_CLONES AxisSums axis_sums(const double* x_mm, int count) {
   return a;
 }
 
-CUSPMAP_CLONES void row_plane_sums(const float* z, const double* x_mm, int count,
-                                   const AxisSums& all_finite, RowPlaneSums& sums) {
-  // Unmasked first; a row with an unreached cell is summed again, masked (rare: edges).
-  const Lanes zero = {};
-  const FloatLanes fzero = {};
-  const FloatLanes inf = fzero + std::numeric_limits<float>::infinity();
-  Lanes sz = zero, sxz = zero;
-  FloatLanes lo = inf, hi = -inf;
-  IntLanes nan_seen = {};
-  int i = 0;
-  for (; i + kLanes <= count; i += kLanes) {
-    FloatLanes f;
-    std::memcpy(&f, z + i, sizeof f);
-    Lanes x;
-    std::memcpy(&x, x_mm + i, sizeof x);
-    const Lanes v = __builtin_convertvector(f, Lanes);
-    nan_seen |= f != f;
-    sz += v;
-    sxz += x * v;
-    lo = f < lo ? f : lo;
-    hi = f > hi ? f : hi;
-  }
-  bool clean = !any_lane(nan_seen);
-  for (int t = i; t < count && clean; ++t) clean = !std::isnan(z[t]);
-  if (!clean) {
-    plane_sums_masked(z, x_mm, count, sums);
+void row_plane_sums(const float* z, const double* x_mm, int count, const AxisSums& all_finite,
+                    RowPlaneSums& sums) {
+  // Unmasked first; a run with an unreached cell is summed again, masked (rare: edges).
+  if (plane_sums_lanes<false>(z, x_mm, count, sums)) {
+    sums.n += all_finite.n;
+    sums.sx += all_finite.sx;
+    sums.sxx += all_finite.sxx;
     return;
   }
-  RowPlaneSums r;
-  for (; i < count; ++i) {
-    const double v = z[i];
-    r.sz += v;
-    r.sxz += x_mm[i] * v;
-    r.lo = std::fmin(r.lo, v);
-    r.hi = std::fmax(r.hi, v);
-  }
-  sums.n += all_finite.n;
-  sums.sx += all_finite.sx;
-  sums.sxx += all_finite.sxx;
-  sums.sz += lane_sum(sz) + r.sz;
-  sums.sxz += lane_sum(sxz) + r.sxz;
-  sums.lo = std::fmin(sums.lo, std::fmin(lane_min(lo), r.lo));
-  sums.hi = std::fmax(sums.hi, std::fmax(lane_max(hi), r.hi));
+  plane_sums_lanes<true>(z, x_mm, count, sums);
 }
 
 void row_block_sums(const float* z, int count, int k, double* sums, int* counts) {
@@ -348,54 +348,12 @@ void row_block_sums(const float* z, int count, int k, double* sums, int* counts)
   }
 }
 
-CUSPMAP_CLONES void row_residual_moments(const float* z, const double* plane_x_um, int count,
-                                         double y_part_um, ArealMoments& moments) {
+void row_residual_moments(const float* z, const double* plane_x_um, int count, double y_part_um,
+                          ArealMoments& moments) {
   // Unmasked first; a row with an unreached cell is summed again, masked (rare: edges).
-  // sum |r| = 2 sum max(r, 0) - sum r: one maximum per cell instead of an absolute value.
-  const Lanes zero = {};
-  const FloatLanes fzero = {};
-  const FloatLanes inf = fzero + std::numeric_limits<float>::infinity();
-  Lanes sp = zero, s1 = zero, s2 = zero, s3 = zero, s4 = zero;
-  FloatLanes lo = inf, hi = -inf;
-  IntLanes nan_seen = {};
-  int i = 0;
-  for (; i + kLanes <= count; i += kLanes) {
-    FloatLanes f;
-    std::memcpy(&f, z + i, sizeof f);
-    Lanes q;
-    std::memcpy(&q, plane_x_um + i, sizeof q);
-    nan_seen |= f != f;
-    // Plane::at(x, y) = (z0 + gx (x - x0)) + gy (y - y0), rounded to float as remove_plane does.
-    const FloatLanes rf =
-        __builtin_convertvector(__builtin_convertvector(f, Lanes) - (q + y_part_um), FloatLanes);
-    const Lanes r = __builtin_convertvector(rf, Lanes);
-    const Lanes r2 = r * r;
-    sp += r > zero ? r : zero;
-    s1 += r;
-    s2 += r2;
-    s3 += r2 * r;
-    s4 += r2 * r2;
-    lo = rf < lo ? rf : lo;
-    hi = rf > hi ? rf : hi;
+  if (!residual_lanes<false>(z, plane_x_um, count, y_part_um, moments)) {
+    residual_lanes<true>(z, plane_x_um, count, y_part_um, moments);
   }
-  bool clean = !any_lane(nan_seen);
-  for (int t = i; t < count && clean; ++t) clean = !std::isnan(z[t]);
-  if (!clean) {
-    residual_moments_masked(z, plane_x_um, count, y_part_um, moments);
-    return;
-  }
-  ArealMoments m;
-  for (int t = i; t < count; ++t) m.add(static_cast<float>(z[t] - (plane_x_um[t] + y_part_um)));
-  m.count += i;
-  const double lanes_sum = lane_sum(s1);
-  m.sum_abs_um = 2.0 * lane_sum(sp) - lanes_sum + m.sum_abs_um;
-  m.sum_um += lanes_sum;
-  m.sum_um2 += lane_sum(s2);
-  m.sum_um3 += lane_sum(s3);
-  m.sum_um4 += lane_sum(s4);
-  m.min_um = std::fmin(m.min_um, lane_min(lo));
-  m.max_um = std::fmax(m.max_um, lane_max(hi));
-  moments.merge(m);
 }
 
 }  // namespace cuspmap
