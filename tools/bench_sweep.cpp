@@ -34,7 +34,8 @@ struct Job {
 
 // size x size mm at `cell_mm`, 6 mm ball, 0.3 mm stepover, zigzag, raster at `angle_deg`
 // (12 x 12 mm at 10 um: the job; 40 x 40 mm at 5 um: a 64 M-cell floor in main memory).
-Job ball_job(double angle_deg, double size_mm = 12.0, double cell_mm = 0.01) {
+Job ball_job(double angle_deg, double size_mm = 12.0, double cell_mm = 0.01,
+             RasterDirection direction = RasterDirection::Zigzag) {
   Job j;
   j.cutter.shape = CutterShape::Ball;
   j.cutter.diameter_mm = 6.0;
@@ -44,14 +45,16 @@ Job ball_job(double angle_deg, double size_mm = 12.0, double cell_mm = 0.01) {
   PathSpec spec;
   spec.stepover_mm = 0.3;
   spec.angle_deg = angle_deg;
-  spec.direction = RasterDirection::Zigzag;
+  spec.direction = direction;
   j.path = raster_path(spec, j.cut, j.patch, j.cutter);
   return j;
 }
 
 // Benchmark argument `size` 12 is the 12 x 12 mm job at 10 um, 40 the 40 x 40 mm one at 5 um.
-Job sized_ball_job(double angle_deg, std::int64_t size) {
-  return size == 40 ? ball_job(angle_deg, 40.0, 0.005) : ball_job(angle_deg);
+Job sized_ball_job(double angle_deg, std::int64_t size,
+                   RasterDirection direction = RasterDirection::Zigzag) {
+  return size == 40 ? ball_job(angle_deg, 40.0, 0.005, direction)
+                    : ball_job(angle_deg, 12.0, 0.01, direction);
 }
 
 // size x size mm at `cell`, 6 mm 3-flute flat end mill, 1 deg dish, fz 0.05 mm at 10000 rpm,
@@ -107,8 +110,8 @@ BENCHMARK(BM_EnvelopeBall)
 
 // The sweep alone into a grid allocated once (what the stream kernel below is compared with):
 // setup, move preparation, binning and the tile sweep, every cell written.
-void BM_SweepStageBall(benchmark::State& state) {
-  const Job job = sized_ball_job(static_cast<double>(state.range(1)), state.range(0));
+void sweep_stage(benchmark::State& state, RasterDirection direction) {
+  const Job job = sized_ball_job(static_cast<double>(state.range(1)), state.range(0), direction);
   const int threads = static_cast<int>(state.range(2));
   Heightfield hf = make_heightfield(job.patch, 0);
   // `general` switches the level-distance path off (the reference for the disagreement).
@@ -150,7 +153,19 @@ void BM_SweepStageBall(benchmark::State& state) {
   state.counters["max_diff_vs_general_um"] = worst_um;
   state.counters["nan_mismatch"] = static_cast<double>(nan_mismatch);
 }
+void BM_SweepStageBall(benchmark::State& state) { sweep_stage(state, RasterDirection::Zigzag); }
 BENCHMARK(BM_SweepStageBall)
+    ->ArgsProduct({{12, 40}, {0, 30}, {1, 2}})
+    ->ArgNames({"size_mm", "angle_deg", "threads"})
+    ->Unit(benchmark::kMillisecond)
+    ->MeasureProcessCPUTime()
+    ->UseRealTime();
+
+// The same sweep stage with one-way passes (each pass in the same direction, rapid returns).
+void BM_SweepStageBallOneWay(benchmark::State& state) {
+  sweep_stage(state, RasterDirection::OneWay);
+}
+BENCHMARK(BM_SweepStageBallOneWay)
     ->ArgsProduct({{12, 40}, {0, 30}, {1, 2}})
     ->ArgNames({"size_mm", "angle_deg", "threads"})
     ->Unit(benchmark::kMillisecond)

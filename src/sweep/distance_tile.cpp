@@ -28,6 +28,11 @@ constexpr double kPruneSlack = 1e-12;
 // common 2-socket-free servers (32 MiB); below it the grid may stay cached for the next stage.
 constexpr std::int64_t kStreamGridBytes = std::int64_t{64} << 20;
 
+// Margin by which a move must clear the lowest level moves' highest height on a tile to be left
+// out of it: far above the float rounding of heights (~1e-7 mm at a few mm), far below any
+// clearance a path lifts by.
+constexpr double kAboveMarginMm = 1e-6;
+
 double sq(double v) { return v * v; }
 
 // Squared distance from p to the level line move m, in its frame (the row kernel's formula).
@@ -123,6 +128,7 @@ struct Scratch {
   std::vector<float> heights;
   std::vector<char> beside;
   std::vector<double> key, heights_key;  // what `heights` were computed from
+  std::vector<int> level;                // the tile's moves that can lower a cell
 };
 
 Scratch& scratch() {
@@ -208,23 +214,59 @@ void row_d2(const std::vector<const PreparedMove*>& kept, const std::vector<char
   }
 }
 
+// The tile's moves that can lower a cell, into `out`; false when one of them is not a level move
+// at the lowest level moves' height z_low (the general envelope then takes the tile). The
+// lowest level moves leave at most z_low + p(U) on every cell, U the least over them of the
+// largest distance to the tile's corners (when U is within reach), so a move whose lowest point
+// is above that (a one-way raster's return at clearance height) leaves only higher values.
+bool level_moves(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
+                 const std::vector<int>& tile_moves, const TileRect& tile, std::vector<int>& out) {
+  out.clear();
+  auto level_at = [&](const PreparedMove& m, double z) {
+    return !m.vertical() && m.z0_mm == z && m.z1_mm == z;
+  };
+  double z_low = kInf;
+  for (int k : tile_moves) {
+    const PreparedMove& m = moves[k];
+    if (level_at(m, m.z0_mm)) z_low = std::min(z_low, m.z0_mm);
+  }
+  if (z_low == kInf) return tile_moves.empty();
+  const double cell = setup.cell_mm;
+  const double x_lo = (tile.i0 + 0.5) * cell, x_hi = (tile.i1 - 0.5) * cell;
+  const double y_lo = (tile.j0 + 0.5) * cell, y_hi = (tile.j1 - 0.5) * cell;
+  const Eigen::Vector2d corners[4] = {{x_lo, y_lo}, {x_hi, y_lo}, {x_lo, y_hi}, {x_hi, y_hi}};
+  double u2 = kInf;
+  for (int k : tile_moves) {
+    if (level_at(moves[k], z_low)) u2 = std::min(u2, upper_d2(moves[k], corners, 4));
+  }
+  const double reach = setup.envelope.reach_mm;
+  const double ceiling_mm =
+      u2 <= reach * reach ? z_low + profile_mm(setup, u2) + kAboveMarginMm : kInf;
+  for (int k : tile_moves) {
+    const PreparedMove& m = moves[k];
+    if (level_at(m, z_low)) {
+      out.push_back(k);
+    } else if (m.z_min_mm <= ceiling_mm) {
+      return false;
+    }
+  }
+  return true;
+}
+
 }  // namespace
 
 bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& moves,
                    const std::vector<int>& tile_moves, const TileRect& tile, float* grid,
                    int grid_row0, std::int64_t& visits) {
-  for (int k : tile_moves) {
-    const PreparedMove& m = moves[k];
-    if (m.vertical() || m.z0_mm != m.z1_mm || m.z0_mm != moves[tile_moves.front()].z0_mm) {
-      return false;
-    }
-  }
+  Scratch& sc = scratch();
+  if (!level_moves(setup, moves, tile_moves, tile, sc.level)) return false;
+  const std::vector<int>& level = sc.level;
   const int nx = setup.nx;
   const double cell = setup.cell_mm, reach = setup.envelope.reach_mm;
   const double reach2 = reach * reach;
   auto row_of = [&](int j) { return grid + static_cast<std::int64_t>(j - grid_row0) * nx; };
   const double base_um =
-      tile_moves.empty() ? 0.0 : (moves[tile_moves.front()].z0_mm + setup.axial_min_mm) * kUmPerMm;
+      level.empty() ? 0.0 : (moves[level.front()].z0_mm + setup.axial_min_mm) * kUmPerMm;
   auto height_um = [&](double d2) {
     return d2 <= reach2 ? static_cast<float>(base_um + kUmPerMm * profile_mm(setup, d2))
                         : kUnreached;
@@ -234,9 +276,8 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
   const bool stream =
       static_cast<std::int64_t>(setup.nx) * setup.ny * static_cast<std::int64_t>(sizeof(float)) >=
       kStreamGridBytes;
-  Scratch& sc = scratch();
   sc.kept.clear();
-  for (int k : tile_moves) sc.kept.push_back(&moves[k]);
+  for (int k : level) sc.kept.push_back(&moves[k]);
   const double y_lo = (tile.j0 + 0.5) * cell, y_hi = (tile.j1 - 0.5) * cell;
   prune(sc.kept, (tile.i0 + 0.5) * cell, (tile.i1 - 0.5) * cell, y_lo, y_hi, reach2, sc.lo2,
         sc.tile_kept);

@@ -1,11 +1,13 @@
 // Block means accumulated band by band; block columns split across threads (each block's cells
-// are summed by one thread in row order, so the sums do not depend on the thread count).
+// are summed by one thread in row order, so the sums do not depend on the thread count), rows
+// by the row_block_sums kernel.
 // Inputs: bands (um); output: reduced Heightfield. Method: see block_mean_overview.h.
 #include "texture/block_mean_overview.h"
 
 #include <algorithm>
 #include <cmath>
 
+#include "texture/band_row_sums.h"
 #include "texture/streaming_areal.h"
 
 namespace cuspmap {
@@ -31,27 +33,16 @@ void BlockMeanOverview::add_band(const Heightfield& band, int j0, int threads) {
   const int items = (out_nx_ + kColumnsPerItem - 1) / kColumnsPerItem;
   parallel_rows(items, threads, [&](int item) {
     const int b_lo = item * kColumnsPerItem, b_hi = std::min(out_nx_, b_lo + kColumnsPerItem);
-    const int i_hi = std::min(nx_, b_hi * k_);
     for (int j = 0; j < band.ny; ++j) {
-      const std::size_t out_row = static_cast<std::size_t>((j0 + j) / k_) * out_nx_;
-      const float* z = band.z_um.data() + static_cast<std::int64_t>(j) * band.nx;
-      // Block by block, the running sum in a register: the same additions in the same order
-      // as cell by cell, without a division per cell.
-      for (int b = b_lo; b < b_hi; ++b) {
-        const std::size_t o = out_row + static_cast<std::size_t>(b);
-        double sum = sum_[o];
-        int count = count_[o];
-        for (int i = b * k_, end = std::min(i_hi, (b + 1) * k_); i < end; ++i) {
-          const float v = z[i];
-          if (!std::isfinite(v)) continue;
-          sum += v;
-          ++count;
-        }
-        sum_[o] = sum;
-        count_[o] = count;
-      }
+      add_row(band.z_um.data() + static_cast<std::int64_t>(j) * band.nx, j0 + j, b_lo, b_hi);
     }
   });
+}
+
+void BlockMeanOverview::add_row(const float* row, int grid_row, int b_lo, int b_hi) {
+  const std::size_t o = static_cast<std::size_t>(grid_row / k_) * out_nx_ + b_lo;
+  const int i_lo = b_lo * k_, i_hi = std::min(nx_, b_hi * k_);
+  row_block_sums(row + i_lo, i_hi - i_lo, k_, sum_.data() + o, count_.data() + o);
 }
 
 Heightfield BlockMeanOverview::result() const {

@@ -22,6 +22,11 @@ class BlockMeanOverview {
                     int max_pixels = kOverviewMaxPixels);
   /// Adds the rows of a band whose first row is grid row j0; block columns in parallel.
   void add_band(const Heightfield& band, int j0, int threads);
+  /// Adds block columns [b_lo, b_hi) of one grid row (nx heights, um). Calls for different block
+  /// rows or disjoint block columns may run at the same time; each block's rows in order.
+  void add_row(const float* row, int grid_row, int b_lo, int b_hi);
+  /// Block columns of the overview.
+  int blocks_x() const { return out_nx_; }
   /// Cells per block side.
   int cells_per_block() const { return k_; }
   /// The overview: ceil(ny / k) x ceil(nx / k) block means, NaN where a block has no finite cell.

@@ -65,8 +65,7 @@ StreamedTexture::StreamedTexture(int nx, int ny, double cell_mm, double origin_x
 }
 
 void StreamedTexture::add_first_pass(const Heightfield& band, int j0) {
-  plane_.add_band(band, threads_);
-  overview_.add_band(band, j0, threads_);
+  plane_.add_band(band, j0, threads_, &overview_);
   traces_->add_band(band, j0);
   for (auto& c : centre_) c->add_band(band, j0);
 }

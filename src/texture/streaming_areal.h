@@ -2,8 +2,8 @@
 // held whole: pass 1 accumulates the least-squares plane's normal-equation sums (and the raw
 // extremes), pass 2 (the bands again) the moments of the residuals about that plane.
 // Inputs: bands (um over mm cells, NaN = unreached); output: Plane, ArealMoments.
-// Cost O(cells) per pass, rows in parallel; per-row sums merged in row order, so the result does
-// not depend on the thread count. Method: ISO 25178-2:2012 §3.1.8 (F-operator, least-squares
+// Cost O(cells) per pass, SIMD row kernels (band_row_sums), rows in parallel; per-row sums
+// merged in row order, so the result does not depend on the thread count. Method: ISO 25178-2:2012 §3.1.8 (F-operator, least-squares
 // plane) and §4.1 (Sa, Sq, Sp, Sv, Ssk, Sku); two passes because Sa, Sp and Sv need the plane.
 #pragma once
 
@@ -12,6 +12,7 @@
 
 #include "core/heightfield.h"
 #include "texture/areal_moments.h"
+#include "texture/block_mean_overview.h"
 #include "texture/fit_plane.h"
 
 namespace cuspmap {
@@ -29,8 +30,10 @@ struct StreamingPlane {
 
   /// Starts for a grid of nx x ny cells with this origin and cell.
   StreamingPlane(int nx, int ny, double cell_mm, double origin_x_mm, double origin_y_mm);
-  /// Adds a band (any number of rows; band.y_mm(j) are the grid rows' centres).
-  void add_band(const Heightfield& band, int threads);
+  /// Adds a band (any number of rows; band.y_mm(j) are the grid rows' centres) whose first row
+  /// is grid row j0, and, when `overview` is given, its cells to the overview in the same read.
+  void add_band(const Heightfield& band, int j0, int threads,
+                BlockMeanOverview* overview = nullptr);
 };
 
 /// Pass 2: adds the residuals z - plane(x, y) of a band, rounded to float as remove_plane does,

@@ -272,4 +272,44 @@ TEST_CASE("distance_tile: ramps and mixed heights fall back to the general envel
                       sizeof(float) * allowed.hf.cells()) == 0);
 }
 
+TEST_CASE("distance_tile: one-way returns above the cut leave the tiles to the level path",
+          "[sweep]") {
+  // issue 15: a one-way raster's return moves at the clearance height crossed every tile row,
+  // so every tile fell back to the general envelope (7-8x slower). They can lower no cell once
+  // the passes below reach the whole tile (derived: heights rise from the axis, so every cell is
+  // at most z + p(U) with U the passes' largest distance to the tile's corners).
+  const Cutter ball = make_cutter(CutterShape::Ball);
+  const Patch patch = square_patch(3.0, 0.01);
+  CutSpec cut;
+  PathSpec spec;
+  spec.stepover_mm = 0.3;
+  spec.direction = RasterDirection::OneWay;
+  const Toolpath path = raster_path(spec, cut, patch, ball);
+  const SweepSetup setup = sweep_setup(ball, cut, patch);
+  PreparedCounts counts;
+  const std::vector<PreparedMove> moves = prepare_moves(
+      path, cut, patch, setup.envelope.reach_mm, setup.top_mm + kReachMarginMm, counts);
+  const TileGrid tiles = tile_grid(setup.nx, setup.ny);
+  const auto bins = bin_moves(moves, tiles, setup.cell_mm, setup.envelope.reach_mm);
+  std::vector<float> grid(static_cast<std::size_t>(setup.nx) * setup.ny, 7.0f);
+  std::int64_t visits = 0;
+  int with_return = 0, level_path = 0;
+  for (int t = 0; t < tiles.count(); ++t) {
+    const bool has_return = std::any_of(bins[t].begin(), bins[t].end(), [&](int k) {
+      return !moves[k].vertical() && moves[k].z_min_mm >= cut.retract_mm;
+    });
+    const bool has_plunge = std::any_of(bins[t].begin(), bins[t].end(),
+                                        [&](int k) { return moves[k].vertical(); });
+    if (!has_return || has_plunge) continue;
+    ++with_return;
+    level_path += distance_tile(setup, moves, bins[t], tiles.rect(t), grid.data(), 0, visits);
+  }
+  CHECK(with_return > 0);
+  CHECK(level_path == with_return);
+  // And the floor is the general envelope's (kAgreeUm, as for the other rasters).
+  const Sweep fast = envelope(ball, path, patch, true);
+  const Sweep general = envelope(ball, path, patch, false);
+  CHECK(max_scaled_diff_um(fast.hf, general.hf, ball.effective_corner_mm()) <= kAgreeUm);
+}
+
 }  // namespace cuspmap
