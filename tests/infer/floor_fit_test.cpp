@@ -47,6 +47,7 @@ TEST_CASE("fit_floor: tilted flat, one-way and zigzag, recovers tilt, direction,
     SurfaceOptions so;
     so.lay_deg = 0.0;
     const SurfaceEstimates e = surface_estimates(hf, so);
+    CAPTURE(e.stepover.period_mm, e.stepover.sigma_mm);
     FloorFitOptions o;
     o.cutter.shape = CutterShape::Flat;
     o.cutter.diameter_mm = 3.0;
@@ -96,6 +97,8 @@ TEST_CASE("fit_floor: heel lifted, tilt along the feed bounded, not measured", "
   SurfaceOptions so;
   so.lay_deg = 0.0;
   const SurfaceEstimates e = surface_estimates(hf, so);
+  CAPTURE(e.stepover.period_mm, e.passes.next_pass, e.passes.second_pass, e.passes.mirror,
+          e.lay_pass_share);
   REQUIRE(e.heel == "lifted");
   FloorFitOptions o;
   o.cutter = job.cutter;
