@@ -38,12 +38,15 @@ constexpr int kMaxSolverSweeps = 200;
 // offset and tilt basins on the round-trip floors of tests/infer/floor_fit_test.cpp).
 constexpr size_t kSolverStarts = 4;
 constexpr double kSolverTolerance = 1e-7;
-// Profile over the tilt direction: directions tried (every 22.5 deg from the lay, the along
+// Profile over the tilt direction: directions tried (every 15 deg from the lay, the along
 // sign being folded), sweeps each, and the cost rise that bounds the interval (9 residual
 // variances: 3 sigma of one parameter, Bates & Watts 1988 §6.1 likelihood intervals).
-constexpr int kProfileDirections = 9;
+constexpr int kProfileDirections = 13;
 constexpr int kProfileSweeps = 30;
 constexpr double kProfileSigmas = 3.0;
+// Lags summed for the residual's autocorrelation time (a pass is at most ~10-20 samples wide in
+// the window: beyond it the repeat is the model's, not the noise's; derived).
+constexpr int kMaxCorrelationLags = 20;
 
 // Start for the tilt across the feed, deg: inside each pass band the floor is the tilted end
 // face, so the band means across the lay rise at -tan(across) (+ = toward lay + 90 deg, where
@@ -225,6 +228,41 @@ double rms(const Eigen::VectorXd& v) {
   return v.size() ? std::sqrt(v.squaredNorm() / static_cast<double>(v.size())) : 0.0;
 }
 
+// m / m_eff of residuals r at the window's finite samples: the product over the two axes of
+// 1 + 2 sum_k rho(k), summed over the initial positive run of lags (Geyer 1992's initial
+// positive sequence), at most kMaxCorrelationLags samples.
+double correlation_factor(const Window& w, const Eigen::VectorXd& r) {
+  const int nx = w.measured.nx, ny = w.measured.ny;
+  std::vector<double> grid(static_cast<size_t>(nx) * ny, std::numeric_limits<double>::quiet_NaN());
+  for (size_t k = 0; k < w.index.size(); ++k) grid[w.index[k]] = r[static_cast<int>(k)];
+  double factor = 1.0;
+  for (const bool along_x : {true, false}) {
+    double tau = 1.0, r0 = 0.0;
+    for (double v : grid) {
+      if (std::isfinite(v)) r0 += v * v;
+    }
+    if (r0 <= 0.0) continue;
+    const double n0 = static_cast<double>(w.index.size());
+    for (int lag = 1; lag <= kMaxCorrelationLags; ++lag) {
+      double sum = 0.0, pairs = 0.0;
+      for (int b = 0; b + (along_x ? 0 : lag) < ny; ++b) {
+        for (int a = 0; a + (along_x ? lag : 0) < nx; ++a) {
+          const double u = grid[static_cast<size_t>(b) * nx + a];
+          const double v = grid[static_cast<size_t>(b + (along_x ? 0 : lag)) * nx + a +
+                                (along_x ? lag : 0)];
+          if (std::isfinite(u) && std::isfinite(v)) sum += u * v, pairs += 1.0;
+        }
+      }
+      if (pairs <= 0.0) break;
+      const double rho = (sum / pairs) / (r0 / n0);
+      if (rho <= 0.0) break;
+      tau += 2.0 * rho;
+    }
+    factor *= tau;
+  }
+  return factor;
+}
+
 // Profile likelihood over the tilt direction (Bates & Watts 1988 §6.1): the cost re-minimised
 // over the magnitude and pass offset with the direction held at each of kProfileDirections;
 // directions whose cost stays within kProfileSigmas^2 residual variances of the optimum are
@@ -252,8 +290,14 @@ void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit) 
     const double c_hat = std::max(std::cos(dir_hat) * std::cos(dir_hat), 0.1);
     const double t0 = std::clamp(t_hat * std::cos(dir) * std::cos(dir) / c_hat, 0.1 * t_hat,
                                  3.0 * t_hat);
+    // The cusps stay where the floor has them: the pass centres sit a sin(direction) (a = the
+    // rim radius) to the side of the rim's lowest point (derived).
+    const double a = 0.5 * res.model->cutter.diameter_mm;
+    const double s = p[kStepoverMm];
+    double off = p[kOffsetMm] - a * (std::sin(dir) - std::sin(dir_hat));
+    off -= s * std::round(off / s);
     Eigen::VectorXd x(2);
-    x << t0, p[kOffsetMm];
+    x << t0, off;
     Eigen::LevenbergMarquardt<DirectionResidual> lm(dr);
     lm.parameters.maxfev = kProfileSweeps;
     lm.parameters.xtol = kSolverTolerance;
@@ -390,7 +434,12 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   Eigen::MatrixXd jac;
   res.df(x, jac);
   const int dof = std::max(1, res.samples() - res.inputs() - 3);
-  const double var = f.head(res.samples()).squaredNorm() / dof;
+  // Residuals that the model leaves with structure (feed marks, a model error repeating every
+  // pass) are correlated: the variance is scaled by the residual's integrated autocorrelation
+  // time along both axes (m / m_eff; Box & Jenkins, Time Series Analysis, §2.1.6), 1 for noise.
+  const double var =
+      f.head(res.samples()).squaredNorm() / dof * correlation_factor(w, f.head(res.samples()));
+  fit.correlation_factor = correlation_factor(w, f.head(res.samples()));
   const Eigen::MatrixXd jtj = jac.transpose() * jac;
   const Eigen::MatrixXd inv = jtj.completeOrthogonalDecomposition().pseudoInverse();
   fit.covariance = Eigen::MatrixXd::Zero(kFitParams, kFitParams);

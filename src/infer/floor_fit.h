@@ -47,6 +47,7 @@ struct FloorFit {
   int samples = 0;               ///< finite residuals
   int evaluations = 0;           ///< sweeps run (start search + solver)
   int solver_status = 0;         ///< Eigen LevenbergMarquardt status code
+  double correlation_factor = 1.0;  ///< m / m_eff of the residuals (variances scaled by it)
   double tilt_profile_sigma_deg = 0.0;       ///< tilt sigma from the direction profile
   double direction_profile_sigma_deg = 0.0;  ///< direction sigma from the same profile
   std::pair<double, double> tilt_interval_deg{0.0, 0.0};  ///< tilts within 3 sigma (profile)
