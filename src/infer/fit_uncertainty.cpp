@@ -56,6 +56,10 @@ FittedErrors fitted_errors(const FloorFit& fit) {
     var_t = gt.dot(cc * gt);
     var_dir = gd.dot(cc * gd) * kRadToDeg * kRadToDeg;
   }
+  // The linearised variance misses the ridge of equal cusp curvature where passes overlap: the
+  // profile over the direction (floor_fit) widens both when it is wider.
+  var_t = std::max(var_t, fit.tilt_profile_sigma_deg * fit.tilt_profile_sigma_deg);
+  var_dir = std::max(var_dir, fit.direction_profile_sigma_deg * fit.direction_profile_sigma_deg);
   e.tilt_deg = value_of(t, tilt_fitted ? var_t : 0.0, tilt_fitted);
   const double dir = std::atan2(b, a) * kRadToDeg;
   e.tilt_toward_deg = value_of(wrap360(fit.model.lay_deg + dir), var_dir, tilt_fitted);

@@ -9,9 +9,12 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <numbers>
 #include <utility>
 #include <vector>
 #include <Eigen/Dense>
+
+#include "infer/band_means.h"
 #include <unsupported/Eigen/NonLinearOptimization>
 
 namespace cuspmap {
@@ -35,6 +38,29 @@ constexpr int kMaxSolverSweeps = 200;
 // offset and tilt basins on the round-trip floors of tests/infer/floor_fit_test.cpp).
 constexpr size_t kSolverStarts = 4;
 constexpr double kSolverTolerance = 1e-7;
+// Profile over the tilt direction: directions tried (every 15 deg from the lay, the along
+// sign being folded), sweeps each, and the cost rise that bounds the interval (9 residual
+// variances: 3 sigma of one parameter, Bates & Watts 1988 §6.1 likelihood intervals).
+constexpr int kProfileDirections = 13;
+constexpr int kProfileSweeps = 30;
+constexpr double kProfileSigmas = 3.0;
+// Lags summed for the residual's autocorrelation time (a pass is at most ~10-20 samples wide in
+// the window: beyond it the repeat is the model's, not the noise's; derived).
+constexpr int kMaxCorrelationLags = 20;
+
+// Start for the tilt across the feed, deg: inside each pass band the floor is the tilted end
+// face, so the band means across the lay rise at -tan(across) (+ = toward lay + 90 deg, where
+// the face is low; derived, first-order tilt) between the steps at the pass edges; the median
+// of their differences skips the steps (one per stepover) and averages the noise.
+double across_tilt_start_deg(const Heightfield& hf, const SurfaceEstimates& e) {
+  const BandMeans b = band_means(remove_plane(hf, e.setup_plane), e.lay_deg);
+  if (b.z_um.size() < 3) return 0.0;
+  std::vector<double> d;
+  for (size_t k = 1; k < b.z_um.size(); ++k) d.push_back(b.z_um[k] - b.z_um[k - 1]);
+  std::nth_element(d.begin(), d.begin() + d.size() / 2, d.end());
+  const double slope = d[d.size() / 2] / b.spacing_mm / 1000.0;  // um per mm -> mm per mm
+  return -std::atan(slope) * 180.0 / std::numbers::pi;
+}
 
 // The measured window and the plane basis over its finite samples.
 struct Window {
@@ -158,8 +184,139 @@ struct FitResidual {
   }
 };
 
+// The residual with the tilt direction fixed (deg from the lay) and the stepover held: free are
+// the tilt magnitude and the pass offset. One point of the profile over the direction.
+struct DirectionResidual {
+  using Scalar = double;
+  using InputType = Eigen::VectorXd;
+  using ValueType = Eigen::VectorXd;
+  using JacobianType = Eigen::MatrixXd;
+  enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
+
+  const FitResidual* base = nullptr;  // all four parameters free
+  double dir_rad = 0.0;
+  double stepover_mm = 0.0;
+  mutable int sweeps = 0;
+
+  int inputs() const { return 2; }
+  int values() const { return base->values(); }
+  Eigen::VectorXd full(const Eigen::VectorXd& x) const {
+    Eigen::VectorXd p(4);
+    p << x[0] * std::cos(dir_rad), x[0] * std::sin(dir_rad), stepover_mm, x[1];
+    return p;
+  }
+  int operator()(const Eigen::VectorXd& x, Eigen::VectorXd& f) const {
+    ++sweeps;
+    return (*base)(full(x), f);
+  }
+  int df(const Eigen::VectorXd& x, Eigen::MatrixXd& jac) const {
+    Eigen::VectorXd f0, f1;
+    (*this)(x, f0);
+    jac.resize(values(), 2);
+    const double h[2] = {kTiltStepDeg, kPeriodStepFraction * stepover_mm};
+    for (int k = 0; k < 2; ++k) {
+      Eigen::VectorXd xh = x;
+      xh[k] += h[k];
+      (*this)(xh, f1);
+      jac.col(k) = (f1 - f0) / h[k];
+    }
+    return 0;
+  }
+};
+
 double rms(const Eigen::VectorXd& v) {
   return v.size() ? std::sqrt(v.squaredNorm() / static_cast<double>(v.size())) : 0.0;
+}
+
+// m / m_eff of residuals r at the window's finite samples: the product over the two axes of
+// 1 + 2 sum_k rho(k), summed over the initial positive run of lags (Geyer 1992's initial
+// positive sequence), at most kMaxCorrelationLags samples.
+double correlation_factor(const Window& w, const Eigen::VectorXd& r) {
+  const int nx = w.measured.nx, ny = w.measured.ny;
+  std::vector<double> grid(static_cast<size_t>(nx) * ny, std::numeric_limits<double>::quiet_NaN());
+  for (size_t k = 0; k < w.index.size(); ++k) grid[w.index[k]] = r[static_cast<int>(k)];
+  double factor = 1.0;
+  for (const bool along_x : {true, false}) {
+    double tau = 1.0, r0 = 0.0;
+    for (double v : grid) {
+      if (std::isfinite(v)) r0 += v * v;
+    }
+    if (r0 <= 0.0) continue;
+    const double n0 = static_cast<double>(w.index.size());
+    for (int lag = 1; lag <= kMaxCorrelationLags; ++lag) {
+      double sum = 0.0, pairs = 0.0;
+      for (int b = 0; b + (along_x ? 0 : lag) < ny; ++b) {
+        for (int a = 0; a + (along_x ? lag : 0) < nx; ++a) {
+          const double u = grid[static_cast<size_t>(b) * nx + a];
+          const double v = grid[static_cast<size_t>(b + (along_x ? 0 : lag)) * nx + a +
+                                (along_x ? lag : 0)];
+          if (std::isfinite(u) && std::isfinite(v)) sum += u * v, pairs += 1.0;
+        }
+      }
+      if (pairs <= 0.0) break;
+      const double rho = (sum / pairs) / (r0 / n0);
+      if (rho <= 0.0) break;
+      tau += 2.0 * rho;
+    }
+    factor *= tau;
+  }
+  return factor;
+}
+
+// Profile likelihood over the tilt direction (Bates & Watts 1988 §6.1): the cost re-minimised
+// over the magnitude and pass offset with the direction held at each of kProfileDirections;
+// directions whose cost stays within kProfileSigmas^2 residual variances of the optimum are
+// consistent with the floor, and so are their magnitudes. Where passes overlap so that a tilted
+// rim leaves only shallow cusps, the cusp depends on tan(tilt) / cos^2(direction) alone
+// (derived: the rim's curvature at its lowest point), and the linearised sigma at the optimum
+// does not see that ridge; the profile does.
+void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit) {
+  const Eigen::VectorXd& p = res.full;
+  const double t_hat = std::hypot(p[kTiltAlongDeg], p[kTiltAcrossDeg]);
+  if (t_hat <= 0.0) return;
+  const double dir_hat = std::atan2(p[kTiltAcrossDeg], p[kTiltAlongDeg]);
+  const double var = best_cost / std::max(1, res.samples() - res.inputs() - 3);
+  const double limit = best_cost + kProfileSigmas * kProfileSigmas * var;
+  double t_lo = t_hat, t_hi = t_hat, d_lo = dir_hat, d_hi = dir_hat;
+  FitResidual all = res;
+  all.free_index = {kTiltAlongDeg, kTiltAcrossDeg, kStepoverMm, kOffsetMm};
+  for (int k = 0; k < kProfileDirections; ++k) {
+    const double dir = (-90.0 + 180.0 * k / (kProfileDirections - 1)) * std::numbers::pi / 180.0;
+    DirectionResidual dr;
+    dr.base = &all;
+    dr.dir_rad = dir;
+    dr.stepover_mm = p[kStepoverMm];
+    // Start on the ridge of equal cusp curvature, tan(t) / cos^2(direction) = const.
+    const double c_hat = std::max(std::cos(dir_hat) * std::cos(dir_hat), 0.1);
+    const double t0 = std::clamp(t_hat * std::cos(dir) * std::cos(dir) / c_hat, 0.1 * t_hat,
+                                 3.0 * t_hat);
+    // The cusps stay where the floor has them: the pass centres sit a sin(direction) (a = the
+    // rim radius) to the side of the rim's lowest point (derived).
+    const double a = 0.5 * res.model->cutter.diameter_mm;
+    const double s = p[kStepoverMm];
+    double off = p[kOffsetMm] - a * (std::sin(dir) - std::sin(dir_hat));
+    off -= s * std::round(off / s);
+    Eigen::VectorXd x(2);
+    x << t0, off;
+    Eigen::LevenbergMarquardt<DirectionResidual> lm(dr);
+    lm.parameters.maxfev = kProfileSweeps;
+    lm.parameters.xtol = kSolverTolerance;
+    lm.parameters.ftol = kSolverTolerance;
+    lm.minimize(x);
+    Eigen::VectorXd f;
+    dr(x, f);
+    fit.evaluations += dr.sweeps;
+    if (f.squaredNorm() > limit) continue;
+    t_lo = std::min(t_lo, std::abs(x[0]));
+    t_hi = std::max(t_hi, std::abs(x[0]));
+    d_lo = std::min(d_lo, dir);
+    d_hi = std::max(d_hi, dir);
+  }
+  // The interval spans +-kProfileSigmas sigma: its wider half over kProfileSigmas is one sigma.
+  fit.tilt_profile_sigma_deg = std::max(t_hi - t_hat, t_hat - t_lo) / kProfileSigmas;
+  fit.direction_profile_sigma_deg =
+      std::max(d_hi - dir_hat, dir_hat - d_lo) * 180.0 / std::numbers::pi / kProfileSigmas;
+  fit.tilt_interval_deg = {t_lo, t_hi};
 }
 
 }  // namespace
@@ -212,6 +369,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   if (tilt_shows) {
     alongs.assign(std::begin(kStartAlongDeg), std::end(kStartAlongDeg));
     acrosses.assign(std::begin(kStartAcrossDeg), std::end(kStartAcrossDeg));
+    acrosses.push_back(across_tilt_start_deg(hf, e));
   }
   for (int s = 0; s < kStartOffsets; ++s) {
     for (double along : alongs) {
@@ -263,6 +421,9 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   res.full = best_x;
   // The envelope cannot tell the lowest point ahead from behind: report the fold >= 0.
   res.full[kTiltAlongDeg] = std::abs(res.full[kTiltAlongDeg]);
+  if (tilt_shows && res.inputs() == kFitParams) {
+    profile_direction(res, best_cost, fit);
+  }
   Eigen::VectorXd x(res.inputs());
   for (int k = 0; k < res.inputs(); ++k) x[k] = res.full[res.free_index[static_cast<size_t>(k)]];
   fit.params = res.full;
@@ -273,7 +434,12 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   Eigen::MatrixXd jac;
   res.df(x, jac);
   const int dof = std::max(1, res.samples() - res.inputs() - 3);
-  const double var = f.head(res.samples()).squaredNorm() / dof;
+  // Residuals that the model leaves with structure (feed marks, a model error repeating every
+  // pass) are correlated: the variance is scaled by the residual's integrated autocorrelation
+  // time along both axes (m / m_eff; Box & Jenkins, Time Series Analysis, §2.1.6), 1 for noise.
+  const double var =
+      f.head(res.samples()).squaredNorm() / dof * correlation_factor(w, f.head(res.samples()));
+  fit.correlation_factor = correlation_factor(w, f.head(res.samples()));
   const Eigen::MatrixXd jtj = jac.transpose() * jac;
   const Eigen::MatrixXd inv = jtj.completeOrthogonalDecomposition().pseudoInverse();
   fit.covariance = Eigen::MatrixXd::Zero(kFitParams, kFitParams);
@@ -291,7 +457,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     }
   }
   fit.residual_rms_um = rms(f.head(res.samples()));
-  fit.evaluations = res.sweeps;
+  fit.evaluations += res.sweeps;  // plus the direction profile's
 
   // The plane of measured minus simulated, with its standard errors sigma^2 (A^T A)^-1.
   const Eigen::VectorXd r = res.raw(fit.params);

@@ -10,6 +10,7 @@
 
 #include <Eigen/Core>
 #include <string>
+#include <utility>
 #include <vector>
 
 #include "core/heightfield.h"
@@ -46,6 +47,10 @@ struct FloorFit {
   int samples = 0;               ///< finite residuals
   int evaluations = 0;           ///< sweeps run (start search + solver)
   int solver_status = 0;         ///< Eigen LevenbergMarquardt status code
+  double correlation_factor = 1.0;  ///< m / m_eff of the residuals (variances scaled by it)
+  double tilt_profile_sigma_deg = 0.0;       ///< tilt sigma from the direction profile
+  double direction_profile_sigma_deg = 0.0;  ///< direction sigma from the same profile
+  std::pair<double, double> tilt_interval_deg{0.0, 0.0};  ///< tilts within 3 sigma (profile)
   FitModel model;                ///< the forward model (window grid, lay, cutter)
   Heightfield measured;          ///< window, measured minus the fitted plane, um
   Heightfield simulated;         ///< window, best-fit sweep, um (mean matched to measured)

@@ -12,6 +12,21 @@
 namespace cuspmap {
 namespace {
 
+// Comb search: candidate step (quarter sample: the flat floors' ACF peaks are a few samples
+// wide), the longest submultiple tried, its search band, and the share of the best comb score a
+// submultiple keeps to be the period (derived: a false 1/m of the period combs the ACF at
+// lags where only every m-th is a repeat, ~1/m of the score plus scatter, measured up to 0.67
+// for m = 3 on a dished flat floor; the true period of a floor whose comb peaks at twice it
+// keeps 0.99 on ball floors).
+constexpr double kCombStepSamples = 0.25;
+constexpr int kMaxSubmultiple = 4;
+constexpr double kSubmultipleSlack = 0.03;
+constexpr double kMinSubmultipleScore = 0.8;
+// A comb scoring below this is no repeat (as kMinRepeatPeak, for a mean over the multiples).
+constexpr double kMinCombScore = kMinRepeatPeak;
+// Peaks at the multiples must keep this share of the comb score to enter the refinement.
+constexpr double kCombPeakShare = 0.5;
+
 // Sub-sample position of the peak at index i (parabola through i-1, i, i+1).
 double refine_peak(const std::vector<double>& a, int i) {
   if (i <= 0 || i + 1 >= static_cast<int>(a.size())) return i;
@@ -30,6 +45,45 @@ int local_max_in(const std::vector<double>& a, int lo, int hi) {
     if (a[i] >= a[i - 1] && a[i] >= a[i + 1] && (best < 0 || a[i] > a[best])) best = i;
   }
   return best;
+}
+
+// Refines a repeat of `guess` samples: the peak near every multiple k (within a quarter
+// period, at least `min_peak`) is located to a sub-sample, and the period is the least-squares
+// slope of lag against k; fills period, sigma, repeats and the strongest peak of r.
+void refine_repeats(const std::vector<double>& acf, double spacing_mm, double guess, int first,
+                    double min_peak, RepeatPeriod& r) {
+  const int n = static_cast<int>(acf.size());
+  // Each multiple k of the guess has its own peak within a quarter period.
+  double skk = 0.0, skl = 0.0;
+  std::vector<std::pair<double, double>> kl;
+  int strongest = first;
+  for (int k = 1;; ++k) {
+    const double centre = k * guess;
+    const int half = std::max(1, static_cast<int>(0.25 * guess));
+    if (centre + half + 1 >= n) break;
+    const int i = local_max_in(acf, static_cast<int>(std::lround(centre)) - half,
+                               static_cast<int>(std::lround(centre)) + half);
+    if (i < 0 || acf[i] < min_peak) break;
+    if (acf[i] > acf[strongest]) strongest = i;
+    const double lag = refine_peak(acf, i);
+    kl.emplace_back(k, lag);
+    skk += static_cast<double>(k) * k;
+    skl += k * lag;
+  }
+  r.repeats = static_cast<int>(kl.size());
+  const double period = kl.empty() ? guess : skl / skk;
+  r.period_mm = period * spacing_mm;
+  if (kl.size() >= 2) {
+    double ss = 0.0;
+    for (const auto& [k, lag] : kl) ss += (lag - k * period) * (lag - k * period);
+    r.sigma_mm = std::sqrt(ss / static_cast<double>(kl.size() - 1) / skk) * spacing_mm;
+  }
+  // Parabolic interpolation of a sampled peak is biased by up to ~0.1 sample whatever the
+  // scatter (derived: the peak of a sampled cosine-like ACF); the last repeat divides it.
+  constexpr double kPeakBiasSamples = 0.1;
+  r.sigma_mm = std::max(r.sigma_mm, kPeakBiasSamples * spacing_mm / std::max(1, r.repeats));
+  r.strongest_mm = refine_peak(acf, strongest) * spacing_mm;
+  r.strongest_peak = acf[strongest];
 }
 
 }  // namespace
@@ -80,38 +134,57 @@ RepeatPeriod repeat_period(const std::vector<double>& acf, double spacing_mm, in
   if (first < 0) return r;
   r.found = true;
   r.first_peak = acf[first];
-  const double guess = refine_peak(acf, first);
-  // Each multiple k of the guess has its own peak within a quarter period.
-  double skk = 0.0, skl = 0.0;
-  std::vector<std::pair<double, double>> kl;
-  int strongest = first;
-  for (int k = 1;; ++k) {
-    const double centre = k * guess;
-    const int half = std::max(1, static_cast<int>(0.25 * guess));
-    if (centre + half + 1 >= n) break;
-    const int i = local_max_in(acf, static_cast<int>(std::lround(centre)) - half,
-                               static_cast<int>(std::lround(centre)) + half);
-    if (i < 0 || acf[i] < kMinRepeatPeak) break;
-    if (acf[i] > acf[strongest]) strongest = i;
-    const double lag = refine_peak(acf, i);
-    kl.emplace_back(k, lag);
-    skk += static_cast<double>(k) * k;
-    skl += k * lag;
+  refine_repeats(acf, spacing_mm, refine_peak(acf, first), first, kMinRepeatPeak, r);
+  return r;
+}
+
+double comb_score(const std::vector<double>& acf, double period) {
+  const double last = static_cast<double>(acf.size()) - 1.0;
+  double s = 0.0;
+  int k = 0;
+  for (double lag = period; lag <= last; lag += period, ++k) s += acf_at(acf, 1.0, lag);
+  return k > 0 ? s / k : 0.0;
+}
+
+RepeatPeriod comb_period(const std::vector<double>& acf, double spacing_mm, int min_lag,
+                         double max_period) {
+  RepeatPeriod r;
+  const int n = static_cast<int>(acf.size());
+  // Candidate periods every quarter sample, each scored by the mean ACF at its multiples.
+  const auto score = [&](double p) { return comb_score(acf, p); };
+  double best_p = 0.0, best = -1.0;
+  const double longest = std::min(0.5 * (n - 1), max_period);
+  for (double p = std::max(min_lag, 2); p <= longest; p += kCombStepSamples) {
+    const double s = score(p);
+    if (s > best) best = s, best_p = p;
   }
-  r.repeats = static_cast<int>(kl.size());
-  const double period = kl.empty() ? guess : skl / skk;
-  r.period_mm = period * spacing_mm;
-  if (kl.size() >= 2) {
-    double ss = 0.0;
-    for (const auto& [k, lag] : kl) ss += (lag - k * period) * (lag - k * period);
-    r.sigma_mm = std::sqrt(ss / static_cast<double>(kl.size() - 1) / skk) * spacing_mm;
+  if (best < kMinCombScore) return r;
+  // The comb of a multiple of the period scores as well as the period's own: step down to the
+  // best-scoring submultiple while it keeps kMinSubmultipleScore of the best score.
+  const double top = best;
+  for (bool stepped = true; stepped;) {
+    stepped = false;
+    double sub_p = 0.0, sub = -1.0;
+    for (int m = 2; m <= kMaxSubmultiple; ++m) {
+      const double centre = best_p / m;
+      if (centre < std::max(min_lag, 2)) break;
+      for (double p = centre * (1.0 - kSubmultipleSlack);
+           p <= centre * (1.0 + kSubmultipleSlack); p += kCombStepSamples) {
+        const double s = score(p);
+        if (s > sub) sub = s, sub_p = p;
+      }
+    }
+    if (sub >= kMinSubmultipleScore * top) {
+      best_p = sub_p;
+      best = sub;
+      stepped = true;
+    }
   }
-  // Parabolic interpolation of a sampled peak is biased by up to ~0.1 sample whatever the
-  // scatter (derived: the peak of a sampled cosine-like ACF); the last repeat divides it.
-  constexpr double kPeakBiasSamples = 0.1;
-  r.sigma_mm = std::max(r.sigma_mm, kPeakBiasSamples * spacing_mm / std::max(1, r.repeats));
-  r.strongest_mm = refine_peak(acf, strongest) * spacing_mm;
-  r.strongest_peak = acf[strongest];
+  r.found = true;
+  const int first = static_cast<int>(std::lround(best_p));
+  r.first_peak = acf_at(acf, 1.0, best_p);
+  refine_repeats(acf, spacing_mm, best_p, std::min(first, n - 1), kCombPeakShare * best, r);
+  if (r.repeats == 0) r = RepeatPeriod{};
   return r;
 }
 

@@ -41,6 +41,22 @@ struct RepeatPeriod {
 /// @param[in] min_lag     lags below this (samples) are not peaks (e.g. noise wiggles)
 RepeatPeriod repeat_period(const std::vector<double>& acf, double spacing_mm, int min_lag = 2);
 
+/// The repeat of a single profile whose autocorrelation has many local peaks (band means of a
+/// dished flat floor): the period p maximising the mean ACF over its multiples p, 2p, ...
+/// (a comb; Box & Jenkins' sample ACF), replaced by a submultiple p/m that keeps most of that
+/// score (a multiple of the period combs as well as the period), then refined as above.
+/// @param[in] acf         normalised autocorrelation (acf[0] = 1), lags up to half the profile
+/// @param[in] spacing_mm  lag step
+/// @param[in] min_lag     shortest period considered, samples
+/// @param[in] max_period  longest period considered, samples (at most half the table)
+/// @return found = false when no comb scores kMinRepeatPeak or more
+RepeatPeriod comb_period(const std::vector<double>& acf, double spacing_mm, int min_lag,
+                         double max_period);
+
+/// Mean of the autocorrelation at the multiples period, 2 period, ... within the table.
+/// @param[in] period  samples (> 0)
+double comb_score(const std::vector<double>& acf, double period);
+
 /// The autocorrelation at a lag of `lag_mm` (linear between samples), 0 beyond the table.
 double acf_at(const std::vector<double>& acf, double spacing_mm, double lag_mm);
 

@@ -10,6 +10,7 @@
 
 #include "core/input_error.h"
 #include "core/units.h"
+#include "infer/band_means.h"
 #include "texture/extract_profiles.h"
 #include "texture/texture_direction.h"
 #include "texture/texture_report.h"
@@ -36,10 +37,34 @@ constexpr double kClearPassMatch = 0.8;
 constexpr int kMaxMarksPerRevolution = 8;
 // A revolution repeat stands out when its peak beats the first (tooth) peak by this much.
 constexpr double kRevolutionMargin = 0.1;
+// Band means must carry this share of the variance for the pass comparison to tell zigzag
+// from one-way (common practice, no source: ball floors give 0.96-1, dished flat floors
+// 0.1-0.35, where one-way floors were read as zigzag).
+constexpr double kMinShareForDirection = 0.5;
+// Band means are smoothed over this many cells before their period is sought (derived: the
+// box keeps 64 % of a fundamental 10 cells long, and removes the grid's aliasing of tooth arcs
+// a few cells apart; measured on 0.02 mm grids of 0.08 mm feed marks).
+constexpr int kBandSmoothCells = 5;
+// The traces' period is a multiple of the band means' when their ratio is within this of a
+// whole number (derived: two 1 % estimates); it needs this share of the band means' comb
+// score to replace theirs (derived: a false 1/m of the period keeps ~1/m; see repeat_period).
+constexpr double kMultipleSlack = 0.05;
+constexpr double kMinTraceSupport = 0.5;
+// The smoothed band means' ACF peaks can lean by up to half a cell (bands rounded to whole
+// cells, the box, a saw-tooth profile): the period's standard error is at least this over the
+// repeats (derived; measured 0.16 cell over 3 repeats on a tilted flat's 60-cell period).
+constexpr double kBandPeakBiasSamples = 0.5;
+// Heights within this of their plane everywhere: a floor with nothing to read (float um
+// rounding of a level floor; derived).
+constexpr float kFlatFloorUm = 1e-4f;
+// The spectral and band-mean lays agree within this (the band-mean peak is ~1 deg wide on a
+// 600-cell field; derived).
+constexpr double kLayAgreementDeg = 2.0;
 
 double wrap180(double deg) {
   double a = std::fmod(deg, 180.0);
-  return a < 0.0 ? a + 180.0 : a;
+  if (a < 0.0) a += 180.0;
+  return a >= 180.0 ? 0.0 : a;  // -1e-15 wraps to 180.0 in double
 }
 
 FeedMarks feed_marks(const std::vector<ProfileTrace>& along, const SurfaceOptions& o) {
@@ -93,30 +118,88 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   e.setup_tilt_toward_deg = std::atan2(-gy, -gx) * 180.0 / std::numbers::pi;
   const Heightfield residual = remove_plane(hf, e.setup_plane);
 
+  if (residual.z_um.unaryExpr([](float z) { return std::isfinite(z) ? std::abs(z) : 0.0f; })
+          .maxCoeff() <= kFlatFloorUm) {
+    throw InputError("the floor shows no texture: every height lies on one plane (within " +
+                     format_number(kFlatFloorUm) + " um), nothing to read");
+  }
   if (options.lay_deg) {
     e.lay_deg = wrap180(*options.lay_deg);
     e.lay_strength = 1.0;
     e.lay_given = true;
   } else {
+    // The passes' direction is where the band means carry most of the variance; the spectrum's
+    // mean direction is only a candidate: on a flat end mill's floor the tooth arcs dominate it.
     const TextureDirection dir = texture_direction(residual);
     e.lay_strength = dir.lay_strength;
-    if (dir.lay_strength < kMinLayStrength) {
-      throw InputError("no dominant lay: the spectrum's lay strength is " +
-                       format_number(dir.lay_strength) + ", at least " +
-                       format_number(kMinLayStrength) +
-                       " is needed (pass --lay if the pass direction is known)");
+    const PassLay pl = pass_lay(residual, wrap180(dir.lay_deg));
+    if (pl.share < kMinPassLayShare) {
+      throw InputError("no dominant lay: band means along no direction carry " +
+                       format_number(100.0 * kMinPassLayShare) + " % of the height variance (best " +
+                       format_number(100.0 * pl.share) + " % at " + format_number(pl.lay_deg) +
+                       " deg); pass --lay if the pass direction is known");
     }
-    e.lay_deg = wrap180(dir.lay_deg);
+    e.lay_deg = pl.lay_deg;
+    if (std::abs(wrap180(dir.lay_deg - pl.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
+        dir.lay_strength >= kMinLayStrength) {
+      e.notes.push_back("the spectrum's lay (" + format_number(wrap180(dir.lay_deg)) +
+                        " deg, the tooth arcs) differs from the passes' (" +
+                        format_number(e.lay_deg) + " deg): the passes' is used");
+    }
   }
 
-  // Across the lay: the stepover and the cusp.
+  // Across the lay: the stepover from the band means (the feed marks averaged out along the
+  // lay, so a zigzag's alternate passes look alike), else from the mean ACF of the traces.
+  const BandMeans bands = band_means(residual, e.lay_deg);
+  e.lay_pass_share = bands.share;
   const std::vector<ProfileTrace> across =
       extract_profiles(residual, e.lay_deg + 90.0, kAcrossTraces, 0.0);
   size_t longest = 0;
   for (const ProfileTrace& t : across) longest = std::max(longest, t.z_um.size());
   const double dx = hf.cell_mm;
-  const double span_mm = static_cast<double>(longest) * dx;
-  e.stepover = repeat_period(mean_autocorrelation(across, static_cast<int>(longest / 2)), dx);
+  double span_mm = static_cast<double>(longest) * dx;
+  if (!bands.z_um.empty()) {
+    // A moving average over kBandSmoothCells: the tooth arcs sampled by the grid leave
+    // cell-scale spikes in the band means whose ACF hides the passes' repeat.
+    ProfileTrace profile;
+    profile.spacing_mm = bands.spacing_mm;
+    const int nb = static_cast<int>(bands.z_um.size());
+    for (int i = 0; i + kBandSmoothCells <= nb; ++i) {
+      double sum = 0.0;
+      for (int k = 0; k < kBandSmoothCells; ++k) sum += bands.z_um[i + k];
+      profile.z_um.push_back(sum / kBandSmoothCells);
+    }
+    const int n = static_cast<int>(profile.z_um.size());
+    // Lags to 3/4 of the profile: one clean profile (not a trace among noisy ones) keeps a
+    // quarter of its length in pairs there, and the extra repeats sharpen the slope fit.
+    // Periods beyond n / kMinPeriodsInField are refused below anyway: not searched (a zigzag's
+    // two-pass repeat would otherwise comb better than its stepover on a short field).
+    const std::vector<double> band_acf = mean_autocorrelation({profile}, 3 * n / 4);
+    e.stepover =
+        comb_period(band_acf, bands.spacing_mm, kBandSmoothCells, n / kMinPeriodsInField);
+    // The traces' first clear repeat, when it is no multiple of the band means' period and the
+    // band means support it (their comb keeps half the best score there), is taken instead: a
+    // comb can lock onto a fraction like 2/3 of the period when the profile's repeats differ.
+    const RepeatPeriod traces =
+        repeat_period(mean_autocorrelation(across, static_cast<int>(longest / 2)), dx);
+    if (e.stepover.found && traces.found) {
+      const double ratio = traces.period_mm / e.stepover.period_mm;
+      const double support = comb_score(band_acf, traces.period_mm / bands.spacing_mm);
+      const double best = comb_score(band_acf, e.stepover.period_mm / bands.spacing_mm);
+      if (std::abs(ratio - std::round(ratio)) > kMultipleSlack &&
+          support >= kMinTraceSupport * best) {
+        e.stepover = traces;
+      }
+    }
+    e.stepover.sigma_mm = std::max(e.stepover.sigma_mm, kBandPeakBiasSamples *
+                                                            bands.spacing_mm /
+                                                            std::max(1, e.stepover.repeats));
+    span_mm = nb * bands.spacing_mm;
+  }
+  // Without a repeat in the band means, the traces' mean ACF (its first clear repeat).
+  if (!e.stepover.found) {
+    e.stepover = repeat_period(mean_autocorrelation(across, static_cast<int>(longest / 2)), dx);
+  }
   if (!e.stepover.found) {
     throw InputError("no across-lay period: traces across the lay (" + format_number(span_mm) +
                      " mm) show no repeat within half their length; the field must span at "
@@ -155,7 +238,15 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   // A verdict on the pass direction needs passes that match well (kClearPassMatch); between
   // that and kMinPassCorrelation the marks are too blurred to say.
   const double diff = e.passes.second_pass - e.passes.next_pass;
-  if (e.passes.second_pass >= kClearPassMatch && diff >= kAlternationMargin) {
+  if (e.lay_pass_share < kMinShareForDirection) {
+    // Where the feed marks carry most of the variance, overlapping passes each add their own
+    // spindle phase to a band: neighbouring bands can differ (or alternate) on a one-way floor.
+    e.notes.push_back(
+        "the feed marks outweigh the pass profile (band means carry " +
+        format_number(100.0 * e.lay_pass_share) +
+        " % of the variance): each pass's spindle phase changes the marks, so zigzag vs one-way "
+        "is undetermined");
+  } else if (e.passes.second_pass >= kClearPassMatch && diff >= kAlternationMargin) {
     e.direction = "zigzag";
   } else if (e.passes.next_pass >= kClearPassMatch && std::abs(diff) < kAlternationMargin) {
     e.direction = "alike";

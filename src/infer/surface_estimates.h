@@ -12,6 +12,7 @@
 #include <vector>
 
 #include "core/heightfield.h"
+#include "infer/band_means.h"
 #include "infer/cusp_shape.h"
 #include "infer/pass_signatures.h"
 #include "infer/repeat_period.h"
@@ -53,6 +54,8 @@ struct SurfaceEstimates {
   double lay_deg = 0.0;                ///< pass direction (the lay), deg from +X, [0, 180)
   double lay_strength = 0.0;           ///< 0..1, from the power spectrum (1 with --lay)
   bool lay_given = false;              ///< lay from SurfaceOptions
+  double lay_pass_share = 0.0;         ///< share of the variance the band means along the
+                                       ///< lay carry (band_means: the passes' profile)
   RepeatPeriod stepover;               ///< across-lay period (stepover) and its standard error
   CuspShape cusp;                      ///< folded cusp, effective radius
   double valley_mm = 0.0;              ///< across position of a cusp valley from the field centre

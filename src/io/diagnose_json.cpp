@@ -25,6 +25,7 @@ nlohmann::json surface_estimates_json(const SurfaceEstimates& e) {
   j["kind"] = "surface";
   j["lay_deg"] = e.lay_deg;
   j["lay_strength"] = e.lay_strength;
+  j["lay_pass_share"] = e.lay_pass_share;
   j["lay_given"] = e.lay_given;
   j["stepover_mm"] = e.stepover.period_mm;
   j["stepover_sigma_mm"] = e.stepover.sigma_mm;

@@ -6,6 +6,7 @@
 #include <catch2/catch.hpp>
 #include <chrono>
 #include <cmath>
+#include <numbers>
 
 #include "infer/diagnose_floors.h"
 #include "infer/fit_uncertainty.h"
@@ -22,7 +23,7 @@ double angle_error_deg(double got, double want) {
 
 // A tilted flat end mill on a raster (revolving envelope), measured-like.
 Heightfield tilted_flat_floor(RasterDirection dir, double tilt_deg, double toward_deg,
-                              double stepover_mm) {
+                              double stepover_mm, double noise_um = 0.02) {
   Job job = test::raster_job(CutterShape::Flat, 3.0, stepover_mm, 8.0, 0.02, 0.05, 2);
   job.sim.tooth_marks = false;
   job.cutter.dish_deg = 1.0;
@@ -32,7 +33,7 @@ Heightfield tilted_flat_floor(RasterDirection dir, double tilt_deg, double towar
   // The interior 6 x 6 mm: a pass missing beyond the patch edge changes the floor up to
   // R - s = 0.3 mm inside it (derived); a measured field lies inside its part likewise.
   Heightfield hf = test::crop(test::simulate(job), 50);
-  test::damage(hf, 0.02, 1.5, -0.7, 0.02, 31u);
+  test::damage(hf, noise_um, 1.5, -0.7, 0.02, 31u);
   return hf;
 }
 
@@ -47,6 +48,7 @@ TEST_CASE("fit_floor: tilted flat, one-way and zigzag, recovers tilt, direction,
     SurfaceOptions so;
     so.lay_deg = 0.0;
     const SurfaceEstimates e = surface_estimates(hf, so);
+    CAPTURE(e.stepover.period_mm, e.stepover.sigma_mm);
     FloorFitOptions o;
     o.cutter.shape = CutterShape::Flat;
     o.cutter.diameter_mm = 3.0;
@@ -96,6 +98,8 @@ TEST_CASE("fit_floor: heel lifted, tilt along the feed bounded, not measured", "
   SurfaceOptions so;
   so.lay_deg = 0.0;
   const SurfaceEstimates e = surface_estimates(hf, so);
+  CAPTURE(e.stepover.period_mm, e.passes.next_pass, e.passes.second_pass, e.passes.mirror,
+          e.lay_pass_share);
   REQUIRE(e.heel == "lifted");
   FloorFitOptions o;
   o.cutter = job.cutter;
@@ -151,6 +155,58 @@ TEST_CASE("fit_floor: ball floor fits stepover and plane, refuses tilt", "[infer
   REQUIRE(fit.residual_rms_um < 0.5 * fit.measured_rms_um);
   REQUIRE(!v.cannot_tell.empty());
   CHECK(v.cannot_tell.front().find("ball") != std::string::npos);
+}
+
+}  // namespace cuspmap
+
+namespace cuspmap {
+
+TEST_CASE("fit_floor: faint cusp, the uncertainty covers the error", "[infer]") {
+  // issue_17: 3 mm flat, 0.5 mm stepover, tilt 0.03 deg: a step of 0.5 tan(0.03 deg) = 0.26 um
+  // across passes at most (derived), a 0.04 um cusp under 0.01 um noise.
+  for (double toward : {90.0, 30.0}) {
+    CAPTURE(toward);
+    const double tilt = 0.03, stepover = 0.5;
+    const Heightfield hf = tilted_flat_floor(RasterDirection::OneWay, tilt, toward, stepover, 0.01);
+    SurfaceOptions so;
+    so.lay_deg = 0.0;
+    const SurfaceEstimates e = surface_estimates(hf, so);
+    FloorFitOptions o;
+    o.cutter.shape = CutterShape::Flat;
+    o.cutter.diameter_mm = 3.0;
+    o.cutter.dish_deg = 1.0;
+    o.threads = 2;
+    const FloorFit fit = fit_floor(hf, e, o);
+    const FittedErrors f = fitted_errors(fit);
+    CAPTURE(fit.residual_rms_um, fit.measured_rms_um, f.tilt_deg.value, f.tilt_deg.sigma,
+            f.tilt_toward_deg.value, f.tilt_toward_deg.sigma, f.tilt_toward_alt_deg,
+            f.stepover_mm.value, f.stepover_mm.sigma, f.tilt_along_deg.value,
+            f.tilt_across_deg.value, fit.evaluations);
+    // Within 3 reported sigma (issue 17), and the profile's interval holds the truth.
+    REQUIRE(std::abs(f.tilt_deg.value - tilt) <= 3.0 * f.tilt_deg.sigma);
+    REQUIRE(fit.tilt_interval_deg.first <= tilt + 1e-4);
+    REQUIRE(fit.tilt_interval_deg.second >= tilt - 1e-4);
+    const double dir_err = std::min(angle_error_deg(f.tilt_toward_deg.value, toward),
+                                    angle_error_deg(f.tilt_toward_alt_deg, toward));
+    REQUIRE(dir_err <= std::max(10.0, 3.0 * f.tilt_toward_deg.sigma));
+    if (toward == 90.0) {
+      // Tilt across the feed: the face steps 0.5 tan(0.03 deg) = 0.26 um between passes
+      // (derived): resolved, issue 17's 10 % or 0.002 deg and 10 deg hold.
+      REQUIRE(std::abs(f.tilt_deg.value - tilt) <= std::max(0.1 * tilt, 0.002));
+      REQUIRE(dir_err <= 10.0);
+    } else {
+      // At 30 deg the passes overlap past the rim's lowest point (a sin 30 = 0.75 mm < a - s/2,
+      // derived), so the floor is shallow cusps whose depth fixes only tan(tilt) / cos^2(dir)
+      // (the rim's curvature there, derived): that combination is recovered within 10 %, the
+      // split between magnitude and direction is only bounded (reported sigma, checked above).
+      const double dir_fit = (f.tilt_toward_deg.value - 0.0) * std::numbers::pi / 180.0;
+      const double combo_fit = f.tilt_deg.value / std::pow(std::cos(dir_fit), 2);
+      const double combo_true = tilt / std::pow(std::cos(toward * std::numbers::pi / 180.0), 2);
+      REQUIRE(std::abs(combo_fit - combo_true) <= 0.1 * combo_true);
+      // The direction is reported as uncertain (the linearised 0.08 deg was not).
+      REQUIRE(f.tilt_toward_deg.sigma >= 5.0);
+    }
+  }
 }
 
 }  // namespace cuspmap

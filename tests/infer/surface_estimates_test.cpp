@@ -107,9 +107,83 @@ TEST_CASE("surface_estimates: heel lifted by tilt toward the feed", "[infer]") {
   SurfaceOptions o;
   o.lay_deg = 0.0;  // the tooth arcs, not the passes, dominate a flat end mill's spectrum
   const SurfaceEstimates e = surface_estimates(hf, o);
+  CAPTURE(e.stepover.period_mm, e.valley_mm, e.passes.next_pass, e.passes.second_pass,
+          e.passes.mirror);
   CHECK(e.heel == "lifted");
   // Derived: feed 2000 mm/min over 2 teeth at 10000 rpm.
   REQUIRE_NEAR(e.feed.period_mm, 0.1, 0.002);
+}
+
+}  // namespace cuspmap
+
+namespace cuspmap {
+
+TEST_CASE("surface_estimates: tooth-resolved flat and bull-nose floors, lay from the passes",
+          "[infer]") {
+  // Dished flat end mills leave tooth arcs that dominate the spectrum (its mean direction is
+  // the arcs', not the passes'); the band means along the passes still carry their profile.
+  struct Case {
+    CutterShape shape;
+    double dish_deg, stepover_mm, fz_mm;
+    int teeth;
+    RasterDirection dir;
+    double angle_deg, field_mm, cell_mm, tilt_deg, toward_deg;
+  };
+  const Case cases[] = {
+      // Stepover below D/2, oblique passes, one-way.
+      {CutterShape::Flat, 1.0, 1.0, 0.1, 2, RasterDirection::OneWay, 30.0, 5.0, 0.01, 0.0, 0.0},
+      // Shallow dish, zigzag (alternate passes' arcs differ: the traces repeat every 2 passes).
+      {CutterShape::Flat, 0.5, 1.0, 0.08, 3, RasterDirection::Zigzag, 0.0, 5.0, 0.01, 0.0, 0.0},
+      // Stepover above D/2, passes along Y.
+      {CutterShape::Flat, 1.0, 4.0, 0.1, 3, RasterDirection::OneWay, 90.0, 17.0, 0.03, 0.0, 0.0},
+      // Bull-nose (r 1 mm) tilted 0.02 deg, zigzag at 150 deg.
+      {CutterShape::BullNose, 0.0, 0.8, 0.08, 2, RasterDirection::Zigzag, 150.0, 5.0, 0.02, 0.02,
+       40.0},
+  };
+  for (const Case& c : cases) {
+    CAPTURE(c.stepover_mm, c.angle_deg, c.dish_deg, c.dir == RasterDirection::Zigzag);
+    Job job = test::raster_job(c.shape, 6.0, c.stepover_mm, c.field_mm + 6.0, c.cell_mm, c.fz_mm,
+                               c.teeth);
+    if (c.shape == CutterShape::BullNose) job.cutter.corner_radius_mm = 1.0;
+    job.cutter.dish_deg = c.dish_deg;
+    job.cutter.tilt_deg = c.tilt_deg;
+    job.cutter.tilt_toward_deg = c.toward_deg;
+    job.path.direction = c.dir;
+    job.path.angle_deg = c.angle_deg;
+    // The interior: a measured field lies inside its part (the patch edge lacks the passes
+    // within R of it).
+    Heightfield hf = test::crop(test::simulate(job), static_cast<int>(std::lround(3.0 / c.cell_mm)));
+    test::damage(hf, 0.01, 0.8, -0.4, 0.01, 23u);
+    const SurfaceEstimates e = surface_estimates(hf, {});
+    CAPTURE(e.lay_deg, e.lay_pass_share, e.stepover.period_mm, e.stepover.sigma_mm,
+            e.feed.period_mm, e.direction);
+    // Derived: the raster's passes run at path.angle_deg.
+    REQUIRE(lay_error_deg(e.lay_deg, c.angle_deg) < 0.5);
+    // Issue 17: stepover within 1 %, and within 3 standard errors.
+    REQUIRE(std::abs(e.stepover.period_mm - c.stepover_mm) <= 0.01 * c.stepover_mm);
+    REQUIRE(std::abs(e.stepover.period_mm - c.stepover_mm) <= 3.0 * e.stepover.sigma_mm + 1e-3);
+    // Derived: feed per tooth = feed / (teeth rpm); a tilted bull-nose's marks may be too
+    // shallow to repeat, and then the estimate says so instead of guessing.
+    if (c.shape == CutterShape::Flat || e.feed.found) {
+      REQUIRE(e.feed.found);
+      REQUIRE_NEAR(e.feed.period_mm, c.fz_mm, 0.02 * c.fz_mm);
+    }
+    // A one-way floor is never called zigzag (for a zigzag, "alike" is honest too: the
+    // envelope is the same both ways; "undetermined" says it cannot tell).
+    if (c.dir == RasterDirection::OneWay) CHECK(e.direction != "zigzag");
+  }
+}
+
+TEST_CASE("surface_estimates: a level floor is refused in one line", "[infer]") {
+  // A bull-nose floor at a stepover inside its flat bottom (untilted) is exactly level
+  // (derived: the flat part sweeps every point): nothing to read.
+  Heightfield hf;
+  hf.nx = hf.ny = 80;
+  hf.cell_mm = 0.01;
+  hf.z_um = HeightGrid::Constant(80, 80, 2.5f);
+  REQUIRE_THROWS_WITH(surface_estimates(hf, {}),
+                      "the floor shows no texture: every height lies on one plane (within "
+                      "0.0001 um), nothing to read");
 }
 
 }  // namespace cuspmap

@@ -1,0 +1,136 @@
+// Band means across a direction and the pass lay that maximises their share of the variance.
+// Inputs: Heightfield (um, mm), direction deg; output: BandMeans / PassLay. Cost: see header.
+// Method: projection along lines (Bracewell 1995, ch. 14); between-band share (Fisher 1925).
+#include "infer/band_means.h"
+
+#include <algorithm>
+#include <cmath>
+#include <numbers>
+#include <utility>
+
+namespace cuspmap {
+namespace {
+
+// Bands with fewer cells than this share of the fullest band are the corners of an oblique
+// field: their means rest on few, short chords (derived: a square at 45 deg keeps its central
+// ~70 % of the diagonal).
+constexpr double kMinBandFill = 0.3;
+// Fewest bands a profile needs (a period needs a few samples and repeats; derived).
+constexpr int kMinBands = 8;
+// Coarse search: samples per side of the thinned grid and its angle step; the share's peak is
+// about (band width / field length) rad wide, ~0.4-1 deg at 150 samples (derived).
+constexpr int kCoarseSamples = 150;
+constexpr double kCoarseStepDeg = 0.5;
+// Refinement: samples per side at full resolution (larger fields are thinned to this), the
+// candidates refined, and two rounds of steps (0.1 then 0.01 deg: a band one cell wide at 600
+// cells resolves ~0.1 deg; derived).
+constexpr int kFineSamples = 600;
+constexpr int kCandidates = 3;
+
+double wrap180(double deg) {
+  double a = std::fmod(deg, 180.0);
+  if (a < 0.0) a += 180.0;
+  return a >= 180.0 ? 0.0 : a;
+}
+
+}  // namespace
+
+BandMeans band_means(const Heightfield& hf, double direction_deg, int stride) {
+  BandMeans b;
+  stride = std::max(stride, 1);
+  const double t = direction_deg * std::numbers::pi / 180.0;
+  const double ax = -std::sin(t), ay = std::cos(t);  // unit vector across the direction
+  const double w = stride * hf.cell_mm;
+  // Positions from the first cell: along the grid axes every cell then falls on a whole band
+  // (from the centre, an even grid puts them on half bands, split by rounding).
+  const double xc = hf.x_mm(0), yc = hf.y_mm(0);
+  const double reach = std::hypot(hf.nx, hf.ny) * hf.cell_mm;
+  const int half = static_cast<int>(std::ceil(reach / w)) + 1;
+  std::vector<double> sum(static_cast<size_t>(2 * half + 1), 0.0), sq(sum.size(), 0.0);
+  std::vector<long> count(sum.size(), 0);
+  for (int j = 0; j < hf.ny; j += stride) {
+    const double dy = ay * (hf.y_mm(j) - yc);
+    for (int i = 0; i < hf.nx; i += stride) {
+      const float z = hf.z_um(j, i);
+      if (!std::isfinite(z)) continue;
+      const int k = half + static_cast<int>(std::lround((ax * (hf.x_mm(i) - xc) + dy) / w));
+      sum[static_cast<size_t>(k)] += z;
+      sq[static_cast<size_t>(k)] += static_cast<double>(z) * z;
+      ++count[static_cast<size_t>(k)];
+    }
+  }
+  const long fullest = *std::max_element(count.begin(), count.end());
+  if (fullest == 0) return b;
+  const auto full_enough = [&](size_t k) {
+    return count[k] > 0 && static_cast<double>(count[k]) >= kMinBandFill * fullest;
+  };
+  // Share over the qualifying bands: between-band sum of squares / total sum of squares.
+  double n = 0.0, s = 0.0, ss = 0.0, between = 0.0;
+  for (size_t k = 0; k < sum.size(); ++k) {
+    if (!full_enough(k)) continue;
+    n += count[k];
+    s += sum[k];
+    ss += sq[k];
+  }
+  const double grand = s / n, total = ss - n * grand * grand;
+  for (size_t k = 0; k < sum.size(); ++k) {
+    if (!full_enough(k)) continue;
+    const double m = sum[k] / count[k] - grand;
+    between += count[k] * m * m;
+  }
+  b.share = total > 0.0 ? std::clamp(between / total, 0.0, 1.0) : 0.0;
+  // The profile: the longest run of qualifying bands.
+  size_t best_lo = 0, best_len = 0;
+  for (size_t k = 0; k < sum.size();) {
+    if (!full_enough(k)) {
+      ++k;
+      continue;
+    }
+    size_t e = k;
+    while (e < sum.size() && full_enough(e)) ++e;
+    if (e - k > best_len) best_lo = k, best_len = e - k;
+    k = e;
+  }
+  if (static_cast<int>(best_len) < kMinBands) return b;
+  b.spacing_mm = w;
+  for (size_t k = best_lo; k < best_lo + best_len; ++k) b.z_um.push_back(sum[k] / count[k]);
+  return b;
+}
+
+PassLay pass_lay(const Heightfield& hf, std::optional<double> hint_deg) {
+  const int side = std::max(hf.nx, hf.ny);
+  const int coarse = std::max(1, side / kCoarseSamples);
+  const int fine = std::max(1, (side + kFineSamples - 1) / kFineSamples);
+  // Coarse: every direction; local maxima of the share are the candidates.
+  const int steps = static_cast<int>(std::lround(180.0 / kCoarseStepDeg));
+  std::vector<double> share(static_cast<size_t>(steps));
+  for (int a = 0; a < steps; ++a) share[a] = band_means(hf, a * kCoarseStepDeg, coarse).share;
+  std::vector<std::pair<double, double>> peaks;  // (share, deg)
+  for (int a = 0; a < steps; ++a) {
+    const double l = share[(a + steps - 1) % steps], r = share[(a + 1) % steps];
+    if (share[a] >= l && share[a] >= r) peaks.emplace_back(share[a], a * kCoarseStepDeg);
+  }
+  std::sort(peaks.begin(), peaks.end(), [](const auto& p, const auto& q) { return p.first > q.first; });
+  if (peaks.size() > static_cast<size_t>(kCandidates)) peaks.resize(kCandidates);
+  if (hint_deg) peaks.emplace_back(0.0, *hint_deg);
+  PassLay best;
+  best.share = -1.0;
+  for (const auto& [unused, deg0] : peaks) {
+    (void)unused;
+    double at = deg0, at_share = band_means(hf, at, fine).share;
+    for (const double step : {0.1, 0.01}) {
+      const double centre = at;
+      for (int k = -10; k <= 10; ++k) {
+        if (k == 0) continue;
+        const double d = centre + k * step;
+        const double s = band_means(hf, d, fine).share;
+        if (s > at_share) at = d, at_share = s;
+      }
+    }
+    if (at_share > best.share) best = {wrap180(at), at_share};
+  }
+  best.share = std::max(best.share, 0.0);
+  return best;
+}
+
+}  // namespace cuspmap
