@@ -15,9 +15,11 @@
 #include <immintrin.h>
 #define CUSPMAP_CLONES __attribute__((target_clones("avx512f", "avx2", "default")))
 #define CUSPMAP_GATHER 1
+#define CUSPMAP_INLINE __attribute__((always_inline)) inline
 #else
 #define CUSPMAP_CLONES
 #define CUSPMAP_GATHER 0
+#define CUSPMAP_INLINE inline
 #endif
 
 namespace cuspmap {
@@ -28,7 +30,6 @@ using Lanes = double __attribute__((vector_size(kLanes * sizeof(double))));
 using FloatLanes = float __attribute__((vector_size(kLanes * sizeof(float))));
 using IntLanes = std::int32_t __attribute__((vector_size(kLanes * sizeof(std::int32_t))));
 
-constexpr double kInf = std::numeric_limits<double>::infinity();
 // Overview blocks summed side by side: independent running sums hide the addition latency.
 constexpr int kBlockChains = 8;
 
@@ -58,7 +59,7 @@ bool any_lane(const IntLanes& v) {
 // sxx summed per cell. Unmasked (a row's common case): every cell summed, n, sx, sxx left to the
 // caller, and false returned (sums untouched) when a cell is NaN.
 template <bool kMasked>
-CUSPMAP_CLONES bool plane_sums_lanes(const float* z, const double* x_mm, int count,
+CUSPMAP_INLINE bool plane_sums_lanes(const float* z, const double* x_mm, int count,
                                      RowPlaneSums& sums) {
   const Lanes zero = {};
   const Lanes one = zero + 1.0;
@@ -122,7 +123,7 @@ CUSPMAP_CLONES bool plane_sums_lanes(const float* z, const double* x_mm, int cou
 // skipped. Unmasked: false returned (moments untouched) when a cell is NaN.
 // sum |r| = 2 sum max(r, 0) - sum r: one maximum per cell instead of an absolute value.
 template <bool kMasked>
-CUSPMAP_CLONES bool residual_lanes(const float* z, const double* plane_x_um, int count,
+CUSPMAP_INLINE bool residual_lanes(const float* z, const double* plane_x_um, int count,
                                    double y_part_um, ArealMoments& moments) {
   const Lanes zero = {};
   const Lanes one = zero + 1.0;
@@ -177,6 +178,25 @@ CUSPMAP_CLONES bool residual_lanes(const float* z, const double* plane_x_um, int
   m.max_um = std::fmax(m.max_um, lane_max(hi));
   moments.merge(m);
   return true;
+}
+
+// The kernels' instances, cloned per instruction set (a template cannot be; the template is
+// inlined into each clone and compiled for its target).
+CUSPMAP_CLONES bool plane_sums_unmasked(const float* z, const double* x_mm, int count,
+                                        RowPlaneSums& sums) {
+  return plane_sums_lanes<false>(z, x_mm, count, sums);
+}
+CUSPMAP_CLONES void plane_sums_masked(const float* z, const double* x_mm, int count,
+                                      RowPlaneSums& sums) {
+  plane_sums_lanes<true>(z, x_mm, count, sums);
+}
+CUSPMAP_CLONES bool residual_unmasked(const float* z, const double* plane_x_um, int count,
+                                      double y_part_um, ArealMoments& moments) {
+  return residual_lanes<false>(z, plane_x_um, count, y_part_um, moments);
+}
+CUSPMAP_CLONES void residual_masked(const float* z, const double* plane_x_um, int count,
+                                    double y_part_um, ArealMoments& moments) {
+  residual_lanes<true>(z, plane_x_um, count, y_part_um, moments);
 }
 
 // Blocks [0, blocks) of whole k-cell blocks, kBlockChains at a time, the chains side by side;
@@ -316,13 +336,13 @@ CUSPMAP_CLONES AxisSums axis_sums(const double* x_mm, int count) {
 void row_plane_sums(const float* z, const double* x_mm, int count, const AxisSums& all_finite,
                     RowPlaneSums& sums) {
   // Unmasked first; a run with an unreached cell is summed again, masked (rare: edges).
-  if (plane_sums_lanes<false>(z, x_mm, count, sums)) {
+  if (plane_sums_unmasked(z, x_mm, count, sums)) {
     sums.n += all_finite.n;
     sums.sx += all_finite.sx;
     sums.sxx += all_finite.sxx;
     return;
   }
-  plane_sums_lanes<true>(z, x_mm, count, sums);
+  plane_sums_masked(z, x_mm, count, sums);
 }
 
 void row_block_sums(const float* z, int count, int k, double* sums, int* counts) {
@@ -351,8 +371,8 @@ void row_block_sums(const float* z, int count, int k, double* sums, int* counts)
 void row_residual_moments(const float* z, const double* plane_x_um, int count, double y_part_um,
                           ArealMoments& moments) {
   // Unmasked first; a row with an unreached cell is summed again, masked (rare: edges).
-  if (!residual_lanes<false>(z, plane_x_um, count, y_part_um, moments)) {
-    residual_lanes<true>(z, plane_x_um, count, y_part_um, moments);
+  if (!residual_unmasked(z, plane_x_um, count, y_part_um, moments)) {
+    residual_masked(z, plane_x_um, count, y_part_um, moments);
   }
 }
 

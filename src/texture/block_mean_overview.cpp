@@ -20,7 +20,7 @@ constexpr int kColumnsPerItem = 64;
 
 BlockMeanOverview::BlockMeanOverview(int nx, int ny, double cell_mm, double origin_x_mm,
                                      double origin_y_mm, int max_pixels)
-    : nx_(nx), ny_(ny), cell_mm_(cell_mm), origin_x_mm_(origin_x_mm), origin_y_mm_(origin_y_mm) {
+    : nx_(nx), cell_mm_(cell_mm), origin_x_mm_(origin_x_mm), origin_y_mm_(origin_y_mm) {
   const int limit = std::max(max_pixels, 1);
   k_ = std::max(1, (std::max(nx, ny) + limit - 1) / limit);
   out_nx_ = (nx + k_ - 1) / k_;

@@ -33,7 +33,7 @@ class BlockMeanOverview {
   Heightfield result() const;
 
  private:
-  int nx_, ny_, k_, out_nx_, out_ny_;
+  int nx_, k_, out_nx_, out_ny_;
   double cell_mm_, origin_x_mm_, origin_y_mm_;
   std::vector<double> sum_;  // out_ny x out_nx
   std::vector<int> count_;   // out_ny x out_nx
