@@ -59,9 +59,12 @@ std::string mm(double v) { return format_number(v); }
 void print_surface(const std::string& path, const Heightfield& hf, const SurfaceEstimates& e,
                    bool caution) {
   std::printf("%s: %d x %d cells of %s mm\n\n", path.c_str(), hf.nx, hf.ny, mm(hf.cell_mm).c_str());
-  std::printf(
-      "  lay          %.3g deg from +X (%s)\n", e.lay_deg,
-      e.lay_given ? "given" : ("detected, strength " + format_number(e.lay_strength)).c_str());
+  char lay_source[96];
+  std::snprintf(lay_source, sizeof lay_source,
+                "from the passes: band means carry %.3g %% of the variance",
+                100.0 * e.lay_pass_share);
+  std::printf("  lay          %.3g deg from +X (%s)\n", e.lay_deg,
+              e.lay_given ? "given" : lay_source);
   std::printf("  stepover     %.4g mm (+-%.2g, %d repeats)\n", e.stepover.period_mm,
               e.stepover.sigma_mm, e.stepover.repeats);
   std::printf("  cusp         %.3g um peak to valley (mean profile over one stepover)\n",

@@ -27,13 +27,13 @@ constexpr double kCoarseStepDeg = 0.5;
 constexpr int kFineSamples = 600;
 constexpr int kCandidates = 3;
 
-double wrap180(double deg) {
+}  // namespace
+
+double lay_wrap_deg(double deg) {
   double a = std::fmod(deg, 180.0);
   if (a < 0.0) a += 180.0;
-  return a >= 180.0 ? 0.0 : a;
+  return a >= 180.0 ? 0.0 : a;  // -1e-15 wraps to 180.0 in double
 }
-
-}  // namespace
 
 BandMeans band_means(const Heightfield& hf, double direction_deg, int stride) {
   BandMeans b;
@@ -127,7 +127,7 @@ PassLay pass_lay(const Heightfield& hf, std::optional<double> hint_deg) {
         if (s > at_share) at = d, at_share = s;
       }
     }
-    if (at_share > best.share) best = {wrap180(at), at_share};
+    if (at_share > best.share) best = {lay_wrap_deg(at), at_share};
   }
   best.share = std::max(best.share, 0.0);
   return best;

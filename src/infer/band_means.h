@@ -19,6 +19,9 @@ namespace cuspmap {
 /// dished flat floors, whose tooth arcs dominate, give 0.07-0.3, ball floors ~1).
 inline constexpr double kMinPassLayShare = 0.03;
 
+/// A line direction in [0, 180) deg (a lay has no sense).
+double lay_wrap_deg(double deg);
+
 /// Band means across a direction.
 struct BandMeans {
   std::vector<double> z_um;   ///< mean height of each band, in order across (+90 deg side last)

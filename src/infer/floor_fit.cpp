@@ -118,13 +118,17 @@ Window make_window(const Heightfield& hf, double stepover_mm) {
   return w;
 }
 
-// Residual functor for Eigen's Levenberg-Marquardt over the free parameters.
-struct FitResidual {
+// The types Eigen's Levenberg-Marquardt asks of a functor (dynamic sizes, double).
+struct LmFunctor {
   using Scalar = double;
   using InputType = Eigen::VectorXd;
   using ValueType = Eigen::VectorXd;
   using JacobianType = Eigen::MatrixXd;
   enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
+};
+
+// Residual functor for Eigen's Levenberg-Marquardt over the free parameters.
+struct FitResidual : LmFunctor {
 
   const FitModel* model = nullptr;
   const Window* window = nullptr;
@@ -186,12 +190,7 @@ struct FitResidual {
 
 // The residual with the tilt direction fixed (deg from the lay) and the stepover held: free are
 // the tilt magnitude and the pass offset. One point of the profile over the direction.
-struct DirectionResidual {
-  using Scalar = double;
-  using InputType = Eigen::VectorXd;
-  using ValueType = Eigen::VectorXd;
-  using JacobianType = Eigen::MatrixXd;
-  enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
+struct DirectionResidual : LmFunctor {
 
   const FitResidual* base = nullptr;  // all four parameters free
   double dir_rad = 0.0;

@@ -61,12 +61,6 @@ constexpr float kFlatFloorUm = 1e-4f;
 // 600-cell field; derived).
 constexpr double kLayAgreementDeg = 2.0;
 
-double wrap180(double deg) {
-  double a = std::fmod(deg, 180.0);
-  if (a < 0.0) a += 180.0;
-  return a >= 180.0 ? 0.0 : a;  // -1e-15 wraps to 180.0 in double
-}
-
 FeedMarks feed_marks(const std::vector<ProfileTrace>& along, const SurfaceOptions& o) {
   FeedMarks f;
   size_t longest = 0;
@@ -124,7 +118,7 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
                      format_number(kFlatFloorUm) + " um), nothing to read");
   }
   if (options.lay_deg) {
-    e.lay_deg = wrap180(*options.lay_deg);
+    e.lay_deg = lay_wrap_deg(*options.lay_deg);
     e.lay_strength = 1.0;
     e.lay_given = true;
   } else {
@@ -132,7 +126,7 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
     // mean direction is only a candidate: on a flat end mill's floor the tooth arcs dominate it.
     const TextureDirection dir = texture_direction(residual);
     e.lay_strength = dir.lay_strength;
-    const PassLay pl = pass_lay(residual, wrap180(dir.lay_deg));
+    const PassLay pl = pass_lay(residual, lay_wrap_deg(dir.lay_deg));
     if (pl.share < kMinPassLayShare) {
       throw InputError("no dominant lay: band means along no direction carry " +
                        format_number(100.0 * kMinPassLayShare) + " % of the height variance (best " +
@@ -140,9 +134,9 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
                        " deg); pass --lay if the pass direction is known");
     }
     e.lay_deg = pl.lay_deg;
-    if (std::abs(wrap180(dir.lay_deg - pl.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
+    if (std::abs(lay_wrap_deg(dir.lay_deg - pl.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
         dir.lay_strength >= kMinLayStrength) {
-      e.notes.push_back("the spectrum's lay (" + format_number(wrap180(dir.lay_deg)) +
+      e.notes.push_back("the spectrum's lay (" + format_number(lay_wrap_deg(dir.lay_deg)) +
                         " deg, the tooth arcs) differs from the passes' (" +
                         format_number(e.lay_deg) + " deg): the passes' is used");
     }
