@@ -39,6 +39,10 @@ nlohmann::json floor_fit_json(const FloorFit& fit, const FittedErrors& f, const 
   j["setup_plane"] = {{"gx_um_per_mm", value_json(f.setup_gx_um_per_mm)},
                       {"gy_um_per_mm", value_json(f.setup_gy_um_per_mm)}};
   j["residual_rms_um"] = fit.residual_rms_um;
+  j["correlation_factor"] = fit.correlation_factor;
+  j["tilt_interval_deg"] = {fit.tilt_interval_deg.first, fit.tilt_interval_deg.second};
+  j["tilt_profile_sigma_deg"] = fit.tilt_profile_sigma_deg;
+  j["direction_profile_sigma_deg"] = fit.direction_profile_sigma_deg;
   j["measured_rms_um"] = fit.measured_rms_um;
   j["evaluations"] = fit.evaluations;
   j["solver_status"] = fit.solver_status;

@@ -9,7 +9,9 @@ namespace {
 // sweep and texture together (docs/performance.md "Run forecast"): the in-memory envelope run
 // is dominated by the texture report's filtered and FFT copies; the streamed run sweeps twice
 // but measures cheaply.
-constexpr double kEnvelopeCellsPerS = 2e6;
+// In memory: 1.44 M cells in 0.172 s and 48 M cells in 5.66 s, whole commands, idle (issue 15,
+// docs/performance.md "Third pass"): ~8.5 M cells/s, taken as 8e6.
+constexpr double kEnvelopeCellsPerS = 8e6;
 constexpr double kStreamedCellsPerS = 1.5e8;
 // Tooth-resolved sweep: cell visits (a cell within a move's reach, per tooth family) per second
 // of wall time on 2 threads, by move kind. Each visit is a bound test against the cell's

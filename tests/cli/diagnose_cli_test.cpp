@@ -93,10 +93,17 @@ TEST_CASE("diagnose: --tool and --diameter fit the tilt of a flat end mill", "[c
   for (const char* key : {"tilt_deg", "tilt_toward_deg", "tilt_toward_alt_deg", "tilt_along_deg",
                           "tilt_across_deg", "stepover_mm", "offset_mm", "setup_plane",
                           "residual_rms_um", "measured_rms_um", "verdict", "cannot_tell",
-                          "window", "tram_target_deg"}) {
+                          "window", "tram_target_deg", "correlation_factor",
+                          "tilt_interval_deg", "tilt_profile_sigma_deg",
+                          "direction_profile_sigma_deg"}) {
     CAPTURE(key);
     CHECK(f.contains(key));
   }
+  // The profiled interval holds the fitted tilt (Bates & Watts 1988 s. 6.1: the optimum lies in
+  // its own likelihood interval); variances are never scaled below plain noise's.
+  CHECK(f["tilt_interval_deg"][0].get<double>() <= f["tilt_deg"]["value"].get<double>() + 1e-9);
+  CHECK(f["tilt_interval_deg"][1].get<double>() >= f["tilt_deg"]["value"].get<double>() - 1e-9);
+  CHECK(f["correlation_factor"].get<double>() >= 1.0);
   // Issue 17 tolerances: tilt within 10 % or 0.002 deg; direction within 10 deg (tilt across
   // the feed: no ahead/behind ambiguity, derived).
   REQUIRE_NEAR(f["tilt_deg"]["value"].get<double>(), 0.04, 0.004);
