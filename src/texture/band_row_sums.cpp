@@ -88,8 +88,13 @@ CUSPMAP_INLINE bool plane_sums_lanes(const float* z, const double* x_mm, int cou
       sz += v;
       sxz += x * v;
     }
-    lo = f < lo ? f : lo;  // a NaN compares false and is left out
-    hi = f > hi ? f : hi;
+    // A NaN is left out by replacing it before the ordered comparisons: those raise the
+    // invalid-operation flag on a NaN (IEEE 754-2008 5.11), which traps where it is unmasked
+    // (the test runner's debug builds); == and != are quiet.
+    const auto finite = f == f;
+    const FloatLanes f_lo = finite ? f : inf, f_hi = finite ? f : -inf;
+    lo = f_lo < lo ? f_lo : lo;
+    hi = f_hi > hi ? f_hi : hi;
   }
   RowPlaneSums r;
   for (; i < count; ++i) {
@@ -142,9 +147,13 @@ CUSPMAP_INLINE bool residual_lanes(const float* z, const double* plane_x_um, int
     const FloatLanes rf =
         __builtin_convertvector(__builtin_convertvector(f, Lanes) - (q + y_part_um), FloatLanes);
     Lanes r = __builtin_convertvector(rf, Lanes);
+    // NaN exactly where the height is; replaced before any ordered comparison (quiet ==, see
+    // plane_sums_lanes). Unmasked, a row with a NaN is discarded whatever its sums.
+    const auto ok = r == r;
+    r = ok ? r : zero;
+    const auto rf_ok = rf == rf;
+    const FloatLanes rf_lo = rf_ok ? rf : inf, rf_hi = rf_ok ? rf : -inf;
     if constexpr (kMasked) {
-      const auto ok = r == r;  // NaN exactly where the height is
-      r = ok ? r : zero;
       n += ok ? one : zero;
     } else {
       nan_seen |= f != f;
@@ -155,8 +164,8 @@ CUSPMAP_INLINE bool residual_lanes(const float* z, const double* plane_x_um, int
     s2 += r2;
     s3 += r2 * r;
     s4 += r2 * r2;
-    lo = rf < lo ? rf : lo;  // NaN residuals compare false
-    hi = rf > hi ? rf : hi;
+    lo = rf_lo < lo ? rf_lo : lo;
+    hi = rf_hi > hi ? rf_hi : hi;
   }
   ArealMoments m;
   for (int t = i; t < count; ++t) {
