@@ -197,7 +197,9 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   print_stage(o.common.verbose, "sweep", run.sweep_s);
   print_stage(o.common.verbose, "texture", run.texture_s);
   StageTimer write;
-  if (!run.streamed && npy_header.empty()) {
+  // No floor pictures yet means the beside work did not run (streamed, or above the cell
+  // limit): height.npy was not staged either.
+  if (!run.streamed && !floor_pictures) {
     dir.stage("height.npy", npy_file_parts(run.floor, npy_header, npy_swapped));
   }
   SimulationPictures pics = floor_pictures
