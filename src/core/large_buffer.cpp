@@ -5,6 +5,7 @@
 
 #include <sys/mman.h>
 
+#include <algorithm>
 #include <cstdint>
 #include <cstdlib>
 #include <cstring>
@@ -41,7 +42,7 @@ void LargeBufferFree::operator()(void* p) const {
   std::free(p);
 }
 
-std::unique_ptr<void, LargeBufferFree> allocate_zeroed_bytes(std::size_t bytes) {
+LargeBytes allocate_zeroed_bytes(std::size_t bytes) {
 #if defined(__linux__)
   if (bytes >= kMapThresholdBytes) {
     // mmap returns page-aligned memory; the kernel aligns large anonymous maps to 2 MiB when
@@ -49,7 +50,7 @@ std::unique_ptr<void, LargeBufferFree> allocate_zeroed_bytes(std::size_t bytes) 
     void* p = mmap(nullptr, bytes, PROT_READ | PROT_WRITE, MAP_PRIVATE | MAP_ANONYMOUS, -1, 0);
     if (p == MAP_FAILED) throw std::bad_alloc();
     advise_huge_pages(p, bytes);
-    return std::unique_ptr<void, LargeBufferFree>(p, LargeBufferFree{bytes});
+    return LargeBytes(p, LargeBufferFree{bytes});
   }
 #endif
   // Small buffers: aligned_alloc (64 bytes for SIMD loads) and a clear, cheap at this size.
@@ -57,7 +58,26 @@ std::unique_ptr<void, LargeBufferFree> allocate_zeroed_bytes(std::size_t bytes) 
   void* p = std::aligned_alloc(64, rounded == 0 ? 64 : rounded);
   if (p == nullptr) throw std::bad_alloc();
   std::memset(p, 0, rounded == 0 ? 64 : rounded);
-  return std::unique_ptr<void, LargeBufferFree>(p, LargeBufferFree{0});
+  return LargeBytes(p, LargeBufferFree{0});
+}
+
+LargeBytes reuse_bytes(LargeBytes spent, std::size_t bytes, std::size_t* stale_bytes) {
+  *stale_bytes = 0;
+#if defined(__linux__) && defined(MREMAP_MAYMOVE)
+  const std::size_t old_bytes = spent ? spent.get_deleter().bytes : 0;
+  if (old_bytes >= kMapThresholdBytes && bytes >= kMapThresholdBytes) {
+    void* p = mremap(spent.get(), old_bytes, bytes, MREMAP_MAYMOVE);
+    if (p != MAP_FAILED) {
+      (void)spent.release();  // the mapping now lives at p with the new size
+      // The kept part holds the old values; a grown part arrives zero from the kernel.
+      *stale_bytes = std::min(old_bytes, bytes);
+      advise_huge_pages(p, bytes);
+      return LargeBytes(p, LargeBufferFree{bytes});
+    }
+  }
+#endif
+  spent.reset();  // given back first, so the fresh memory does not add to it
+  return allocate_zeroed_bytes(bytes);
 }
 
 }  // namespace cuspmap

@@ -1,9 +1,9 @@
-// X3P (ISO 25178-72) reader and writer with libzip (in-memory archives) and pugixml.
+// X3P (ISO 25178-72) reader and writer with libzip (in-memory archives, loaded on first use:
+// io/zip_library) and pugixml.
 // Inputs/outputs: Heightfield <-> zip bytes. Cost O(cells).
 // Method: ISO 25178-72:2017 / ISO 5436-2:2012 file layout; MD5 from io/md5_hex.
 #include "io/heightmap_x3p.h"
 
-#include <zip.h>
 
 #include <algorithm>
 #include <bit>
@@ -21,6 +21,7 @@
 #include "core/units.h"
 #include "io/heightmap_text.h"
 #include "io/md5_hex.h"
+#include "io/zip_library.h"
 
 namespace cuspmap {
 namespace {
@@ -81,7 +82,7 @@ void add_axis(pugi::xml_node axes, const char* name, const char* type, const cha
 
 // Closes a read-only archive on every path out of decode_x3p, throws included.
 struct ZipDiscard {
-  void operator()(zip_t* za) const { zip_discard(za); }
+  void operator()(zip_t* za) const { zip_library().discard(za); }
 };
 using ZipPtr = std::unique_ptr<zip_t, ZipDiscard>;
 
@@ -93,9 +94,10 @@ constexpr zip_uint64_t kReadChunkBytes = zip_uint64_t{1} << 20;
 
 // Size the zip directory declares for an entry; throws when the entry is missing.
 zip_uint64_t entry_size(zip_t* za, const char* entry, const std::string& name) {
+  const ZipLibrary& zip = zip_library();
   zip_stat_t st;
-  zip_stat_init(&st);
-  if (zip_stat(za, entry, 0, &st) != 0 || !(st.valid & ZIP_STAT_SIZE)) {
+  zip.stat_init(&st);
+  if (zip.stat(za, entry, 0, &st) != 0 || !(st.valid & ZIP_STAT_SIZE)) {
     throw InputError(name + ": X3P archive has no " + std::string(entry));
   }
   return st.size;
@@ -103,14 +105,15 @@ zip_uint64_t entry_size(zip_t* za, const char* entry, const std::string& name) {
 
 // Reads an entry whose declared size the caller has bounded, chunk by chunk.
 std::string read_entry(zip_t* za, const char* entry, zip_uint64_t size, const std::string& name) {
-  std::unique_ptr<zip_file_t, int (*)(zip_file_t*)> f(zip_fopen(za, entry, 0), &zip_fclose);
+  const ZipLibrary& zip = zip_library();
+  std::unique_ptr<zip_file_t, int (*)(zip_file_t*)> f(zip.fopen(za, entry, 0), zip.fclose);
   std::string out;
   bool ok = f != nullptr;
   while (ok && out.size() < size) {
     const size_t at = out.size();
     const zip_uint64_t want = std::min<zip_uint64_t>(kReadChunkBytes, size - at);
     out.resize(at + static_cast<size_t>(want));
-    const zip_int64_t got = zip_fread(f.get(), out.data() + at, want);
+    const zip_int64_t got = zip.fread(f.get(), out.data() + at, want);
     ok = got > 0;
     out.resize(at + static_cast<size_t>(std::max<zip_int64_t>(got, 0)));
   }
@@ -186,52 +189,54 @@ std::string encode_x3p(const Heightfield& hf) {
   const std::string xml = xml_out.str();
   const std::string checksum = md5_hex(xml) + " *main.xml\n";
 
+  const ZipLibrary& zip = zip_library();
   zip_error_t err;
-  zip_error_init(&err);
-  zip_source_t* src = zip_source_buffer_create(nullptr, 0, 0, &err);
-  zip_t* za = src ? zip_open_from_source(src, ZIP_TRUNCATE, &err) : nullptr;
+  zip.error_init(&err);
+  zip_source_t* src = zip.source_buffer_create(nullptr, 0, 0, &err);
+  zip_t* za = src ? zip.open_from_source(src, ZIP_TRUNCATE, &err) : nullptr;
   if (!za) {
-    if (src) zip_source_free(src);
+    if (src) zip.source_free(src);
     throw std::runtime_error("libzip cannot create an archive in memory");
   }
-  zip_source_keep(src);
+  zip.source_keep(src);
   auto add = [&](const char* entry, const std::string& bytes) {
-    zip_source_t* s = zip_source_buffer(za, bytes.data(), bytes.size(), 0);
-    if (!s || zip_file_add(za, entry, s, ZIP_FL_ENC_UTF_8) < 0) {
-      if (s) zip_source_free(s);
+    zip_source_t* s = zip.source_buffer(za, bytes.data(), bytes.size(), 0);
+    if (!s || zip.file_add(za, entry, s, ZIP_FL_ENC_UTF_8) < 0) {
+      if (s) zip.source_free(s);
       throw std::runtime_error(std::string("libzip cannot add ") + entry);
     }
   };
   add("main.xml", xml);
   add("bindata/data.bin", data);
   add("md5checksum.hex", checksum);
-  if (zip_close(za) != 0) {
-    zip_discard(za);
-    zip_source_free(src);
+  if (zip.close(za) != 0) {
+    zip.discard(za);
+    zip.source_free(src);
     throw std::runtime_error("libzip cannot finish the archive in memory");
   }
   std::string out;
-  if (zip_source_open(src) == 0) {
-    zip_source_seek(src, 0, SEEK_END);
-    const zip_int64_t size = zip_source_tell(src);
-    zip_source_seek(src, 0, SEEK_SET);
+  if (zip.source_open(src) == 0) {
+    zip.source_seek(src, 0, SEEK_END);
+    const zip_int64_t size = zip.source_tell(src);
+    zip.source_seek(src, 0, SEEK_SET);
     out.resize(static_cast<size_t>(std::max<zip_int64_t>(size, 0)));
-    const zip_int64_t got = zip_source_read(src, out.data(), out.size());
-    zip_source_close(src);
+    const zip_int64_t got = zip.source_read(src, out.data(), out.size());
+    zip.source_close(src);
     if (got != size) out.clear();
   }
-  zip_source_free(src);
+  zip.source_free(src);
   if (out.empty()) throw std::runtime_error("libzip cannot read back the archive from memory");
   return out;
 }
 
 Heightfield decode_x3p(std::string_view bytes, const std::string& name) {
+  const ZipLibrary& zip = zip_library();
   zip_error_t err;
-  zip_error_init(&err);
-  zip_source_t* src = zip_source_buffer_create(bytes.data(), bytes.size(), 0, &err);
-  ZipPtr za(src ? zip_open_from_source(src, ZIP_RDONLY, &err) : nullptr);
+  zip.error_init(&err);
+  zip_source_t* src = zip.source_buffer_create(bytes.data(), bytes.size(), 0, &err);
+  ZipPtr za(src ? zip.open_from_source(src, ZIP_RDONLY, &err) : nullptr);
   if (!za) {
-    if (src) zip_source_free(src);
+    if (src) zip.source_free(src);
     throw InputError(name + ": not an X3P file (not a zip archive)");
   }
   const zip_uint64_t xml_size = entry_size(za.get(), "main.xml", name);

@@ -70,9 +70,25 @@ DetailWindow choose_detail_window(const Heightfield& hf) {
     m.ij += static_cast<double>(i) * j;
     m.iz += i * z, m.jz += j * z;
   };
+  // Per row, each tile's run of cells is summed in the terms that vary along the row (count,
+  // z, z^2, i, i^2, i z); the row's j enters once per run.
   for (int j = 0; j < hf.ny; ++j) {
     Moments* row = &tiles[static_cast<std::size_t>(j / s) * tx];
-    for (int i = 0; i < hf.nx; ++i) add_cell(row[i / s], j, i);
+    const float* z_row = &hf.z_um(j, 0);
+    const double jd = j;
+    for (int a = 0; a < tx; ++a) {
+      double n = 0, z = 0, zz = 0, si = 0, sii = 0, siz = 0;
+      for (int i = a * s; i < std::min(hf.nx, (a + 1) * s); ++i) {
+        const float v = z_row[i];
+        if (!std::isfinite(v)) continue;
+        const double zi = v, id = i;
+        n += 1, z += zi, zz += zi * zi, si += id, sii += id * id, siz += id * zi;
+      }
+      Moments& m = row[a];
+      m.n += n, m.z += z, m.zz += zz, m.i += si, m.j += n * jd;
+      m.ii += sii, m.jj += n * jd * jd, m.ij += si * jd;
+      m.iz += siz, m.jz += z * jd;
+    }
   }
   const auto window_moments = [&](int i0, int j0) {
     Moments m;

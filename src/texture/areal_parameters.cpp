@@ -22,57 +22,66 @@ constexpr int kRowsPerBlock = 64;
 
 int row_blocks(int rows) { return (rows + kRowsPerBlock - 1) / kRowsPerBlock; }
 
-// Sdr sums over the squares whose lower-left cell is in rows [j0, j1).
-void sdr_rows(const Heightfield& hf, int j0, int j1, double& sum, std::int64_t& squares) {
+// Sdr sums over the squares between two rows a (lower) and b (upper) of nx cells.
+void sdr_row_pair(const float* a, const float* b, int nx, double k, double& sum,
+                  std::int64_t& squares) {
+  for (int i = 0; i + 1 < nx; ++i) {
+    const double z00 = a[i], z10 = a[i + 1];
+    const double z01 = b[i], z11 = b[i + 1];
+    const double gx = ((z10 - z00) + (z11 - z01)) * k;
+    const double gy = ((z01 - z00) + (z11 - z10)) * k;
+    const double g2 = gx * gx + gy * gy;
+    if (std::isnan(g2)) continue;
+    // sqrt(1 + g2) - 1 written to keep its digits for small slopes.
+    sum += g2 / (std::sqrt(1.0 + g2) + 1.0);
+    ++squares;
+  }
+}
+
+// Per row block: the height moments of rows [j0, j1) and the Sdr sums of the squares whose
+// lower-left cell is in them. Rows come from `row(j, scratch)`: the field's own row, or a
+// residual row made into scratch (nx floats) so that no whole residual is held.
+struct BlockSums {
+  ArealMoments moments;
+  double sdr_sum = 0.0;
+  std::int64_t squares = 0;
+};
+
+template <class RowOf>
+ArealParameters parameters_of(const Heightfield& hf, bool moments, const RowOf& row_of,
+                              std::int64_t* squares_out, double* sdr_out) {
   // Slopes are height (um -> mm) over run (mm); the 1/(2 cell) averages the two edges.
   const double k = 1.0 / (kUmPerMm * 2.0 * hf.cell_mm);
-  for (int j = j0; j < j1; ++j) {
-    for (int i = 0; i + 1 < hf.nx; ++i) {
-      const double z00 = hf.z_um(j, i), z10 = hf.z_um(j, i + 1);
-      const double z01 = hf.z_um(j + 1, i), z11 = hf.z_um(j + 1, i + 1);
-      const double gx = ((z10 - z00) + (z11 - z01)) * k;
-      const double gy = ((z01 - z00) + (z11 - z10)) * k;
-      const double g2 = gx * gx + gy * gy;
-      if (std::isnan(g2)) continue;
-      // sqrt(1 + g2) - 1 written to keep its digits for small slopes.
-      sum += g2 / (std::sqrt(1.0 + g2) + 1.0);
-      ++squares;
-    }
-  }
-}
-
-}  // namespace
-
-double developed_area_ratio(const Heightfield& hf, std::int64_t& squares) {
-  const int rows = std::max(hf.ny - 1, 0);
-  std::vector<double> sums(static_cast<std::size_t>(row_blocks(rows)), 0.0);
-  std::vector<std::int64_t> counts(sums.size(), 0);
-  parallel_blocks(row_blocks(rows), 0, [&](int b) {
-    sdr_rows(hf, b * kRowsPerBlock, std::min(rows, (b + 1) * kRowsPerBlock), sums[b], counts[b]);
-  });
-  squares = 0;
-  double sum = 0.0;
-  for (std::size_t b = 0; b < sums.size(); ++b) {
-    sum += sums[b];
-    squares += counts[b];
-  }
-  return squares > 0 ? sum / static_cast<double>(squares) : 0.0;
-}
-
-ArealParameters areal_parameters(const Heightfield& residual) {
-  std::vector<ArealMoments> part(static_cast<std::size_t>(row_blocks(residual.ny)));
-  parallel_blocks(row_blocks(residual.ny), 0, [&](int b) {
-    const int j1 = std::min(residual.ny, (b + 1) * kRowsPerBlock);
-    for (int j = b * kRowsPerBlock; j < j1; ++j) {
-      const float* z = &residual.z_um(j, 0);
-      for (int i = 0; i < residual.nx; ++i) part[b].add(z[i]);
+  std::vector<BlockSums> part(static_cast<std::size_t>(row_blocks(hf.ny)));
+  parallel_blocks(row_blocks(hf.ny), 0, [&](int b) {
+    BlockSums& s = part[static_cast<std::size_t>(b)];
+    std::vector<float> scratch(2 * static_cast<std::size_t>(hf.nx));
+    const int j0 = b * kRowsPerBlock, j1 = std::min(hf.ny, (b + 1) * kRowsPerBlock);
+    const float* lower = row_of(j0, scratch.data());
+    for (int j = j0; j < j1; ++j) {
+      if (moments) {
+        for (int i = 0; i < hf.nx; ++i) s.moments.add(lower[i]);
+      }
+      if (j + 1 >= hf.ny) break;
+      const float* upper = row_of(j + 1, scratch.data() + ((j + 1 - j0) % 2) * hf.nx);
+      sdr_row_pair(lower, upper, hf.nx, k, s.sdr_sum, s.squares);
+      lower = upper;
     }
   });
   ArealMoments m;
-  for (const ArealMoments& p : part) m.merge(p);
+  std::int64_t squares = 0;
+  double sdr_sum = 0.0;
+  for (const BlockSums& p : part) {
+    m.merge(p.moments);
+    sdr_sum += p.sdr_sum;
+    squares += p.squares;
+  }
+  *squares_out = squares;
+  *sdr_out = squares > 0 ? sdr_sum / static_cast<double>(squares) : 0.0;
+  ArealParameters p;
+  if (!moments) return p;
   assert(m.count > 0 && "areal parameters need a finite cell");
   const AmplitudeParameters a = amplitude_parameters(m);
-  ArealParameters p;
   p.sa_um = a.mean_abs_um;
   p.sq_um = a.rms_um;
   p.sp_um = a.peak_um;
@@ -82,8 +91,37 @@ ArealParameters areal_parameters(const Heightfield& residual) {
   p.sku = a.kurtosis;
   p.shape_defined = a.shape_defined;
   p.cells = m.count;
-  p.sdr = developed_area_ratio(residual, p.squares);
+  p.sdr = *sdr_out;
+  p.squares = squares;
   return p;
+}
+
+const float* own_row(const Heightfield& hf, int j) { return &hf.z_um(j, 0); }
+
+}  // namespace
+
+double developed_area_ratio(const Heightfield& hf, std::int64_t& squares) {
+  double sdr = 0.0;
+  parameters_of(hf, false, [&](int j, float*) { return own_row(hf, j); }, &squares, &sdr);
+  return sdr;
+}
+
+ArealParameters areal_parameters(const Heightfield& residual) {
+  std::int64_t squares = 0;
+  double sdr = 0.0;
+  return parameters_of(residual, true, [&](int j, float*) { return own_row(residual, j); },
+                       &squares, &sdr);
+}
+
+ArealParameters areal_parameters(const Heightfield& floor, const Plane& plane) {
+  std::int64_t squares = 0;
+  double sdr = 0.0;
+  return parameters_of(floor, true,
+                       [&](int j, float* scratch) {
+                         residual_row(floor, plane, j, scratch);
+                         return static_cast<const float*>(scratch);
+                       },
+                       &squares, &sdr);
 }
 
 }  // namespace cuspmap

@@ -8,6 +8,7 @@
 #include <cstdint>
 
 #include "core/heightfield.h"
+#include "texture/fit_plane.h"
 
 namespace cuspmap {
 
@@ -30,6 +31,11 @@ struct ArealParameters {
 /// @param[in] residual  heightfield after plane removal (and S/L filters); >= 1 finite cell
 /// @return parameters; Sdr is 0 when no square of four finite cells exists
 ArealParameters areal_parameters(const Heightfield& residual);
+
+/// The same for `floor` less `plane` (residual_row's arithmetic, the same values as
+/// areal_parameters(remove_plane(floor, plane))), without holding that residual: each row block
+/// makes its rows as it goes.
+ArealParameters areal_parameters(const Heightfield& floor, const Plane& plane);
 
 /// Sdr alone: mean over squares of four finite cells of sqrt(1 + gx^2 + gy^2) - 1, with gx, gy
 /// the slopes at the square's centre (heights converted to mm).

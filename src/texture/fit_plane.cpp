@@ -5,12 +5,21 @@
 #include "texture/fit_plane.h"
 
 #include <Eigen/Dense>
+#include <algorithm>
 #include <cassert>
 #include <cmath>
+#include <vector>
 
 #include "core/large_buffer.h"
+#include "core/parallel_blocks.h"
 
 namespace cuspmap {
+namespace {
+
+// Rows per partial plane sum (fixed, whatever the thread count).
+constexpr int kPlaneRowsPerBlock = 64;
+
+}  // namespace
 
 void PlaneSums::add(double x_mm, double y_mm, double z_um) {
   if (std::isnan(z_um)) return;
@@ -58,11 +67,26 @@ Plane fit_plane(const Heightfield& hf) {
   PlaneSums sums;
   sums.x0_mm = hf.origin_x_mm + 0.5 * hf.nx * hf.cell_mm;
   sums.y0_mm = hf.origin_y_mm + 0.5 * hf.ny * hf.cell_mm;
-  for (int j = 0; j < hf.ny; ++j) {
-    const double y = hf.y_mm(j);
-    for (int i = 0; i < hf.nx; ++i) sums.add(hf.x_mm(i), y, hf.z_um(j, i));
-  }
+  // Fixed row blocks summed on threads and merged in order: the same plane for any count.
+  const int blocks = (hf.ny + kPlaneRowsPerBlock - 1) / kPlaneRowsPerBlock;
+  std::vector<PlaneSums> part(static_cast<std::size_t>(blocks), sums);
+  parallel_blocks(blocks, 0, [&](int b) {
+    PlaneSums& p = part[static_cast<std::size_t>(b)];
+    for (int j = b * kPlaneRowsPerBlock; j < std::min(hf.ny, (b + 1) * kPlaneRowsPerBlock); ++j) {
+      const double y = hf.y_mm(j);
+      for (int i = 0; i < hf.nx; ++i) p.add(hf.x_mm(i), y, hf.z_um(j, i));
+    }
+  });
+  for (const PlaneSums& p : part) sums.merge(p);
   return sums.solve();
+}
+
+void residual_row(const Heightfield& hf, const Plane& plane, int j, float* out) {
+  const double y = hf.y_mm(j);
+  const float* z = &hf.z_um(j, 0);
+  for (int i = 0; i < hf.nx; ++i) {
+    out[i] = std::isnan(z[i]) ? z[i] : static_cast<float>(z[i] - plane.at(hf.x_mm(i), y));
+  }
 }
 
 Heightfield remove_plane(const Heightfield& hf, const Plane& plane) {
@@ -75,13 +99,7 @@ Heightfield remove_plane(const Heightfield& hf, const Plane& plane) {
   out.origin_y_mm = hf.origin_y_mm;
   out.z_um.resize(hf.ny, hf.nx);
   advise_huge_pages(out.z_um.data(), static_cast<std::size_t>(out.z_um.size()) * sizeof(float));
-  for (int j = 0; j < hf.ny; ++j) {
-    const double y = hf.y_mm(j);
-    for (int i = 0; i < hf.nx; ++i) {
-      const float z = hf.z_um(j, i);
-      out.z_um(j, i) = std::isnan(z) ? z : static_cast<float>(z - plane.at(hf.x_mm(i), y));
-    }
-  }
+  if (hf.nx > 0) parallel_blocks(hf.ny, 0, [&](int j) { residual_row(hf, plane, j, &out.z_um(j, 0)); });
   return out;
 }
 

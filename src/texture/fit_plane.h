@@ -42,6 +42,11 @@ struct PlaneSums {
 /// @return the plane (z0 = mean height when the field is a single point or a line)
 Plane fit_plane(const Heightfield& hf);
 
+/// Row j of `hf` less `plane`, NaN cells staying NaN: the arithmetic of remove_plane, for
+/// callers that make residual rows as they go instead of holding a whole residual.
+/// @param[out] out  hf.nx floats
+void residual_row(const Heightfield& hf, const Plane& plane, int j, float* out);
+
 /// Residual heights after subtracting `plane` from every finite cell; NaN cells stay NaN.
 /// @param[in] hf     heightfield
 /// @param[in] plane  plane to subtract (um)

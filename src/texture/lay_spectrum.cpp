@@ -11,6 +11,7 @@
 #include <cassert>
 #include <cmath>
 #include <numbers>
+#include <utility>
 #include <vector>
 
 #include "core/large_buffer.h"
@@ -34,7 +35,7 @@ struct Plan {
 
 }  // namespace
 
-LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove) {
+LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, LargeBytes* spent) {
   const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
   const int blocks = (bins + kColumnBlock - 1) / kColumnBlock;
   const std::size_t stride = static_cast<std::size_t>(blocks) * kColumnBlock;  // complex per row
@@ -102,6 +103,7 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove) {
     out.s += p.s;
     out.total += p.total;
   }
+  if (spent != nullptr) *spent = std::move(field).release();
   return out;
 }
 

@@ -7,6 +7,7 @@
 #pragma once
 
 #include "core/heightfield.h"
+#include "core/large_buffer.h"
 #include "texture/fit_plane.h"
 
 namespace cuspmap {
@@ -24,6 +25,8 @@ struct LaySums {
 /// @param[in] remove   optional plane taken off each height first, with remove_plane's
 ///                     arithmetic (the same float residual), so a caller need not hold the
 ///                     residual and this transform at once
-LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove = nullptr);
+/// @param[out] spent   optional: receives the transform's memory for the caller's next field
+LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove = nullptr,
+                     LargeBytes* spent = nullptr);
 
 }  // namespace cuspmap

@@ -8,6 +8,7 @@
 
 #include <algorithm>
 #include <cassert>
+#include <utility>
 
 #include "core/parallel_blocks.h"
 
@@ -53,11 +54,22 @@ void transform_rows(SpectrumField& f, const Plan& plan, bool forward, int row_be
 
 }  // namespace
 
-SpectrumField::SpectrumField(int rows, int cols) : rows_(rows), cols_(cols) {
+SpectrumField::SpectrumField(int rows, int cols) : SpectrumField(rows, cols, LargeBytes()) {}
+
+SpectrumField::SpectrumField(int rows, int cols, LargeBytes spent) : rows_(rows), cols_(cols) {
   assert(rows >= 1 && cols >= 1 && "a field needs cells");
   const std::size_t bins = static_cast<std::size_t>(cols / 2 + 1);
   complex_stride_ = (bins + kFftColumnBlock - 1) / kFftColumnBlock * kFftColumnBlock;
-  data_ = LargeBuffer<float>(static_cast<std::size_t>(rows) * row_floats());
+  std::size_t stale_floats = 0;
+  data_ = LargeBuffer<float>(static_cast<std::size_t>(rows) * row_floats(), std::move(spent),
+                             &stale_floats);
+  stale_rows_ = static_cast<int>((stale_floats + row_floats() - 1) / row_floats());
+}
+
+void SpectrumField::clear_stale_rows(int j0, int j1, int threads) {
+  j1 = std::min(j1, stale_rows_);
+  if (j1 <= j0) return;
+  parallel_blocks(j1 - j0, threads, [&](int k) { std::fill_n(row(j0 + k), row_floats(), 0.0f); });
 }
 
 int spectrum_blocks(const SpectrumField& field) {

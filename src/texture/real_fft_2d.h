@@ -25,6 +25,14 @@ class SpectrumField {
  public:
   /// @param[in] rows, cols  field size, >= 1
   SpectrumField(int rows, int cols);
+  /// As above, in the memory of a finished buffer (core/large_buffer.h reuse_bytes): rows from
+  /// 0 to stale_rows() - 1 hold old values until written in full (row_floats() floats) or
+  /// cleared (clear_stale_rows); the others are zero.
+  SpectrumField(int rows, int cols, LargeBytes spent);
+  /// Rows that may hold old values (0 for a fresh field).
+  int stale_rows() const { return stale_rows_; }
+  /// Zeroes rows [j0, j1) where they may hold old values (held pages: cheap), on threads.
+  void clear_stale_rows(int j0, int j1, int threads);
   int rows() const { return rows_; }
   int cols() const { return cols_; }
   /// Complex bins of a row after the transform: cols / 2 + 1.
@@ -42,6 +50,7 @@ class SpectrumField {
  private:
   int rows_ = 0, cols_ = 0;
   std::size_t complex_stride_ = 0;
+  int stale_rows_ = 0;
   LargeBuffer<float> data_;
 };
 

@@ -22,9 +22,13 @@
 namespace cuspmap {
 namespace {
 
-// Smallest size >= n with no prime factor above 7 (FFTW is fastest on those).
+// Smallest multiple of 8 >= n with no prime factor above 7. FFTW is fastest on 7-smooth
+// sizes, and its real-to-complex rows on even ones: measured on 2 cores, an odd 1875 took 3.6
+// ns per point against 0.9 for 1920, an odd 12005 4.6 against 1.5 for 12096
+// (docs/performance.md, "Fourth pass").
 int fft_size(int n) {
-  for (int m = std::max(n, 1);; ++m) {
+  constexpr int kMultiple = 8;
+  for (int m = (std::max(n, 1) + kMultiple - 1) / kMultiple * kMultiple;; m += kMultiple) {
     int r = m;
     for (int p : {2, 3, 5, 7}) {
       while (r % p == 0) r /= p;
@@ -39,7 +43,8 @@ class Acf {
  public:
   // `release` (may be null) is emptied once the field holds its values: a caller that hands
   // over its residual does not hold it and the padded transform at once.
-  Acf(const Heightfield& hf, int threads, Heightfield* release);
+  Acf(const Heightfield& hf, const Plane* remove, int threads, Heightfield* release,
+      LargeBytes spent);
   double at(int tx, int ty) const {
     if (std::abs(tx) > lim_x_ || std::abs(ty) > lim_y_ || !(r0_ > 0.0)) return 0.0;
     return mean_product(tx, ty) / r0_;
@@ -67,7 +72,8 @@ class Acf {
   double r0_ = 0.0;
 };
 
-Acf::Acf(const Heightfield& hf, int threads, Heightfield* release)
+Acf::Acf(const Heightfield& hf, const Plane* remove, int threads, Heightfield* release,
+         LargeBytes spent)
     : nx_(hf.nx),
       ny_(hf.ny),
       // Lags up to half the field are used; padding to n + n/2 + 1 keeps them free of
@@ -78,17 +84,24 @@ Acf::Acf(const Heightfield& hf, int threads, Heightfield* release)
       lim_x_(std::min(hf.nx - 1, px_ - hf.nx)),
       lim_y_(std::min(hf.ny - 1, py_ - hf.ny)),
       scale_(1.0 / (static_cast<double>(px_) * py_)),
-      z_(py_, px_) {
-  // The fresh field is zero: only the data cells are written (no zero-fill pass).
+      z_(py_, px_, std::move(spent)) {
+  // A fresh field is zero: only the data cells are written (no zero-fill pass). Rows of a
+  // reused one are written in full, padding included.
   std::atomic<bool> has_nan{false};
   parallel_blocks(ny_, threads, [&](int j) {
     float* row = z_.row(j);
+    if (remove != nullptr) {
+      residual_row(hf, *remove, j, row);
+    } else {
+      std::copy_n(&hf.z_um(j, 0), nx_, row);
+    }
     bool nan = false;
     for (int i = 0; i < nx_; ++i) {
-      const float v = hf.z_um(j, i);
+      const float v = row[i];
       nan |= std::isnan(v);
       row[i] = std::isnan(v) ? 0.0f : v;
     }
+    if (j < z_.stale_rows()) std::fill(row + nx_, row + z_.row_floats(), 0.0f);
     if (nan) has_nan = true;
   });
   if (has_nan) {
@@ -99,6 +112,8 @@ Acf::Acf(const Heightfield& hf, int threads, Heightfield* release)
     });
   }
   if (release != nullptr) release->z_um = HeightGrid();
+  // The padding rows are cleared only now: with the residual gone they add nothing to the peak.
+  z_.clear_stale_rows(ny_, py_, threads);
   autocorrelate_field(z_, ny_, lim_y_, threads);
   if (mask_) autocorrelate_field(*mask_, ny_, lim_y_, threads);
   r0_ = mean_product(0, 0);
@@ -118,16 +133,16 @@ void lay_from_sums(const LaySums& sums, TextureDirection& out) {
   out.lay_deg = lay;
 }
 
-TextureDirection direction_of(const Heightfield& residual, int threads, Heightfield* release,
-                              const LaySums* lay) {
+TextureDirection direction_of(const Heightfield& residual, const Plane* remove, int threads,
+                              Heightfield* release, const LaySums* lay, LargeBytes spent) {
   TextureDirection out;
   if (residual.nx < 2 || residual.ny < 2) return out;
   // The lay first: its field is freed before the larger padded one is made.
-  lay_from_sums(lay != nullptr ? *lay : lay_spectrum(residual, threads), out);
+  lay_from_sums(lay != nullptr ? *lay : lay_spectrum(residual, threads, remove, &spent), out);
   // Sizes are kept: `release` may empty the residual's heights below.
   const int nx = residual.nx, ny = residual.ny;
   const double cell_mm = residual.cell_mm;
-  const Acf acf(residual, threads, release);
+  const Acf acf(residual, remove, threads, release, std::move(spent));
   // Walk rays from the origin in steps of a quarter cell until the ACF falls to s; the reach is
   // half the field in each axis (beyond it too few pairs remain for a stable estimate).
   constexpr double kStepCells = 0.25;
@@ -175,11 +190,12 @@ TextureDirection direction_of(const Heightfield& residual, int threads, Heightfi
 }  // namespace
 
 TextureDirection texture_direction(const Heightfield& residual, int threads) {
-  return direction_of(residual, threads, nullptr, nullptr);
+  return direction_of(residual, nullptr, threads, nullptr, nullptr, {});
 }
 
-TextureDirection texture_direction(Heightfield&& residual, int threads, const LaySums* lay) {
-  return direction_of(residual, threads, &residual, lay);
+TextureDirection texture_direction(const Heightfield& hf, const Plane* remove, int threads,
+                                   const LaySums* lay, LargeBytes spent, Heightfield* release) {
+  return direction_of(hf, remove, threads, release, lay, std::move(spent));
 }
 
 }  // namespace cuspmap

@@ -9,6 +9,8 @@
 #pragma once
 
 #include "core/heightfield.h"
+#include "core/large_buffer.h"
+#include "texture/fit_plane.h"
 #include "texture/lay_spectrum.h"
 
 namespace cuspmap {
@@ -37,12 +39,17 @@ struct TextureDirection {
 ///            the result is bit-identical for any count
 TextureDirection texture_direction(const Heightfield& residual, int threads = 0);
 
-/// As above, taking the residual over: its heights are freed once the padded transform holds
-/// them (so a large floor's residual and transform are not held at once).
-/// @param[in] lay  optional lay sums of this residual already taken (texture/lay_spectrum.h,
-///                 e.g. from the floor and its plane before the residual was made); null =
-///                 computed here
-TextureDirection texture_direction(Heightfield&& residual, int threads = 0,
-                                   const LaySums* lay = nullptr);
+/// As above, of `hf` less `remove` (residual_row's arithmetic), made row by row into the
+/// padded transform so that no whole residual is held.
+/// @param[in] remove   plane to take off, null = none (hf is the residual)
+/// @param[in] lay      optional lay sums of this residual already taken (texture/lay_spectrum.h);
+///                     null = computed here
+/// @param[in] spent    optional memory of a finished transform (lay_spectrum's), reused for the
+///                     padded one: pages already held are cheaper than fresh ones
+/// @param[in,out] release optional: its heights are freed once the padded transform holds
+///                     them (a caller handing over a residual does not hold both at once)
+TextureDirection texture_direction(const Heightfield& hf, const Plane* remove, int threads,
+                                   const LaySums* lay, LargeBytes spent,
+                                   Heightfield* release = nullptr);
 
 }  // namespace cuspmap

@@ -31,16 +31,21 @@ double wrap_180(double deg) {
   return a > 180.0 - kWrapSlackDeg ? 0.0 : a;
 }
 
-ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
-                       std::vector<std::string>& warnings) {
-  ArealReport a;
-  a.plane = fit_plane(hf);
-  // Without filters the lay's transform reads the floor less its plane before the residual is
-  // made (the same float values), so the floor, the residual and that transform (8 bytes per
-  // cell) are never held at once.
-  const bool filtered = o.s_filter_mm > 0.0 || o.l_filter_mm > 0.0;
-  std::optional<LaySums> lay;
-  if (!filtered && hf.nx >= 2 && hf.ny >= 2) lay = lay_spectrum(hf, 0, &a.plane);
+void note_areal_warnings(const ArealReport& a, std::vector<std::string>& warnings) {
+  if (!a.parameters.shape_defined) warnings.push_back("surface is flat: Ssk and Sku reported as 0");
+  if (!a.spatial.sal_found) {
+    warnings.push_back(
+        "the autocorrelation never fell to 0.2 within half the field: Sal and Str "
+        "reported as 0");
+  } else if (a.spatial.str_upper_bound) {
+    warnings.push_back(
+        "the autocorrelation did not fall to 0.2 in some directions within half "
+        "the field: Str is an upper bound");
+  }
+}
+
+// With S- or L-filters: the residual is made whole, filtered, and handed to the transform.
+void filtered_areal(const Heightfield& hf, const TextureOptions& o, ArealReport& a) {
   Heightfield residual = remove_plane(hf, a.plane);
   if (o.s_filter_mm > 0.0) {
     residual = gaussian_areal_filter(residual, o.s_filter_mm);
@@ -54,18 +59,28 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
     a.l_filter_mm = o.l_filter_mm;
   }
   a.parameters = areal_parameters(residual);
-  // The residual is handed over: freed once the padded transform holds it (peak memory).
-  a.spatial = texture_direction(std::move(residual), 0, lay ? &*lay : nullptr);
-  if (!a.parameters.shape_defined) warnings.push_back("surface is flat: Ssk and Sku reported as 0");
-  if (!a.spatial.sal_found) {
-    warnings.push_back(
-        "the autocorrelation never fell to 0.2 within half the field: Sal and Str "
-        "reported as 0");
-  } else if (a.spatial.str_upper_bound) {
-    warnings.push_back(
-        "the autocorrelation did not fall to 0.2 in some directions within half "
-        "the field: Str is an upper bound");
+  // Its heights are freed once the padded transform holds them (peak memory).
+  a.spatial = texture_direction(residual, nullptr, 0, nullptr, {}, &residual);
+}
+
+ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
+                       std::vector<std::string>& warnings) {
+  ArealReport a;
+  a.plane = fit_plane(hf);
+  if (o.s_filter_mm > 0.0 || o.l_filter_mm > 0.0) {
+    filtered_areal(hf, o, a);
+  } else {
+    // Without filters the residual (the floor less its plane) is never held whole: the lay's
+    // transform, the height parameters and the padded autocorrelation make its rows as they
+    // go (the same float values as remove_plane), and the autocorrelation reuses the lay
+    // transform's memory.
+    std::optional<LaySums> lay;
+    LargeBytes spent;
+    if (hf.nx >= 2 && hf.ny >= 2) lay = lay_spectrum(hf, 0, &a.plane, &spent);
+    a.parameters = areal_parameters(hf, a.plane);
+    a.spatial = texture_direction(hf, &a.plane, 0, lay ? &*lay : nullptr, std::move(spent));
   }
+  note_areal_warnings(a, warnings);
   return a;
 }
 

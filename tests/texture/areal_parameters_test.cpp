@@ -104,3 +104,29 @@ TEST_CASE("fit_plane: recovers an exact plane, NaN cells skipped", "[texture]") 
   REQUIRE_NEAR(p.gy_um_per_mm, -3.0, 1e-5);
   REQUIRE_NEAR(p.at(3.0, 0.0), 10.0, 1e-4);
 }
+
+TEST_CASE("areal_parameters: of a floor and its plane equals that of remove_plane's residual",
+          "[texture]") {
+  // Derived: residual_row is remove_plane's arithmetic and the row blocks sum in the same order.
+  Heightfield hf = grid(203, 150, 0.01);  // not a whole number of 64-row blocks
+  for (int j = 0; j < hf.ny; ++j) {
+    for (int i = 0; i < hf.nx; ++i) {
+      hf.z_um(j, i) = static_cast<float>(std::sin(0.3 * i) * std::cos(0.2 * j) + 0.01 * i - 0.02 * j);
+    }
+  }
+  hf.z_um(3, 4) = kUnreached;
+  hf.z_um(64, 0) = kUnreached;  // on a block's first row
+  const Plane plane = fit_plane(hf);
+  const ArealParameters whole = areal_parameters(remove_plane(hf, plane));
+  const ArealParameters rows = areal_parameters(hf, plane);
+  CHECK(rows.sa_um == whole.sa_um);
+  CHECK(rows.sq_um == whole.sq_um);
+  CHECK(rows.sp_um == whole.sp_um);
+  CHECK(rows.sv_um == whole.sv_um);
+  CHECK(rows.ssk == whole.ssk);
+  CHECK(rows.sku == whole.sku);
+  CHECK(rows.sdr == whole.sdr);
+  CHECK(rows.cells == whole.cells);
+  CHECK(rows.squares == whole.squares);
+  CHECK(whole.squares == 202 * 149 - 4 - 2);  // four squares touch (3, 4), two touch (64, 0)
+}

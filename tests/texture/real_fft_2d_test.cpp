@@ -11,6 +11,8 @@
 #include <vector>
 
 #include "test_support.h"
+#include "texture/fit_plane.h"
+#include "texture/lay_spectrum.h"
 #include "texture/texture_direction.h"
 
 using namespace cuspmap;
@@ -96,4 +98,37 @@ TEST_CASE("texture_direction: Sal, Str and lay bit-identical for any thread coun
   REQUIRE(std::memcmp(&one.str, &two.str, sizeof(double)) == 0);
   REQUIRE(std::memcmp(&one.lay_deg, &two.lay_deg, sizeof(double)) == 0);
   REQUIRE(std::memcmp(&one.lay_strength, &two.lay_strength, sizeof(double)) == 0);
+}
+
+TEST_CASE("texture_direction: of a floor and its plane, row by row, equals that of its residual",
+          "[texture]") {
+  // Derived: residual_row is remove_plane's arithmetic, so the transforms see the same floats;
+  // the lay transform's memory reused by the padded one changes nothing (its stale rows are
+  // cleared before the transform).
+  Heightfield hf;
+  hf.nx = 700;  // 700 x 520 floats: the lay's 8-byte field is large enough to be handed on
+  hf.ny = 520;
+  hf.cell_mm = 0.01;
+  hf.z_um.resize(hf.ny, hf.nx);
+  std::mt19937 rng(5);
+  std::normal_distribution<float> g(0.0f, 1.0f);
+  for (int j = 0; j < hf.ny; ++j) {
+    for (int i = 0; i < hf.nx; ++i) {
+      hf.z_um(j, i) = std::sin(0.21f * static_cast<float>(i) + 0.05f * static_cast<float>(j)) +
+                      0.002f * static_cast<float>(i) - 0.003f * static_cast<float>(j) +
+                      0.2f * g(rng);
+    }
+  }
+  hf.z_um(11, 13) = kUnreached;
+  const Plane plane = fit_plane(hf);
+  const TextureDirection whole = texture_direction(remove_plane(hf, plane), 2);
+  LargeBytes spent;
+  const LaySums lay = lay_spectrum(hf, 2, &plane, &spent);
+  REQUIRE(spent != nullptr);
+  const TextureDirection rows = texture_direction(hf, &plane, 2, &lay, std::move(spent));
+  REQUIRE(whole.sal_found);
+  REQUIRE(std::memcmp(&whole.sal_mm, &rows.sal_mm, sizeof(double)) == 0);
+  REQUIRE(std::memcmp(&whole.str, &rows.str, sizeof(double)) == 0);
+  REQUIRE(std::memcmp(&whole.lay_deg, &rows.lay_deg, sizeof(double)) == 0);
+  REQUIRE(std::memcmp(&whole.lay_strength, &rows.lay_strength, sizeof(double)) == 0);
 }
