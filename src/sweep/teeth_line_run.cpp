@@ -9,17 +9,12 @@
 #include <algorithm>
 #include <array>
 #include <cmath>
+#include <cstdint>
 #include <limits>
 
 #include "core/units.h"
+#include "sweep/lane_clones.h"
 #include "sweep/teeth_line.h"
-
-#if defined(__x86_64__) && (defined(__GNUC__) || defined(__clang__)) && \
-    !defined(__SANITIZE_ADDRESS__)
-#define CUSPMAP_CLONES __attribute__((target_clones("avx512f", "avx2", "default")))
-#else
-#define CUSPMAP_CLONES
-#endif
 
 namespace cuspmap {
 namespace {
@@ -119,6 +114,41 @@ CUSPMAP_CLONES void line_heights(const LineHeight& p, const double* __restrict x
   }
 }
 
+// The cells' coordinates along the move (u) as sweep_tile's scalar loop forms them, rel . dir
+// with rel = p - a (a sum of two rounded products: Eigen's dot, in lanes); returns the common
+// lateral offset rel . perp of the n cells, NaN when they differ (a move not along the rows).
+CUSPMAP_CLONES double cell_coords(const PreparedMove& m, double cell_mm, double y_mm, int i0,
+                                  int count, double* __restrict u) {
+  const double ax = m.a_mm.x(), ry = y_mm - m.a_mm.y();
+  const double dx = m.dir.x(), dy = m.dir.y(), px = m.perp.x(), py = m.perp.y();
+  const double w0 = ((static_cast<double>(i0) + 0.5) * cell_mm - ax) * px + ry * py;
+  std::int64_t differ = 0;  // lanes as wide as the doubles: the reduction vectorizes
+  for (int j = 0; j < count; ++j) {
+    const double rx = (static_cast<double>(i0 + j) + 0.5) * cell_mm - ax;
+    u[j] = rx * dx + ry * dy;
+    differ += rx * px + ry * py != w0 ? 1 : 0;
+  }
+  return differ == 0 ? w0 : std::numeric_limits<double>::quiet_NaN();
+}
+
+// Per lane, for one tooth family: whether it can lower the cell (height_mm's test against the
+// best so far and the bound) and its lattice target; returns whether any lane counts.
+CUSPMAP_CLONES bool family_lanes(double value_mm, double axial_mm, double phase0, double kappa,
+                                 double spacing_rad, const double* __restrict c,
+                                 const double* __restrict u, const double* __restrict best,
+                                 const double* __restrict bound, int count,
+                                 double* __restrict counts, double* __restrict target) {
+  std::int64_t any = 0;
+  for (int j = 0; j < count; ++j) {
+    const double cap = bound[j] < best[j] ? bound[j] : best[j];  // std::min(best, bound)
+    const bool in = c[j] + value_mm + axial_mm < cap;
+    counts[j] = in ? 1.0 : 0.0;
+    any += in ? 1 : 0;
+    target[j] = (phase0 + kappa * u[j]) + spacing_rad;
+  }
+  return any != 0;
+}
+
 // line_heights for any tooth profile (ball, bull-nose: several pieces), one lane at a time.
 void profile_heights(const RevolvedProfile& tooth, const LineHeight& p, const double* x,
                      const double* found, const double* c, const double* counts, int count,
@@ -177,18 +207,8 @@ void LineTeeth::sweep_run(double y_mm, int i_lo, int i_hi, float* row) {
   std::array<int, kBlock> edge{};
   for (int i0 = i_lo; i0 <= i_hi; i0 += kBlock) {
     const int n = std::min(kBlock, i_hi - i0 + 1);
-    // The cell coordinates exactly as sweep_tile's scalar loop forms them.
-    double w_row = 0.0;
-    bool uniform = true;
-    for (int j = 0; j < n; ++j) {
-      const Eigen::Vector2d p((i0 + j + 0.5) * s.cell_mm, y_mm);
-      const Eigen::Vector2d rel = p - m.a_mm;
-      u[j] = rel.dot(m.dir);
-      const double w = rel.dot(m.perp);
-      if (j == 0) w_row = w;
-      uniform = uniform && w == w_row;
-    }
-    if (!uniform || !run_ready(w_row)) {
+    const double w_row = cell_coords(m, s.cell_mm, y_mm, i0, n, u.data());
+    if (!(w_row == w_row) || !run_ready(w_row)) {
       for (int j = 0; j < n; ++j) {
         const Eigen::Vector2d p((i0 + j + 0.5) * s.cell_mm, y_mm);
         const Eigen::Vector2d rel = p - m.a_mm;
@@ -201,35 +221,34 @@ void LineTeeth::sweep_run(double y_mm, int i_lo, int i_hi, float* row) {
     // the chord of a cell near the move's ends is shorter: those take the scalar path after.
     const double length = m.length_xy_mm, half = run_half_;
     int active = 0, edges = 0;
+    // Compacted without branches (which cells pass is data-dependent): every slot is written,
+    // the counters advance only for the cells kept. Slot `active` <= j was already read.
+    const double c0 = m.z0_mm, rise = rise_, lateral = run_w_ * tilt_across_, low = low_mm_;
     for (int j = 0; j < n; ++j) {
-      const double lo = std::max(u[j] - length, -half), hi = std::min(u[j], half);
-      if (!(lo == -half && hi == half)) {
-        edge[edges++] = j;
-        continue;
-      }
-      const double cj = m.z0_mm + rise_ * u[j] - run_w_ * tilt_across_;
+      const double uj = u[j];
+      const double lo = std::max(uj - length, -half), hi = std::min(uj, half);
+      const bool interior = (lo == -half) & (hi == half);
+      const double cj = c0 + rise * uj - lateral;
       const double bj = row[i0 + j] / kUmPerMm;
-      if (!(cj + low_mm_ < bj)) continue;  // height_mm's bound test: +inf
+      edge[edges] = j;
+      edges += !interior;
       cell[active] = j;
-      u[active] = u[j];  // active <= j: compacting in place
+      u[active] = uj;
       c[active] = cj;
       bound[active] = bj;
-      best[active] = kInf;
-      unsettled[active] = 0.0;
-      ++active;
+      active += interior & (cj + low < bj);  // height_mm's bound test: else +inf
     }
+    std::fill(best.begin(), best.begin() + active, kInf);
+    std::fill(unsettled.begin(), unsettled.begin() + active, 0.0);
     const std::vector<ToothFamily>& families = s.families;
     for (std::size_t t = 0; t < families.size() && active > 0; ++t) {
       const ToothFamily& tf = families[t];
       const ChordMin& mn = minima_[t];
-      bool any = false;
-      for (int j = 0; j < active; ++j) {
-        const bool in = c[j] + mn.value_mm + tf.axial_mm < std::min(best[j], bound[j]);
-        counts[j] = in ? 1.0 : 0.0;
-        any = any || in;
-        target[j] = (phase0_ + kappa_ * u[j]) + tf.spacing_rad;
+      if (!family_lanes(mn.value_mm, tf.axial_mm, phase0_, kappa_, tf.spacing_rad, c.data(),
+                        u.data(), best.data(), bound.data(), active, counts.data(),
+                        target.data())) {
+        continue;
       }
-      if (!any) continue;
       LineHeight lh;
       lh.w2 = run_w2_;
       lh.slope = slope_;
