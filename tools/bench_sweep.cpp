@@ -58,14 +58,15 @@ Job sized_ball_job(double angle_deg, std::int64_t size,
 }
 
 // size x size mm at `cell`, 6 mm 3-flute flat end mill, 1 deg dish, fz 0.05 mm at 10000 rpm,
-// 0.5 mm stepover zigzag, 0.01 deg tram error across the feed (the pump-cover demo's tool).
-Job flat_job(double size_mm, double cell_mm) {
+// 0.5 mm stepover zigzag, `tram_deg` tram error across the feed (0.01 deg: the pump-cover demo's
+// tool; 0: a trammed spindle, where every overlapping pass ties at the rim's height).
+Job flat_job(double size_mm, double cell_mm, double tram_deg = 0.01) {
   Job j;
   j.cutter.shape = CutterShape::Flat;
   j.cutter.diameter_mm = 6.0;
   j.cutter.dish_deg = 1.0;
   j.cutter.teeth = 3;
-  j.cutter.tilt_deg = 0.01;
+  j.cutter.tilt_deg = tram_deg;
   j.cutter.tilt_toward_deg = 90.0;
   j.patch.size_x_mm = j.patch.size_y_mm = size_mm;
   j.patch.cell_mm = cell_mm;
@@ -245,12 +246,17 @@ BENCHMARK(BM_StreamMinUpdate)
 void BM_TeethFlat(benchmark::State& state) {
   const double size = static_cast<double>(state.range(0));
   const double cell = static_cast<double>(state.range(1)) * 1e-3;
-  sweep(state, flat_job(size, cell), true, 2);
+  const double tram_deg = static_cast<double>(state.range(2)) * 1e-3;
+  sweep(state, flat_job(size, cell, tram_deg), true, 2);
 }
+// The 10 x 10 mm job with the demo's tram error, and a 4 x 4 mm floor with and without
+// it (without: no pass's chord minimum lies above a cell's height, the hardest case to prune).
 BENCHMARK(BM_TeethFlat)
-    ->Args({2, 2})
-    ->Args({10, 2})
-    ->ArgNames({"size_mm", "cell_um"})
+    ->Args({2, 2, 10})
+    ->Args({10, 2, 10})
+    ->Args({4, 2, 10})
+    ->Args({4, 2, 0})
+    ->ArgNames({"size_mm", "cell_um", "tram_mdeg"})
     ->Unit(benchmark::kMillisecond)
     ->Iterations(1)
     ->MeasureProcessCPUTime()

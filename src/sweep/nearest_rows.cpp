@@ -10,15 +10,10 @@
 #include <cstdint>
 #include <limits>
 
+#include "sweep/lane_clones.h"
+
 #if defined(__SSE2__)
 #include <immintrin.h>
-#endif
-
-#if defined(__x86_64__) && (defined(__GNUC__) || defined(__clang__)) && \
-    !defined(__SANITIZE_ADDRESS__)
-#define CUSPMAP_CLONES __attribute__((target_clones("avx512f", "avx2", "default")))
-#else
-#define CUSPMAP_CLONES
 #endif
 
 namespace cuspmap {

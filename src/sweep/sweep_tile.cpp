@@ -40,19 +40,17 @@ void sweep_row(const SweepSetup& s, const PreparedMove& m, SweepMode mode, LineT
     envelope_line_row(s, m, y, i_lo, i_hi, row);
     return;
   }
+  if (line_teeth) {
+    line_teeth->sweep_run(y, i_lo, i_hi, row);
+    return;
+  }
   for (int i = i_lo; i <= i_hi; ++i) {
     const Eigen::Vector2d p((i + 0.5) * s.cell_mm, y);
     double h = 0.0;
     if (mode == SweepMode::Envelope) {
       h = envelope_arc_mm(s, m, p) + s.axial_min_mm;
     } else {
-      const double bound = row[i] / kUmPerMm;  // +inf stays +inf
-      if (line_teeth) {
-        const Eigen::Vector2d rel = p - m.a_mm;
-        h = line_teeth->height_mm(rel.dot(m.dir), rel.dot(m.perp), bound);
-      } else {
-        h = teeth_generic_mm(s, m, p, bound);
-      }
+      h = teeth_generic_mm(s, m, p, row[i] / kUmPerMm);  // +inf stays +inf
     }
     const float h_um = static_cast<float>(h * kUmPerMm);
     if (h_um < row[i]) row[i] = h_um;

@@ -42,6 +42,14 @@ class LineTeeth {
   /// beside the move, so height_mm on that row reuses it.
   double row_low_mm(double w_mm);
 
+  /// Folds this move's heights into a run of one grid row's cells, exactly as height_mm cell by
+  /// cell (bound = the cell's height) would: where the cells share one chord (a row parallel to
+  /// the move, away from its ends) their crossings are taken in SIMD lanes (teeth_line_run.cpp).
+  /// @param[in] y_mm        the row's centre Y (mm)
+  /// @param[in] i_lo, i_hi  the run's first and last column (inclusive)
+  /// @param[in,out] row     the grid row (um, +infinity = unreached); cell i lowered to the height
+  void sweep_run(double y_mm, int i_lo, int i_hi, float* row);
+
  private:
   // Prepares minima_, angles_ and low_mm_ for the chord [lo, hi] at offset w (cached).
   void prepare_chord(double w_mm, double lo, double hi);
@@ -72,6 +80,13 @@ class LineTeeth {
     BearingSeries series;
   };
   std::vector<std::array<Start, kMaxChordCandidates>> starts_;
+
+  // sweep_run: whether the lanes can take the chord at lateral offset w (cached per offset).
+  bool run_ready(double w_mm);
+  double run_key_w_ = std::numeric_limits<double>::quiet_NaN();  // offset run_ok_ is for
+  bool run_ok_ = false;
+  bool run_line_profile_ = false;  // the tooth profile is one line piece (flat, dished flat)
+  double run_w_ = 0.0, run_w2_ = 0.0, run_half_ = 0.0;  // height_mm's w, w^2 and half chord
 };
 
 }  // namespace cuspmap
