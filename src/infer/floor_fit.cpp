@@ -15,6 +15,7 @@
 #include <Eigen/Dense>
 
 #include "infer/band_means.h"
+#include "infer/fit_starts.h"
 #include <unsupported/Eigen/NonLinearOptimization>
 
 namespace cuspmap {
@@ -24,20 +25,27 @@ namespace {
 // 3 mm out by 0.1 um (well above float rounding of um heights); stepover and offset steps are a
 // small fraction of the period (derived). Forward differences: the sweep is piecewise smooth
 // (minimum over passes), so a step that spans a crest averages the two slopes.
-constexpr double kTiltStepDeg = 0.002;
-constexpr double kPeriodStepFraction = 2e-3;
+constexpr double kTiltStepDeg = 0.0005;
+constexpr double kPeriodStepFraction = 2e-4;
 // Start search: pass offsets tried per stepover, and tilt components (deg) tried (common
 // practice, no source: tram errors of 0.005-0.1 deg are what a shop meets).
-constexpr int kStartOffsets = 8;
-constexpr double kStartAlongDeg[] = {0.005, 0.03, 0.1};
-constexpr double kStartAcrossDeg[] = {-0.03, 0.0, 0.03};
+// Every pair of these (along >= 0, across of either sign) is a start (common practice, no
+// source: tram errors of 0.005-0.2 deg are what a shop meets); roughly geometric steps.
+constexpr double kStartTiltDeg[] = {0.0, 0.005, 0.01, 0.02, 0.035, 0.05, 0.075, 0.1, 0.15, 0.2};
 // Solver limits: sweeps the solver may run, and its relative tolerances (MINPACK defaults
 // tightened: the residual is in float um).
 constexpr int kMaxSolverSweeps = 200;
+// Solver evaluations (each with a Jacobian of up to 4 more sweeps) granted to each start before
+// the best one is polished: enough to leave a wrong basin's start visibly worse (derived from
+// the round trips), few enough to keep the command near a second.
+constexpr int kStartSolverEvaluations = 12;
 // Starts the solver runs from (the best of the start grid; derived: 4 covers the neighbouring
 // offset and tilt basins on the round-trip floors of tests/infer/floor_fit_test.cpp).
 constexpr size_t kSolverStarts = 4;
 constexpr double kSolverTolerance = 1e-7;
+// Restarts of the solver from its best optimum, and the relative cost gain that earns another.
+constexpr int kPolishRuns = 4;
+constexpr double kPolishGain = 1e-3;
 // Profile over the tilt direction: directions tried (every 15 deg from the lay, the along
 // sign being folded), sweeps each, and the cost rise that bounds the interval (9 residual
 // variances: 3 sigma of one parameter, Bates & Watts 1988 §6.1 likelihood intervals).
@@ -360,34 +368,33 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     if (fit.free[static_cast<size_t>(k)]) res.free_index.push_back(k);
   }
 
-  // Start search: the cost is periodic in the offset and has a fold at zero along-tilt (the
-  // revolving envelope is the same with the lowest point ahead or behind), so LM starts from the
-  // best of a coarse grid rather than from zero.
-  std::vector<std::pair<double, Eigen::VectorXd>> starts;
+  // Start search: the cost is periodic in the offset, has a fold at zero along-tilt (the
+  // revolving envelope is the same with the lowest point ahead or behind) and narrow basins in
+  // the offset where passes step, so LM starts from the best of a dense grid of tilts, each
+  // with its best offset, scanned on strip sweeps (fit_starts) rather than window sweeps.
   std::vector<double> alongs{0.0}, acrosses{0.0};
   if (tilt_shows) {
-    alongs.assign(std::begin(kStartAlongDeg), std::end(kStartAlongDeg));
-    acrosses.assign(std::begin(kStartAcrossDeg), std::end(kStartAcrossDeg));
+    alongs.assign(std::begin(kStartTiltDeg), std::end(kStartTiltDeg));
+    acrosses.clear();
+    for (const double t : kStartTiltDeg) {
+      acrosses.push_back(t);
+      if (t > 0.0) acrosses.push_back(-t);
+    }
     acrosses.push_back(across_tilt_start_deg(hf, e));
   }
-  for (int s = 0; s < kStartOffsets; ++s) {
-    for (double along : alongs) {
-      for (double across : acrosses) {
-        Eigen::VectorXd p = res.full;
-        p[kOffsetMm] = (s + 0.5) * stepover / kStartOffsets - 0.5 * stepover;
-        p[kTiltAlongDeg] = along;
-        p[kTiltAcrossDeg] = across;
-        Eigen::VectorXd f0;
-        Eigen::VectorXd xs(res.inputs());
-        for (int i = 0; i < res.inputs(); ++i) xs[i] = p[res.free_index[static_cast<size_t>(i)]];
-        FitResidual at = res;
-        at.full = p;
-        at(xs, f0);
-        res.sweeps = at.sweeps;
-        starts.emplace_back(f0.squaredNorm(), p);
-      }
-    }
+  Eigen::MatrixXd xy(static_cast<Eigen::Index>(w.index.size()), 2);
+  Eigen::VectorXd zs(static_cast<Eigen::Index>(w.index.size()));
+  for (size_t k = 0; k < w.index.size(); ++k) {
+    const int a = w.index[k] % w.measured.nx, b = w.index[k] / w.measured.nx;
+    xy.row(static_cast<Eigen::Index>(k)) << w.measured.x_mm(a), w.measured.y_mm(b);
+    zs[static_cast<Eigen::Index>(k)] = w.measured.z_um(b, a);
   }
+  int strip_sweeps = 0;
+  std::vector<std::pair<double, Eigen::VectorXd>> starts;
+  for (const FitStart& s : fit_starts(fit.model, res.full, xy, zs, alongs, acrosses, strip_sweeps)) {
+    starts.emplace_back(s.cost, s.params);
+  }
+  fit.evaluations += strip_sweeps;
   // The solver from the few best starts; the lowest optimum wins (the faint floors of small
   // tilts have neighbouring basins a single start can fall into).
   std::sort(starts.begin(), starts.end(),
@@ -403,7 +410,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       xk[i] = trial.full[trial.free_index[static_cast<size_t>(i)]];
     }
     Eigen::LevenbergMarquardt<FitResidual> lm(trial);
-    lm.parameters.maxfev = kMaxSolverSweeps;
+    lm.parameters.maxfev = kStartSolverEvaluations;
     lm.parameters.xtol = kSolverTolerance;
     lm.parameters.ftol = kSolverTolerance;
     const int status = static_cast<int>(lm.minimize(xk));
@@ -416,6 +423,42 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       best_x = trial.expand(xk);
       fit.solver_status = status;
     }
+  }
+  // The start runs end where LM's damping has grown on the crests' kinks; a fresh run from the
+  // best optimum (damping reset) continues along the stepover-offset valley until it gains
+  // nothing (common practice for restarted trust-region solvers, Nocedal & Wright 2006 §4).
+  // The prior is then weighed by the fit's own residual rms (the noise plus the model's error)
+  // rather than the measured rms, which let it pull a well-fitted stepover by its full sigma.
+  for (int polish = 0; polish < kPolishRuns; ++polish) {
+    FitResidual trial = base;
+    trial.full = best_x;
+    if (polish == 0) {
+      Eigen::VectorXd xb(trial.inputs()), fb;
+      for (int i = 0; i < trial.inputs(); ++i) xb[i] = best_x[trial.free_index[static_cast<size_t>(i)]];
+      trial(xb, fb);
+      res.prior_weight = std::min(res.prior_weight, rms(fb.head(trial.samples())) /
+                                                        std::max(e.stepover.sigma_mm, 1e-6 * stepover));
+      trial.prior_weight = res.prior_weight;
+      trial(xb, fb);
+      best_cost = fb.squaredNorm();
+    }
+    Eigen::VectorXd xk(trial.inputs());
+    for (int i = 0; i < trial.inputs(); ++i) xk[i] = best_x[trial.free_index[static_cast<size_t>(i)]];
+    Eigen::LevenbergMarquardt<FitResidual> lm(trial);
+    lm.parameters.maxfev = kMaxSolverSweeps;
+    lm.parameters.xtol = kSolverTolerance;
+    lm.parameters.ftol = kSolverTolerance;
+    const int status = static_cast<int>(lm.minimize(xk));
+    Eigen::VectorXd fk;
+    trial(xk, fk);
+    res.sweeps += trial.sweeps;
+    if (fk.squaredNorm() >= best_cost * (1.0 - kPolishGain)) {
+      if (fk.squaredNorm() < best_cost) best_cost = fk.squaredNorm(), best_x = trial.expand(xk);
+      break;
+    }
+    best_cost = fk.squaredNorm();
+    best_x = trial.expand(xk);
+    fit.solver_status = status;
   }
   res.full = best_x;
   // The envelope cannot tell the lowest point ahead from behind: report the fold >= 0.

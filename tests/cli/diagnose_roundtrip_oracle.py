@@ -46,14 +46,15 @@ tooth_marks = false
 
 # shape, diameter mm, stepover mm, tilt deg, toward deg, direction, field mm, noise um,
 # plane um/mm (x, y), missing fraction, pass --lay
-# Known failures (docs/diagnose.md), not run: 6 mm flat, s 1.5, 0.08 deg toward 250, zigzag
-# (the fit settles at 0.060 deg, stepover 1.516 while the surface estimate is 1.49986); 10 mm
-# flat, s 2, 0.02 deg toward 75 (stepover 2.0079 with a sigma of 3e-5: correlated model error).
 CASES = [
     ("flat", 3.0, 1.2, 0.05, 100.0, "one-way", 6.0, 0.02, (1.5, -0.7), 0.02, False),
     ("flat", 4.0, 1.8, 0.03, 300.0, "zigzag", 8.0, 0.01, (0.4, -0.2), 0.01, True),
     # Passes overlap past the rim's lowest point (4 sin 160 < 4 - 0.3): only the 3-sigma check.
     ("flat", 8.0, 0.6, 0.1, 160.0, "one-way", 5.0, 0.02, (0.0, 1.2), 0.02, False),
+    # issue_17: formerly a wrong basin of the start search (0.060 deg toward 286, s 1.516).
+    ("flat", 6.0, 1.5, 0.08, 250.0, "zigzag", 8.0, 0.02, (0.8, -0.4), 0.02, False),
+    # issue_17: formerly s 2.0079 with a sigma of 3e-5 (the solver stalled in the valley).
+    ("flat", 10.0, 2.0, 0.02, 75.0, "one-way", 10.0, 0.02, (0.8, -0.4), 0.02, False),
     ("ball", 6.0, 0.3, 0.0, 0.0, "zigzag", 3.0, 0.02, (2.0, -1.0), 0.01, True),
 ]
 
