@@ -41,7 +41,7 @@ kind = "raster"
 stepover = {s}
 direction = "{direction}"
 [sim]
-tooth_marks = false
+tooth_marks = {teeth_marks}
 """
 
 # shape, diameter mm, stepover mm, tilt deg, toward deg, direction, field mm, noise um,
@@ -56,6 +56,9 @@ CASES = [
     # issue_17: formerly s 2.0079 with a sigma of 3e-5 (the solver stalled in the valley).
     ("flat", 10.0, 2.0, 0.02, 75.0, "one-way", 10.0, 0.02, (0.8, -0.4), 0.02, False),
     ("ball", 6.0, 0.3, 0.0, 0.0, "zigzag", 3.0, 0.02, (2.0, -1.0), 0.01, True),
+    # issue_17, heel lifted: tooth-resolved, 0.05 deg toward the feed (+X); the envelope fit
+    # may only bound the along-feed tilt, and heel bound <= truth <= fit bound (derived).
+    ("flat", 6.0, 1.0, 0.05, 0.0, "heel", 5.0, 0.005, (0.8, 0.3), 0.01, True),
 ]
 
 
@@ -80,10 +83,14 @@ def main():
             extra = ""
             if shape == "flat":
                 extra = "dish_deg = 1\ntilt_deg = %g\ntilt_toward_deg = %g" % (tilt, toward)
+            heel = direction == "heel"
+            if heel:
+                direction = "one-way"
             job = os.path.join(tmp, "job%d.toml" % k)
             with open(job, "w") as f:
                 f.write(JOB.format(size=field + d, cell=cell, shape=shape, d=d, tool_extra=extra,
-                                   s=s, direction=direction))
+                                   s=s, direction=direction,
+                                   teeth_marks="true" if heel else "false"))
             out = os.path.join(tmp, "sim%d" % k)
             subprocess.run([exe, "simulate", job, "--out", out, "--threads", "2"], check=True,
                            stdout=subprocess.DEVNULL)
@@ -119,6 +126,23 @@ def main():
                   name + ": lay %g" % j["lay_deg"])
             if shape != "flat":
                 check(not fit["tilt_deg"]["fitted"], name + ": a ball's tilt was fitted")
+                continue
+            if heel:
+                along = fit["tilt_along_deg"]
+                check(fit["heel_lifted"], name + ": heel not read as lifted")
+                check(fit["heel_min_tilt_deg"] <= tilt, name + ": heel bound %g over the truth" %
+                      fit["heel_min_tilt_deg"])
+                if along["resolved"]:
+                    check(abs(along["value"] - tilt) <= max(0.1 * tilt, 3 * along["sigma"]),
+                          name + ": along tilt %g" % along["value"])
+                else:
+                    check(max(along["bound"], fit["heel_min_tilt_deg"]) >= tilt,
+                          name + ": along bound %g under the truth" % along["bound"])
+                    check(any("only bounds it" in line for line in fit["verdict"]),
+                          name + ": the verdict does not say the tilt is only bounded")
+                print("ok", name, "along %.4f +- %.4f (bound %.4f, heel >= %.4f), stepover %.4f" % (
+                    along["value"], along["sigma"], along["bound"], fit["heel_min_tilt_deg"],
+                    so["value"]))
                 continue
             t = fit["tilt_deg"]
             err = abs(t["value"] - tilt)
