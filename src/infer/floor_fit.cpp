@@ -78,6 +78,8 @@ struct Window {
   Eigen::MatrixXd q;             // thin Q of [1, x, y] over the finite samples
   Eigen::MatrixXd basis;         // [1, x - x0, y - y0]
   double x0_mm = 0.0, y0_mm = 0.0;
+  std::vector<double> v;         // finite sample -> across-lay coordinate (across_lay_mm), mm
+  double v_max_mm = 0.0;         // largest |v| plus a stepover (offsets move passes that far)
 };
 
 Window make_window(const Heightfield& hf, double stepover_mm) {
@@ -159,9 +161,20 @@ struct FitResidual : LmFunctor {
   // Measured minus simulated at the finite samples, before the plane is projected out.
   Eigen::VectorXd raw(const Eigen::VectorXd& p) const {
     ++sweeps;
-    const Heightfield sim = simulate_fit_window(*model, p);
     const int n = samples();
     Eigen::VectorXd r(n);
+    if (!model->tooth_marks) {
+      // The envelope is constant along the lay: one profile across it serves every sample.
+      const FitProfile prof = simulate_fit_profile(*model, p, window->v_max_mm);
+      for (int k = 0; k < n; ++k) {
+        const int i = window->index[k];
+        const double s = prof.at(window->v[static_cast<size_t>(k)]);
+        r[k] = window->measured.z_um(i / window->measured.nx, i % window->measured.nx) -
+               (std::isfinite(s) ? s : 0.0);
+      }
+      return r;
+    }
+    const Heightfield sim = simulate_fit_window(*model, p);
     for (int k = 0; k < n; ++k) {
       const int i = window->index[k];
       const float s = sim.z_um(i / sim.nx, i % sim.nx);
@@ -330,7 +343,7 @@ void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit) 
 
 FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const FloorFitOptions& o) {
   const double stepover = e.stepover.period_mm;
-  const Window w = make_window(hf, stepover);
+  Window w = make_window(hf, stepover);
   FloorFit fit;
   fit.model.cutter = o.cutter;
   fit.model.cutter.tilt_deg = 0.0;
@@ -339,6 +352,14 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   fit.model.direction = o.direction;
   fit.model.window = w.patch;
   fit.model.threads = o.threads;
+  double v_abs = 0.0;
+  for (const int i : w.index) {
+    const double v = across_lay_mm(fit.model, w.measured.x_mm(i % w.measured.nx),
+                                   w.measured.y_mm(i / w.measured.nx));
+    w.v.push_back(v);
+    v_abs = std::max(v_abs, std::abs(v));
+  }
+  w.v_max_mm = v_abs + stepover;
   fit.sample_mm = w.measured.cell_mm;
   fit.samples = static_cast<int>(w.index.size());
   // A ball is tilt-invariant apart from the contact shift (DESIGN.md): tilt stays fixed at 0.
@@ -496,6 +517,19 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     if (jtj(a, a) <= 0.0) {
       fit.covariance(res.free_index[a], res.free_index[a]) =
           std::numeric_limits<double>::infinity();
+    }
+  }
+  // The profile took one magnitude per direction; each carries its own (linearised) sigma, so
+  // the interval is widened by kProfileSigmas of it (derived: the magnitude's interval at a
+  // fixed direction).
+  const double t_fit = std::hypot(fit.params[kTiltAlongDeg], fit.params[kTiltAcrossDeg]);
+  if (tilt_shows && t_fit > 0.0) {
+    const Eigen::Vector2d g(fit.params[kTiltAlongDeg] / t_fit, fit.params[kTiltAcrossDeg] / t_fit);
+    const double var_t = g.dot(fit.covariance.topLeftCorner<2, 2>() * g);
+    if (std::isfinite(var_t) && var_t > 0.0) {
+      const double widen = kProfileSigmas * std::sqrt(var_t);
+      fit.tilt_interval_deg.first = std::max(0.0, fit.tilt_interval_deg.first - widen);
+      fit.tilt_interval_deg.second += widen;
     }
   }
   fit.residual_rms_um = rms(f.head(res.samples()));

@@ -156,6 +156,13 @@ def main():
                 de = min(angle_err(fit["tilt_toward_deg"]["value"], toward),
                          angle_err(fit["tilt_toward_alt_deg"], toward))
                 check(de <= 10.0, name + ": direction off by %g deg" % de)
+            else:
+                # Ridge regime: the verdict must say the tilt is only an interval (issue 17).
+                check(fit["tilt_interval_only"] and
+                      any("known only as an interval" in line for line in fit["verdict"]),
+                      name + ": the verdict does not say the tilt is only an interval")
+                lo, hi = fit["tilt_interval_deg"]
+                check(lo <= tilt <= hi, name + ": interval [%g, %g] misses the truth" % (lo, hi))
             gx = fit["setup_plane"]["gx_um_per_mm"]
             check(abs(gx["value"] - plane[0]) <= 0.05, name + ": plane gx %g" % gx["value"])
             print("  surface stepover %g +- %g" % (j["stepover_mm"], j["stepover_sigma_mm"]))

@@ -205,6 +205,21 @@ TEST_CASE("fit_floor: faint cusp, the uncertainty covers the error", "[infer]") 
       REQUIRE(std::abs(combo_fit - combo_true) <= 0.1 * combo_true);
       // The direction is reported as uncertain (the linearised 0.08 deg was not).
       REQUIRE(f.tilt_toward_deg.sigma >= 5.0);
+      // issue_17: the verdict says in words that only the interval and the combination are
+      // known, and the combination it names is the fitted one (derived, as above).
+      const FitVerdict v = fit_verdict(f, fit, e);
+      REQUIRE(v.tilt_interval_only);
+      bool says_interval = false;
+      for (const std::string& line : v.lines) {
+        says_interval |= line.find("known only as an interval") != std::string::npos &&
+                         line.find("tan(tilt) / cos^2(direction from the passes)") !=
+                             std::string::npos;
+      }
+      REQUIRE(says_interval);
+      REQUIRE_NEAR(std::tan(v.ridge_tilt_deg * std::numbers::pi / 180.0),
+                   std::tan(f.tilt_deg.value * std::numbers::pi / 180.0) /
+                       std::pow(std::cos(dir_fit), 2),
+                   1e-9);
     }
   }
 }
