@@ -76,7 +76,8 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
   // cos^2(direction from the lay) (floor_fit's profile over the direction): say the interval and
   // the combination plainly rather than a tilt that looks measured.
   const auto [t_lo, t_hi] = fit.tilt_interval_deg;
-  if (f.tilt_deg.fitted && f.tilt_deg.value > 0.0 &&
+  // (An unresolved tilt is reported by its bound above; the interval would read as a finding.)
+  if (f.tilt_deg.resolved && f.tilt_deg.value > 0.0 &&
       t_hi - t_lo > kIntervalOnlyWidth * f.tilt_deg.value) {
     const double dir = std::atan2(f.tilt_across_deg.value, f.tilt_along_deg.value);
     v.tilt_interval_only = true;

@@ -283,6 +283,46 @@ double correlation_factor(const Window& w, const Eigen::VectorXd& r) {
   return factor;
 }
 
+// Per-sample variance seen through the lines along the lay. The envelope is constant along the
+// lay, so the parameters depend on the samples only through the residual's mean along each line
+// (least squares, derived); a model error the same along a line (the mean profile of tooth
+// marks, which the envelope lacks) does not average out there, where noise does. With n_b
+// samples in line b and mean residual rb: sum n_b rb^2 / (lines - p - 3) estimates sigma^2 for
+// noise (var(rb) = sigma^2 / n_b) and grows with such an error; the lines' own correlation
+// across the lay is counted as in correlation_factor (Geyer 1992). Lines are bins one window
+// sample wide across the lay.
+double line_mean_variance(const Window& w, const Eigen::VectorXd& r, int params) {
+  if (w.v.empty()) return 0.0;
+  const double v_lo = *std::min_element(w.v.begin(), w.v.end());
+  const double bin = w.measured.cell_mm;
+  std::vector<double> sum, count;
+  for (size_t k = 0; k < w.v.size(); ++k) {
+    const size_t b = static_cast<size_t>(std::floor((w.v[k] - v_lo) / bin));
+    if (b >= sum.size()) sum.resize(b + 1, 0.0), count.resize(b + 1, 0.0);
+    sum[b] += r[static_cast<Eigen::Index>(k)];
+    count[b] += 1.0;
+  }
+  std::vector<double> mean;
+  double weighted = 0.0;
+  for (size_t b = 0; b < sum.size(); ++b) {
+    if (count[b] <= 0.0) continue;
+    mean.push_back(sum[b] / count[b]);
+    weighted += count[b] * mean.back() * mean.back();
+  }
+  const int lines = static_cast<int>(mean.size());
+  double r0 = 0.0;
+  for (double m : mean) r0 += m * m;
+  double tau = 1.0;
+  for (int lag = 1; lag <= kMaxCorrelationLags && lag < lines && r0 > 0.0; ++lag) {
+    double c = 0.0;
+    for (int b = 0; b + lag < lines; ++b) c += mean[b] * mean[b + lag];
+    const double rho = (c / (lines - lag)) / (r0 / lines);
+    if (rho <= 0.0) break;
+    tau += 2.0 * rho;
+  }
+  return weighted / std::max(1, lines - params - 3) * tau;
+}
+
 // Profile likelihood over the tilt direction (Bates & Watts 1988 §6.1): the cost re-minimised
 // over the magnitude and pass offset with the direction held at each of kProfileDirections;
 // directions whose cost stays within kProfileSigmas^2 residual variances of the optimum are
@@ -500,8 +540,9 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   // Residuals that the model leaves with structure (feed marks, a model error repeating every
   // pass) are correlated: the variance is scaled by the residual's integrated autocorrelation
   // time along both axes (m / m_eff; Box & Jenkins, Time Series Analysis, §2.1.6), 1 for noise.
-  const double var =
-      f.head(res.samples()).squaredNorm() / dof * correlation_factor(w, f.head(res.samples()));
+  const double var = std::max(
+      f.head(res.samples()).squaredNorm() / dof * correlation_factor(w, f.head(res.samples())),
+      line_mean_variance(w, f.head(res.samples()), res.inputs()));
   fit.correlation_factor = correlation_factor(w, f.head(res.samples()));
   const Eigen::MatrixXd jtj = jac.transpose() * jac;
   const Eigen::MatrixXd inv = jtj.completeOrthogonalDecomposition().pseudoInverse();
