@@ -56,10 +56,40 @@ CASES = [
     # issue_17: formerly s 2.0079 with a sigma of 3e-5 (the solver stalled in the valley).
     ("flat", 10.0, 2.0, 0.02, 75.0, "one-way", 10.0, 0.02, (0.8, -0.4), 0.02, False),
     ("ball", 6.0, 0.3, 0.0, 0.0, "zigzag", 3.0, 0.02, (2.0, -1.0), 0.01, True),
+    # issue_17, stylus tips (ISO 3274 nominal 2 and 5 um) on 5 um cells: each row closed by the
+    # tip before the damage, `--stylus-tip` given; tilt and stepover within tolerance.
+    ("flat", 3.0, 1.2, 0.06, 120.0, "one-way", 5.0, 0.01, (0.5, 0.2), 0.01, False,
+     {"cell": 0.005, "tip_um": 5.0}),
+    ("flat", 3.0, 0.9, 0.04, 250.0, "zigzag", 4.0, 0.01, (-0.3, 0.6), 0.01, True,
+     {"cell": 0.005, "tip_um": 2.0}),
     # issue_17, heel lifted: tooth-resolved, 0.05 deg toward the feed (+X); the envelope fit
     # may only bound the along-feed tilt, and heel bound <= truth <= fit bound (derived).
     ("flat", 6.0, 1.0, 0.05, 0.0, "heel", 5.0, 0.005, (0.8, 0.3), 0.01, True),
 ]
+
+
+def stylus_rows(z, cell_mm, tip_um):
+    """Each row (a trace along X) as a stylus of tip radius tip_um reports it: the morphological
+    closing by a disk (ISO 16610-41:2015; ISO 3274:1996 nominal tips 2, 5, 10 um): dilation by
+    the tip's lower half-circle, then erosion by the same element. Edges see a one-sided
+    element (as texture/stylus_closing)."""
+    reach = int(math.floor(tip_um / (cell_mm * 1000.0)))
+    ks = range(-reach, reach + 1)
+    h = {k: tip_um - math.sqrt(max(tip_um ** 2 - (k * cell_mm * 1000.0) ** 2, 0.0)) for k in ks}
+
+    def shifted(a, k, fill):
+        out = np.full_like(a, fill)
+        if k > 0:
+            out[:, :-k] = a[:, k:]
+        elif k < 0:
+            out[:, -k:] = a[:, :k]
+        else:
+            out[:] = a
+        return out
+    # The tip's lowest point resting over x: max over k of z(x + k) - h(k) (dilation); the
+    # reported height at y: the lowest tip surface over it, min over k of up(y + k) + h(k).
+    up = np.max([shifted(z, k, -np.inf) - h[k] for k in ks], axis=0)
+    return np.min([shifted(up, k, np.inf) + h[k] for k in ks], axis=0)
 
 
 def check(cond, what):
@@ -77,9 +107,10 @@ def main():
     exe = sys.argv[1]
     rng = np.random.default_rng(17)
     with tempfile.TemporaryDirectory() as tmp:
-        for k, (shape, d, s, tilt, toward, direction, field, noise, plane, missing, lay) in \
-                enumerate(CASES):
-            cell = 0.02
+        for k, case in enumerate(CASES):
+            shape, d, s, tilt, toward, direction, field, noise, plane, missing, lay = case[:11]
+            opts = case[11] if len(case) > 11 else {}
+            cell = opts.get("cell", 0.02)
             extra = ""
             if shape == "flat":
                 extra = "dish_deg = 1\ntilt_deg = %g\ntilt_toward_deg = %g" % (tilt, toward)
@@ -97,6 +128,8 @@ def main():
             z = np.load(os.path.join(out, "height.npy")).astype(np.float64)
             m = int(round(0.5 * d / cell))
             z = z[m:-m, m:-m]
+            if "tip_um" in opts:
+                z = stylus_rows(z, cell, opts["tip_um"])
             ny, nx = z.shape
             y, x = np.mgrid[0:ny, 0:nx] * cell
             z = z + rng.normal(0.0, noise, z.shape) + plane[0] * x + plane[1] * y
@@ -109,6 +142,8 @@ def main():
                 cmd += ["--dish", "1"]
             if lay:
                 cmd += ["--lay", "0"]
+            if "tip_um" in opts:
+                cmd += ["--stylus-tip", "%gum" % opts["tip_um"]]
             r = subprocess.run(cmd, capture_output=True, text=True)
             name = "case %d (%s %g mm, s %g, tilt %g toward %g, %s)" % (
                 k, shape, d, s, tilt, toward, direction)
