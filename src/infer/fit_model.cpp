@@ -50,6 +50,42 @@ Toolpath fit_passes(const FitModel& model, const Eigen::VectorXd& p) {
   return path;
 }
 
+double FitProfile::at(double v_mm) const {
+  const double t = (v_mm - v0_mm) / strip.cell_mm;
+  const int j = std::clamp(static_cast<int>(std::floor(t)), 0, strip.ny - 2);
+  const double f = t - j;
+  return (1.0 - f) * strip.z_um(j, 0) + f * strip.z_um(j + 1, 0);
+}
+
+double across_lay_mm(const FitModel& model, double x_mm, double y_mm) {
+  const Patch& w = model.window;
+  const double cx = w.origin_x_mm + 0.5 * w.size_x_mm, cy = w.origin_y_mm + 0.5 * w.size_y_mm;
+  return -(x_mm - cx) * std::sin(model.lay_deg * kDegToRad) +
+         (y_mm - cy) * std::cos(model.lay_deg * kDegToRad);
+}
+
+FitProfile simulate_fit_profile(const FitModel& model, const Eigen::VectorXd& p, double v_max_mm) {
+  // Passes along +X (lay 0, the tilt turned with them: fitted_cutter adds the lay), one cell
+  // wide, across the passes along Y, centred on 0 so that the offset means what it does in the
+  // window.
+  FitModel strip = model;
+  strip.lay_deg = 0.0;
+  strip.threads = 1;  // a strip of a few thousand cells: threads cost more than they save
+  const double h = model.window.cell_mm / kProfileCellsPerSample;
+  const int cells = static_cast<int>(std::ceil(2.0 * v_max_mm / h)) + 2;
+  strip.window.cell_mm = h;
+  strip.window.size_x_mm = 0.5 * h;
+  strip.window.origin_x_mm = -0.5 * h;
+  strip.window.size_y_mm = (cells - 0.5) * h;
+  strip.window.origin_y_mm = -0.5 * strip.window.size_y_mm;
+  FitProfile f;
+  f.strip = simulate_fit_window(strip, p);
+  // Cell j's centre lies at y = origin + (j + 0.5) h; the passes are placed about the strip
+  // window's centre, origin + size / 2 = 0.
+  f.v0_mm = f.strip.y_mm(0);
+  return f;
+}
+
 Heightfield simulate_fit_window(const FitModel& model, const Eigen::VectorXd& p) {
   SimSpec sim;
   sim.tooth_marks = model.tooth_marks;

@@ -46,6 +46,30 @@ Cutter fitted_cutter(const FitModel& model, const Eigen::VectorXd& p);
 /// @param[in] p      parameters (kFitParams), stepover > 0
 Toolpath fit_passes(const FitModel& model, const Eigen::VectorXd& p);
 
+/// The model's floor as a profile across the lay: straight passes longer than the window leave a
+/// floor constant along them (derived: the revolving envelope of a line move), so one strip one
+/// cell wide across the passes holds it at every window sample (not for tooth_marks models).
+struct FitProfile {
+  Heightfield strip;       ///< 1 x n cells along Y (passes along +X), um (NaN where no pass)
+  double v0_mm = 0.0;      ///< across-lay coordinate of the strip's first cell centre, mm
+  /// Height at across-lay coordinate v (mm; as across_lay_mm), linearly interpolated; NaN
+  /// where no pass reached.
+  double at(double v_mm) const;
+};
+
+/// Strip cells per window sample: linear interpolation between strip cells then errs by at most
+/// (slope jump at a crest) x cell / 4, under 0.005 um at the round trips' 3 um/mm slope jumps
+/// and 0.06 mm samples (derived).
+inline constexpr int kProfileCellsPerSample = 8;
+
+/// Across-lay coordinate of a point, mm, from the window centre fit_passes places passes about
+/// (pass k's centre at offset + k stepover).
+double across_lay_mm(const FitModel& model, double x_mm, double y_mm);
+
+/// The floor across the lay for |v| <= v_max_mm, one sweep of a strip of cells of
+/// window.cell_mm / kProfileCellsPerSample. @param[in] p parameters (kFitParams)
+FitProfile simulate_fit_profile(const FitModel& model, const Eigen::VectorXd& p, double v_max_mm);
+
 /// Floor of the model over the window, um (NaN where no pass reached).
 Heightfield simulate_fit_window(const FitModel& model, const Eigen::VectorXd& p);
 

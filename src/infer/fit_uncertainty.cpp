@@ -35,8 +35,30 @@ double wrap360(double deg) {
 FittedErrors fitted_errors(const FloorFit& fit) {
   FittedErrors e;
   const Eigen::VectorXd& p = fit.params;
-  const Eigen::MatrixXd& c = fit.covariance;
   const bool tilt_fitted = fit.free[kTiltAlongDeg];
+  // A weak fit's residual is mostly what the model lacks (tooth marks, runout), the same in every
+  // pass, so no residual statistic sees the bias it puts on the along-feed tilt, which changes
+  // the floor by only tan(tilt) (a - sqrt(a^2 - s^2 / 4)) (a = rim radius; derived, first-order
+  // tilt): an along tilt whose whole effect is under the residual's rms cannot be told from it,
+  // and that tilt is its sigma. A strong fit (noise-like residual) keeps its own covariance.
+  double var_along = fit.covariance(0, 0);
+  if (tilt_fitted && fit.measured_rms_um > 0.0) {
+    const double ratio = fit.residual_rms_um / fit.measured_rms_um;
+    const double a = fit.model.cutter.radius_mm();
+    const double s = p[kStepoverMm];
+    const double depth_mm = s < 2.0 * a ? a - std::sqrt(a * a - 0.25 * s * s) : a;
+    if (1.0 - ratio * ratio < kWellExplained && depth_mm > 0.0) {
+      const double sigma = std::atan(fit.residual_rms_um / 1000.0 / depth_mm) * kRadToDeg;
+      var_along = std::max(var_along, sigma * sigma);
+    }
+  }
+  Eigen::MatrixXd c = fit.covariance;
+  if (var_along > c(0, 0) && c(0, 0) > 0.0 && std::isfinite(c(0, 0))) {
+    // Keep the correlations: scale row and column 0.
+    const double k = std::sqrt(var_along / c(0, 0));
+    c.row(0) *= k;
+    c.col(0) *= k;
+  }
   e.tilt_along_deg = value_of(p[kTiltAlongDeg], c(0, 0), tilt_fitted);
   e.tilt_across_deg = value_of(p[kTiltAcrossDeg], c(1, 1), tilt_fitted);
   e.stepover_mm = value_of(p[kStepoverMm], c(2, 2), true);

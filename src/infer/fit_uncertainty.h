@@ -16,6 +16,12 @@ namespace cuspmap {
 inline constexpr double kResolvedSigmas = 3.0;
 inline constexpr double kBoundSigmas = 2.0;
 
+/// Share of the window's variance the model must explain for its values to stand on their own;
+/// below it the marks are faint against noise and neighbouring parameter sets fit about as well
+/// (common practice, no source; measured: a 0.5 um step under 0.02 um noise is 82 % explained
+/// and recovered within 1 %, a 0.04 um cusp under 0.01 um noise 64 % with a tilt 20 % off).
+inline constexpr double kWellExplained = 0.75;
+
 /// One fitted number.
 struct FittedValue {
   double value = 0.0;  ///< best fit

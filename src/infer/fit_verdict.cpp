@@ -72,6 +72,25 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
     }
     v.lines.push_back(s);
   }
+  // Where passes overlap past the rim's lowest point the cusps fix only tan(tilt) /
+  // cos^2(direction from the lay) (floor_fit's profile over the direction): say the interval and
+  // the combination plainly rather than a tilt that looks measured.
+  const auto [t_lo, t_hi] = fit.tilt_interval_deg;
+  // (An unresolved tilt is reported by its bound above; the interval would read as a finding.)
+  if (f.tilt_deg.resolved && f.tilt_deg.value > 0.0 &&
+      t_hi - t_lo > kIntervalOnlyWidth * f.tilt_deg.value) {
+    const double dir = std::atan2(f.tilt_across_deg.value, f.tilt_along_deg.value);
+    v.tilt_interval_only = true;
+    v.ridge_tilt_deg =
+        std::atan(std::tan(f.tilt_deg.value * kDegToRad) / (std::cos(dir) * std::cos(dir))) /
+        kDegToRad;
+    v.lines.push_back(
+        "the tilt is known only as an interval: " + n3(t_lo) + " to " + n3(t_hi) +
+        " deg (3 sigma; best fit " + n3(f.tilt_deg.value) +
+        " deg); the passes overlap past the end face's lowest point, so this floor fixes only "
+        "tan(tilt) / cos^2(direction from the passes), equal to the tan of " +
+        n3(v.ridge_tilt_deg) + " deg, not the tilt and its direction apart");
+  }
   if (f.tilt_deg.fitted && f.tilt_across_deg.resolved) {
     const double step_um = stepover * kUmPerMm * std::tan(std::abs(f.tilt_across_deg.value) * kDegToRad);
     v.lines.push_back("across the feed " + n3(std::abs(f.tilt_across_deg.value)) + " deg (+-" +

@@ -18,11 +18,10 @@ namespace cuspmap {
 /// no source: steps below 0.1 um are under what eye and fingernail find on a machined floor).
 inline constexpr double kInvisibleStepUm = 0.1;
 
-/// Share of the window's variance the model must explain for its values to stand on their own;
-/// below it the marks are faint against noise and neighbouring parameter sets fit about as well
-/// (common practice, no source; measured: a 0.5 um step under 0.02 um noise is 82 % explained
-/// and recovered within 1 %, a 0.04 um cusp under 0.01 um noise 64 % with a tilt 20 % off).
-inline constexpr double kWellExplained = 0.75;
+/// Relative width of the profiled tilt interval, (hi - lo) / value, above which the tilt is
+/// reported as an interval: a tilt known to 10 % (issue 17's tolerance) spans 0.2 at 1 sigma
+/// (derived), so wider than that the floor fixes only a combination of tilt and direction.
+inline constexpr double kIntervalOnlyWidth = 0.2;
 
 /// What the fit tells, in words and the numbers behind them.
 struct FitVerdict {
@@ -33,6 +32,9 @@ struct FitVerdict {
   double tram_target_deg = 0.0;    ///< tilt across the feed that leaves kInvisibleStepUm
   double explained = 0.0;          ///< 1 - (residual rms / measured rms)^2 over the window
   bool weak = false;               ///< explained < kWellExplained: values are rough
+  bool tilt_interval_only = false;  ///< the tilt is known only as tilt_interval_deg (the ridge)
+  double ridge_tilt_deg = 0.0;     ///< atan(tan(tilt) / cos^2(direction from the lay)), the
+                                   ///< combination the overlapping passes' cusps fix, deg
 };
 
 /// Words for the fit.

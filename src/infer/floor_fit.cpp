@@ -15,6 +15,8 @@
 #include <Eigen/Dense>
 
 #include "infer/band_means.h"
+#include "infer/fit_starts.h"
+#include "infer/residual_correlation.h"
 #include <unsupported/Eigen/NonLinearOptimization>
 
 namespace cuspmap {
@@ -24,29 +26,33 @@ namespace {
 // 3 mm out by 0.1 um (well above float rounding of um heights); stepover and offset steps are a
 // small fraction of the period (derived). Forward differences: the sweep is piecewise smooth
 // (minimum over passes), so a step that spans a crest averages the two slopes.
-constexpr double kTiltStepDeg = 0.002;
-constexpr double kPeriodStepFraction = 2e-3;
+constexpr double kTiltStepDeg = 0.0005;
+constexpr double kPeriodStepFraction = 2e-4;
 // Start search: pass offsets tried per stepover, and tilt components (deg) tried (common
 // practice, no source: tram errors of 0.005-0.1 deg are what a shop meets).
-constexpr int kStartOffsets = 8;
-constexpr double kStartAlongDeg[] = {0.005, 0.03, 0.1};
-constexpr double kStartAcrossDeg[] = {-0.03, 0.0, 0.03};
+// Every pair of these (along >= 0, across of either sign) is a start (common practice, no
+// source: tram errors of 0.005-0.2 deg are what a shop meets); roughly geometric steps.
+constexpr double kStartTiltDeg[] = {0.0, 0.005, 0.01, 0.02, 0.035, 0.05, 0.075, 0.1, 0.15, 0.2};
 // Solver limits: sweeps the solver may run, and its relative tolerances (MINPACK defaults
 // tightened: the residual is in float um).
 constexpr int kMaxSolverSweeps = 200;
+// Solver evaluations (each with a Jacobian of up to 4 more sweeps) granted to each start before
+// the best one is polished: enough to leave a wrong basin's start visibly worse (derived from
+// the round trips), few enough to keep the command near a second.
+constexpr int kStartSolverEvaluations = 12;
 // Starts the solver runs from (the best of the start grid; derived: 4 covers the neighbouring
 // offset and tilt basins on the round-trip floors of tests/infer/floor_fit_test.cpp).
 constexpr size_t kSolverStarts = 4;
 constexpr double kSolverTolerance = 1e-7;
+// Restarts of the solver from its best optimum, and the relative cost gain that earns another.
+constexpr int kPolishRuns = 4;
+constexpr double kPolishGain = 1e-3;
 // Profile over the tilt direction: directions tried (every 15 deg from the lay, the along
 // sign being folded), sweeps each, and the cost rise that bounds the interval (9 residual
 // variances: 3 sigma of one parameter, Bates & Watts 1988 §6.1 likelihood intervals).
 constexpr int kProfileDirections = 13;
 constexpr int kProfileSweeps = 30;
 constexpr double kProfileSigmas = 3.0;
-// Lags summed for the residual's autocorrelation time (a pass is at most ~10-20 samples wide in
-// the window: beyond it the repeat is the model's, not the noise's; derived).
-constexpr int kMaxCorrelationLags = 20;
 
 // Start for the tilt across the feed, deg: inside each pass band the floor is the tilted end
 // face, so the band means across the lay rise at -tan(across) (+ = toward lay + 90 deg, where
@@ -70,6 +76,8 @@ struct Window {
   Eigen::MatrixXd q;             // thin Q of [1, x, y] over the finite samples
   Eigen::MatrixXd basis;         // [1, x - x0, y - y0]
   double x0_mm = 0.0, y0_mm = 0.0;
+  std::vector<double> v;         // finite sample -> across-lay coordinate (across_lay_mm), mm
+  double v_max_mm = 0.0;         // largest |v| plus a stepover (offsets move passes that far)
 };
 
 Window make_window(const Heightfield& hf, double stepover_mm) {
@@ -151,9 +159,20 @@ struct FitResidual : LmFunctor {
   // Measured minus simulated at the finite samples, before the plane is projected out.
   Eigen::VectorXd raw(const Eigen::VectorXd& p) const {
     ++sweeps;
-    const Heightfield sim = simulate_fit_window(*model, p);
     const int n = samples();
     Eigen::VectorXd r(n);
+    if (!model->tooth_marks) {
+      // The envelope is constant along the lay: one profile across it serves every sample.
+      const FitProfile prof = simulate_fit_profile(*model, p, window->v_max_mm);
+      for (int k = 0; k < n; ++k) {
+        const int i = window->index[k];
+        const double s = prof.at(window->v[static_cast<size_t>(k)]);
+        r[k] = window->measured.z_um(i / window->measured.nx, i % window->measured.nx) -
+               (std::isfinite(s) ? s : 0.0);
+      }
+      return r;
+    }
+    const Heightfield sim = simulate_fit_window(*model, p);
     for (int k = 0; k < n; ++k) {
       const int i = window->index[k];
       const float s = sim.z_um(i / sim.nx, i % sim.nx);
@@ -227,41 +246,6 @@ double rms(const Eigen::VectorXd& v) {
   return v.size() ? std::sqrt(v.squaredNorm() / static_cast<double>(v.size())) : 0.0;
 }
 
-// m / m_eff of residuals r at the window's finite samples: the product over the two axes of
-// 1 + 2 sum_k rho(k), summed over the initial positive run of lags (Geyer 1992's initial
-// positive sequence), at most kMaxCorrelationLags samples.
-double correlation_factor(const Window& w, const Eigen::VectorXd& r) {
-  const int nx = w.measured.nx, ny = w.measured.ny;
-  std::vector<double> grid(static_cast<size_t>(nx) * ny, std::numeric_limits<double>::quiet_NaN());
-  for (size_t k = 0; k < w.index.size(); ++k) grid[w.index[k]] = r[static_cast<int>(k)];
-  double factor = 1.0;
-  for (const bool along_x : {true, false}) {
-    double tau = 1.0, r0 = 0.0;
-    for (double v : grid) {
-      if (std::isfinite(v)) r0 += v * v;
-    }
-    if (r0 <= 0.0) continue;
-    const double n0 = static_cast<double>(w.index.size());
-    for (int lag = 1; lag <= kMaxCorrelationLags; ++lag) {
-      double sum = 0.0, pairs = 0.0;
-      for (int b = 0; b + (along_x ? 0 : lag) < ny; ++b) {
-        for (int a = 0; a + (along_x ? lag : 0) < nx; ++a) {
-          const double u = grid[static_cast<size_t>(b) * nx + a];
-          const double v = grid[static_cast<size_t>(b + (along_x ? 0 : lag)) * nx + a +
-                                (along_x ? lag : 0)];
-          if (std::isfinite(u) && std::isfinite(v)) sum += u * v, pairs += 1.0;
-        }
-      }
-      if (pairs <= 0.0) break;
-      const double rho = (sum / pairs) / (r0 / n0);
-      if (rho <= 0.0) break;
-      tau += 2.0 * rho;
-    }
-    factor *= tau;
-  }
-  return factor;
-}
-
 // Profile likelihood over the tilt direction (Bates & Watts 1988 §6.1): the cost re-minimised
 // over the magnitude and pass offset with the direction held at each of kProfileDirections;
 // directions whose cost stays within kProfileSigmas^2 residual variances of the optimum are
@@ -322,7 +306,7 @@ void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit) 
 
 FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const FloorFitOptions& o) {
   const double stepover = e.stepover.period_mm;
-  const Window w = make_window(hf, stepover);
+  Window w = make_window(hf, stepover);
   FloorFit fit;
   fit.model.cutter = o.cutter;
   fit.model.cutter.tilt_deg = 0.0;
@@ -331,6 +315,14 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   fit.model.direction = o.direction;
   fit.model.window = w.patch;
   fit.model.threads = o.threads;
+  double v_abs = 0.0;
+  for (const int i : w.index) {
+    const double v = across_lay_mm(fit.model, w.measured.x_mm(i % w.measured.nx),
+                                   w.measured.y_mm(i / w.measured.nx));
+    w.v.push_back(v);
+    v_abs = std::max(v_abs, std::abs(v));
+  }
+  w.v_max_mm = v_abs + stepover;
   fit.sample_mm = w.measured.cell_mm;
   fit.samples = static_cast<int>(w.index.size());
   // A ball is tilt-invariant apart from the contact shift (DESIGN.md): tilt stays fixed at 0.
@@ -360,34 +352,33 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     if (fit.free[static_cast<size_t>(k)]) res.free_index.push_back(k);
   }
 
-  // Start search: the cost is periodic in the offset and has a fold at zero along-tilt (the
-  // revolving envelope is the same with the lowest point ahead or behind), so LM starts from the
-  // best of a coarse grid rather than from zero.
-  std::vector<std::pair<double, Eigen::VectorXd>> starts;
+  // Start search: the cost is periodic in the offset, has a fold at zero along-tilt (the
+  // revolving envelope is the same with the lowest point ahead or behind) and narrow basins in
+  // the offset where passes step, so LM starts from the best of a dense grid of tilts, each
+  // with its best offset, scanned on strip sweeps (fit_starts) rather than window sweeps.
   std::vector<double> alongs{0.0}, acrosses{0.0};
   if (tilt_shows) {
-    alongs.assign(std::begin(kStartAlongDeg), std::end(kStartAlongDeg));
-    acrosses.assign(std::begin(kStartAcrossDeg), std::end(kStartAcrossDeg));
+    alongs.assign(std::begin(kStartTiltDeg), std::end(kStartTiltDeg));
+    acrosses.clear();
+    for (const double t : kStartTiltDeg) {
+      acrosses.push_back(t);
+      if (t > 0.0) acrosses.push_back(-t);
+    }
     acrosses.push_back(across_tilt_start_deg(hf, e));
   }
-  for (int s = 0; s < kStartOffsets; ++s) {
-    for (double along : alongs) {
-      for (double across : acrosses) {
-        Eigen::VectorXd p = res.full;
-        p[kOffsetMm] = (s + 0.5) * stepover / kStartOffsets - 0.5 * stepover;
-        p[kTiltAlongDeg] = along;
-        p[kTiltAcrossDeg] = across;
-        Eigen::VectorXd f0;
-        Eigen::VectorXd xs(res.inputs());
-        for (int i = 0; i < res.inputs(); ++i) xs[i] = p[res.free_index[static_cast<size_t>(i)]];
-        FitResidual at = res;
-        at.full = p;
-        at(xs, f0);
-        res.sweeps = at.sweeps;
-        starts.emplace_back(f0.squaredNorm(), p);
-      }
-    }
+  Eigen::MatrixXd xy(static_cast<Eigen::Index>(w.index.size()), 2);
+  Eigen::VectorXd zs(static_cast<Eigen::Index>(w.index.size()));
+  for (size_t k = 0; k < w.index.size(); ++k) {
+    const int a = w.index[k] % w.measured.nx, b = w.index[k] / w.measured.nx;
+    xy.row(static_cast<Eigen::Index>(k)) << w.measured.x_mm(a), w.measured.y_mm(b);
+    zs[static_cast<Eigen::Index>(k)] = w.measured.z_um(b, a);
   }
+  int strip_sweeps = 0;
+  std::vector<std::pair<double, Eigen::VectorXd>> starts;
+  for (const FitStart& s : fit_starts(fit.model, res.full, xy, zs, alongs, acrosses, strip_sweeps)) {
+    starts.emplace_back(s.cost, s.params);
+  }
+  fit.evaluations += strip_sweeps;
   // The solver from the few best starts; the lowest optimum wins (the faint floors of small
   // tilts have neighbouring basins a single start can fall into).
   std::sort(starts.begin(), starts.end(),
@@ -403,7 +394,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       xk[i] = trial.full[trial.free_index[static_cast<size_t>(i)]];
     }
     Eigen::LevenbergMarquardt<FitResidual> lm(trial);
-    lm.parameters.maxfev = kMaxSolverSweeps;
+    lm.parameters.maxfev = kStartSolverEvaluations;
     lm.parameters.xtol = kSolverTolerance;
     lm.parameters.ftol = kSolverTolerance;
     const int status = static_cast<int>(lm.minimize(xk));
@@ -416,6 +407,42 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       best_x = trial.expand(xk);
       fit.solver_status = status;
     }
+  }
+  // The start runs end where LM's damping has grown on the crests' kinks; a fresh run from the
+  // best optimum (damping reset) continues along the stepover-offset valley until it gains
+  // nothing (common practice for restarted trust-region solvers, Nocedal & Wright 2006 §4).
+  // The prior is then weighed by the fit's own residual rms (the noise plus the model's error)
+  // rather than the measured rms, which let it pull a well-fitted stepover by its full sigma.
+  for (int polish = 0; polish < kPolishRuns; ++polish) {
+    FitResidual trial = base;
+    trial.full = best_x;
+    if (polish == 0) {
+      Eigen::VectorXd xb(trial.inputs()), fb;
+      for (int i = 0; i < trial.inputs(); ++i) xb[i] = best_x[trial.free_index[static_cast<size_t>(i)]];
+      trial(xb, fb);
+      res.prior_weight = std::min(res.prior_weight, rms(fb.head(trial.samples())) /
+                                                        std::max(e.stepover.sigma_mm, 1e-6 * stepover));
+      trial.prior_weight = res.prior_weight;
+      trial(xb, fb);
+      best_cost = fb.squaredNorm();
+    }
+    Eigen::VectorXd xk(trial.inputs());
+    for (int i = 0; i < trial.inputs(); ++i) xk[i] = best_x[trial.free_index[static_cast<size_t>(i)]];
+    Eigen::LevenbergMarquardt<FitResidual> lm(trial);
+    lm.parameters.maxfev = kMaxSolverSweeps;
+    lm.parameters.xtol = kSolverTolerance;
+    lm.parameters.ftol = kSolverTolerance;
+    const int status = static_cast<int>(lm.minimize(xk));
+    Eigen::VectorXd fk;
+    trial(xk, fk);
+    res.sweeps += trial.sweeps;
+    if (fk.squaredNorm() >= best_cost * (1.0 - kPolishGain)) {
+      if (fk.squaredNorm() < best_cost) best_cost = fk.squaredNorm(), best_x = trial.expand(xk);
+      break;
+    }
+    best_cost = fk.squaredNorm();
+    best_x = trial.expand(xk);
+    fit.solver_status = status;
   }
   res.full = best_x;
   // The envelope cannot tell the lowest point ahead from behind: report the fold >= 0.
@@ -436,9 +463,12 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   // Residuals that the model leaves with structure (feed marks, a model error repeating every
   // pass) are correlated: the variance is scaled by the residual's integrated autocorrelation
   // time along both axes (m / m_eff; Box & Jenkins, Time Series Analysis, §2.1.6), 1 for noise.
-  const double var =
-      f.head(res.samples()).squaredNorm() / dof * correlation_factor(w, f.head(res.samples()));
-  fit.correlation_factor = correlation_factor(w, f.head(res.samples()));
+  const double var = std::max(
+      f.head(res.samples()).squaredNorm() / dof *
+          correlation_factor(w.measured.nx, w.measured.ny, w.index, f.head(res.samples())),
+      line_mean_variance(w.v, w.measured.cell_mm, f.head(res.samples()), res.inputs()));
+  fit.correlation_factor =
+      correlation_factor(w.measured.nx, w.measured.ny, w.index, f.head(res.samples()));
   const Eigen::MatrixXd jtj = jac.transpose() * jac;
   const Eigen::MatrixXd inv = jtj.completeOrthogonalDecomposition().pseudoInverse();
   fit.covariance = Eigen::MatrixXd::Zero(kFitParams, kFitParams);
@@ -453,6 +483,19 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     if (jtj(a, a) <= 0.0) {
       fit.covariance(res.free_index[a], res.free_index[a]) =
           std::numeric_limits<double>::infinity();
+    }
+  }
+  // The profile took one magnitude per direction; each carries its own (linearised) sigma, so
+  // the interval is widened by kProfileSigmas of it (derived: the magnitude's interval at a
+  // fixed direction).
+  const double t_fit = std::hypot(fit.params[kTiltAlongDeg], fit.params[kTiltAcrossDeg]);
+  if (tilt_shows && t_fit > 0.0) {
+    const Eigen::Vector2d g(fit.params[kTiltAlongDeg] / t_fit, fit.params[kTiltAcrossDeg] / t_fit);
+    const double var_t = g.dot(fit.covariance.topLeftCorner<2, 2>() * g);
+    if (std::isfinite(var_t) && var_t > 0.0) {
+      const double widen = kProfileSigmas * std::sqrt(var_t);
+      fit.tilt_interval_deg.first = std::max(0.0, fit.tilt_interval_deg.first - widen);
+      fit.tilt_interval_deg.second += widen;
     }
   }
   fit.residual_rms_um = rms(f.head(res.samples()));

@@ -19,22 +19,22 @@ struct Line {
 };
 
 // Pooled correlation of pairs (a_k, b_k) at along shift s (samples): sum a(x) b(x + s) over the
-// overlap, normalised by the energies of the overlapping parts.
-double pooled(const std::vector<std::pair<const Line*, const Line*>>& pairs, int s, double dx,
-              bool mirror) {
+// overlap, normalised by the energies of the overlapping parts. index[k][i] is the sample of b_k
+// that a_k's sample i meets at shift 0 (rounded once per pair, not once per shift).
+double pooled(const std::vector<std::pair<const Line*, const Line*>>& pairs,
+              const std::vector<std::vector<int>>& index, int s) {
   double ab = 0.0, aa = 0.0, bb = 0.0;
-  for (const auto& [a, b] : pairs) {
-    const int na = static_cast<int>(a->z.size()), nb = static_cast<int>(b->z.size());
-    const int base = static_cast<int>(std::lround((a->start - b->start) / dx));
+  for (size_t k = 0; k < pairs.size(); ++k) {
+    const Line& a = *pairs[k].first;
+    const Line& b = *pairs[k].second;
+    const int na = static_cast<int>(a.z.size()), nb = static_cast<int>(b.z.size());
+    const int* j0 = index[k].data();
     for (int i = 0; i < na; ++i) {
-      // Mirror: b read backwards about the field centre (along position -x).
-      const int j = mirror
-                        ? static_cast<int>(std::lround((-(a->start + i * dx) - b->start) / dx)) + s
-                        : i + base + s;
+      const int j = j0[i] + s;
       if (j < 0 || j >= nb) continue;
-      ab += a->z[i] * b->z[j];
-      aa += a->z[i] * a->z[i];
-      bb += b->z[j] * b->z[j];
+      ab += a.z[i] * b.z[j];
+      aa += a.z[i] * a.z[i];
+      bb += b.z[j] * b.z[j];
     }
   }
   return aa > 0.0 && bb > 0.0 ? ab / std::sqrt(aa * bb) : 0.0;
@@ -42,8 +42,21 @@ double pooled(const std::vector<std::pair<const Line*, const Line*>>& pairs, int
 
 double best_over_shifts(const std::vector<std::pair<const Line*, const Line*>>& pairs,
                         int max_shift, double dx, bool mirror) {
+  std::vector<std::vector<int>> index(pairs.size());
+  for (size_t k = 0; k < pairs.size(); ++k) {
+    const Line& a = *pairs[k].first;
+    const Line& b = *pairs[k].second;
+    const int base = static_cast<int>(std::lround((a.start - b.start) / dx));
+    index[k].resize(a.z.size());
+    for (size_t i = 0; i < a.z.size(); ++i) {
+      // Mirror: b read backwards about the field centre (along position -x).
+      index[k][i] =
+          mirror ? static_cast<int>(std::lround((-(a.start + static_cast<double>(i) * dx) - b.start) / dx))
+                 : static_cast<int>(i) + base;
+    }
+  }
   double best = -1.0;
-  for (int s = -max_shift; s <= max_shift; ++s) best = std::max(best, pooled(pairs, s, dx, mirror));
+  for (int s = -max_shift; s <= max_shift; ++s) best = std::max(best, pooled(pairs, index, s));
   return best;
 }
 

@@ -51,6 +51,8 @@ nlohmann::json floor_fit_json(const FloorFit& fit, const FittedErrors& f, const 
   j["tram_target_deg"] = v.tram_target_deg;
   j["explained"] = v.explained;
   j["weak"] = v.weak;
+  j["tilt_interval_only"] = v.tilt_interval_only;
+  j["ridge_tilt_deg"] = v.ridge_tilt_deg;
   j["verdict"] = v.lines;
   j["cannot_tell"] = v.cannot_tell;
   return j;
