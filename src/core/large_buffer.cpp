@@ -18,25 +18,35 @@ constexpr std::uintptr_t kHugePageBytes = std::uintptr_t{2} << 20;
 // Below one huge page, mmap would round a small buffer up to whole pages: calloc instead.
 constexpr std::size_t kMapThresholdBytes = kHugePageBytes;
 
+#if defined(__linux__)
+// `bytes` of anonymous memory (readable and writable when `prot` says so) starting on a 2 MiB
+// boundary: a larger range is mapped and its head and tail given back. The kernel aligns only
+// anonymous maps whose length is a multiple of 2 MiB, and an unaligned buffer's ends take
+// 4 KiB pages (a fault each). MAP_FAILED on failure.
+void* map_aligned(std::size_t bytes, int prot) {
+  const std::size_t span = bytes + kHugePageBytes;
+  // A range only to be moved into is not charged against the commit limit; a buffer is.
+  const int flags = MAP_PRIVATE | MAP_ANONYMOUS | (prot == PROT_NONE ? MAP_NORESERVE : 0);
+  void* reserve = mmap(nullptr, span, prot, flags, -1, 0);
+  if (reserve == MAP_FAILED) return MAP_FAILED;
+  const auto lo = reinterpret_cast<std::uintptr_t>(reserve);
+  const std::uintptr_t at = (lo + kHugePageBytes - 1) & ~(kHugePageBytes - 1);
+  if (at > lo) munmap(reserve, at - lo);
+  if (lo + span > at + bytes) munmap(reinterpret_cast<void*>(at + bytes), lo + span - (at + bytes));
+  return reinterpret_cast<void*>(at);
+}
+#endif
+
 #if defined(__linux__) && defined(MREMAP_MAYMOVE) && defined(MREMAP_FIXED)
 // Moves a mapping to a 2 MiB-aligned range of `bytes` (mremap): its huge pages move whole (page
 // table entries, no copy); at an address the kernel chooses they would be split into 4 KiB
 // pages, and the column passes of the transforms, which stride across rows, then miss the TLB
 // (measured: the 48 M-cell texture report slower than with fresh memory). MAP_FAILED on failure.
 void* grow_aligned(void* old, std::size_t old_bytes, std::size_t bytes) {
-  const std::size_t span = bytes + kHugePageBytes;
-  void* reserve = mmap(nullptr, span, PROT_NONE, MAP_PRIVATE | MAP_ANONYMOUS | MAP_NORESERVE, -1, 0);
-  if (reserve == MAP_FAILED) return MAP_FAILED;
-  const auto lo = reinterpret_cast<std::uintptr_t>(reserve);
-  const std::uintptr_t at = (lo + kHugePageBytes - 1) & ~(kHugePageBytes - 1);
-  void* p = mremap(old, old_bytes, bytes, MREMAP_MAYMOVE | MREMAP_FIXED, reinterpret_cast<void*>(at));
-  if (p == MAP_FAILED) {
-    munmap(reserve, span);
-    return MAP_FAILED;
-  }
-  // The reservation's head and tail around the moved mapping are given back.
-  if (at > lo) munmap(reserve, at - lo);
-  if (lo + span > at + bytes) munmap(reinterpret_cast<void*>(at + bytes), lo + span - (at + bytes));
+  void* at = map_aligned(bytes, PROT_NONE);  // a range to move into (replaced by the move)
+  if (at == MAP_FAILED) return MAP_FAILED;
+  void* p = mremap(old, old_bytes, bytes, MREMAP_MAYMOVE | MREMAP_FIXED, at);
+  if (p == MAP_FAILED) munmap(at, bytes);
   return p;
 }
 #endif
@@ -68,9 +78,8 @@ void LargeBufferFree::operator()(void* p) const {
 LargeBytes allocate_zeroed_bytes(std::size_t bytes) {
 #if defined(__linux__)
   if (bytes >= kMapThresholdBytes) {
-    // mmap returns page-aligned memory; the kernel aligns large anonymous maps to 2 MiB when
-    // transparent huge pages are on, so the advice covers (nearly) all of it.
-    void* p = mmap(nullptr, bytes, PROT_READ | PROT_WRITE, MAP_PRIVATE | MAP_ANONYMOUS, -1, 0);
+    // On a 2 MiB boundary, so that the advice covers all of it.
+    void* p = map_aligned(bytes, PROT_READ | PROT_WRITE);
     if (p == MAP_FAILED) throw std::bad_alloc();
     advise_huge_pages(p, bytes);
     return LargeBytes(p, LargeBufferFree{bytes});
