@@ -78,19 +78,30 @@ TEST_CASE("autocorrelate_field: bit-identical for 1, 2 and 3 threads", "[texture
   }
 }
 
-TEST_CASE("texture_direction: Sal, Str and lay bit-identical for any thread count", "[texture]") {
+namespace {
+
+// A grating a i + b j with a tilt (c i + d j) and Gaussian noise of 0.2 um, on 0.01 mm cells.
+Heightfield noisy_grating(int nx, int ny, unsigned seed, float a, float b, float c, float d) {
   Heightfield hf;
-  hf.nx = 180;
-  hf.ny = 130;
+  hf.nx = nx;
+  hf.ny = ny;
   hf.cell_mm = 0.01;
   hf.z_um.resize(hf.ny, hf.nx);
-  std::mt19937 rng(3);
+  std::mt19937 rng(seed);
   std::normal_distribution<float> g(0.0f, 1.0f);
   for (int j = 0; j < hf.ny; ++j) {
     for (int i = 0; i < hf.nx; ++i) {
-      hf.z_um(j, i) = std::sin(0.3f * static_cast<float>(i)) + 0.2f * g(rng);
+      const auto fi = static_cast<float>(i), fj = static_cast<float>(j);
+      hf.z_um(j, i) = std::sin(a * fi + b * fj) + c * fi + d * fj + 0.2f * g(rng);
     }
   }
+  return hf;
+}
+
+}  // namespace
+
+TEST_CASE("texture_direction: Sal, Str and lay bit-identical for any thread count", "[texture]") {
+  Heightfield hf = noisy_grating(180, 130, 3, 0.3f, 0.0f, 0.0f, 0.0f);
   hf.z_um(5, 7) = kUnreached;  // the pair-count transform too
   const TextureDirection one = texture_direction(hf, 1), two = texture_direction(hf, 2);
   REQUIRE(one.sal_found);
@@ -105,20 +116,8 @@ TEST_CASE("texture_direction: of a floor and its plane, row by row, equals that 
   // Derived: residual_row is remove_plane's arithmetic, so the transforms see the same floats;
   // the lay transform's memory reused by the padded one changes nothing (its stale rows are
   // cleared before the transform).
-  Heightfield hf;
-  hf.nx = 700;  // 700 x 520 floats: the lay's 8-byte field is large enough to be handed on
-  hf.ny = 520;
-  hf.cell_mm = 0.01;
-  hf.z_um.resize(hf.ny, hf.nx);
-  std::mt19937 rng(5);
-  std::normal_distribution<float> g(0.0f, 1.0f);
-  for (int j = 0; j < hf.ny; ++j) {
-    for (int i = 0; i < hf.nx; ++i) {
-      hf.z_um(j, i) = std::sin(0.21f * static_cast<float>(i) + 0.05f * static_cast<float>(j)) +
-                      0.002f * static_cast<float>(i) - 0.003f * static_cast<float>(j) +
-                      0.2f * g(rng);
-    }
-  }
+  // 700 x 520 cells: the lay's 8-byte field is large enough to be handed on.
+  Heightfield hf = noisy_grating(700, 520, 5, 0.21f, 0.05f, 0.002f, -0.003f);
   hf.z_um(11, 13) = kUnreached;
   const Plane plane = fit_plane(hf);
   const TextureDirection whole = texture_direction(remove_plane(hf, plane), 2);
