@@ -17,11 +17,14 @@
 #include "cli/finish_flags.h"
 #include "infer/fit_uncertainty.h"
 #include "infer/fit_verdict.h"
+#include "infer/tooth_fit.h"
+#include "infer/tooth_verdict.h"
 #include "infer/floor_fit.h"
 #include "infer/surface_estimates.h"
 #include "infer/trace_estimates.h"
 #include "io/diagnose_json.h"
 #include "io/floor_fit_json.h"
+#include "io/tooth_fit_json.h"
 #include "io/png.h"
 #include "job/job.h"
 #include "report/fit_pictures.h"
@@ -45,6 +48,8 @@ struct DiagnoseCliOptions {
   std::string direction;        ///< one-way | zigzag (known pass pattern)
   std::string job;              ///< job file: tool, pass pattern and lay
   int threads = 0;              ///< sweep threads of the fit (0 = all)
+  std::string feed_per_tooth;   ///< fz when known (tooth-resolved stage)
+  bool tooth_fit = false;       ///< run the experimental tooth-resolved stage
 };
 
 // Caution printed with any reading that may send someone to the machine (rules: rotating tools,
@@ -162,6 +167,48 @@ std::optional<FloorFitOptions> fit_options(const DiagnoseCliOptions& o, LengthUn
   return f;
 }
 
+// Tooth-resolved stage (issue 17): the teeth, feed per tooth and spindle sense from --job, else
+// from --teeth and --feed-per-tooth, else the surface's own feed marks (with --teeth).
+ToothFitOptions tooth_options(const DiagnoseCliOptions& o, LengthUnit unit,
+                              const FloorFitOptions& fopt, const SurfaceEstimates& e) {
+  ToothFitOptions t;
+  t.cutter = fopt.cutter;
+  t.direction = fopt.direction;
+  t.threads = fopt.threads;
+  if (!o.job.empty()) {
+    const Job job = load_job(o.job);
+    t.spindle = job.cut.spindle;
+    if (job.cut.rpm > 0.0 && job.cutter.teeth > 0) {
+      t.feed_per_tooth_mm = job.cut.feed_mm_per_min / (job.cut.rpm * job.cutter.teeth);
+    }
+  }
+  if (!o.feed_per_tooth.empty()) {
+    t.feed_per_tooth_mm = parse_positive_length_mm(o.feed_per_tooth, unit, "--feed-per-tooth");
+  }
+  if (!(t.feed_per_tooth_mm > 0.0) && o.teeth > 0 && e.feed.found) {
+    t.feed_per_tooth_mm = e.feed.feed_per_tooth_mm;
+  }
+  if (o.job.empty() && o.teeth <= 0) t.feed_per_tooth_mm = 0.0;  // teeth unknown: skipped
+  return t;
+}
+
+void print_tooth_fit(const ToothFit& t) {
+  if (!t.ran) return;
+  std::printf("\n  tooth-resolved stage (%d teeth, fz %s mm, %d passes, %d sweeps)\n", t.teeth,
+              mm(t.feed_per_tooth_mm).c_str(), t.passes, t.sweeps);
+  std::printf("  %-13s %.3g um (+-%.2g)%s\n", "runout", t.runout_um.value, t.runout_um.sigma,
+              t.runout_projection_only ? " (|e cos phase| only)" : "");
+  if (!t.runout_projection_only) {
+    std::printf("  %-13s %.3g deg (+-%.2g), modulo %.3g deg\n", "runout phase",
+                t.runout_phase_deg.value, t.runout_phase_deg.sigma, t.runout_phase_period_deg);
+  }
+  std::printf("  %-13s %.3g deg (+-%.2g)\n", "dish", t.dish_deg.value, t.dish_deg.sigma);
+  std::printf("  %-13s %.3g deg (+-%.2g), sign %s\n", "along feed", t.tilt_along_deg.value,
+              t.tilt_along_deg.sigma, t.along_sign_known ? "known" : "open");
+  std::printf("  residual      %.3g um rms (measured %.3g um rms about its plane)\n",
+              t.residual_rms_um, t.measured_rms_um);
+}
+
 void run_diagnose(const DiagnoseCliOptions& o) {
   const LengthUnit unit = o.common.length_unit();
   double tip_um = 0.0;
@@ -207,13 +254,27 @@ void run_diagnose(const DiagnoseCliOptions& o) {
     if (fopt) {
       const FloorFit fit = fit_floor(file.field, e, *fopt);
       const FittedErrors f = fitted_errors(fit);
-      const FitVerdict v = fit_verdict(f, fit, e);
       print_stage(o.common.verbose, "fit", timer.lap());
+      // Tooth-resolved stage (issue 17): runout, dish and the along-feed sign. Experimental and
+      // slow (docs/diagnose.md "Tooth-resolved stage"): run only when asked for.
+      ToothFit tooth;
+      if (o.tooth_fit) {
+        tooth = fit_teeth(file.field, tooth_fit_start(fit), tooth_options(o, unit, *fopt, e));
+        print_stage(o.common.verbose, "tooth fit", timer.lap());
+      } else {
+        tooth.skipped =
+            "the tooth-resolved stage is experimental (unreliable on measured floors, tens of "
+            "seconds); --tooth-fit runs it";
+      }
+      FitVerdict v = fit_verdict(f, fit, e);
+      merge_tooth_verdict(tooth, tooth_verdict(tooth), v);
       doc["fit"] = floor_fit_json(fit, f, v);
+      add_tooth_fit_json(tooth, doc["fit"]);
       if (!o.out.empty()) fit_png = encode_png(render_fit_pictures(fit, unit));
       if (!o.common.json) {
         print_surface(o.file, file.field, e, false);
         print_fit(fit, f, v);
+        print_tooth_fit(tooth);
         std::printf("\n%s\n", kMachineCaution);
       }
     } else if (!o.common.json) {
@@ -255,6 +316,13 @@ void setup_diagnose(CLI::App& sub) {
   sub.add_option("--dish", o->tool.dish, "End-face dish angle, deg")->capture_default_str();
   sub.add_option("--direction", o->direction, "Pass pattern when known: one-way or zigzag");
   sub.add_option("--job", o->job, "Job file that cut the floor: tool, pass pattern and lay");
+  // Reason for the flag: the tooth-resolved stage needs fz; a floor cut by G-code has no job.
+  sub.add_option("--feed-per-tooth", o->feed_per_tooth,
+                 "Feed per tooth when known (with --teeth): runs the tooth-resolved stage");
+  // Reason for the flag: the tooth-resolved stage is experimental and slow; never run unasked.
+  sub.add_flag("--tooth-fit", o->tooth_fit,
+               "Also run the experimental tooth-resolved stage (runout, dish, along-feed sign; "
+               "slow, unreliable on measured floors)");
   sub.add_option("--threads", o->threads, "Threads of the fit's sweeps (0 = all)")
       ->check(CLI::Range(0, 1024));
   add_common_flags(sub, o->common);

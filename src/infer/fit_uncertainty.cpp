@@ -13,7 +13,14 @@ namespace {
 
 constexpr double kRadToDeg = 180.0 / std::numbers::pi;
 
-FittedValue value_of(double v, double var, bool fitted) {
+double wrap360(double deg) {
+  const double a = std::fmod(deg, 360.0);
+  return a < 0.0 ? a + 360.0 : a;
+}
+
+}  // namespace
+
+FittedValue fitted_value(double v, double var, bool fitted) {
   FittedValue f;
   f.value = v;
   f.fitted = fitted;
@@ -24,13 +31,6 @@ FittedValue value_of(double v, double var, bool fitted) {
   f.bound = std::abs(v) + kBoundSigmas * f.sigma;
   return f;
 }
-
-double wrap360(double deg) {
-  const double a = std::fmod(deg, 360.0);
-  return a < 0.0 ? a + 360.0 : a;
-}
-
-}  // namespace
 
 FittedErrors fitted_errors(const FloorFit& fit) {
   FittedErrors e;
@@ -59,13 +59,13 @@ FittedErrors fitted_errors(const FloorFit& fit) {
     c.row(0) *= k;
     c.col(0) *= k;
   }
-  e.tilt_along_deg = value_of(p[kTiltAlongDeg], c(0, 0), tilt_fitted);
-  e.tilt_across_deg = value_of(p[kTiltAcrossDeg], c(1, 1), tilt_fitted);
-  e.stepover_mm = value_of(p[kStepoverMm], c(2, 2), true);
-  e.offset_mm = value_of(p[kOffsetMm], c(3, 3), true);
-  e.setup_gx_um_per_mm = value_of(fit.setup_plane.gx_um_per_mm,
+  e.tilt_along_deg = fitted_value(p[kTiltAlongDeg], c(0, 0), tilt_fitted);
+  e.tilt_across_deg = fitted_value(p[kTiltAcrossDeg], c(1, 1), tilt_fitted);
+  e.stepover_mm = fitted_value(p[kStepoverMm], c(2, 2), true);
+  e.offset_mm = fitted_value(p[kOffsetMm], c(3, 3), true);
+  e.setup_gx_um_per_mm = fitted_value(fit.setup_plane.gx_um_per_mm,
                                   fit.plane_sigma_gx_um_per_mm * fit.plane_sigma_gx_um_per_mm, true);
-  e.setup_gy_um_per_mm = value_of(fit.setup_plane.gy_um_per_mm,
+  e.setup_gy_um_per_mm = fitted_value(fit.setup_plane.gy_um_per_mm,
                                   fit.plane_sigma_gy_um_per_mm * fit.plane_sigma_gy_um_per_mm, true);
 
   // Magnitude and direction: gradients of hypot(a, b) and atan2(b, a) (GUM §5.1.2).
@@ -82,9 +82,9 @@ FittedErrors fitted_errors(const FloorFit& fit) {
   // profile over the direction (floor_fit) widens both when it is wider.
   var_t = std::max(var_t, fit.tilt_profile_sigma_deg * fit.tilt_profile_sigma_deg);
   var_dir = std::max(var_dir, fit.direction_profile_sigma_deg * fit.direction_profile_sigma_deg);
-  e.tilt_deg = value_of(t, tilt_fitted ? var_t : 0.0, tilt_fitted);
+  e.tilt_deg = fitted_value(t, tilt_fitted ? var_t : 0.0, tilt_fitted);
   const double dir = std::atan2(b, a) * kRadToDeg;
-  e.tilt_toward_deg = value_of(wrap360(fit.model.lay_deg + dir), var_dir, tilt_fitted);
+  e.tilt_toward_deg = fitted_value(wrap360(fit.model.lay_deg + dir), var_dir, tilt_fitted);
   e.tilt_toward_deg.resolved = e.tilt_deg.resolved;
   e.tilt_toward_alt_deg = wrap360(fit.model.lay_deg + std::atan2(b, -a) * kRadToDeg);
   e.along_sign_known = false;

@@ -46,6 +46,10 @@ struct FittedErrors {
   FittedValue setup_gy_um_per_mm; ///< setup plane slope along Y
 };
 
+/// A value with its variance (infinite: the floor does not move it) as a FittedValue: sigma,
+/// resolved (|v| > kResolvedSigmas sigma) and bound (|v| + kBoundSigmas sigma).
+FittedValue fitted_value(double v, double var, bool fitted);
+
 /// Propagates the covariance to the reported values.
 FittedErrors fitted_errors(const FloorFit& fit);
 

@@ -18,16 +18,16 @@ constexpr double kAcrossStepovers = 2.5;
 }  // namespace
 
 ToothWindow tooth_window(const Heightfield& hf, double lay_deg, double stepover_mm,
-                         double revolution_mm) {
+                         double revolution_mm, double revolutions, int max_cells) {
   const double cell = hf.cell_mm;
   const bool along_x = std::abs(std::cos(lay_deg * std::numbers::pi / 180.0)) >= 0.7071;
   const int n_along_max = along_x ? hf.nx : hf.ny, n_across_max = along_x ? hf.ny : hf.nx;
   int n_along = std::min(n_along_max,
-                         static_cast<int>(std::ceil(kToothWindowRevolutions * revolution_mm / cell)));
+                         static_cast<int>(std::ceil(revolutions * revolution_mm / cell)));
   int n_across = std::min(n_across_max,
                           static_cast<int>(std::ceil(kAcrossStepovers * stepover_mm / cell)));
-  n_along = std::max(n_along, std::min(n_along_max, kMaxToothWindowCells / std::max(n_across, 1)));
-  n_across = std::max(1, std::min(n_across, kMaxToothWindowCells / std::max(n_along, 1)));
+  n_along = std::max(n_along, std::min(n_along_max, max_cells / std::max(n_across, 1)));
+  n_across = std::max(1, std::min(n_across, max_cells / std::max(n_along, 1)));
   const int nx = along_x ? n_along : n_across, ny = along_x ? n_across : n_along;
   const int i0 = (hf.nx - nx) / 2, j0 = (hf.ny - ny) / 2;
   ToothWindow w;

@@ -37,7 +37,11 @@ struct ToothWindow {
 /// @param[in] lay_deg        pass direction
 /// @param[in] stepover_mm    distance between passes (> 0)
 /// @param[in] revolution_mm  feed per revolution Z fz (> 0)
+/// @param[in] revolutions    revolutions along the lay at least (the window grows past them up
+///                           to max_cells)
+/// @param[in] max_cells      most cells of the window
 ToothWindow tooth_window(const Heightfield& hf, double lay_deg, double stepover_mm,
-                         double revolution_mm);
+                         double revolution_mm, double revolutions = kToothWindowRevolutions,
+                         int max_cells = kMaxToothWindowCells);
 
 }  // namespace cuspmap

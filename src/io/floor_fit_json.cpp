@@ -6,18 +6,14 @@
 #include <cmath>
 
 namespace cuspmap {
-namespace {
-
 // sigma and bound are left out when infinite (a parameter the floor does not move): JSON
 // numbers stay finite (CONVENTIONS.md 8).
-nlohmann::json value_json(const FittedValue& v) {
+nlohmann::json fitted_value_json(const FittedValue& v) {
   nlohmann::json j = {{"value", v.value}, {"fitted", v.fitted}, {"resolved", v.resolved}};
   if (std::isfinite(v.sigma)) j["sigma"] = v.sigma;
   if (std::isfinite(v.bound)) j["bound"] = v.bound;
   return j;
 }
-
-}  // namespace
 
 nlohmann::json floor_fit_json(const FloorFit& fit, const FittedErrors& f, const FitVerdict& v) {
   nlohmann::json j;
@@ -28,16 +24,16 @@ nlohmann::json floor_fit_json(const FloorFit& fit, const FittedErrors& f, const 
                  {"size_mm", {fit.measured.nx * w.cell_mm, fit.measured.ny * w.cell_mm}},
                  {"origin_mm", {w.origin_x_mm, w.origin_y_mm}}};
   j["lay_deg"] = fit.model.lay_deg;
-  j["tilt_deg"] = value_json(f.tilt_deg);
-  j["tilt_toward_deg"] = value_json(f.tilt_toward_deg);
+  j["tilt_deg"] = fitted_value_json(f.tilt_deg);
+  j["tilt_toward_deg"] = fitted_value_json(f.tilt_toward_deg);
   j["tilt_toward_alt_deg"] = f.tilt_toward_alt_deg;
   j["along_sign_known"] = f.along_sign_known;
-  j["tilt_along_deg"] = value_json(f.tilt_along_deg);
-  j["tilt_across_deg"] = value_json(f.tilt_across_deg);
-  j["stepover_mm"] = value_json(f.stepover_mm);
-  j["offset_mm"] = value_json(f.offset_mm);
-  j["setup_plane"] = {{"gx_um_per_mm", value_json(f.setup_gx_um_per_mm)},
-                      {"gy_um_per_mm", value_json(f.setup_gy_um_per_mm)}};
+  j["tilt_along_deg"] = fitted_value_json(f.tilt_along_deg);
+  j["tilt_across_deg"] = fitted_value_json(f.tilt_across_deg);
+  j["stepover_mm"] = fitted_value_json(f.stepover_mm);
+  j["offset_mm"] = fitted_value_json(f.offset_mm);
+  j["setup_plane"] = {{"gx_um_per_mm", fitted_value_json(f.setup_gx_um_per_mm)},
+                      {"gy_um_per_mm", fitted_value_json(f.setup_gy_um_per_mm)}};
   j["residual_rms_um"] = fit.residual_rms_um;
   j["correlation_factor"] = fit.correlation_factor;
   j["tilt_interval_deg"] = {fit.tilt_interval_deg.first, fit.tilt_interval_deg.second};

@@ -11,6 +11,10 @@
 
 namespace cuspmap {
 
+/// {value, fitted, resolved, sigma?, bound?} of one fitted number (sigma and bound left out
+/// when infinite).
+nlohmann::json fitted_value_json(const FittedValue& v);
+
 /// {model, window{sample_mm, samples, size_mm[2], origin_mm[2]}, tilt_deg{value, sigma,
 ///  resolved, bound}, tilt_toward_deg{...}, tilt_toward_alt_deg, along_sign_known,
 ///  tilt_along_deg{...}, tilt_across_deg{...}, stepover_mm{...}, offset_mm{...},

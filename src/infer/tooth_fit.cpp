@@ -1,0 +1,299 @@
+// Tooth-resolved stage: window, start values, the search over the pass pattern's unknowns (the
+// along-feed sign, a zigzag's parity), per-pass shifts and tooth labels, the solver and the
+// covariance propagated to runout magnitude and phase. Inputs: Heightfield, ToothFitStart,
+// ToothFitOptions; output: ToothFit. Cost: a few hundred one-pass sweeps.
+// Method: Kline & DeVor 1983 (runout: tooth k cuts at R + e cos(psi - 2 pi k / Z)); Bates &
+// Watts 1988 (covariance, likelihood comparison); GUM §5.1.2 (propagation).
+#include "infer/tooth_fit.h"
+
+#include <algorithm>
+#include <cmath>
+#include <limits>
+#include <memory>
+#include <numbers>
+#include <Eigen/Dense>
+
+#include "infer/residual_correlation.h"
+#include "infer/tooth_fit_problem.h"
+
+namespace cuspmap {
+namespace {
+
+constexpr double kDegToRad = std::numbers::pi / 180.0;
+// Trials per tooth pitch in the shift search: the marks' arcs are fz long, so an eighth of it
+// puts every pass within the solver's reach (derived: the cost is smooth within ~fz/4).
+constexpr int kShiftTrials = 8;
+// Solver iterations (Jacobians) per stage; the round trips converge within 4-8 (measured).
+constexpr int kStageIterations = 10;
+// Cells per tooth pitch below which the marks are not resolved by the grid (derived: an arc
+// needs a few samples between its ends to show its depth).
+constexpr double kMinCellsPerTooth = 4.0;
+// Rms of an ideal cusp profile over its peak-to-valley height (DESIGN.md: Rq = 2h / (3 sqrt 5)).
+constexpr double kCuspRmsPerDepth = 0.298;
+// Dish factors of the restarts (runout divided by the same): 1.3 recovered a 1 deg dish from a
+// stall at 0.68 deg within 13 % (measured); 1.6 overshoots and measures the spread.
+constexpr double kRestartDish[] = {1.3, 1.6};
+// Cap of the along-feed tilt start, deg (a heel that recuts bounds it by the marks' depth:
+// 0.01-0.05 deg on the round trips; derived from the heel lift 2 R tan(tilt)).
+constexpr double kAlongStartMaxDeg = 0.02;
+// Dish start bounds, deg (typical end-face dish 0.5-3 deg, from memory).
+constexpr double kDishStartMin = 0.1, kDishStartMax = 3.0;
+
+// Dish start from the marks' depth: between two rim arcs fz apart the floor rises to
+// (fz / 2) tan(dish) (derived), and the along-lay rms of each window line is ~0.298 of it.
+double dish_start_deg(const ToothWindow& w, double lay_deg, double fz_mm) {
+  const Heightfield& m = w.measured;
+  const bool along_x = std::abs(std::cos(lay_deg * kDegToRad)) >= std::sqrt(0.5);
+  const int lines = along_x ? m.ny : m.nx, len = along_x ? m.nx : m.ny;
+  double ss = 0.0;
+  long n = 0;
+  for (int l = 0; l < lines; ++l) {
+    double sum = 0.0, sq = 0.0;
+    int k = 0;
+    for (int i = 0; i < len; ++i) {
+      const double z = along_x ? m.z_um(l, i) : m.z_um(i, l);
+      if (std::isfinite(z)) sum += z, sq += z * z, ++k;
+    }
+    if (k > 1) ss += sq - sum * sum / k, n += k;
+  }
+  const double rms_um = n > 0 ? std::sqrt(ss / static_cast<double>(n)) : 0.0;
+  const double depth_mm = rms_um / kCuspRmsPerDepth * 1e-3;
+  const double d = std::atan(depth_mm / (0.5 * fz_mm)) / kDegToRad;
+  return std::clamp(d, kDishStartMin, kDishStartMax);
+}
+
+// One candidate of the pass pattern, fitted without runout: shifts searched, then solved.
+std::unique_ptr<ToothProblem> stage_one(const ToothWindow& w, ToothModel model, int parity,
+                                        RasterDirection dir, const ToothState& start,
+                                        double fz_mm) {
+  place_passes(model, dir, parity);
+  auto p = std::make_unique<ToothProblem>(w, model);
+  ToothState s = start;
+  s.shift_mm.assign(model.pass_index.size(), 0.0);
+  p->set(s);
+  p->update_active();
+  p->search_shifts(fz_mm, kShiftTrials, 2);
+  p->solve(kStageIterations / 2);
+  p->update_active();
+  p->search_shifts(fz_mm, kShiftTrials, 1);
+  p->solve(kStageIterations / 2);
+  p->refine_shifts(fz_mm / kShiftTrials / 2);
+  p->solve(kStageIterations / 2);
+  return p;
+}
+
+// Runout free, then each pass's tooth label (shift + k fz) searched and the solve repeated.
+void stage_two(ToothProblem& p, int teeth, double fz_mm) {
+  p.free[kRunoutCos] = true;
+  p.free[kRunoutSin] = teeth >= 3;
+  p.solve(kStageIterations / 2);
+  for (int round = 0; round < 2; ++round) {
+    for (size_t k = 0; k < p.state().shift_mm.size(); ++k) {
+      double best = p.residual().squaredNorm(), best_shift = p.state().shift_mm[k];
+      if (!p.is_active(static_cast<int>(k))) continue;
+      for (int t = 1; t < teeth; ++t) {
+        const double s = std::fmod(p.state().shift_mm[k] + t * fz_mm, teeth * fz_mm);
+        const double c = p.cost_with_shift(static_cast<int>(k), s);
+        if (c < best) best = c, best_shift = s;
+      }
+      if (best_shift != p.state().shift_mm[k]) {
+        ToothState s = p.state();
+        s.shift_mm[k] = best_shift;
+        p.set(s);
+      }
+    }
+    p.update_active();
+    p.solve(kStageIterations / 2);
+    p.refine_shifts(fz_mm / kShiftTrials / 4);
+    p.solve(kStageIterations / 2);
+  }
+}
+
+// Restarts along the dish-runout valley (deeper dish, less runout): the solver stalls short of
+// the optimum there (measured: 0.68 deg for a 1 deg dish, 6.3 um for 5 um of runout). Returns
+// the states the solver stopped at: their spread widens the sigmas (the smoothed cost is still
+// rough at the scale of a cell).
+std::vector<ToothState> restart_dish(ToothProblem& p, double fz_mm) {
+  std::vector<ToothState> stops{p.state()};
+  for (const double factor : kRestartDish) {
+    const ToothState keep = p.state();
+    const double keep_cost = p.residual().squaredNorm();
+    ToothState s = keep;
+    s.g[kDish] *= factor;
+    s.g[kRunoutCos] /= factor;
+    s.g[kRunoutSin] /= factor;
+    p.set(s);
+    p.solve(kStageIterations / 2);
+    p.refine_shifts(fz_mm / kShiftTrials / 4);
+    p.solve(kStageIterations / 2);
+    stops.push_back(p.state());
+    if (p.residual().squaredNorm() >= keep_cost) p.set(keep);
+  }
+  return stops;
+}
+
+}  // namespace
+
+ToothFitStart tooth_fit_start(const FloorFit& fit) {
+  ToothFitStart s;
+  const Patch& w = fit.model.window;
+  s.lay_deg = fit.model.lay_deg;
+  s.stepover_mm = fit.params[kStepoverMm];
+  const Eigen::Vector2d n(-std::sin(s.lay_deg * kDegToRad), std::cos(s.lay_deg * kDegToRad));
+  const Eigen::Vector2d centre(w.origin_x_mm + 0.5 * w.size_x_mm,
+                               w.origin_y_mm + 0.5 * w.size_y_mm);
+  s.pass_centre_mm = centre.dot(n) + fit.params[kOffsetMm];
+  // The envelope's tilt is pulled by the tooth marks it lacks (measured: 0.0048 and 0.33 deg
+  // along for 0.025): the along start is capped, both signs are tried from it.
+  s.tilt_along_deg = std::min(std::abs(fit.params[kTiltAlongDeg]), kAlongStartMaxDeg);
+  s.tilt_across_deg = std::clamp(fit.params[kTiltAcrossDeg], -kAlongStartMaxDeg * 4.0,
+                                 kAlongStartMaxDeg * 4.0);
+  return s;
+}
+
+ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFitOptions& o) {
+  ToothFit f;
+  const Cutter& c = o.cutter;
+  f.teeth = c.teeth;
+  f.feed_per_tooth_mm = o.feed_per_tooth_mm;
+  if (c.shape == CutterShape::Ball) {
+    f.skipped = "a ball end mill has no flat end face: its feed marks carry no dish and its "
+                "runout only moves the marks' spacing";
+    return f;
+  }
+  if (!(o.feed_per_tooth_mm > 0.0) || c.teeth < 1) {
+    f.skipped = "the teeth and feed per tooth are not known (give --job, or --teeth and "
+                "--feed-per-tooth)";
+    return f;
+  }
+  if (o.feed_per_tooth_mm < kMinCellsPerTooth * hf.cell_mm) {
+    f.skipped = "the grid is too coarse for the feed marks (fewer than 4 cells per tooth)";
+    return f;
+  }
+  const double rev = c.teeth * o.feed_per_tooth_mm;
+  const ToothWindow w =
+      tooth_window(hf, st.lay_deg, st.stepover_mm, rev, kToothFitRevolutions, kToothFitCells);
+  f.samples = static_cast<int>(w.index.size());
+  ToothModel model;
+  model.cutter = c;
+  model.cutter.tilt_deg = 0.0;
+  model.cutter.runout_mm = 0.0;
+  model.lay_deg = st.lay_deg;
+  model.stepover_mm = st.stepover_mm;
+  model.feed_per_tooth_mm = o.feed_per_tooth_mm;
+  model.spindle = o.spindle;
+  model.window = w.patch;
+  model.threads = o.threads;
+  // The pass centre in the window's frame, wrapped to within half a stepover of its centre.
+  const Eigen::Vector2d n(-std::sin(st.lay_deg * kDegToRad), std::cos(st.lay_deg * kDegToRad));
+  const Eigen::Vector2d centre(w.patch.origin_x_mm + 0.5 * w.patch.size_x_mm,
+                               w.patch.origin_y_mm + 0.5 * w.patch.size_y_mm);
+  double off = st.pass_centre_mm - centre.dot(n);
+  off -= std::round(off / st.stepover_mm) * st.stepover_mm;
+  model.offset_mm = off;
+
+  ToothState start;
+  start.g[kDish] = dish_start_deg(w, st.lay_deg, o.feed_per_tooth_mm);
+  start.g[kTiltAcross] = st.tilt_across_deg;
+  start.g[kOffset] = off;
+  // Candidates: both along-feed signs (the envelope folds it), both parities of a zigzag.
+  const bool zigzag = o.direction == RasterDirection::Zigzag;
+  std::unique_ptr<ToothProblem> best[2];
+  double best_cost[2] = {std::numeric_limits<double>::infinity(),
+                         std::numeric_limits<double>::infinity()};
+  for (int sign = 0; sign < 2; ++sign) {
+    for (int parity = 0; parity < (zigzag ? 2 : 1); ++parity) {
+      ToothState s = start;
+      s.g[kTiltAlong] = (sign == 0 ? 1.0 : -1.0) * std::abs(st.tilt_along_deg);
+      auto p = stage_one(w, model, parity, o.direction, s, o.feed_per_tooth_mm);
+      f.sweeps += p->sweeps();
+      const double cost = p->residual().squaredNorm();
+      if (cost < best_cost[sign]) best_cost[sign] = cost, best[sign] = std::move(p);
+    }
+  }
+  // Both signs get the runout and labels (without runout the two fit about alike: measured,
+  // 0.1 residual variances apart); the restarts only the better one.
+  for (int sign = 0; sign < 2; ++sign) {
+    const int before = best[sign]->sweeps();
+    stage_two(*best[sign], c.teeth, o.feed_per_tooth_mm);
+    f.sweeps += best[sign]->sweeps() - before;
+    best_cost[sign] = best[sign]->residual().squaredNorm();
+  }
+  const int win = best_cost[0] <= best_cost[1] ? 0 : 1;
+  ToothProblem& p = *best[win];
+  const int before = p.sweeps();
+  const std::vector<ToothState> stops = restart_dish(p, o.feed_per_tooth_mm);
+  f.sweeps += p.sweeps() - before;
+  best_cost[win] = std::min(best_cost[win], p.residual().squaredNorm());
+
+  // Covariance at the optimum: sigma^2 (J^T J)^-1 scaled by m / m_eff.
+  std::vector<int> cols;
+  const Eigen::MatrixXd jac = p.jacobian(cols);
+  f.sweeps += static_cast<int>(cols.size());
+  const Eigen::VectorXd& r = p.residual();
+  const int m = static_cast<int>(r.size());
+  const int dof = std::max(1, m - static_cast<int>(cols.size()) - 3);
+  f.correlation_factor =
+      correlation_factor(w.measured.nx, w.measured.ny, w.index, r);
+  const double var = r.squaredNorm() / dof * f.correlation_factor;
+  const Eigen::MatrixXd jtj = jac.transpose() * jac;
+  Eigen::MatrixXd cov = Eigen::MatrixXd::Constant(jtj.rows(), jtj.cols(),
+                                                  std::numeric_limits<double>::infinity());
+  const Eigen::CompleteOrthogonalDecomposition<Eigen::MatrixXd> cod(jtj);
+  if (cod.rank() == jtj.rows()) cov = cod.pseudoInverse() * var;
+  auto col_of = [&](int g) {
+    const auto it = std::find(cols.begin(), cols.end(), g);
+    return it == cols.end() ? -1 : static_cast<int>(it - cols.begin());
+  };
+  const auto& g = p.state().g;
+  const int ic = col_of(kRunoutCos), is = col_of(kRunoutSin), id = col_of(kDish);
+  const int ia = col_of(kTiltAlong), ix = col_of(kTiltAcross);
+  // Half the spread of the solver's stops, squared, is added to each variance.
+  auto spread = [&](auto&& value) {
+    double d = 0.0;
+    for (const ToothState& t : stops) d = std::max(d, std::abs(value(t) - value(p.state())));
+    return 0.25 * d * d;
+  };
+  auto global = [&](int k) { return spread([k](const ToothState& t) { return t.g[k]; }); };
+  f.dish_deg = fitted_value(g[kDish], cov(id, id) + global(kDish), true);
+  f.tilt_along_deg = fitted_value(g[kTiltAlong], cov(ia, ia) + global(kTiltAlong), true);
+  f.tilt_across_deg = fitted_value(g[kTiltAcross], cov(ix, ix) + global(kTiltAcross), true);
+  f.runout_phase_period_deg = 360.0 / c.teeth;
+  if (is < 0) {
+    f.runout_projection_only = true;
+    f.runout_um = fitted_value(std::abs(g[kRunoutCos]), cov(ic, ic) + global(kRunoutCos), true);
+  } else {
+    const double ec = g[kRunoutCos], es = g[kRunoutSin], e = std::hypot(ec, es);
+    const Eigen::Vector2d de = e > 0.0 ? Eigen::Vector2d(ec / e, es / e) : Eigen::Vector2d(1, 0);
+    Eigen::Matrix2d c2;
+    c2 << cov(ic, ic), cov(ic, is), cov(is, ic), cov(is, is);
+    f.runout_um = fitted_value(e, de.dot(c2 * de) + spread([](const ToothState& t) {
+                                return std::hypot(t.g[kRunoutCos], t.g[kRunoutSin]);
+                              }),
+                           true);
+    const Eigen::Vector2d dpsi = e > 0.0 ? Eigen::Vector2d(-es, ec) / (e * e) / kDegToRad
+                                         : Eigen::Vector2d(0, 0);
+    const double psi = std::atan2(es, ec) / kDegToRad;
+    const double period = f.runout_phase_period_deg;
+    // Phase stops compared modulo the period (the nearest image of each).
+    const double psi_spread = spread([&](const ToothState& t) {
+      const double a = std::atan2(t.g[kRunoutSin], t.g[kRunoutCos]) / kDegToRad - psi;
+      return psi + a - std::round(a / period) * period;
+    });
+    f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period,
+                                  e > 0.0 ? dpsi.dot(c2 * dpsi) + psi_spread
+                                          : std::numeric_limits<double>::infinity(),
+                                  true);
+  }
+  const double other = best_cost[1 - win], mine = best_cost[win];
+  f.along_sign_cost_sigmas = (other - mine) / var;
+  f.along_sign_known = f.along_sign_cost_sigmas > kSignSigmas * kSignSigmas;
+  f.residual_rms_um = std::sqrt(w.residual(p.floor()).squaredNorm() / std::max(m, 1));
+  const Eigen::VectorXd mv = w.values - w.q * (w.q.transpose() * w.values);
+  f.measured_rms_um = std::sqrt(mv.squaredNorm() / std::max(m, 1));
+  f.passes = p.active_passes();
+  f.ran = true;
+  return f;
+}
+
+}  // namespace cuspmap
