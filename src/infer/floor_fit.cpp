@@ -24,8 +24,16 @@ namespace {
 
 // Finite-difference steps of the Jacobian, one per parameter. A tilt of 0.002 deg moves a rim
 // 3 mm out by 0.1 um (well above float rounding of um heights); stepover and offset steps are a
-// small fraction of the period (derived). Forward differences: the sweep is piecewise smooth
-// (minimum over passes), so a step that spans a crest averages the two slopes.
+// small fraction of the period (derived). The sweep is piecewise smooth (minimum over passes),
+// so a step that spans a crest averages the two slopes. For the stepover and the offset both
+// one-sided differences are taken and the shorter column kept: the rim of a tilted flat leaves
+// a step in the floor at its lateral extreme (derived: the envelope at offset w is the rim's
+// height at x = +-sqrt(a^2 - w^2), which ends at |w| = a), at a pass centre +- a, so the
+// residual jumps where a change of stepover or offset carries a step across a row of samples
+// (a tilt changes the step's height, not its place). A difference spanning a jump is no
+// derivative (it made the solver stall beside one, with a stepover sigma 20x too small); the
+// smooth slope is the same on both sides to O(h), and the side without the jump has the
+// shorter column.
 constexpr double kTiltStepDeg = 0.0005;
 constexpr double kPeriodStepFraction = 2e-4;
 // Start search: pass offsets tried per stepover, and tilt components (deg) tried (common
@@ -126,6 +134,14 @@ Window make_window(const Heightfield& hf, double stepover_mm) {
   return w;
 }
 
+// Jacobian column from residuals at x (f0), x + h (f_plus) and x - h (f_minus): the one-sided
+// difference with the smaller norm (see kTiltStepDeg).
+Eigen::VectorXd shorter_difference(const Eigen::VectorXd& f0, const Eigen::VectorXd& f_plus,
+                                   const Eigen::VectorXd& f_minus, double h) {
+  Eigen::VectorXd forward = (f_plus - f0) / h, backward = (f0 - f_minus) / h;
+  return forward.squaredNorm() <= backward.squaredNorm() ? forward : backward;
+}
+
 // The types Eigen's Levenberg-Marquardt asks of a functor (dynamic sizes, double).
 struct LmFunctor {
   using Scalar = double;
@@ -190,7 +206,7 @@ struct FitResidual : LmFunctor {
     return 0;
   }
   int df(const Eigen::VectorXd& x, Eigen::MatrixXd& jac) const {
-    Eigen::VectorXd f0, f1;
+    Eigen::VectorXd f0, f1, f2;
     (*this)(x, f0);
     jac.resize(values(), inputs());
     for (int k = 0; k < inputs(); ++k) {
@@ -201,7 +217,13 @@ struct FitResidual : LmFunctor {
       Eigen::VectorXd xh = x;
       xh[k] += h;
       (*this)(xh, f1);
-      jac.col(k) = (f1 - f0) / h;
+      if (which == kTiltAlongDeg || which == kTiltAcrossDeg) {
+        jac.col(k) = (f1 - f0) / h;  // a tilt moves no step (see kTiltStepDeg)
+        continue;
+      }
+      xh[k] = x[k] - h;
+      (*this)(xh, f2);
+      jac.col(k) = shorter_difference(f0, f1, f2, h);
     }
     return 0;
   }
@@ -228,7 +250,7 @@ struct DirectionResidual : LmFunctor {
     return (*base)(full(x), f);
   }
   int df(const Eigen::VectorXd& x, Eigen::MatrixXd& jac) const {
-    Eigen::VectorXd f0, f1;
+    Eigen::VectorXd f0, f1, f2;
     (*this)(x, f0);
     jac.resize(values(), 2);
     const double h[2] = {kTiltStepDeg, kPeriodStepFraction * stepover_mm};
@@ -236,7 +258,13 @@ struct DirectionResidual : LmFunctor {
       Eigen::VectorXd xh = x;
       xh[k] += h[k];
       (*this)(xh, f1);
-      jac.col(k) = (f1 - f0) / h[k];
+      if (k == 0) {
+        jac.col(k) = (f1 - f0) / h[k];  // the tilt magnitude moves no step (see kTiltStepDeg)
+        continue;
+      }
+      xh[k] = x[k] - h[k];
+      (*this)(xh, f2);
+      jac.col(k) = shorter_difference(f0, f1, f2, h[k]);
     }
     return 0;
   }

@@ -3,7 +3,7 @@
 // match the measured one in least squares. Inputs: measured Heightfield (um over mm cells, NaN =
 // missing), surface-only estimates (start values), FloorFitOptions (known cutter); output:
 // FloorFit with the covariance at the optimum. Cost: 200 start strips + 4 short solver runs +
-// polishing + the direction profile, ~1000 strip sweeps (fit_model: one across-lay profile,
+// polishing + the direction profile, ~1000-1500 strip sweeps (fit_model: one across-lay profile,
 // ~0.1 ms each) read at <= 160 x 160 window samples, ~0.5-1.5 s CPU.
 // Method: Levenberg-Marquardt (Moré 1978, MINPACK, as ported in Eigen's unsupported module) on
 // the residual with the plane projected out (variable projection, Golub & Pereyra 1973).

@@ -252,3 +252,63 @@ TEST_CASE("fit_verdict: issue_17: a tilt known only as an interval is said so", 
 }
 
 }  // namespace cuspmap
+
+namespace cuspmap {
+
+TEST_CASE("fit_floor: issue_17: lay 0 and 179.99 give the same fit (along-feed mirror)",
+          "[infer]") {
+  // 6 mm flat, 1 deg dish, stepover 1.5 mm, 0.08 deg toward 250 deg, zigzag, 0.02 um noise
+  // (case 3 of tests/cli/diagnose_roundtrip_oracle.py). With the lay given as 0 the truth has
+  // its lowest point behind the feed, and the fit reports the mirrored point ahead; with 179.99
+  // it is ahead already. The revolving envelope of a tilted flat on a straight pass is the rim's
+  // height at x = +-sqrt(a^2 - w^2) (derived, along-feed mirror symmetry of the revolving
+  // envelope), the same for either sign of the along-feed tilt: both fits must reach the same
+  // tilt, stepover, residual and uncertainty. Formerly (forward differences only) the lay-0
+  // fit of this floor stalled beside a step of the floor (the rim's lateral extreme): stepover
+  // 1.49987 +- 3.8e-6 mm, residual 0.02017 um against 1.50002 +- 8.4e-5 mm, 0.01995 um.
+  Job job = test::raster_job(CutterShape::Flat, 6.0, 1.5, 14.0, 0.02, 0.05, 2);
+  job.sim.tooth_marks = false;
+  job.cutter.dish_deg = 1.0;
+  job.cutter.tilt_deg = 0.08;
+  job.cutter.tilt_toward_deg = 250.0;
+  job.path.direction = RasterDirection::Zigzag;
+  Heightfield hf = test::crop(test::simulate(job), 150);  // interior 8 x 8 mm
+  test::damage(hf, 0.02, 0.8, -0.4, 0.02, 5u);
+  FloorFitOptions o;
+  o.cutter.shape = CutterShape::Flat;
+  o.cutter.diameter_mm = 6.0;
+  o.cutter.dish_deg = 1.0;
+  o.direction = RasterDirection::Zigzag;
+  o.threads = 2;
+  FloorFit fits[2];
+  FittedErrors errs[2];
+  const double lays[2] = {0.0, 179.99};
+  for (int k = 0; k < 2; ++k) {
+    SurfaceOptions so;
+    so.lay_deg = lays[k];
+    fits[k] = fit_floor(hf, surface_estimates(hf, so), o);
+    errs[k] = fitted_errors(fits[k]);
+  }
+  CAPTURE(errs[0].tilt_deg.value, errs[1].tilt_deg.value, errs[0].tilt_toward_deg.value,
+          errs[1].tilt_toward_deg.value, errs[0].stepover_mm.value, errs[1].stepover_mm.value,
+          errs[0].stepover_mm.sigma, errs[1].stepover_mm.sigma, fits[0].residual_rms_um,
+          fits[1].residual_rms_um);
+  // Same optimum to a few of the fit's own sigma (1e-4 deg, 8e-5 mm; the two lays differ by
+  // 0.01 deg and by where the strip's cells fall, not in the floor).
+  REQUIRE(std::abs(errs[0].tilt_deg.value - errs[1].tilt_deg.value) <= 3e-4);
+  REQUIRE(std::abs(errs[0].stepover_mm.value - errs[1].stepover_mm.value) <= 3e-5);
+  REQUIRE(std::abs(fits[0].residual_rms_um - fits[1].residual_rms_um) <=
+          0.002 * fits[1].residual_rms_um);
+  // The same direction, or its along-feed mirror (derived, as above), within 1 deg.
+  REQUIRE(std::min(angle_error_deg(errs[0].tilt_toward_deg.value, errs[1].tilt_toward_deg.value),
+                   angle_error_deg(errs[0].tilt_toward_alt_deg, errs[1].tilt_toward_deg.value)) <=
+          1.0);
+  // The uncertainty is the same too (the stalled fit's was 20x too small).
+  REQUIRE(errs[0].stepover_mm.sigma >= 0.5 * errs[1].stepover_mm.sigma);
+  REQUIRE(errs[0].stepover_mm.sigma <= 2.0 * errs[1].stepover_mm.sigma);
+  // And the truth within issue 17's tolerances: tilt 10 %, stepover 1 %.
+  REQUIRE(std::abs(errs[0].tilt_deg.value - 0.08) <= 0.008);
+  REQUIRE(std::abs(errs[0].stepover_mm.value - 1.5) <= 0.015);
+}
+
+}  // namespace cuspmap
