@@ -22,8 +22,8 @@
 namespace cuspmap {
 namespace {
 
-// Finite-difference steps of the Jacobian, one per parameter. A tilt of 0.002 deg moves a rim
-// 3 mm out by 0.1 um (well above float rounding of um heights); stepover and offset steps are a
+// Finite-difference steps of the Jacobian, one per parameter. A tilt of 0.0005 deg moves a rim
+// 3 mm out by 0.026 um (above float rounding of um heights); stepover and offset steps are a
 // small fraction of the period (derived). The sweep is piecewise smooth (minimum over passes),
 // so a step that spans a crest averages the two slopes. For the stepover and the offset both
 // one-sided differences are taken and the shorter column kept: the rim of a tilted flat leaves
