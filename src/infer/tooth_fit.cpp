@@ -267,10 +267,16 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
     const Eigen::Vector2d de = e > 0.0 ? Eigen::Vector2d(ec / e, es / e) : Eigen::Vector2d(1, 0);
     Eigen::Matrix2d c2;
     c2 << cov(ic, ic), cov(ic, is), cov(is, ic), cov(is, is);
-    f.runout_um = fitted_value(e, de.dot(c2 * de) + spread([](const ToothState& t) {
-                                return std::hypot(t.g[kRunoutCos], t.g[kRunoutSin]);
-                              }),
-                           true);
+    // An unbounded covariance (the floor does not show the runout) gives an unbounded sigma; the
+    // products below would mix infinities with zeros (invalid, trapped by the debug runner).
+    const bool bounded = c2.allFinite();
+    constexpr double kUnbounded = std::numeric_limits<double>::infinity();
+    f.runout_um = fitted_value(e,
+                               bounded ? de.dot(c2 * de) + spread([](const ToothState& t) {
+                                 return std::hypot(t.g[kRunoutCos], t.g[kRunoutSin]);
+                               })
+                                       : kUnbounded,
+                               true);
     const Eigen::Vector2d dpsi = e > 0.0 ? Eigen::Vector2d(-es, ec) / (e * e) / kDegToRad
                                          : Eigen::Vector2d(0, 0);
     const double psi = std::atan2(es, ec) / kDegToRad;
@@ -281,8 +287,8 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
       return psi + a - std::round(a / period) * period;
     });
     f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period,
-                                  e > 0.0 ? dpsi.dot(c2 * dpsi) + psi_spread
-                                          : std::numeric_limits<double>::infinity(),
+                                  e > 0.0 && bounded ? dpsi.dot(c2 * dpsi) + psi_spread
+                                                     : kUnbounded,
                                   true);
   }
   const double other = best_cost[1 - win], mine = best_cost[win];
