@@ -10,8 +10,6 @@
 #include <algorithm>
 #include <cassert>
 #include <cmath>
-#include <memory>
-#include <new>
 #include <numbers>
 #include <utility>
 #include <vector>
@@ -49,14 +47,9 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, La
   // Rows are windowed into a row beside the field and transformed out of place into it: FFTW
   // plans an out-of-place real transform in about half the time of an in-place one, a cost
   // paid in every process (docs/performance.md, "Fourth pass").
-  const auto beside_row = [nx] {
-    return std::unique_ptr<double, decltype(&fftw_free)>(
-        static_cast<double*>(fftw_malloc(sizeof(double) * static_cast<std::size_t>(nx))),
-        &fftw_free);
-  };
-  const auto model = beside_row();  // only its address and alignment are planned for
-  if (model == nullptr) throw std::bad_alloc();
-  const Plan rows_fwd(fftw_plan_many_dft_r2c(1, &nx, 1, model.get(), nullptr, 1, 0, spec(0),
+  const auto row_doubles = static_cast<std::size_t>(nx);
+  LargeBuffer<double> model(row_doubles);  // planned for: its address and alignment only
+  const Plan rows_fwd(fftw_plan_many_dft_r2c(1, &nx, 1, model.data(), nullptr, 1, 0, spec(0),
                                              nullptr, 1, 0, FFTW_ESTIMATE));
   const int cstride = static_cast<int>(stride);
   const Plan cols_fwd(fftw_plan_many_dft(1, &ny, kColumnBlock, spec(0), nullptr, cstride, 1,
@@ -70,11 +63,10 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, La
   }
   const int row_tasks = (ny + kRowsPerTask - 1) / kRowsPerTask;
   parallel_blocks(row_tasks, threads, [&](int t) {
-    const auto beside = beside_row();
-    if (beside == nullptr) throw std::bad_alloc();
+    LargeBuffer<double> beside(row_doubles);
     for (int j = t * kRowsPerTask; j < std::min(ny, (t + 1) * kRowsPerTask); ++j) {
       const double wy = 0.5 - 0.5 * std::cos(two_pi * (j + 0.5) / ny);
-      double* r = beside.get();
+      double* r = beside.data();
       const double y = hf.y_mm(j);
       for (int i = 0; i < nx; ++i) {
         float v = hf.z_um(j, i);

@@ -8,7 +8,6 @@
 
 #include <algorithm>
 #include <cassert>
-#include <new>
 #include <utility>
 
 #include "core/parallel_blocks.h"
@@ -38,21 +37,10 @@ fftwf_plan column_plan(SpectrumField& f, int sign) {
                              1, sign, FFTW_ESTIMATE);
 }
 
-// A row of real values beside the field, aligned as FFTW's own allocations are. The row
-// transforms run out of place through it: FFTW plans an out-of-place 1-D real transform in
-// about half the time of an in-place one (measured: 7.7 vs 11.9 ms for r2c, 3.5 vs 13.0 ms for
-// c2r at n = 1920, docs/performance.md "Fourth pass"), and planning is paid in every process.
-struct ScratchRow {
-  explicit ScratchRow(int n)
-      : p(static_cast<float*>(fftwf_malloc(sizeof(float) * static_cast<std::size_t>(n)))) {
-    if (p == nullptr) throw std::bad_alloc();
-  }
-  ~ScratchRow() { fftwf_free(p); }
-  ScratchRow(const ScratchRow&) = delete;
-  ScratchRow& operator=(const ScratchRow&) = delete;
-  float* p;
-};
-
+// The row transforms run out of place through a row beside the field (LargeBuffer: 64-byte
+// aligned, as FFTW's own allocations): FFTW plans an out-of-place 1-D real transform in about
+// half the time of an in-place one (measured: 7.7 vs 11.9 ms for r2c, 3.5 vs 13.0 ms for c2r at
+// n = 1920, docs/performance.md "Fourth pass"), and planning is paid in every process.
 // Forward: each row is copied beside and transformed into its own spectrum. Inverse: each
 // spectrum is transformed beside (c2r out of place may overwrite its input, which the row's
 // values then replace) and copied back.
@@ -62,14 +50,14 @@ void transform_rows(SpectrumField& f, const Plan& plan, bool forward, int row_be
   const int n = f.cols();
   parallel_blocks(tasks, threads, [&](int t) {
     const int j0 = row_begin + t * kRowsPerTask, j1 = std::min(row_end, j0 + kRowsPerTask);
-    const ScratchRow beside(n);
+    LargeBuffer<float> beside(static_cast<std::size_t>(n));
     for (int j = j0; j < j1; ++j) {
       if (forward) {
-        std::copy_n(f.row(j), n, beside.p);
-        fftwf_execute_dft_r2c(plan.p, beside.p, as_fftw(f.spectrum_row(j)));
+        std::copy_n(f.row(j), n, beside.data());
+        fftwf_execute_dft_r2c(plan.p, beside.data(), as_fftw(f.spectrum_row(j)));
       } else {
-        fftwf_execute_dft_c2r(plan.p, as_fftw(f.spectrum_row(j)), beside.p);
-        std::copy_n(beside.p, n, f.row(j));
+        fftwf_execute_dft_c2r(plan.p, as_fftw(f.spectrum_row(j)), beside.data());
+        std::copy_n(beside.data(), n, f.row(j));
       }
     }
   });
@@ -107,8 +95,8 @@ void run_columns(SpectrumField& f, int filled_rows, int threads, const SpectrumB
   const int n = f.cols();
   // Plans are made once on this thread (FFTW's planner is not thread-safe), then executed on
   // every row or block: the same arithmetic whichever thread runs it.
-  const ScratchRow model(n);  // only its address and alignment are planned for
-  const Plan rows_fwd(fftwf_plan_many_dft_r2c(1, &n, 1, model.p, nullptr, 1, 0,
+  LargeBuffer<float> model(static_cast<std::size_t>(n));  // planned for: address, alignment
+  const Plan rows_fwd(fftwf_plan_many_dft_r2c(1, &n, 1, model.data(), nullptr, 1, 0,
                                               as_fftw(f.spectrum_row(0)), nullptr, 1, 0,
                                               FFTW_ESTIMATE));
   const Plan cols_fwd(column_plan(f, FFTW_FORWARD));
@@ -138,9 +126,9 @@ void autocorrelate_field(SpectrumField& field, int filled_rows, int lag_rows, in
     }
   }, true);
   const int n = field.cols();
-  const ScratchRow model(n);  // only its address and alignment are planned for
+  LargeBuffer<float> model(static_cast<std::size_t>(n));  // planned for: address, alignment
   const Plan rows_inv(fftwf_plan_many_dft_c2r(1, &n, 1, as_fftw(field.spectrum_row(0)), nullptr,
-                                              1, 0, model.p, nullptr, 1, 0, FFTW_ESTIMATE));
+                                              1, 0, model.data(), nullptr, 1, 0, FFTW_ESTIMATE));
   // Only rows holding lags |ty| <= lag_rows are brought back: 0..lag_rows and the wrapped ones.
   const int top = std::min(rows, lag_rows + 1);
   transform_rows(field, rows_inv, false, 0, top, threads);
