@@ -269,7 +269,9 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
     c2 << cov(ic, ic), cov(ic, is), cov(is, ic), cov(is, is);
     // An unbounded covariance (the floor does not show the runout) gives an unbounded sigma; the
     // products below would mix infinities with zeros (invalid, trapped by the debug runner).
-    const bool bounded = c2.allFinite();
+    // Tested element by element: Eigen's allFinite() computes x - x, itself invalid for inf.
+    const bool bounded = std::all_of(c2.data(), c2.data() + c2.size(),
+                                     [](double v) { return std::isfinite(v); });
     constexpr double kUnbounded = std::numeric_limits<double>::infinity();
     f.runout_um = fitted_value(e,
                                bounded ? de.dot(c2 * de) + spread([](const ToothState& t) {

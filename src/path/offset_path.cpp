@@ -179,7 +179,7 @@ Toolpath offset_path(const PathSpec& spec, const CutSpec& cut, const Patch& patc
     boundary = {{x0, y0}, {x1, y0}, {x1, y1}, {x0, y1}};
   } else {
     for (const Eigen::Vector2d& p : boundary) {
-      if (!p.allFinite()) throw InputError("path.boundary: every point must be a finite [x, y] in mm");
+      if (!std::isfinite(p.x()) || !std::isfinite(p.y())) throw InputError("path.boundary: every point must be a finite [x, y] in mm");
     }
     if (boundary.size() < 3 || std::abs(polygon_signed_area_mm2(boundary)) == 0.0) {
       throw InputError("path.boundary: needs at least 3 points [x, y] enclosing an area");
