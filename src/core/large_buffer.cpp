@@ -32,7 +32,8 @@ void* map_aligned(std::size_t bytes, int prot) {
   const auto lo = reinterpret_cast<std::uintptr_t>(reserve);
   const std::uintptr_t at = (lo + kHugePageBytes - 1) & ~(kHugePageBytes - 1);
   if (at > lo) munmap(reserve, at - lo);
-  if (lo + span > at + bytes) munmap(reinterpret_cast<void*>(at + bytes), lo + span - (at + bytes));
+  const std::uintptr_t end = at + (bytes + 4095) / 4096 * 4096;  // munmap needs a page boundary
+  if (lo + span > end) munmap(reinterpret_cast<void*>(end), lo + span - end);
   return reinterpret_cast<void*>(at);
 }
 #endif
@@ -48,6 +49,22 @@ void* grow_aligned(void* old, std::size_t old_bytes, std::size_t bytes) {
   void* p = mremap(old, old_bytes, bytes, MREMAP_MAYMOVE | MREMAP_FIXED, at);
   if (p == MAP_FAILED) munmap(at, bytes);
   return p;
+}
+#endif
+
+#if defined(__linux__)
+// Advises a whole mapping (map_aligned or mremap) into huge pages, its last partial 2 MiB
+// included: advising only the aligned part would split the mapping into two with different
+// flags, and mremap refuses a range spanning two mappings (EFAULT: measured, every reuse of a
+// buffer whose size is not a multiple of 2 MiB fell back to fresh, cleared memory).
+void advise_mapping(void* p, std::size_t bytes) {
+#if defined(MADV_HUGEPAGE)
+  constexpr std::size_t kPage = 4096;
+  madvise(p, (bytes + kPage - 1) / kPage * kPage, MADV_HUGEPAGE);  // advisory only
+#else
+  (void)p;
+  (void)bytes;
+#endif
 }
 #endif
 
@@ -81,7 +98,7 @@ LargeBytes allocate_zeroed_bytes(std::size_t bytes) {
     // On a 2 MiB boundary, so that the advice covers all of it.
     void* p = map_aligned(bytes, PROT_READ | PROT_WRITE);
     if (p == MAP_FAILED) throw std::bad_alloc();
-    advise_huge_pages(p, bytes);
+    advise_mapping(p, bytes);
     return LargeBytes(p, LargeBufferFree{bytes});
   }
 #endif
@@ -104,7 +121,7 @@ LargeBytes reuse_bytes(LargeBytes spent, std::size_t bytes, std::size_t* stale_b
       (void)spent.release();  // the mapping now lives at p with the new size
       // The kept part holds the old values; a grown part arrives zero from the kernel.
       *stale_bytes = std::min(old_bytes, bytes);
-      advise_huge_pages(p, bytes);
+      advise_mapping(p, bytes);
       return LargeBytes(p, LargeBufferFree{bytes});
     }
   }

@@ -45,3 +45,16 @@ TEST_CASE("LargeBuffer: spent memory shrinks in place; small or empty spent memo
   CHECK(none_stale == 0);
   for (std::size_t k = 0; k < kBig; k += 4096) REQUIRE(d[k] == 0.0f);
 }
+
+TEST_CASE("LargeBuffer: spent memory of any size grows in place of fresh memory", "[core]") {
+  // A size that is neither a multiple of 2 MiB nor of a page (a lay transform's 1200 x 608
+  // complex doubles plus a little): the whole mapping must move, not fall back to fresh memory.
+  constexpr std::size_t kFirst = (std::size_t{11673600} + 1000) / sizeof(double);
+  LargeBuffer<double> a(kFirst);
+  for (std::size_t k = 0; k < kFirst; ++k) a[k] = 3.0;
+  std::size_t stale = 0;
+  LargeBuffer<float> b(std::size_t{14991360} / sizeof(float), std::move(a).release(), &stale);
+  CHECK(stale == kFirst * sizeof(double) / sizeof(float));  // 0 would mean the move failed (mremap(2): EFAULT)
+  CHECK(reinterpret_cast<const double*>(b.data())[kFirst - 1] == 3.0);
+  CHECK(reinterpret_cast<std::uintptr_t>(b.data()) % (std::uintptr_t{2} << 20) == 0);
+}
