@@ -90,18 +90,30 @@ DetailWindow choose_detail_window(const Heightfield& hf) {
       m.iz += siz, m.jz += z * jd;
     }
   }
+  // A window's moments: the whole tiles inside it, then the cells of its head strips (a window
+  // flush with the far edge starts inside a tile; it ends at the floor's edge, where the last
+  // tile ends too). Windows are whole numbers of steps, so a start on the tile grid ends on it.
   const auto window_moments = [&](int i0, int j0) {
     Moments m;
-    if (i0 % s == 0 && j0 % s == 0 && wx % s == 0 && wy % s == 0) {
-      for (int b = j0 / s; b < (j0 + wy) / s; ++b) {
-        for (int a = i0 / s; a < (i0 + wx) / s; ++a) {
-          m.add(tiles[static_cast<std::size_t>(b) * tx + a]);
-        }
+    const int ia = (i0 + s - 1) / s, ja = (j0 + s - 1) / s;  // first whole tile
+    const int i_end = i0 + wx, j_end = j0 + wy;
+    const bool whole_tiles = wx % s == 0 && wy % s == 0 && (i_end % s == 0 || i_end == hf.nx) &&
+                             (j_end % s == 0 || j_end == hf.ny);
+    if (!whole_tiles) {
+      for (int j = j0; j < j_end; ++j) {
+        for (int i = i0; i < i_end; ++i) add_cell(m, j, i);
       }
       return m;
     }
-    for (int j = j0; j < j0 + wy; ++j) {
-      for (int i = i0; i < i0 + wx; ++i) add_cell(m, j, i);
+    const int ib = (i_end + s - 1) / s, jb = (j_end + s - 1) / s;  // one past the last tile
+    for (int b = ja; b < jb; ++b) {
+      for (int a = ia; a < ib; ++a) m.add(tiles[static_cast<std::size_t>(b) * tx + a]);
+    }
+    for (int j = j0; j < ja * s; ++j) {  // head rows, the whole width
+      for (int i = i0; i < i_end; ++i) add_cell(m, j, i);
+    }
+    for (int j = ja * s; j < j_end; ++j) {  // head columns beside the tiles
+      for (int i = i0; i < ia * s; ++i) add_cell(m, j, i);
     }
     return m;
   };

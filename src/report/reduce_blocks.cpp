@@ -59,11 +59,43 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
   for (int bi = 0; bi < out_nx; ++bi) {
     for (double w : tx[bi].w) full_weight[bi] += w;
   }
+  // Interior blocks have the same weights (the same offsets from their centres) and start k
+  // cells apart: [uniform_lo, uniform_hi) is that run around the middle block.
+  const int mid = out_nx / 2;
+  const auto uniform = [&](int bi) {
+    return tx[bi].w == tx[mid].w && tx[bi].first == tx[mid].first + (bi - mid) * k;
+  };
+  int uniform_lo = mid, uniform_hi = mid + 1;
+  while (uniform_lo > 0 && uniform(uniform_lo - 1)) --uniform_lo;
+  while (uniform_hi < out_nx && uniform(uniform_hi)) ++uniform_hi;
   for (int j = 0; j < ny; ++j) {
     const float* row = &z(j, 0);
     bool all_finite = true;
     for (int i = 0; i < nx; ++i) all_finite &= std::isfinite(row[i]);
     for (int bi = 0; bi < out_nx; ++bi) {
+      if (all_finite && bi == uniform_lo) {
+        // Four interior samples at once: independent sums, each in the same order as alone
+        // (the same results; the four chains of additions overlap instead of waiting).
+        const std::vector<double>& uw = tx[mid].w;
+        const int taps = static_cast<int>(uw.size());
+        for (; bi + 4 <= uniform_hi; bi += 4) {
+          const float* v = row + tx[bi].first;
+          double s0 = 0.0, s1 = 0.0, s2 = 0.0, s3 = 0.0;
+          for (int q = 0; q < taps; ++q) {
+            const double wq = uw[q];
+            s0 += wq * v[q];
+            s1 += wq * v[k + q];
+            s2 += wq * v[2 * k + q];
+            s3 += wq * v[3 * k + q];
+          }
+          const double group[4] = {s0, s1, s2, s3};
+          for (int u = 0; u < 4; ++u) {
+            sum(j, bi + u) = static_cast<float>(group[u]);
+            weight(j, bi + u) = static_cast<float>(full_weight[bi + u]);
+          }
+        }
+        if (bi >= out_nx) break;
+      }
       const Taps& t = tx[bi];
       const float* v = row + t.first;
       const int taps = static_cast<int>(t.w.size());

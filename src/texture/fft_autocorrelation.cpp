@@ -14,22 +14,32 @@ FftwRealBuffer fftw_real_buffer(std::size_t count) {
   return buf;
 }
 
-void fft_autocorrelate(double* data, int rows, int cols) {
+Autocorrelator::Autocorrelator(int rows, int cols)
+    : rows_(rows),
+      cols_(cols),
+      data_(fftw_real_buffer(static_cast<std::size_t>(rows) * static_cast<std::size_t>(cols))) {
   const std::size_t bins = static_cast<std::size_t>(rows) * static_cast<std::size_t>(cols / 2 + 1);
-  std::unique_ptr<fftw_complex, FftwFree> spec(
-      static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * bins)));
+  spec_.reset(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * bins)));
   // ESTIMATE plans cost no measuring time and do not overwrite the input while planning.
-  fftw_plan fwd = fftw_plan_dft_r2c_2d(rows, cols, data, spec.get(), FFTW_ESTIMATE);
-  fftw_plan inv = fftw_plan_dft_c2r_2d(rows, cols, spec.get(), data, FFTW_ESTIMATE);
-  fftw_execute(fwd);
+  fwd_ = fftw_plan_dft_r2c_2d(rows, cols, data_.get(), spec_.get(), FFTW_ESTIMATE);
+  inv_ = fftw_plan_dft_c2r_2d(rows, cols, spec_.get(), data_.get(), FFTW_ESTIMATE);
+}
+
+Autocorrelator::~Autocorrelator() {
+  fftw_destroy_plan(fwd_);
+  fftw_destroy_plan(inv_);
+}
+
+void Autocorrelator::run() {
+  const std::size_t bins = static_cast<std::size_t>(rows_) * static_cast<std::size_t>(cols_ / 2 + 1);
+  fftw_execute(fwd_);
+  fftw_complex* spec = spec_.get();
   for (std::size_t k = 0; k < bins; ++k) {
-    const double re = spec.get()[k][0], im = spec.get()[k][1];
-    spec.get()[k][0] = re * re + im * im;
-    spec.get()[k][1] = 0.0;
+    const double re = spec[k][0], im = spec[k][1];
+    spec[k][0] = re * re + im * im;
+    spec[k][1] = 0.0;
   }
-  fftw_execute(inv);
-  fftw_destroy_plan(fwd);
-  fftw_destroy_plan(inv);
+  fftw_execute(inv_);
 }
 
 }  // namespace cuspmap

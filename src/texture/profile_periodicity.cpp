@@ -5,6 +5,8 @@
 #include "texture/profile_periodicity.h"
 
 #include <algorithm>
+#include <bit>
+#include <optional>
 
 #include "texture/fft_autocorrelation.h"
 #include "texture/remove_least_squares_line.h"
@@ -17,18 +19,27 @@ constexpr size_t kMinSamples = 8;
 // no source: noise moves the multiples' peaks by a few per cent).
 constexpr double kPeriodPeakFraction = 0.9;
 
-// Unbiased normalised ACF of z for lags 0..n/2 (zero-padded to 2n: no wrap-around).
-std::vector<double> autocorrelation(std::vector<double> z) {
+// Unbiased normalised ACF of z for lags 0..n/2, zero-padded to the power of two >= 2n (no
+// wrap-around; FFTW plans a power of two ~3x faster than, say, 2400: measured 20 M against 65 M
+// instructions for the pair of plans). `acf_plan` holds the plans of the last padded length
+// (traces of one floor share their length).
+std::vector<double> autocorrelation(std::vector<double> z, std::optional<Autocorrelator>& acf_plan) {
   const size_t n = z.size();
   remove_least_squares_line(z);
-  FftwRealBuffer buf = fftw_real_buffer(2 * n);
-  std::copy(z.begin(), z.end(), buf.get());
-  fft_autocorrelate(buf.get(), 1, static_cast<int>(2 * n));
+  const size_t padded = std::bit_ceil(2 * n);
+  if (!acf_plan || acf_plan->cols() != static_cast<int>(padded)) {
+    acf_plan.reset();  // one set of plans at a time
+    acf_plan.emplace(1, static_cast<int>(padded));
+  }
+  double* buf = acf_plan->data();
+  std::copy(z.begin(), z.end(), buf);
+  std::fill(buf + n, buf + padded, 0.0);
+  acf_plan->run();
   std::vector<double> acf(n / 2 + 1, 0.0);
-  const double r0 = buf.get()[0] / static_cast<double>(n);
+  const double r0 = buf[0] / static_cast<double>(n);
   if (!(r0 > 0.0)) return acf;
   for (size_t lag = 0; lag < acf.size(); ++lag) {
-    acf[lag] = buf.get()[lag] / static_cast<double>(n - lag) / r0;
+    acf[lag] = buf[lag] / static_cast<double>(n - lag) / r0;
   }
   return acf;
 }
@@ -45,9 +56,10 @@ Periodicity profile_periodicity(const std::vector<ProfileTrace>& traces) {
   const size_t used = std::min<size_t>(usable.size(), kPeriodicityTraces);
   double peak_sum = 0.0, period_sum = 0.0;
   int periods = 0;
+  std::optional<Autocorrelator> acf_plan;
   for (size_t k = 0; k < used; ++k) {
     const ProfileTrace& t = *usable[used == 1 ? 0 : k * (usable.size() - 1) / (used - 1)];
-    const std::vector<double> acf = autocorrelation(t.z_um);
+    const std::vector<double> acf = autocorrelation(t.z_um, acf_plan);
     size_t lag = 1;
     while (lag < acf.size() && acf[lag] > 0.0) ++lag;
     const size_t first = lag;
