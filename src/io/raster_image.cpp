@@ -6,6 +6,7 @@
 #include "core/clip_segment.h"
 
 #include <algorithm>
+#include <cstring>
 #include <cmath>
 #include <cstdlib>
 #include <stdexcept>
@@ -78,6 +79,12 @@ void draw_rect(Image& image, int x, int y, int w, int h, Color color) {
 void blit(const Image& src, Image& dst, int x, int y) {
   const int sx0 = std::max(0, -x), sy0 = std::max(0, -y);
   const int sx1 = std::min(src.width, dst.width - x), sy1 = std::min(src.height, dst.height - y);
+  if (src.channels == dst.channels && sx1 > sx0) {
+    // Same layout: a row copy (a gray level's luma is the level itself, so nothing changes).
+    const std::size_t bytes = static_cast<std::size_t>(sx1 - sx0) * src.channels;
+    for (int sy = sy0; sy < sy1; ++sy) std::memcpy(&dst.at(x + sx0, y + sy), &src.at(sx0, sy), bytes);
+    return;
+  }
   for (int sy = sy0; sy < sy1; ++sy) {
     for (int sx = sx0; sx < sx1; ++sx) set_pixel(dst, x + sx, y + sy, pixel(src, sx, sy));
   }
