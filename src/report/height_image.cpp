@@ -25,7 +25,7 @@ int height_gray_level(double z_um, double lo_um, double hi_um) {
   if (std::isnan(z_um)) return kUnreachedLevel;
   if (!(hi_um > lo_um)) return kFlatLevel;
   const double t = (z_um - lo_um) / (hi_um - lo_um);
-  return static_cast<int>(std::clamp(std::lround(t * kTopHeightLevel), 0L, long{kTopHeightLevel}));
+  return nearest_gray_level(t * kTopHeightLevel);
 }
 
 HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions& options) {

@@ -16,6 +16,14 @@ inline constexpr int kTopHeightLevel = 254;
 /// Gray level that marks cells no move reached (pure white, never used for a height).
 inline constexpr int kUnreachedLevel = 255;
 
+/// The gray level nearest to `level` (halves up, as std::lround), clamped to
+/// [0, kTopHeightLevel]; inlined per pixel instead of a library call (the same levels).
+inline int nearest_gray_level(double level) {
+  const double v = level > 0.0 ? (level < kTopHeightLevel ? level : kTopHeightLevel) : 0.0;
+  const int whole = static_cast<int>(v);  // v >= 0: truncation is the floor
+  return v - whole >= 0.5 ? whole + 1 : whole;
+}
+
 /// Unit label for heights: "um" (Millimetre) or "uin" (Inch).
 std::string height_unit_label(LengthUnit units);
 /// Height in um converted to the display unit (um, or uin = um x 39.37).

@@ -162,7 +162,7 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
     for (int c = 0; c < w; ++c) {
       const float b = blocks(bh - 1 - r / zoom, c / zoom);  // image top = highest Y
       out.image.at(c, r) = static_cast<std::uint8_t>(
-          std::isfinite(b) ? std::lround(kTopHeightLevel * std::clamp(b, 0.0f, 1.0f))
+          std::isfinite(b) ? nearest_gray_level(kTopHeightLevel * std::clamp(b, 0.0f, 1.0f))
                            : kUnreachedLevel);
     }
   }

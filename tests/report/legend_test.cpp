@@ -1,6 +1,9 @@
 // Tests for io/legend: the gray ramp of the height legend, scale bar lengths (1-2-5).
 #include "report/legend.h"
 
+#include <algorithm>
+#include <cmath>
+
 #include "test_support.h"
 
 using namespace cuspmap;
@@ -66,4 +69,16 @@ TEST_CASE("draw_scale_bar: the body is exactly length_px black pixels wide", "[r
     REQUIRE(img.at(20, row) == 0);
     REQUIRE(img.at(119, row) == 0);
   }
+}
+
+TEST_CASE("nearest_gray_level: std::lround clamped to [0, 254], halves up", "[report]") {
+  // Source: C++ standard [c.math] lround: "rounding halfway cases away from zero".
+  for (double v = -3.0; v <= 258.0; v += 0.03125) {  // every eighth of a level, halves included
+    const long expected = std::clamp(std::lround(v), 0L, long{kTopHeightLevel});
+    REQUIRE(nearest_gray_level(v) == expected);
+  }
+  CHECK(nearest_gray_level(std::nextafter(0.5, 0.0)) == 0);
+  CHECK(nearest_gray_level(static_cast<double>(std::nextafter(0.5f, 0.0f) * 1.0f)) == 0);
+  CHECK(nearest_gray_level(1e300) == kTopHeightLevel);
+  CHECK(nearest_gray_level(-1e300) == 0);
 }
