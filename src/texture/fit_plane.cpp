@@ -70,11 +70,40 @@ Plane fit_plane(const Heightfield& hf) {
   // Fixed row blocks summed on threads and merged in order: the same plane for any count.
   const int blocks = (hf.ny + kPlaneRowsPerBlock - 1) / kPlaneRowsPerBlock;
   std::vector<PlaneSums> part(static_cast<std::size_t>(blocks), sums);
+  // x of every column from the centre, and a full row's sums of 1, x, x^2 (the same for every
+  // row without unreached cells).
+  std::vector<double> xs(static_cast<std::size_t>(hf.nx));
+  double full_sx = 0.0, full_sxx = 0.0;
+  for (int i = 0; i < hf.nx; ++i) {
+    xs[static_cast<std::size_t>(i)] = hf.x_mm(i) - sums.x0_mm;
+    full_sx += xs[static_cast<std::size_t>(i)];
+    full_sxx += xs[static_cast<std::size_t>(i)] * xs[static_cast<std::size_t>(i)];
+  }
   parallel_blocks(blocks, 0, [&](int b) {
     PlaneSums& p = part[static_cast<std::size_t>(b)];
     for (int j = b * kPlaneRowsPerBlock; j < std::min(hf.ny, (b + 1) * kPlaneRowsPerBlock); ++j) {
-      const double y = hf.y_mm(j);
-      for (int i = 0; i < hf.nx; ++i) p.add(hf.x_mm(i), y, hf.z_um(j, i));
+      // One row's sums of the terms that vary along it; y enters once per row:
+      // sum y = y n, sum x y = y sum x, sum y^2 = y^2 n, sum y z = y sum z.
+      const double y = hf.y_mm(j) - sums.y0_mm;
+      const float* z = &hf.z_um(j, 0);
+      bool finite = true;
+      for (int i = 0; i < hf.nx; ++i) finite &= !std::isnan(z[i]);
+      double n = 0.0, sx = 0.0, sxx = 0.0, sz = 0.0, sxz = 0.0;
+      if (finite) {
+        n = hf.nx, sx = full_sx, sxx = full_sxx;
+        for (int i = 0; i < hf.nx; ++i) {
+          sz += z[i];
+          sxz += xs[static_cast<std::size_t>(i)] * z[i];
+        }
+      } else {
+        for (int i = 0; i < hf.nx; ++i) {
+          if (std::isnan(z[i])) continue;
+          const double x = xs[static_cast<std::size_t>(i)];
+          n += 1.0, sx += x, sxx += x * x, sz += z[i], sxz += x * z[i];
+        }
+      }
+      p.n += n, p.sx += sx, p.sy += y * n, p.sxx += sxx, p.sxy += y * sx, p.syy += y * y * n;
+      p.sz += sz, p.sxz += sxz, p.syz += y * sz;
     }
   });
   for (const PlaneSums& p : part) sums.merge(p);
