@@ -19,7 +19,9 @@ constexpr double kStreamedCellsPerS = 1.5e8;
 // equation (lines: a series atan per step; arcs: a sin/cos/atan2 per step and the minima of the
 // tooth's heights along the arc). Measured on the reference machine, unloaded: see
 // docs/performance.md "Run forecast" (jobs, visits and times).
-constexpr double kLineVisitsPerS = 5.4e7;
+// Lines re-measured after the sweep's SIMD lanes (2026-12-05, docs/performance.md "Run
+// forecast"): 3.9e8 (was 5.4e7 before them).
+constexpr double kLineVisitsPerS = 3.9e8;
 constexpr double kArcVisitsPerS = 9.3e5;
 
 // Peak memory of an in-memory run in float grids of the floor's size: measured 14 bytes per

@@ -42,8 +42,10 @@ TEST_CASE("estimate_run: the tooth-resolved cost follows the sweep's visits per 
 namespace {
 
 // docs/performance.md "Run forecast": measured timings.sweep_s of the examples with tooth marks.
-constexpr double kMeasuredTramSweepS = 0.134;
-constexpr double kMeasuredOneWaySweepS = 0.476;
+// The two line jobs re-measured after the sweep's SIMD lanes (2026-12-05: 45.0 and 173 ms
+// process CPU, medians of 5, taken as CPU / 2 on the 2 idle cores).
+constexpr double kMeasuredTramSweepS = 0.0225;
+constexpr double kMeasuredOneWaySweepS = 0.0865;
 constexpr double kMeasuredTrochoidalSweepS = 2.75;
 
 // The forecast sweep time of an example job swept tooth by tooth; `size` replaces the patch
