@@ -63,15 +63,22 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
   out.map_width_px = static_cast<int>(blocks.cols()) * zoom;
   out.map_height_px = static_cast<int>(blocks.rows()) * zoom;
   Image map = make_image(out.map_width_px, out.map_height_px, 1, kWhite);
-  for (int r = 0; r < out.map_height_px; ++r) {
-    const int block_row = static_cast<int>(blocks.rows()) - 1 - r / zoom;  // top = highest Y
-    for (int c = 0; c < out.map_width_px; ++c) {
-      const int level = height_gray_level(blocks(block_row, c / zoom), out.lo_um, out.hi_um);
-      if (level == kUnreachedLevel) ++out.unreached_pixels;
-      map.at(c, r) = static_cast<std::uint8_t>(level);
+  // One level per block, written to its zoom x zoom pixels: the first pixel row of a block row,
+  // then copies of it.
+  const int block_rows = static_cast<int>(blocks.rows()), block_cols = static_cast<int>(blocks.cols());
+  for (int br = 0; br < block_rows; ++br) {
+    const int block_row = block_rows - 1 - br;  // top = highest Y
+    const int r0 = br * zoom;
+    std::uint8_t* first = &map.at(0, r0);
+    for (int bc = 0; bc < block_cols; ++bc) {
+      const int level = height_gray_level(blocks(block_row, bc), out.lo_um, out.hi_um);
+      if (level == kUnreachedLevel) ++out.unreached_pixels;  // counted per block
+      std::fill_n(first + static_cast<std::ptrdiff_t>(bc) * zoom, zoom, static_cast<std::uint8_t>(level));
+    }
+    for (int r = r0 + 1; r < r0 + zoom; ++r) {
+      std::copy_n(first, out.map_width_px, &map.at(0, r));
     }
   }
-  out.unreached_pixels /= zoom * zoom;
   if (!options.legend) {
     out.image = std::move(map);
     return out;
