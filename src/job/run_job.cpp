@@ -127,7 +127,8 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   run.patch = job.patch;
   run.built = build_toolpath(job.path, job.cut, job.patch, job.cutter);
   if (job.patch_from_program) {
-    run.patch = patch_from_extent(run.built.path, job.patch.cell_mm, job.patch.floor_z_mm);
+    run.patch = patch_from_extent(run.built.path, job.patch.cell_mm, job.patch.floor_z_mm,
+                                  job.cutter.radius_mm());
   }
   run.path_length_mm = path_length_mm(program_moves(run.built), true);
   run.cycle_time_s = cycle_time_s(program_moves(run.built));

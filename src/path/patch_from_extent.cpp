@@ -13,8 +13,9 @@
 
 namespace cuspmap {
 
-Patch patch_from_extent(const Toolpath& path, double cell_mm, double floor_z_mm) {
-  assert(cell_mm > 0.0 && "validated cell");
+Patch patch_from_extent(const Toolpath& path, double cell_mm, double floor_z_mm,
+                        double radius_mm) {
+  assert(cell_mm > 0.0 && radius_mm > 0.0 && "validated cell and cutter");
   const double z_limit = floor_z_mm + kFloorContactBandMm;
   constexpr double kInf = std::numeric_limits<double>::infinity();
   Eigen::Vector2d lo(kInf, kInf), hi(-kInf, -kInf);
@@ -41,10 +42,9 @@ Patch patch_from_extent(const Toolpath& path, double cell_mm, double floor_z_mm)
   patch.floor_z_mm = floor_z_mm;
   for (int axis = 0; axis < 2; ++axis) {
     double a = lo[axis], b = hi[axis];
-    if (b - a < cell_mm) {
-      const double mid = 0.5 * (a + b);
-      a = mid - 0.5 * cell_mm;
-      b = mid + 0.5 * cell_mm;
+    if (b - a < cell_mm) {  // a single straight pass: the cutter's whole cut across it
+      a -= radius_mm;
+      b += radius_mm;
     }
     (axis == 0 ? patch.origin_x_mm : patch.origin_y_mm) = a;
     (axis == 0 ? patch.size_x_mm : patch.size_y_mm) = b - a;

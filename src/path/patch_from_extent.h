@@ -17,11 +17,15 @@ inline constexpr double kFloorContactBandMm = 0.01;
 /// at or below floor_z_mm + kFloorContactBandMm. Lines and helices are clipped to that part
 /// exactly (Z is linear along them); arcs contribute their ends and the quadrant points they
 /// pass. The patch is the tip's box, not the cutter's: its edges are where the tip ran, so the
-/// cutter fully covers it. A side shorter than cell_mm is widened to one cell about its centre.
+/// cutter fully covers it. A side shorter than cell_mm (a single straight pass) spans the
+/// cutter's whole cut instead, grown by radius_mm each way: the slot the pass leaves, walls
+/// included (one row of cells would report a flat floor and Ra 0).
 /// @param[in] path        moves in program coordinates
 /// @param[in] cell_mm     grid spacing of the result, > 0
 /// @param[in] floor_z_mm  the nominal floor in program Z
+/// @param[in] radius_mm   the cutter's radius R, > 0
 /// @throws InputError "no feed move reaches the floor Z=<z> mm ..." when no move qualifies.
-Patch patch_from_extent(const Toolpath& path, double cell_mm, double floor_z_mm);
+Patch patch_from_extent(const Toolpath& path, double cell_mm, double floor_z_mm,
+                        double radius_mm);
 
 }  // namespace cuspmap

@@ -65,7 +65,7 @@ TEST_CASE("read_gcode_file: the example bracket pocket program", "[path]") {
   }
   CHECK(arcs == 9);
   // Ring 0 runs 3 mm inside the pocket walls (X5..35, Y5..25): its box is the floor extent.
-  const Patch p = patch_from_extent(b.path, 0.05, 0.0);
+  const Patch p = patch_from_extent(b.path, 0.05, 0.0, 3.0);
   REQUIRE_NEAR(p.origin_x_mm, 8.0, 1e-12);
   REQUIRE_NEAR(p.origin_y_mm, 8.0, 1e-12);
   REQUIRE_NEAR(p.size_x_mm, 24.0, 1e-12);

@@ -59,7 +59,7 @@ TEST_CASE("patch_from_extent: box of the feed moves on the floor, ramps clipped"
   path.moves.push_back(arc({30, 0, 0}, {30, 10, 0}, {30, 5}, true));  // bulges to x = 35
   path.moves.push_back(line({30, 10, 0}, {30, 50, 2}));          // ramp up: on floor until z = 0.01
   path.moves.push_back(line({0, 20, 0.5}, {20, 20, 0.5}));       // 0.5 above: ignored
-  const Patch p = patch_from_extent(path, 0.05, 0.0);
+  const Patch p = patch_from_extent(path, 0.05, 0.0, 3.0);
   REQUIRE_NEAR(p.origin_x_mm, 0.0, 1e-12);
   REQUIRE_NEAR(p.origin_y_mm, 0.0, 1e-12);
   REQUIRE_NEAR(p.size_x_mm, 35.0, 1e-12);
@@ -68,15 +68,23 @@ TEST_CASE("patch_from_extent: box of the feed moves on the floor, ramps clipped"
   CHECK(p.cell_mm == 0.05);
   Toolpath high;
   high.moves.push_back(line({0, 0, 1}, {5, 0, 1}));
-  CHECK_THROWS_WITH(patch_from_extent(high, 0.05, 0.0),
+  CHECK_THROWS_WITH(patch_from_extent(high, 0.05, 0.0, 3.0),
                     "no feed move of the program reaches the floor Z=0 mm (within 0.01 mm): give "
                     "[patch] size and origin, or check patch.floor_z");
-  // A single straight pass along X: its height is widened to one cell about its centre.
+  // A single straight pass along X (derived): across it the patch spans the cutter's cut,
+  // y = 2 -+ R; along it the tip's run (wider than the cutter) as before.
   Toolpath one;
-  one.moves.push_back(line({0, 2, 0}, {5, 2, 0}));
-  const Patch thin = patch_from_extent(one, 0.1, 0.0);
-  REQUIRE_NEAR(thin.origin_y_mm, 1.95, 1e-12);
-  REQUIRE_NEAR(thin.size_y_mm, 0.1, 1e-12);
+  one.moves.push_back(line({0, 2, 0}, {8, 2, 0}));
+  const Patch thin = patch_from_extent(one, 0.1, 0.0, 3.0);
+  REQUIRE_NEAR(thin.origin_y_mm, -1.0, 1e-12);
+  REQUIRE_NEAR(thin.size_y_mm, 6.0, 1e-12);
+  REQUIRE_NEAR(thin.origin_x_mm, 0.0, 1e-12);
+  REQUIRE_NEAR(thin.size_x_mm, 8.0, 1e-12);
+  // Two passes 1 mm apart: the tip's box (the floor both passes finish), not grown.
+  one.moves.push_back(line({8, 3, 0}, {0, 3, 0}));
+  const Patch slot = patch_from_extent(one, 0.1, 0.0, 3.0);
+  REQUIRE_NEAR(slot.origin_y_mm, 2.0, 1e-12);
+  REQUIRE_NEAR(slot.size_y_mm, 1.0, 1e-12);
 }
 
 TEST_CASE("cutter_reach_mm and move_reaches_floor", "[path]") {
