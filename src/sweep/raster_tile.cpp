@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 
 #include "sweep/nearest_rows.h"
 
@@ -19,6 +20,7 @@ constexpr double kParallelSin = 1e-12;
 // Largest x = u^2 / rc^2 of a row taking the power series: its truncation after x^6 is then
 // below 2e-9 relative (next term 33/2048 x^7 against x / 2), under float's 6e-8.
 constexpr double kSeriesMaxX = 1.0 / 16.0;
+constexpr double kInfMm = std::numeric_limits<double>::infinity();
 
 struct Scratch {
   std::vector<double> offsets;  // c_k = n.(a_k - origin), ascending, mm
@@ -74,18 +76,29 @@ bool raster_tile(const SweepSetup& setup, const std::vector<const PreparedMove*>
   profile.corner_mm = static_cast<float>(setup.corner_mm);
   profile.reach2 = static_cast<float>(setup.envelope.reach_mm * setup.envelope.reach_mm);
   const double dw = n.x() * cell;  // >= 0
+  const double inv_dw = dw > 0.0 ? 1.0 / dw : 0.0;
   const float dw_f = static_cast<float>(dw);
+  // One bound on every distance of the tile, so one choice of height form: between two lines
+  // half their gap (the distance is concave there), outside them the farthest corner's offset.
+  double w_lo = kInfMm, w_hi = -kInfMm;
+  for (const Eigen::Vector2d& p : corners) {
+    w_lo = std::min(w_lo, n.dot(p - origin));
+    w_hi = std::max(w_hi, n.dot(p - origin));
+  }
+  double d_max = std::max({0.0, c.front() - w_lo, w_hi - c.back()});
+  for (int k = 0; k < last; ++k) d_max = std::max(d_max, 0.5 * (c[k + 1] - c[k]));
+  const double u_max = std::max(d_max - setup.flat_mm, 0.0);
+  profile.series = u_max * u_max <= kSeriesMaxX * setup.corner_mm * setup.corner_mm;
   for (int j = tile.j0; j < tile.j1; ++j) {
     const double w0 = n.y() * (j - tile.j0) * cell;
     // First line above the row's first cell: cells with w < c[k] lie between lines k-1 and k.
     int k = static_cast<int>(std::upper_bound(c.begin(), c.end(), w0) - c.begin());
-    double d_max = 0.0;  // bound on the row's distances (they are concave between two lines)
     for (int s = 0; s < width;) {
       int e = width;
       if (k <= last && dw > 0.0) {
         // First column with w >= c[k]; a column off by one from rounding has w within an ulp of
         // c[k], where line k is nearest and a candidate of both pieces.
-        const double at = std::ceil((c[k] - w0) / dw);
+        const double at = std::ceil((c[k] - w0) * inv_dw);
         e = static_cast<int>(std::clamp(at, static_cast<double>(s), static_cast<double>(width)));
       }
       if (e > s) {
@@ -93,17 +106,11 @@ bool raster_tile(const SweepSetup& setup, const std::vector<const PreparedMove*>
         const double ws = w0 + s * dw;
         const float a = static_cast<float>(ws - c[lo]), b = static_cast<float>(ws - c[hi]);
         pair_distances(a, b, dw_f, e - s, sc.d.data() + s);
-        const double we = w0 + (e - 1) * dw;
-        d_max = std::max({d_max, std::min(std::abs(ws - c[lo]), std::abs(ws - c[hi])),
-                          std::min(std::abs(we - c[lo]), std::abs(we - c[hi])),
-                          0.5 * (c[hi] - c[lo])});
         visits += static_cast<std::int64_t>(e - s) * (lo == hi ? 1 : 2);
       }
       s = e;
       ++k;
     }
-    const double u_max = std::max(d_max - setup.flat_mm, 0.0);
-    profile.series = u_max * u_max <= kSeriesMaxX * setup.corner_mm * setup.corner_mm;
     float* row = grid + static_cast<std::int64_t>(j - grid_row0) * setup.nx + tile.i0;
     distance_heights(sc.d.data(), width, profile, stream ? sc.h.data() : row);
     if (stream) copy_cells_stream(sc.h.data(), width, row);
