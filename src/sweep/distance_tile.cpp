@@ -12,6 +12,7 @@
 
 #include "core/units.h"
 #include "sweep/nearest_rows.h"
+#include "sweep/raster_tile.h"
 
 namespace cuspmap {
 namespace {
@@ -284,6 +285,12 @@ bool distance_tile(const SweepSetup& setup, const std::vector<PreparedMove>& mov
 
   const bool whole_tile =
       rows_parallel(sc.tile_kept, (tile.i0 + 0.5) * cell, (tile.i1 - 0.5) * cell);
+  // A raster at an angle: two candidate lines per cell, no blocks.
+  if (!whole_tile &&
+      raster_tile(setup, sc.tile_kept, tile, base_um, grid, grid_row0, stream, visits)) {
+    if (stream) stream_fence();
+    return true;
+  }
   // Blocks of columns, each with the moves that can be nearest in it.
   for (int b0 = tile.i0; b0 < tile.i1; b0 += kBlockCols) {
     const int b1 = std::min(tile.i1, b0 + kBlockCols);

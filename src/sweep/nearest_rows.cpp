@@ -40,6 +40,17 @@ void fill_cells_stream(float value, int count, float* out) {
 #endif
 }
 
+void copy_cells_stream(const float* in, int count, float* out) {
+#if defined(__SSE2__)
+  int n = 0;
+  for (; n < count && (reinterpret_cast<std::uintptr_t>(out + n) & 15u) != 0; ++n) out[n] = in[n];
+  for (; n + 4 <= count; n += 4) _mm_stream_ps(out + n, _mm_loadu_ps(in + n));
+  for (; n < count; ++n) out[n] = in[n];
+#else
+  std::copy(in, in + count, out);
+#endif
+}
+
 void stream_fence() {
 #if defined(__SSE2__)
   _mm_sfence();
@@ -106,6 +117,45 @@ CUSPMAP_CLONES void profile_heights(const float* d2, int count, float base_um, f
     const float u = std::min(std::max(std::sqrt(d2[n]) - flat_mm, 0.0f), corner_mm);
     const float h = base_um + kUmPerMm * (u * u / (corner_mm + std::sqrt(c2 - u * u)));
     out[n] = d2[n] <= reach2 ? h : kUnreachedF;
+  }
+}
+
+CUSPMAP_CLONES void pair_distances(float a, float b, float dw, int count, float* d) {
+  for (int n = 0; n < count; ++n) {
+    const float t = static_cast<float>(n) * dw;
+    d[n] = std::min(std::abs(a + t), std::abs(b + t));
+  }
+}
+
+CUSPMAP_CLONES void distance_heights(const float* d, int count, const RowProfile& profile,
+                                     float* out) {
+  const float base_um = profile.base_um, flat = profile.flat_mm, rc = profile.corner_mm;
+  const float reach2 = profile.reach2;
+  if (rc == 0.0f) {
+    for (int n = 0; n < count; ++n) out[n] = d[n] * d[n] <= reach2 ? base_um : kUnreachedF;
+    return;
+  }
+  const float c2 = rc * rc;
+  if (!profile.series) {
+    // The cancellation-free form of profile_heights.
+    for (int n = 0; n < count; ++n) {
+      const float u = std::min(std::max(d[n] - flat, 0.0f), rc);
+      const float h = base_um + kUmPerMm * (u * u / (rc + std::sqrt(c2 - u * u)));
+      out[n] = d[n] * d[n] <= reach2 ? h : kUnreachedF;
+    }
+    return;
+  }
+  // 1 - sqrt(1 - x) = sum_k C(2k, k) / ((2k - 1) 4^k) x^k (the binomial series of (1 - x)^(1/2)),
+  // k = 1..6: every term positive, so no cancellation either.
+  constexpr float k1 = 1.0f / 2, k2 = 1.0f / 8, k3 = 1.0f / 16, k4 = 5.0f / 128, k5 = 7.0f / 256,
+                  k6 = 21.0f / 1024;
+  const float inv_c2 = 1.0f / c2, scale = kUmPerMm * rc;
+  for (int n = 0; n < count; ++n) {
+    const float u = std::min(std::max(d[n] - flat, 0.0f), rc);
+    const float x = u * u * inv_c2;
+    const float poly = ((((k6 * x + k5) * x + k4) * x + k3) * x + k2) * x + k1;
+    const float h = base_um + scale * (x * poly);
+    out[n] = d[n] * d[n] <= reach2 ? h : kUnreachedF;
   }
 }
 

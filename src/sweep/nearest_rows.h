@@ -64,7 +64,13 @@ void fill_cells(float value, int count, float* out);
 /// would first read every line it writes. Call stream_fence() before other threads read them.
 void fill_cells_stream(float value, int count, float* out);
 
-/// Orders earlier fill_cells_stream stores before any later store (x86 sfence; no-op elsewhere).
+/// out[n] = in[n] for n in [0, count) with the stores of fill_cells_stream (caches bypassed).
+/// @param[in] in      the run, count entries
+/// @param[in] count   cells, >= 0
+/// @param[out] out    the copy (must not overlap `in`)
+void copy_cells_stream(const float* in, int count, float* out);
+
+/// Orders earlier fill_cells_stream and copy_cells_stream stores before any later store (x86 sfence; no-op elsewhere).
 void stream_fence();
 
 /// Heights of an untilted ball or undished bull-nose/flat at squared distances d2 from the
@@ -79,5 +85,32 @@ void stream_fence();
 /// @param[out] out      heights, um
 void profile_heights(const float* d2, int count, float base_um, float flat_mm, float corner_mm,
                      float reach2, float* out);
+
+/// d[n] = min(|a + n dw|, |b + n dw|), n in [0, count): the distance from cell n to the nearer of
+/// two parallel lines beside every one of the cells (a raster's passes on either side of it).
+/// @param[in] a       signed across-line offset of cell 0 from the first line, mm
+/// @param[in] b       the same from the second line (a for a single line), mm
+/// @param[in] dw      across-line step per cell, mm
+/// @param[in] count   cells in the run, >= 0
+/// @param[out] d      distances, mm
+void pair_distances(float a, float b, float dw, int count, float* d);
+
+/// The profile of an untilted ball or undished bull-nose/flat as one row kernel sees it.
+struct RowProfile {
+  float base_um = 0.0f;    ///< tip height of the moves plus the lowest tooth, um
+  float flat_mm = 0.0f;    ///< R - rc (0 for a ball)
+  float corner_mm = 0.0f;  ///< rc (R for a ball, 0 for a flat end)
+  float reach2 = 0.0f;     ///< R^2, mm^2
+  bool series = false;     ///< every u of the run has u^2 <= rc^2 / 16: the power series applies
+};
+
+/// Heights at distances d from the nearest move: as profile_heights with d2 = d^2; where
+/// `profile.series` holds, rc (1 - sqrt(1 - x)), x = u^2 / rc^2, is summed as its binomial
+/// series to x^6 (no square root, no division; truncation below 2e-9 relative for x <= 1/16).
+/// @param[in] d         distances, mm, count entries
+/// @param[in] count     cells, >= 0
+/// @param[in] profile   the cutter's profile and reach
+/// @param[out] out      heights, um (NaN where d^2 > reach2)
+void distance_heights(const float* d, int count, const RowProfile& profile, float* out);
 
 }  // namespace cuspmap
