@@ -196,9 +196,18 @@ void print_tooth_fit(const ToothFit& t) {
   if (!t.ran) return;
   std::printf("\n  tooth-resolved stage (%d teeth, fz %s mm, %d passes, %d sweeps)\n", t.teeth,
               mm(t.feed_per_tooth_mm).c_str(), t.passes, t.sweeps);
-  std::printf("  %-13s %.3g um (+-%.2g)%s\n", "runout", t.runout_um.value, t.runout_um.sigma,
-              t.runout_projection_only ? " (|e cos phase| only)" : "");
-  if (!t.runout_projection_only) {
+  if (t.marks_misfit) {
+    std::printf("  the fit did not reproduce the tooth marks (smoothed residual %.3g of their "
+                "rms): no value given\n", t.smoothed_residual_ratio);
+    return;
+  }
+  if (t.runout_not_read) {
+    std::printf("  %-13s not read (the fit does not yet recover it reliably)\n", "runout");
+  } else {
+    std::printf("  %-13s %.3g um (+-%.2g)%s\n", "runout", t.runout_um.value, t.runout_um.sigma,
+                t.runout_projection_only ? " (|e cos phase| only)" : "");
+  }
+  if (!t.runout_projection_only && !t.runout_not_read) {
     std::printf("  %-13s %.3g deg (+-%.2g), modulo %.3g deg\n", "runout phase",
                 t.runout_phase_deg.value, t.runout_phase_deg.sigma, t.runout_phase_period_deg);
   }

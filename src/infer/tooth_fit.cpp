@@ -38,6 +38,9 @@ constexpr double kRestartDish[] = {1.3, 1.6};
 constexpr double kAlongStartMaxDeg = 0.02;
 // Dish start bounds, deg (typical end-face dish 0.5-3 deg, from memory).
 constexpr double kDishStartMin = 0.1, kDishStartMax = 3.0;
+// Least relative standard error of the dish: the spread of the solver's stops from different
+// starts on the issue's round trips (0.84-1.16 deg for 1 deg; measured), 3 sigma covering it.
+constexpr double kDishModelSigma = 0.06;
 
 // Dish start from the marks' depth: between two rim arcs fz apart the floor rises to
 // (fz / 2) tan(dish) (derived), and the along-lay rms of each window line is ~0.298 of it.
@@ -293,12 +296,37 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
                                                      : kUnbounded,
                                   true);
   }
+  // Honest sigmas from what the round trips measured (docs/diagnose.md "Tooth-resolved
+  // stage"): the solver's stops scatter more than (J^T J)^-1 says. Runout and phase came back
+  // 2.9-6.2 um for 5 um and up to 32 deg off, with sigmas of 0.2-0.4 um and 0.5-3 deg (many
+  // sigma off): not read, their sigma unbounded. The dish came back 0.84-1.16 deg for 1 deg
+  // from different starts: its sigma is at least kDishModelSigma of the value (measured).
+  f.runout_um = fitted_value(f.runout_um.value, std::numeric_limits<double>::infinity(), true);
+  f.runout_phase_deg =
+      fitted_value(f.runout_phase_deg.value, std::numeric_limits<double>::infinity(), true);
+  f.runout_not_read = true;
+  f.dish_deg = fitted_value(f.dish_deg.value,
+                            std::max(f.dish_deg.sigma * f.dish_deg.sigma,
+                                     std::pow(kDishModelSigma * f.dish_deg.value, 2)),
+                            true);
   const double other = best_cost[1 - win], mine = best_cost[win];
   f.along_sign_cost_sigmas = (other - mine) / var;
   f.along_sign_known = f.along_sign_cost_sigmas > kSignSigmas * kSignSigmas;
   f.residual_rms_um = std::sqrt(w.residual(p.floor()).squaredNorm() / std::max(m, 1));
   const Eigen::VectorXd mv = w.values - w.q * (w.q.transpose() * w.values);
   f.measured_rms_um = std::sqrt(mv.squaredNorm() / std::max(m, 1));
+  // A fit that sees marks but leaves most of them unexplained stopped in a wrong basin: none of
+  // its tooth values is reported as resolved (never a confident wrong number).
+  f.smoothed_residual_ratio = std::sqrt(r.squaredNorm() / std::max(p.measured_norm2(), 1e-30));
+  const bool marks_seen = f.dish_deg.resolved || f.runout_um.resolved;
+  f.marks_misfit = marks_seen && !(f.smoothed_residual_ratio <= kToothFitMaxResidualRatio);
+  if (f.marks_misfit) {
+    constexpr double kUnbounded = std::numeric_limits<double>::infinity();
+    for (FittedValue* v : {&f.runout_um, &f.runout_phase_deg, &f.dish_deg, &f.tilt_along_deg}) {
+      *v = fitted_value(v->value, kUnbounded, true);
+    }
+    f.along_sign_known = false;
+  }
   f.passes = p.active_passes();
   f.ran = true;
   return f;

@@ -27,6 +27,14 @@ inline constexpr double kToothFitRevolutions = 3.0;
 /// residual variances (scaled by m / m_eff): 3 sigma of one parameter (Bates & Watts 1988 §6.1).
 inline constexpr double kSignSigmas = 3.0;
 
+/// The fit reproduces the tooth marks when its smoothed residual rms is under this fraction of
+/// the smoothed measured marks' rms (plane removed both): above it the solver stopped in a wrong
+/// basin and no runout, phase, dish or along-feed sign is reported (derived: a fit that
+/// flattens the marks, as the old 0.05 deg for 1 deg of dish, has a ratio near 1; one that
+/// explains under 3/4 of the marks' variance has them misplaced; the damaged round trip's fit
+/// measured 0.18).
+inline constexpr double kToothFitMaxResidualRatio = 0.5;
+
 /// What the tooth stage knows.
 struct ToothFitOptions {
   Cutter cutter;                 ///< shape, diameter, corner, teeth (Z >= 1); dish is fitted
@@ -64,6 +72,12 @@ struct ToothFit {
                                  ///< (unsmoothed: the rim's steps a cell off count in full)
   double measured_rms_um = 0.0;  ///< measured window about its plane
   double correlation_factor = 1.0;  ///< m / m_eff of the residual
+  double smoothed_residual_ratio = 0.0;  ///< smoothed residual rms / smoothed measured rms
+  bool runout_not_read = false;  ///< runout and phase not recovered reliably yet: unresolved,
+                                 ///< values for reference only (docs/diagnose.md)
+  bool marks_misfit = false;     ///< marks seen but smoothed_residual_ratio above
+                                 ///< kToothFitMaxResidualRatio: runout, phase, dish and the
+                                 ///< along-feed sign are then not resolved (no value given)
   int samples = 0;               ///< finite samples in the window
   int passes = 0;                ///< passes that cut the window
   int sweeps = 0;                ///< one-pass sweeps run

@@ -95,10 +95,24 @@ ToothProblem::ToothProblem(const ToothWindow& w, const ToothModel& model)
   // marks' shape kept; derived), at least one cell.
   smooth_half_ = std::max(1, static_cast<int>(std::lround(kSmoothPitch * model.feed_per_tooth_mm /
                                                            w.measured.cell_mm)));
-  measured_ = smoothed(w.measured);
+  // The measured plane is removed before smoothing: normalised smoothing does not keep a plane
+  // next to missing samples and the window's edges (the kernel's centroid moves off the cell),
+  // so a setup plane left a residual there that no parameter fits (measured on the damaged
+  // round trip: dish 0.916 -> 0.975 deg for 1 deg, the along-feed sign's margin 1 255 -> 3 252
+  // residual variances). The model's floor has no setup plane.
+  const Eigen::VectorXd level = w.values - w.q * (w.q.transpose() * w.values);
+  Heightfield m = w.measured;
+  for (size_t k = 0; k < w.index.size(); ++k) {
+    m.z_um.data()[w.index[k]] = static_cast<float>(level[static_cast<Eigen::Index>(k)]);
+  }
+  measured_ = smoothed(m);
   state_.g[kOffset] = model.offset_mm;
   state_.shift_mm.assign(model.pass_index.size(), 0.0);
   pass_floor_.resize(model.pass_index.size());
+}
+
+double ToothProblem::measured_norm2() const {
+  return (measured_ - w_.q * (w_.q.transpose() * measured_)).squaredNorm();
 }
 
 int ToothProblem::active_passes() const {

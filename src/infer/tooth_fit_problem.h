@@ -65,6 +65,9 @@ class ToothProblem {
   bool free[kToothGlobals] = {false, false, true, true, true, true};  ///< free globals
   const ToothState& state() const { return state_; }
   const Eigen::VectorXd& residual() const { return r_; }
+  /// |smoothed measured heights with the plane projected out|^2, um^2: the cost of a floor that
+  /// shows no marks at all (the scale the residual is judged on).
+  double measured_norm2() const;
   const Heightfield& floor() const { return floor_; }
   const ToothModel& model() const { return model_; }
   int sweeps() const { return sweeps_; }

@@ -25,6 +25,13 @@ ToothVerdict tooth_verdict(const ToothFit& t) {
                             t.skipped + ")");
     return v;
   }
+  if (t.marks_misfit) {
+    v.cannot_tell.push_back(
+        "runout, its phase, the dish and the sign of the tilt along the feed: the tooth-resolved "
+        "fit did not reproduce the floor's tooth marks (smoothed residual " +
+        n3(t.smoothed_residual_ratio) + " of the marks' rms), so no value is given");
+    return v;
+  }
   const std::string per_rev =
       "every " + n3(t.teeth * t.feed_per_tooth_mm) + " mm along the feed";
   if (!t.dish_deg.resolved && !t.runout_um.resolved) {
@@ -38,7 +45,12 @@ ToothVerdict tooth_verdict(const ToothFit& t) {
   v.lines.push_back(
       "tooth-resolved stage (experimental, not yet reliable on measured floors: "
       "docs/diagnose.md): treat the runout, dish and along-feed sign below as leads to check");
-  if (t.runout_um.resolved) {
+  if (t.runout_not_read) {
+    v.cannot_tell.push_back(
+        "runout and its phase: the tooth-resolved fit does not yet recover them reliably (round "
+        "trips gave 2.9-6.2 um for 5 um and phases up to 33 deg off: docs/diagnose.md); check "
+        "the runout with a dial indicator (spindle stopped and locked out)");
+  } else if (t.runout_um.resolved) {
     const std::string what =
         t.runout_projection_only
             ? "runout at least " + pm(t.runout_um) + " um (the part along the teeth)"
@@ -55,7 +67,9 @@ ToothVerdict tooth_verdict(const ToothFit& t) {
     v.lines.push_back("runout under " + n3(t.runout_um.bound) + " um (not resolved: " +
                       pm(t.runout_um) + "): the teeth cut alike on this floor");
   }
-  if (t.runout_projection_only) {
+  if (t.runout_not_read) {
+    // said above
+  } else if (t.runout_projection_only) {
     v.cannot_tell.push_back(
         "the runout's direction: with " + std::to_string(t.teeth) +
         " teeth the floor shows only the part along the teeth, |e cos(phase)|; the runout "

@@ -25,11 +25,16 @@ void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit) {
     fit["tooth_fit"] = j;
     return;
   }
-  flat(fit, "runout_um", t.runout_um);
-  fit["runout_projection_only"] = t.runout_projection_only;
-  if (!t.runout_projection_only) flat(fit, "runout_phase_deg", t.runout_phase_deg);
-  fit["runout_phase_period_deg"] = t.runout_phase_period_deg;
-  flat(fit, "dish_deg", t.dish_deg);
+  // A misfit gives no flat value (its numbers stay in the block, marked unresolved).
+  if (!t.marks_misfit && !t.runout_not_read) {
+    flat(fit, "runout_um", t.runout_um);
+    fit["runout_projection_only"] = t.runout_projection_only;
+    if (!t.runout_projection_only) flat(fit, "runout_phase_deg", t.runout_phase_deg);
+    fit["runout_phase_period_deg"] = t.runout_phase_period_deg;
+  }
+  if (!t.marks_misfit) {
+    flat(fit, "dish_deg", t.dish_deg);
+  }
   j["teeth"] = t.teeth;
   j["feed_per_tooth_mm"] = t.feed_per_tooth_mm;
   j["runout_um"] = fitted_value_json(t.runout_um);
@@ -42,6 +47,9 @@ void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit) {
   j["residual_rms_um"] = t.residual_rms_um;
   j["measured_rms_um"] = t.measured_rms_um;
   j["correlation_factor"] = t.correlation_factor;
+  j["smoothed_residual_ratio"] = t.smoothed_residual_ratio;
+  j["marks_misfit"] = t.marks_misfit;
+  j["runout_not_read"] = t.runout_not_read;
   j["samples"] = t.samples;
   j["passes"] = t.passes;
   j["sweeps"] = t.sweeps;

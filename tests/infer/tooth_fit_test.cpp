@@ -3,6 +3,7 @@
 // through the envelope fit and the tooth stage.
 #include "infer/tooth_fit.h"
 
+#include <algorithm>
 #include <catch2/catch.hpp>
 #include <cmath>
 #include <numbers>
@@ -47,6 +48,17 @@ ToothFitOptions case_options(const Job& job) {
   o.feed_per_tooth_mm = job.cut.feed_mm_per_min / (job.cut.rpm * job.cutter.teeth);
   o.threads = 2;
   return o;
+}
+
+// The floor through the surface estimates and the envelope fit into the tooth stage.
+ToothFit fit_through_envelope(const Heightfield& hf, const Case& c, const Job& job) {
+  SurfaceOptions so;
+  so.teeth = c.teeth;
+  const SurfaceEstimates e = surface_estimates(hf, so);
+  FloorFitOptions fo;
+  fo.cutter = case_options(job).cutter;
+  fo.threads = 2;
+  return fit_teeth(hf, tooth_fit_start(fit_floor(hf, e, fo)), case_options(job));
 }
 
 }  // namespace
@@ -108,18 +120,11 @@ TEST_CASE("simulate_tooth_pass: the job's floor to the bit with the true per-pas
 
 TEST_CASE("fit_teeth: a 3-flute floor gives the dish and the along-feed sign",
           "[infer][tooth]") {
-  // Noise-free floor through the envelope fit (the damaged one does not converge yet:
-  // docs/diagnose.md "Tooth-resolved stage", not done).
+  // Noise-free floor through the envelope fit (docs/diagnose.md "Tooth-resolved stage").
   const Case c;
   const Job job = case_job(c);
   const Heightfield hf = test::simulate(job);
-  SurfaceOptions so;
-  so.teeth = c.teeth;
-  const SurfaceEstimates e = surface_estimates(hf, so);
-  FloorFitOptions fo;
-  fo.cutter = case_options(job).cutter;
-  fo.threads = 2;
-  const ToothFit f = fit_teeth(hf, tooth_fit_start(fit_floor(hf, e, fo)), case_options(job));
+  const ToothFit f = fit_through_envelope(hf, c, job);
   REQUIRE(f.ran);
   CAPTURE(f.runout_um.value, f.runout_um.sigma, f.runout_phase_deg.value, f.dish_deg.value,
           f.dish_deg.sigma, f.tilt_along_deg.value, f.along_sign_cost_sigmas, f.sweeps);
@@ -130,12 +135,48 @@ TEST_CASE("fit_teeth: a 3-flute floor gives the dish and the along-feed sign",
   // 1.160 once the envelope stage's start search changed: the experimental stage depends on its
   // start and its sigma does not yet cover the error, docs/diagnose.md "Tooth-resolved stage").
   REQUIRE(std::abs(f.dish_deg.value - c.dish_deg) <= 0.2 * c.dish_deg);
+  // ... and within 3 sigma (Bates & Watts 1988 §2.3; measured 0.840 +- 0.122).
+  REQUIRE(std::abs(f.dish_deg.value - c.dish_deg) <= 3.0 * f.dish_deg.sigma);
+  REQUIRE_FALSE(f.marks_misfit);
+  REQUIRE(f.runout_not_read);
   // Along-feed sign: tilt toward 60 deg on passes along +X puts the lowest point ahead
   // (along = 0.05 cos 60 = 0.025 deg > 0; derived).
   REQUIRE(f.along_sign_known);
   REQUIRE(f.tilt_along_deg.value > 0.0);
   REQUIRE(std::abs(f.tilt_along_deg.value - c.tilt_deg * std::cos(c.toward_deg * kDegToRad)) <=
           0.2 * c.tilt_deg);
+}
+
+TEST_CASE("fit_teeth: a damaged 3-flute floor: dish within its sigma, runout said unread",
+          "[infer][tooth]") {
+  // The issue's floor with 0.01 um noise, a 0.8 / -0.4 um/mm setup plane and 1 % missing
+  // points, through the envelope fit (before the plane was removed ahead of the smoothing the
+  // stage returned 0.916 deg here; once 0.05 deg: docs/diagnose.md).
+  const Case c;
+  const Job job = case_job(c);
+  Heightfield hf = test::simulate(job);
+  test::damage(hf, 0.01, 0.8, -0.4, 0.01, 7);
+  const ToothFit f = fit_through_envelope(hf, c, job);
+  REQUIRE(f.ran);
+  CAPTURE(f.runout_um.value, f.runout_phase_deg.value, f.dish_deg.value, f.dish_deg.sigma,
+          f.tilt_along_deg.value, f.along_sign_cost_sigmas, f.smoothed_residual_ratio, f.sweeps);
+  REQUIRE_FALSE(f.marks_misfit);
+  // Dish within 3 sigma (Bates & Watts 1988 §2.3: the covariance; the sigma's floor is the
+  // measured spread of the solver's stops) and within 10 % (the issue's tolerance).
+  REQUIRE(f.dish_deg.resolved);
+  REQUIRE(std::abs(f.dish_deg.value - c.dish_deg) <= 3.0 * f.dish_deg.sigma);
+  REQUIRE(std::abs(f.dish_deg.value - c.dish_deg) <= 0.1 * c.dish_deg);
+  // Runout and phase are not read reliably yet: unresolved, and the verdict says so instead of
+  // a number (Kline & DeVor 1983 model; the round trips' spread, docs/diagnose.md).
+  REQUIRE(f.runout_not_read);
+  REQUIRE_FALSE(f.runout_um.resolved);
+  REQUIRE_FALSE(f.runout_phase_deg.resolved);
+  const ToothVerdict v = tooth_verdict(f);
+  REQUIRE(std::any_of(v.cannot_tell.begin(), v.cannot_tell.end(), [](const std::string& s) {
+    return s.starts_with("runout and its phase: the tooth-resolved fit does not yet");
+  }));
+  // Along-feed sign when known: + (0.05 cos 60 deg = 0.025 deg ahead; derived).
+  if (f.along_sign_known) REQUIRE(f.tilt_along_deg.value > 0.0);
 }
 
 TEST_CASE("fit_teeth: an undished, untilted flat shows no runout", "[infer][tooth]") {
