@@ -15,6 +15,7 @@
 #include <Eigen/Dense>
 
 #include "infer/band_means.h"
+#include "infer/compass_search.h"
 #include "infer/fit_starts.h"
 #include "infer/residual_correlation.h"
 #include <unsupported/Eigen/NonLinearOptimization>
@@ -55,12 +56,26 @@ constexpr double kSolverTolerance = 1e-7;
 // Restarts of the solver from its best optimum, and the relative cost gain that earns another.
 constexpr int kPolishRuns = 4;
 constexpr double kPolishGain = 1e-3;
+// Compass search after the solver: initial steps (0.002 deg: several times a resolved tilt's
+// sigma; 1e-3 of the stepover) and final ones (1e-5 deg and 1e-6 of the stepover, well below
+// the sigmas the round trips report; derived).
+constexpr double kCompassTiltStepDeg = 2e-3;
+constexpr double kCompassPeriodStep = 1e-3;
+constexpr double kCompassFinalTiltDeg = 1e-5;
+constexpr double kCompassFinalPeriod = 1e-6;
+// The lay's: 0.02 deg (the surface estimate's error, derived from the round trips) to 1e-4 deg
+// (a pass drifts 0.02 um across a 10 mm window).
+constexpr double kCompassLayStepDeg = 0.02;
+constexpr double kCompassFinalLayDeg = 1e-4;
 // Profile over the tilt direction: directions tried (every 15 deg from the lay, the along
 // sign being folded), sweeps each, and the cost rise that bounds the interval (9 residual
 // variances: 3 sigma of one parameter, Bates & Watts 1988 §6.1 likelihood intervals).
 constexpr int kProfileDirections = 13;
 constexpr int kProfileSweeps = 30;
 constexpr double kProfileSigmas = 3.0;
+// Relative stepover moves of the stepover profile, growing: the first one that leaves the
+// floor's 3-sigma cost ends it (1e-5 relative is below every sigma the round trips report).
+constexpr double kStepoverProfileSteps[] = {1e-5, 2e-5, 5e-5, 1e-4, 2e-4, 5e-4, 1e-3, 2e-3, 5e-3};
 
 // Start for the tilt across the feed, deg: inside each pass band the floor is the tilted end
 // face, so the band means across the lay rise at -tan(across) (+ = toward lay + 90 deg, where
@@ -330,6 +345,42 @@ void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit) 
   fit.tilt_interval_deg = {t_lo, t_hi};
 }
 
+// Profile of the cost over the stepover (Bates & Watts 1988 §6.1): the stepover moved by a
+// ladder of relative steps either way, the pass offset re-minimised by compass search at each;
+// the largest move whose cost stays within kProfileSigmas^2 variances of the optimum is
+// kProfileSigmas sigma. Where the rim leaves steps between passes the cost is flat between
+// sample rows and jumps across them, and the Jacobian's sigma follows whichever the
+// difference happened to span (30x too small on a random round trip); the profile does not.
+double stepover_profile_sigma_mm(const FitResidual& res, double best_cost, double var,
+                                 int& evaluations) {
+  const Eigen::VectorXd& p = res.full;
+  const double s = p[kStepoverMm];
+  const double limit = best_cost + kProfileSigmas * kProfileSigmas * var;
+  FitResidual off = res;
+  off.free_index = {kOffsetMm};
+  double inside = 0.0;  // largest relative move still consistent with the floor
+  for (const double rel : kStepoverProfileSteps) {
+    bool consistent = false;
+    for (const double sign : {1.0, -1.0}) {
+      off.full = p;
+      off.full[kStepoverMm] = s * (1.0 + sign * rel);
+      Eigen::VectorXd x(1), step(1), final_step(1);
+      x << p[kOffsetMm];
+      step << rel * s;
+      final_step << 0.05 * rel * s;
+      const auto cost = [&off](const Eigen::VectorXd& xc) {
+        Eigen::VectorXd fc;
+        off(xc, fc);
+        return fc.squaredNorm();
+      };
+      if (compass_search(cost, x, step, final_step, evaluations) <= limit) consistent = true;
+    }
+    if (!consistent) break;
+    inside = rel;
+  }
+  return inside * s / kProfileSigmas;
+}
+
 }  // namespace
 
 FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const FloorFitOptions& o) {
@@ -343,14 +394,20 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   fit.model.direction = o.direction;
   fit.model.window = w.patch;
   fit.model.threads = o.threads;
-  double v_abs = 0.0;
-  for (const int i : w.index) {
-    const double v = across_lay_mm(fit.model, w.measured.x_mm(i % w.measured.nx),
-                                   w.measured.y_mm(i / w.measured.nx));
-    w.v.push_back(v);
-    v_abs = std::max(v_abs, std::abs(v));
-  }
-  w.v_max_mm = v_abs + stepover;
+  // The samples' across-lay coordinates for a lay (refined below).
+  const auto set_lay = [&](double lay_deg) {
+    fit.model.lay_deg = lay_deg;
+    w.v.clear();
+    double v_abs = 0.0;
+    for (const int i : w.index) {
+      const double v = across_lay_mm(fit.model, w.measured.x_mm(i % w.measured.nx),
+                                     w.measured.y_mm(i / w.measured.nx));
+      w.v.push_back(v);
+      v_abs = std::max(v_abs, std::abs(v));
+    }
+    w.v_max_mm = v_abs + stepover;
+  };
+  set_lay(e.lay_deg);
   fit.sample_mm = w.measured.cell_mm;
   fit.samples = static_cast<int>(w.index.size());
   // A ball is tilt-invariant apart from the contact shift (DESIGN.md): tilt stays fixed at 0.
@@ -472,6 +529,47 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     best_x = trial.expand(xk);
     fit.solver_status = status;
   }
+  // The lay joins the fit here: the surface estimate is good to ~0.05 deg, and passes that
+  // drift against the model's lines by that much across the window shift the passes near its
+  // corners (their samples lie off the window's centre along the lay) and so bias the stepover
+  // (a 5 mm flat at 1.455 mm stepover, lay 131.1 deg read as 131.05: stepover 0.02 % long at
+  // 30 of its sigma). LM, in turn, stops where the crests' kinks and the rim's steps make its
+  // difference quotients disagree with the cost. A compass search over the parameters and the
+  // lay, which needs no derivative, finishes the descent (envelope model only: the tooth model
+  // sweeps the whole window per evaluation).
+  const int lay_k = res.inputs();
+  if (!fit.model.tooth_marks) {
+    FitResidual trial = base;
+    trial.prior_weight = res.prior_weight;
+    trial.full = best_x;
+    Eigen::VectorXd xk(lay_k + 1), step(lay_k + 1), final_step(lay_k + 1);
+    for (int i = 0; i < lay_k; ++i) {
+      const int which = trial.free_index[static_cast<size_t>(i)];
+      xk[i] = best_x[which];
+      const bool tilt = which == kTiltAlongDeg || which == kTiltAcrossDeg;
+      step[i] = tilt ? kCompassTiltStepDeg : kCompassPeriodStep * stepover;
+      final_step[i] = tilt ? kCompassFinalTiltDeg : kCompassFinalPeriod * stepover;
+    }
+    xk[lay_k] = fit.model.lay_deg;
+    step[lay_k] = kCompassLayStepDeg;
+    final_step[lay_k] = kCompassFinalLayDeg;
+    const auto cost = [&](const Eigen::VectorXd& xc) {
+      if (xc[lay_k] != fit.model.lay_deg) set_lay(xc[lay_k]);
+      Eigen::VectorXd fc;
+      trial(xc.head(lay_k), fc);
+      return fc.squaredNorm();
+    };
+    int compass_evaluations = 0;
+    const double c = compass_search(cost, xk, step, final_step, compass_evaluations);
+    res.sweeps += compass_evaluations;
+    if (c < best_cost) {
+      best_cost = c;
+      best_x = trial.expand(xk.head(lay_k));
+      set_lay(xk[lay_k]);
+    } else {
+      set_lay(e.lay_deg);
+    }
+  }
   res.full = best_x;
   // The envelope cannot tell the lowest point ahead from behind: report the fold >= 0.
   res.full[kTiltAlongDeg] = std::abs(res.full[kTiltAlongDeg]);
@@ -503,6 +601,30 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   for (int a = 0; a < res.inputs(); ++a) {
     for (int b = 0; b < res.inputs(); ++b) {
       fit.covariance(res.free_index[a], res.free_index[b]) = var * inv(a, b);
+    }
+  }
+  if (!fit.model.tooth_marks) {
+    int profile_evaluations = 0;
+    fit.stepover_profile_sigma_mm = stepover_profile_sigma_mm(
+        res, f.squaredNorm(), var, profile_evaluations);
+    fit.evaluations += profile_evaluations;
+    // The profile model's own error: linear interpolation between strip cells h apart moves a
+    // sharp feature (a rim's step) by up to h / 2, a uniform error of sd h / sqrt(12) on every
+    // pass position, which the stepover (a slope through N passes) sees as that over
+    // sqrt(N (N^2 - 1) / 12) (derived; least-squares slope). A 5 mm flat at 1.455 mm stepover
+    // read 0.02 % long at 3 profile sigmas; with 32 strip cells per sample, 0.012 %.
+    const double h = fit.model.window.cell_mm / kProfileCellsPerSample;
+    const double passes = std::max(2.0, 2.0 * (w.v_max_mm - stepover) / fit.params[kStepoverMm]);
+    const double model_sigma =
+        h / std::sqrt(12.0) / std::sqrt(passes * (passes * passes - 1.0) / 12.0);
+    fit.stepover_profile_sigma_mm = std::hypot(fit.stepover_profile_sigma_mm, model_sigma);
+    const double sp = fit.stepover_profile_sigma_mm;
+    double& c_ss = fit.covariance(kStepoverMm, kStepoverMm);
+    if (sp * sp > c_ss && c_ss > 0.0 && std::isfinite(c_ss)) {
+      // Keep the correlations: scale the stepover's row and column.
+      const double k = sp / std::sqrt(c_ss);
+      fit.covariance.row(kStepoverMm) *= k;
+      fit.covariance.col(kStepoverMm) *= k;
     }
   }
   // A column the floor does not move (a parameter it does not show) has no inverse: give it an

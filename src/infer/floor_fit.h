@@ -51,6 +51,7 @@ struct FloorFit {
   double correlation_factor = 1.0;  ///< m / m_eff of the residuals (variances scaled by it)
   double tilt_profile_sigma_deg = 0.0;       ///< tilt sigma from the direction profile
   double direction_profile_sigma_deg = 0.0;  ///< direction sigma from the same profile
+  double stepover_profile_sigma_mm = 0.0;    ///< stepover sigma from its cost profile (mm)
   std::pair<double, double> tilt_interval_deg{0.0, 0.0};  ///< tilts within 3 sigma (profile)
   FitModel model;                ///< the forward model (window grid, lay, cutter)
   Heightfield measured;          ///< window, measured minus the fitted plane, um
