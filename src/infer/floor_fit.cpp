@@ -1,6 +1,6 @@
-// Inverse simulation: window and decimation of the measured floor, a coarse start search over
-// the pass offset and tilt, Levenberg-Marquardt with the setup plane projected out of the
-// residual, covariance sigma^2 (J^T J)^-1 at the optimum.
+// Inverse simulation: a coarse start search over the pass offset and tilt, Levenberg-Marquardt
+// with the setup plane projected out of the residual, covariance sigma^2 (J^T J)^-1 at the
+// optimum (window: fit_window, residuals: fit_residual, profiles: fit_profiles).
 // Inputs: Heightfield, SurfaceEstimates, FloorFitOptions; output: FloorFit. Cost: see header.
 // Method: Moré 1978 (MINPACK lmder, Eigen unsupported NonLinearOptimization); variable
 // projection for the linear plane (Golub & Pereyra 1973); covariance as in Bates & Watts 1988.
@@ -14,36 +14,25 @@
 #include <vector>
 #include <Eigen/Dense>
 
+#include <unsupported/Eigen/NonLinearOptimization>
+
 #include "infer/band_means.h"
 #include "infer/compass_search.h"
+#include "infer/fit_profiles.h"
+#include "infer/fit_residual.h"
 #include "infer/fit_starts.h"
+#include "infer/fit_window.h"
 #include "infer/residual_correlation.h"
-#include <unsupported/Eigen/NonLinearOptimization>
 
 namespace cuspmap {
 namespace {
 
-// Finite-difference steps of the Jacobian, one per parameter. A tilt of 0.0005 deg moves a rim
-// 3 mm out by 0.026 um (above float rounding of um heights); stepover and offset steps are a
-// small fraction of the period (derived). The sweep is piecewise smooth (minimum over passes),
-// so a step that spans a crest averages the two slopes. For the stepover and the offset both
-// one-sided differences are taken and the shorter column kept: the rim of a tilted flat leaves
-// a step in the floor at its lateral extreme (derived: the envelope at offset w is the rim's
-// height at x = +-sqrt(a^2 - w^2), which ends at |w| = a), at a pass centre +- a, so the
-// residual jumps where a change of stepover or offset carries a step across a row of samples
-// (a tilt changes the step's height, not its place). A difference spanning a jump is no
-// derivative (it made the solver stall beside one, with a stepover sigma 20x too small); the
-// smooth slope is the same on both sides to O(h), and the side without the jump has the
-// shorter column.
-constexpr double kTiltStepDeg = 0.0005;
-constexpr double kPeriodStepFraction = 2e-4;
 // Start search: pass offsets tried per stepover, and tilt components (deg) tried (common
 // practice, no source: tram errors of 0.005-0.1 deg are what a shop meets).
 // Every pair of these (along >= 0, across of either sign) is a start (common practice, no
 // source: tram errors of 0.005-0.2 deg are what a shop meets); roughly geometric steps.
 constexpr double kStartTiltDeg[] = {0.0, 0.005, 0.01, 0.02, 0.035, 0.05, 0.075, 0.1, 0.15, 0.2};
-// Solver limits: sweeps the solver may run, and its relative tolerances (MINPACK defaults
-// tightened: the residual is in float um).
+// Solver limits: sweeps the solver may run (its tolerance: kSolverTolerance, fit_residual.h).
 constexpr int kMaxSolverSweeps = 200;
 // Solver evaluations (each with a Jacobian of up to 4 more sweeps) granted to each start before
 // the best one is polished: enough to leave a wrong basin's start visibly worse (derived from
@@ -52,7 +41,6 @@ constexpr int kStartSolverEvaluations = 12;
 // Starts the solver runs from (the best of the start grid; derived: 4 covers the neighbouring
 // offset and tilt basins on the round-trip floors of tests/infer/floor_fit_test.cpp).
 constexpr size_t kSolverStarts = 4;
-constexpr double kSolverTolerance = 1e-7;
 // Restarts of the solver from its best optimum, and the relative cost gain that earns another.
 constexpr int kPolishRuns = 4;
 constexpr double kPolishGain = 1e-3;
@@ -67,15 +55,6 @@ constexpr double kCompassFinalPeriod = 1e-6;
 // (a pass drifts 0.02 um across a 10 mm window).
 constexpr double kCompassLayStepDeg = 0.02;
 constexpr double kCompassFinalLayDeg = 1e-4;
-// Profile over the tilt direction: directions tried (every 15 deg from the lay, the along
-// sign being folded), sweeps each, and the cost rise that bounds the interval (9 residual
-// variances: 3 sigma of one parameter, Bates & Watts 1988 §6.1 likelihood intervals).
-constexpr int kProfileDirections = 13;
-constexpr int kProfileSweeps = 30;
-constexpr double kProfileSigmas = 3.0;
-// Relative stepover moves of the stepover profile, growing: the first one that leaves the
-// floor's 3-sigma cost ends it (1e-5 relative is below every sigma the round trips report).
-constexpr double kStepoverProfileSteps[] = {1e-5, 2e-5, 5e-5, 1e-4, 2e-4, 5e-4, 1e-3, 2e-3, 5e-3};
 
 // Start for the tilt across the feed, deg: inside each pass band the floor is the tilted end
 // face, so the band means across the lay rise at -tan(across) (+ = toward lay + 90 deg, where
@@ -91,301 +70,11 @@ double across_tilt_start_deg(const Heightfield& hf, const SurfaceEstimates& e) {
   return -std::atan(slope) * 180.0 / std::numbers::pi;
 }
 
-// The measured window and the plane basis over its finite samples.
-struct Window {
-  Patch patch;
-  Heightfield measured;          // window samples, um (NaN = missing)
-  std::vector<int> index;        // finite sample -> cell index in the window (row-major)
-  Eigen::MatrixXd q;             // thin Q of [1, x, y] over the finite samples
-  Eigen::MatrixXd basis;         // [1, x - x0, y - y0]
-  double x0_mm = 0.0, y0_mm = 0.0;
-  std::vector<double> v;         // finite sample -> across-lay coordinate (across_lay_mm), mm
-  double v_max_mm = 0.0;         // largest |v| plus a stepover (offsets move passes that far)
-};
-
-Window make_window(const Heightfield& hf, double stepover_mm) {
-  Window w;
-  const double cell = hf.cell_mm;
-  const int max_cells = static_cast<int>(std::ceil(kMaxFitPeriods * stepover_mm / cell));
-  const int cx = std::min(hf.nx, std::max(max_cells, 1)), cy = std::min(hf.ny, std::max(max_cells, 1));
-  const int stride = std::max(1, (std::max(cx, cy) + kMaxFitSamples - 1) / kMaxFitSamples);
-  const int nx = cx / stride, ny = cy / stride;
-  const int i0 = (hf.nx - nx * stride) / 2, j0 = (hf.ny - ny * stride) / 2;
-  Heightfield& m = w.measured;
-  m.nx = nx;
-  m.ny = ny;
-  m.cell_mm = stride * cell;
-  // Sample (a, b) is measured cell (i0 + a stride, j0 + b stride): its centre is the window
-  // cell's centre when the window starts half a window cell before it.
-  m.origin_x_mm = hf.x_mm(i0) - 0.5 * m.cell_mm;
-  m.origin_y_mm = hf.y_mm(j0) - 0.5 * m.cell_mm;
-  m.z_um.resize(ny, nx);
-  for (int b = 0; b < ny; ++b) {
-    for (int a = 0; a < nx; ++a) m.z_um(b, a) = hf.z_um(j0 + b * stride, i0 + a * stride);
-  }
-  w.patch.cell_mm = m.cell_mm;
-  w.patch.origin_x_mm = m.origin_x_mm;
-  w.patch.origin_y_mm = m.origin_y_mm;
-  // Half a cell short of whole: the grid takes ceil(size / cell) cells, exactly nx and ny.
-  w.patch.size_x_mm = (nx - 0.5) * m.cell_mm;
-  w.patch.size_y_mm = (ny - 0.5) * m.cell_mm;
-  w.x0_mm = m.origin_x_mm + 0.5 * nx * m.cell_mm;
-  w.y0_mm = m.origin_y_mm + 0.5 * ny * m.cell_mm;
-  for (int b = 0; b < ny; ++b) {
-    for (int a = 0; a < nx; ++a) {
-      if (std::isfinite(m.z_um(b, a))) w.index.push_back(b * nx + a);
-    }
-  }
-  const int n = static_cast<int>(w.index.size());
-  w.basis.resize(n, 3);
-  for (int k = 0; k < n; ++k) {
-    const int a = w.index[k] % nx, b = w.index[k] / nx;
-    w.basis(k, 0) = 1.0;
-    w.basis(k, 1) = m.x_mm(a) - w.x0_mm;
-    w.basis(k, 2) = m.y_mm(b) - w.y0_mm;
-  }
-  Eigen::HouseholderQR<Eigen::MatrixXd> qr(w.basis);
-  w.q = qr.householderQ() * Eigen::MatrixXd::Identity(n, 3);
-  return w;
-}
-
-// Jacobian column from residuals at x (f0), x + h (f_plus) and x - h (f_minus): the one-sided
-// difference with the smaller norm (see kTiltStepDeg).
-Eigen::VectorXd shorter_difference(const Eigen::VectorXd& f0, const Eigen::VectorXd& f_plus,
-                                   const Eigen::VectorXd& f_minus, double h) {
-  Eigen::VectorXd forward = (f_plus - f0) / h, backward = (f0 - f_minus) / h;
-  return forward.squaredNorm() <= backward.squaredNorm() ? forward : backward;
-}
-
-// The types Eigen's Levenberg-Marquardt asks of a functor (dynamic sizes, double).
-struct LmFunctor {
-  using Scalar = double;
-  using InputType = Eigen::VectorXd;
-  using ValueType = Eigen::VectorXd;
-  using JacobianType = Eigen::MatrixXd;
-  enum { InputsAtCompileTime = Eigen::Dynamic, ValuesAtCompileTime = Eigen::Dynamic };
-};
-
-// Residual functor for Eigen's Levenberg-Marquardt over the free parameters.
-struct FitResidual : LmFunctor {
-
-  const FitModel* model = nullptr;
-  const Window* window = nullptr;
-  Eigen::VectorXd full;          // all parameters; the free ones are overwritten
-  std::vector<int> free_index;   // free parameter -> FitParam
-  double stepover0_mm = 0.0;      // the surface estimate of the stepover (prior)
-  double prior_weight = 0.0;      // residual scale / its standard error
-  mutable int sweeps = 0;
-
-  int inputs() const { return static_cast<int>(free_index.size()); }
-  int samples() const { return static_cast<int>(window->index.size()); }
-  // One residual per finite sample, plus the stepover prior.
-  int values() const { return samples() + 1; }
-
-  Eigen::VectorXd expand(const Eigen::VectorXd& x) const {
-    Eigen::VectorXd p = full;
-    for (size_t k = 0; k < free_index.size(); ++k) p[free_index[k]] = x[static_cast<int>(k)];
-    return p;
-  }
-  // Measured minus simulated at the finite samples, before the plane is projected out.
-  Eigen::VectorXd raw(const Eigen::VectorXd& p) const {
-    ++sweeps;
-    const int n = samples();
-    Eigen::VectorXd r(n);
-    if (!model->tooth_marks) {
-      // The envelope is constant along the lay: one profile across it serves every sample.
-      const FitProfile prof = simulate_fit_profile(*model, p, window->v_max_mm);
-      for (int k = 0; k < n; ++k) {
-        const int i = window->index[k];
-        const double s = prof.at(window->v[static_cast<size_t>(k)]);
-        r[k] = window->measured.z_um(i / window->measured.nx, i % window->measured.nx) -
-               (std::isfinite(s) ? s : 0.0);
-      }
-      return r;
-    }
-    const Heightfield sim = simulate_fit_window(*model, p);
-    for (int k = 0; k < n; ++k) {
-      const int i = window->index[k];
-      const float s = sim.z_um(i / sim.nx, i % sim.nx);
-      // A sample no pass reached cannot be matched: it counts as its measured height.
-      r[k] = window->measured.z_um(i / sim.nx, i % sim.nx) - (std::isfinite(s) ? s : 0.0f);
-    }
-    return r;
-  }
-  int operator()(const Eigen::VectorXd& x, Eigen::VectorXd& f) const {
-    const Eigen::VectorXd p = expand(x);
-    const Eigen::VectorXd r = raw(p);
-    f.resize(values());
-    f.head(samples()) = r - window->q * (window->q.transpose() * r);
-    f[samples()] = prior_weight * (p[kStepoverMm] - stepover0_mm);
-    return 0;
-  }
-  int df(const Eigen::VectorXd& x, Eigen::MatrixXd& jac) const {
-    Eigen::VectorXd f0, f1, f2;
-    (*this)(x, f0);
-    jac.resize(values(), inputs());
-    for (int k = 0; k < inputs(); ++k) {
-      const int which = free_index[static_cast<size_t>(k)];
-      const double h = (which == kTiltAlongDeg || which == kTiltAcrossDeg)
-                           ? kTiltStepDeg
-                           : kPeriodStepFraction * full[kStepoverMm];
-      Eigen::VectorXd xh = x;
-      xh[k] += h;
-      (*this)(xh, f1);
-      if (which == kTiltAlongDeg || which == kTiltAcrossDeg) {
-        jac.col(k) = (f1 - f0) / h;  // a tilt moves no step (see kTiltStepDeg)
-        continue;
-      }
-      xh[k] = x[k] - h;
-      (*this)(xh, f2);
-      jac.col(k) = shorter_difference(f0, f1, f2, h);
-    }
-    return 0;
-  }
-};
-
-// The residual with the tilt direction fixed (deg from the lay) and the stepover held: free are
-// the tilt magnitude and the pass offset. One point of the profile over the direction.
-struct DirectionResidual : LmFunctor {
-
-  const FitResidual* base = nullptr;  // all four parameters free
-  double dir_rad = 0.0;
-  double stepover_mm = 0.0;
-  mutable int sweeps = 0;
-
-  int inputs() const { return 2; }
-  int values() const { return base->values(); }
-  Eigen::VectorXd full(const Eigen::VectorXd& x) const {
-    Eigen::VectorXd p(4);
-    p << x[0] * std::cos(dir_rad), x[0] * std::sin(dir_rad), stepover_mm, x[1];
-    return p;
-  }
-  int operator()(const Eigen::VectorXd& x, Eigen::VectorXd& f) const {
-    ++sweeps;
-    return (*base)(full(x), f);
-  }
-  int df(const Eigen::VectorXd& x, Eigen::MatrixXd& jac) const {
-    Eigen::VectorXd f0, f1, f2;
-    (*this)(x, f0);
-    jac.resize(values(), 2);
-    const double h[2] = {kTiltStepDeg, kPeriodStepFraction * stepover_mm};
-    for (int k = 0; k < 2; ++k) {
-      Eigen::VectorXd xh = x;
-      xh[k] += h[k];
-      (*this)(xh, f1);
-      if (k == 0) {
-        jac.col(k) = (f1 - f0) / h[k];  // the tilt magnitude moves no step (see kTiltStepDeg)
-        continue;
-      }
-      xh[k] = x[k] - h[k];
-      (*this)(xh, f2);
-      jac.col(k) = shorter_difference(f0, f1, f2, h[k]);
-    }
-    return 0;
-  }
-};
-
-double rms(const Eigen::VectorXd& v) {
-  return v.size() ? std::sqrt(v.squaredNorm() / static_cast<double>(v.size())) : 0.0;
-}
-
-// Profile likelihood over the tilt direction (Bates & Watts 1988 §6.1): the cost re-minimised
-// over the magnitude and pass offset with the direction held at each of kProfileDirections;
-// directions whose cost stays within kProfileSigmas^2 residual variances of the optimum are
-// consistent with the floor, and so are their magnitudes. Where passes overlap so that a tilted
-// rim leaves only shallow cusps, the cusp depends on tan(tilt) / cos^2(direction) alone
-// (derived: the rim's curvature at its lowest point), and the linearised sigma at the optimum
-// does not see that ridge; the profile does.
-void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit) {
-  const Eigen::VectorXd& p = res.full;
-  const double t_hat = std::hypot(p[kTiltAlongDeg], p[kTiltAcrossDeg]);
-  if (t_hat <= 0.0) return;
-  const double dir_hat = std::atan2(p[kTiltAcrossDeg], p[kTiltAlongDeg]);
-  const double var = best_cost / std::max(1, res.samples() - res.inputs() - 3);
-  const double limit = best_cost + kProfileSigmas * kProfileSigmas * var;
-  double t_lo = t_hat, t_hi = t_hat, d_lo = dir_hat, d_hi = dir_hat;
-  FitResidual all = res;
-  all.free_index = {kTiltAlongDeg, kTiltAcrossDeg, kStepoverMm, kOffsetMm};
-  for (int k = 0; k < kProfileDirections; ++k) {
-    const double dir = (-90.0 + 180.0 * k / (kProfileDirections - 1)) * std::numbers::pi / 180.0;
-    DirectionResidual dr;
-    dr.base = &all;
-    dr.dir_rad = dir;
-    dr.stepover_mm = p[kStepoverMm];
-    // Start on the ridge of equal cusp curvature, tan(t) / cos^2(direction) = const.
-    const double c_hat = std::max(std::cos(dir_hat) * std::cos(dir_hat), 0.1);
-    const double t0 = std::clamp(t_hat * std::cos(dir) * std::cos(dir) / c_hat, 0.1 * t_hat,
-                                 3.0 * t_hat);
-    // The cusps stay where the floor has them: the pass centres sit a sin(direction) (a = the
-    // rim radius) to the side of the rim's lowest point (derived).
-    const double a = 0.5 * res.model->cutter.diameter_mm;
-    const double s = p[kStepoverMm];
-    double off = p[kOffsetMm] - a * (std::sin(dir) - std::sin(dir_hat));
-    off -= s * std::round(off / s);
-    Eigen::VectorXd x(2);
-    x << t0, off;
-    Eigen::LevenbergMarquardt<DirectionResidual> lm(dr);
-    lm.parameters.maxfev = kProfileSweeps;
-    lm.parameters.xtol = kSolverTolerance;
-    lm.parameters.ftol = kSolverTolerance;
-    lm.minimize(x);
-    Eigen::VectorXd f;
-    dr(x, f);
-    fit.evaluations += dr.sweeps;
-    if (f.squaredNorm() > limit) continue;
-    t_lo = std::min(t_lo, std::abs(x[0]));
-    t_hi = std::max(t_hi, std::abs(x[0]));
-    d_lo = std::min(d_lo, dir);
-    d_hi = std::max(d_hi, dir);
-  }
-  // The interval spans +-kProfileSigmas sigma: its wider half over kProfileSigmas is one sigma.
-  fit.tilt_profile_sigma_deg = std::max(t_hi - t_hat, t_hat - t_lo) / kProfileSigmas;
-  fit.direction_profile_sigma_deg =
-      std::max(d_hi - dir_hat, dir_hat - d_lo) * 180.0 / std::numbers::pi / kProfileSigmas;
-  fit.tilt_interval_deg = {t_lo, t_hi};
-}
-
-// Profile of the cost over the stepover (Bates & Watts 1988 §6.1): the stepover moved by a
-// ladder of relative steps either way, the pass offset re-minimised by compass search at each;
-// the largest move whose cost stays within kProfileSigmas^2 variances of the optimum is
-// kProfileSigmas sigma. Where the rim leaves steps between passes the cost is flat between
-// sample rows and jumps across them, and the Jacobian's sigma follows whichever the
-// difference happened to span (30x too small on a random round trip); the profile does not.
-double stepover_profile_sigma_mm(const FitResidual& res, double best_cost, double var,
-                                 int& evaluations) {
-  const Eigen::VectorXd& p = res.full;
-  const double s = p[kStepoverMm];
-  const double limit = best_cost + kProfileSigmas * kProfileSigmas * var;
-  FitResidual off = res;
-  off.free_index = {kOffsetMm};
-  double inside = 0.0;  // largest relative move still consistent with the floor
-  for (const double rel : kStepoverProfileSteps) {
-    bool consistent = false;
-    for (const double sign : {1.0, -1.0}) {
-      off.full = p;
-      off.full[kStepoverMm] = s * (1.0 + sign * rel);
-      Eigen::VectorXd x(1), step(1), final_step(1);
-      x << p[kOffsetMm];
-      step << rel * s;
-      final_step << 0.05 * rel * s;
-      const auto cost = [&off](const Eigen::VectorXd& xc) {
-        Eigen::VectorXd fc;
-        off(xc, fc);
-        return fc.squaredNorm();
-      };
-      if (compass_search(cost, x, step, final_step, evaluations) <= limit) consistent = true;
-    }
-    if (!consistent) break;
-    inside = rel;
-  }
-  return inside * s / kProfileSigmas;
-}
-
 }  // namespace
 
 FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const FloorFitOptions& o) {
   const double stepover = e.stepover.period_mm;
-  Window w = make_window(hf, stepover);
+  FitWindow w = make_fit_window(hf, stepover);
   FloorFit fit;
   fit.model.cutter = o.cutter;
   fit.model.cutter.tilt_deg = 0.0;
@@ -430,7 +119,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     for (size_t k = 0; k < w.index.size(); ++k) {
       meas[static_cast<int>(k)] = w.measured.z_um(w.index[k] / w.measured.nx, w.index[k] % w.measured.nx);
     }
-    const double scale = rms(meas - w.q * (w.q.transpose() * meas));
+    const double scale = residual_rms(meas - w.q * (w.q.transpose() * meas));
     res.prior_weight = scale / std::max(e.stepover.sigma_mm, 1e-6 * stepover);
   }
   for (int k = 0; k < kFitParams; ++k) {
@@ -505,7 +194,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       Eigen::VectorXd xb(trial.inputs()), fb;
       for (int i = 0; i < trial.inputs(); ++i) xb[i] = best_x[trial.free_index[static_cast<size_t>(i)]];
       trial(xb, fb);
-      res.prior_weight = std::min(res.prior_weight, rms(fb.head(trial.samples())) /
+      res.prior_weight = std::min(res.prior_weight, residual_rms(fb.head(trial.samples())) /
                                                         std::max(e.stepover.sigma_mm, 1e-6 * stepover));
       trial.prior_weight = res.prior_weight;
       trial(xb, fb);
@@ -648,7 +337,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       fit.tilt_interval_deg.second += widen;
     }
   }
-  fit.residual_rms_um = rms(f.head(res.samples()));
+  fit.residual_rms_um = residual_rms(f.head(res.samples()));
   fit.evaluations += res.sweeps;  // plus the direction profile's
 
   // The plane of measured minus simulated, with its standard errors sigma^2 (A^T A)^-1.
@@ -678,7 +367,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     meas[k] = w.measured.z_um(b, a);
   }
   const Eigen::VectorXd detrended = meas - w.q * (w.q.transpose() * meas);
-  fit.measured_rms_um = rms(detrended);
+  fit.measured_rms_um = residual_rms(detrended);
   return fit;
 }
 
