@@ -278,12 +278,11 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   // Residuals that the model leaves with structure (feed marks, a model error repeating every
   // pass) are correlated: the variance is scaled by the residual's integrated autocorrelation
   // time along both axes (m / m_eff; Box & Jenkins, Time Series Analysis, §2.1.6), 1 for noise.
-  const double var = std::max(
-      f.head(res.samples()).squaredNorm() / dof *
-          correlation_factor(w.measured.nx, w.measured.ny, w.index, f.head(res.samples())),
-      line_mean_variance(w.v, w.measured.cell_mm, f.head(res.samples()), res.inputs()));
   fit.correlation_factor =
       correlation_factor(w.measured.nx, w.measured.ny, w.index, f.head(res.samples()));
+  const double var = std::max(
+      f.head(res.samples()).squaredNorm() / dof * fit.correlation_factor,
+      line_mean_variance(w.v, w.measured.cell_mm, f.head(res.samples()), res.inputs()));
   const Eigen::MatrixXd jtj = jac.transpose() * jac;
   const Eigen::MatrixXd inv = jtj.completeOrthogonalDecomposition().pseudoInverse();
   fit.covariance = Eigen::MatrixXd::Zero(kFitParams, kFitParams);

@@ -41,6 +41,8 @@ constexpr double kDishStartMin = 0.1, kDishStartMax = 3.0;
 // Least relative standard error of the dish: the spread of the solver's stops from different
 // starts on the issue's round trips (0.84-1.16 deg for 1 deg; measured), 3 sigma covering it.
 constexpr double kDishModelSigma = 0.06;
+// The variance of a value the floor does not bound.
+constexpr double kUnbounded = std::numeric_limits<double>::infinity();
 
 // Dish start from the marks' depth: between two rim arcs fz apart the floor rises to
 // (fz / 2) tan(dish) (derived), and the along-lay rms of each window line is ~0.298 of it.
@@ -249,7 +251,7 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
     return it == cols.end() ? -1 : static_cast<int>(it - cols.begin());
   };
   const auto& g = p.state().g;
-  const int ic = col_of(kRunoutCos), is = col_of(kRunoutSin), id = col_of(kDish);
+  const int is = col_of(kRunoutSin), id = col_of(kDish);
   const int ia = col_of(kTiltAlong), ix = col_of(kTiltAcross);
   // Half the spread of the solver's stops, squared, is added to each variance.
   auto spread = [&](auto&& value) {
@@ -262,49 +264,23 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   f.tilt_along_deg = fitted_value(g[kTiltAlong], cov(ia, ia) + global(kTiltAlong), true);
   f.tilt_across_deg = fitted_value(g[kTiltAcross], cov(ix, ix) + global(kTiltAcross), true);
   f.runout_phase_period_deg = 360.0 / c.teeth;
-  if (is < 0) {
-    f.runout_projection_only = true;
-    f.runout_um = fitted_value(std::abs(g[kRunoutCos]), cov(ic, ic) + global(kRunoutCos), true);
-  } else {
-    const double ec = g[kRunoutCos], es = g[kRunoutSin], e = std::hypot(ec, es);
-    const Eigen::Vector2d de = e > 0.0 ? Eigen::Vector2d(ec / e, es / e) : Eigen::Vector2d(1, 0);
-    Eigen::Matrix2d c2;
-    c2 << cov(ic, ic), cov(ic, is), cov(is, ic), cov(is, is);
-    // An unbounded covariance (the floor does not show the runout) gives an unbounded sigma; the
-    // products below would mix infinities with zeros (invalid, trapped by the debug runner).
-    // Tested element by element: Eigen's allFinite() computes x - x, itself invalid for inf.
-    const bool bounded = std::all_of(c2.data(), c2.data() + c2.size(),
-                                     [](double v) { return std::isfinite(v); });
-    constexpr double kUnbounded = std::numeric_limits<double>::infinity();
-    f.runout_um = fitted_value(e,
-                               bounded ? de.dot(c2 * de) + spread([](const ToothState& t) {
-                                 return std::hypot(t.g[kRunoutCos], t.g[kRunoutSin]);
-                               })
-                                       : kUnbounded,
-                               true);
-    const Eigen::Vector2d dpsi = e > 0.0 ? Eigen::Vector2d(-es, ec) / (e * e) / kDegToRad
-                                         : Eigen::Vector2d(0, 0);
-    const double psi = std::atan2(es, ec) / kDegToRad;
-    const double period = f.runout_phase_period_deg;
-    // Phase stops compared modulo the period (the nearest image of each).
-    const double psi_spread = spread([&](const ToothState& t) {
-      const double a = std::atan2(t.g[kRunoutSin], t.g[kRunoutCos]) / kDegToRad - psi;
-      return psi + a - std::round(a / period) * period;
-    });
-    f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period,
-                                  e > 0.0 && bounded ? dpsi.dot(c2 * dpsi) + psi_spread
-                                                     : kUnbounded,
-                                  true);
-  }
   // Honest sigmas from what the round trips measured (docs/diagnose.md "Tooth-resolved
   // stage"): the solver's stops scatter more than (J^T J)^-1 says. Runout and phase came back
   // 2.9-6.2 um for 5 um and up to 32 deg off, with sigmas of 0.2-0.4 um and 0.5-3 deg (many
-  // sigma off): not read, their sigma unbounded. The dish came back 0.84-1.16 deg for 1 deg
-  // from different starts: its sigma is at least kDishModelSigma of the value (measured).
-  f.runout_um = fitted_value(f.runout_um.value, std::numeric_limits<double>::infinity(), true);
-  f.runout_phase_deg =
-      fitted_value(f.runout_phase_deg.value, std::numeric_limits<double>::infinity(), true);
+  // sigma off): their values are kept, not read, their sigma unbounded. The dish came back
+  // 0.84-1.16 deg for 1 deg from different starts: its sigma is at least kDishModelSigma of
+  // the value (measured).
   f.runout_not_read = true;
+  if (is < 0) {
+    f.runout_projection_only = true;
+    f.runout_um = fitted_value(std::abs(g[kRunoutCos]), kUnbounded, true);
+  } else {
+    const double ec = g[kRunoutCos], es = g[kRunoutSin];
+    const double psi = std::atan2(es, ec) / kDegToRad;
+    const double period = f.runout_phase_period_deg;
+    f.runout_um = fitted_value(std::hypot(ec, es), kUnbounded, true);
+    f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period, kUnbounded, true);
+  }
   f.dish_deg = fitted_value(f.dish_deg.value,
                             std::max(f.dish_deg.sigma * f.dish_deg.sigma,
                                      std::pow(kDishModelSigma * f.dish_deg.value, 2)),
@@ -321,7 +297,6 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   const bool marks_seen = f.dish_deg.resolved || f.runout_um.resolved;
   f.marks_misfit = marks_seen && !(f.smoothed_residual_ratio <= kToothFitMaxResidualRatio);
   if (f.marks_misfit) {
-    constexpr double kUnbounded = std::numeric_limits<double>::infinity();
     for (FittedValue* v : {&f.runout_um, &f.runout_phase_deg, &f.dish_deg, &f.tilt_along_deg}) {
       *v = fitted_value(v->value, kUnbounded, true);
     }

@@ -67,17 +67,17 @@ ToothVerdict tooth_verdict(const ToothFit& t) {
     v.lines.push_back("runout under " + n3(t.runout_um.bound) + " um (not resolved: " +
                       pm(t.runout_um) + "): the teeth cut alike on this floor");
   }
-  if (t.runout_not_read) {
-    // said above
-  } else if (t.runout_projection_only) {
-    v.cannot_tell.push_back(
-        "the runout's direction: with " + std::to_string(t.teeth) +
-        " teeth the floor shows only the part along the teeth, |e cos(phase)|; the runout "
-        "itself is at least that");
-  } else {
-    v.cannot_tell.push_back("which tooth is tooth 0: the runout phase is known modulo " +
-                            n3(t.runout_phase_period_deg) +
-                            " deg (the spindle phase of each pass is unknown)");
+  if (!t.runout_not_read) {  // when not read, the runout's line above says all there is
+    if (t.runout_projection_only) {
+      v.cannot_tell.push_back(
+          "the runout's direction: with " + std::to_string(t.teeth) +
+          " teeth the floor shows only the part along the teeth, |e cos(phase)|; the runout "
+          "itself is at least that");
+    } else {
+      v.cannot_tell.push_back("which tooth is tooth 0: the runout phase is known modulo " +
+                              n3(t.runout_phase_period_deg) +
+                              " deg (the spindle phase of each pass is unknown)");
+    }
   }
   if (t.dish_deg.resolved) {
     v.lines.push_back("end-face dish " + pm(t.dish_deg) +

@@ -21,18 +21,18 @@ constexpr int kPlaneRowsPerBlock = 64;
 
 }  // namespace
 
-void PlaneSums::add(double x_mm, double y_mm, double z_um) {
-  if (std::isnan(z_um)) return;
-  const double x = x_mm - x0_mm, y = y_mm - y0_mm;
-  n += 1.0;
-  sx += x;
-  sy += y;
-  sxx += x * x;
-  sxy += x * y;
-  syy += y * y;
-  sz += z_um;
-  sxz += x * z_um;
-  syz += y * z_um;
+void PlaneSums::add_row(double y_mm, double count, double sum_x, double sum_xx, double sum_z,
+                        double sum_xz) {
+  const double y = y_mm - y0_mm;
+  n += count;
+  sx += sum_x;
+  sy += y * count;
+  sxx += sum_xx;
+  sxy += y * sum_x;
+  syy += y * y * count;
+  sz += sum_z;
+  sxz += sum_xz;
+  syz += y * sum_z;
 }
 
 void PlaneSums::merge(const PlaneSums& o) {
@@ -82,9 +82,7 @@ Plane fit_plane(const Heightfield& hf) {
   parallel_blocks(blocks, 0, [&](int b) {
     PlaneSums& p = part[static_cast<std::size_t>(b)];
     for (int j = b * kPlaneRowsPerBlock; j < std::min(hf.ny, (b + 1) * kPlaneRowsPerBlock); ++j) {
-      // One row's sums of the terms that vary along it; y enters once per row:
-      // sum y = y n, sum x y = y sum x, sum y^2 = y^2 n, sum y z = y sum z.
-      const double y = hf.y_mm(j) - sums.y0_mm;
+      // One row's sums of the terms that vary along it; y enters once per row (add_row).
       const float* z = &hf.z_um(j, 0);
       bool finite = true;
       for (int i = 0; i < hf.nx; ++i) finite &= !std::isnan(z[i]);
@@ -102,8 +100,7 @@ Plane fit_plane(const Heightfield& hf) {
           n += 1.0, sx += x, sxx += x * x, sz += z[i], sxz += x * z[i];
         }
       }
-      p.n += n, p.sx += sx, p.sy += y * n, p.sxx += sxx, p.sxy += y * sx, p.syy += y * y * n;
-      p.sz += sz, p.sxz += sxz, p.syz += y * sz;
+      p.add_row(hf.y_mm(j), n, sx, sxx, sz, sxz);
     }
   });
   for (const PlaneSums& p : part) sums.merge(p);

@@ -28,8 +28,10 @@ struct PlaneSums {
   double x0_mm = 0.0, y0_mm = 0.0;  ///< centre the coordinates are taken about
   double n = 0.0, sx = 0.0, sy = 0.0, sxx = 0.0, sxy = 0.0, syy = 0.0;  ///< sums of 1, x, y, ...
   double sz = 0.0, sxz = 0.0, syz = 0.0;  ///< sums of z, xz, yz (x, y relative to the centre)
-  /// Adds a point (mm, mm, um); NaN z is ignored.
-  void add(double x_mm, double y_mm, double z_um);
+  /// Adds one row's sums at y_mm: count, sums of x, x^2, z and x z over its finite cells (x
+  /// relative to the centre); y enters once (sum y = y n, sum x y = y sum x, ...).
+  void add_row(double y_mm, double count, double sum_x, double sum_xx, double sum_z,
+               double sum_xz);
   /// Adds another accumulator's sums (same centre asserted).
   void merge(const PlaneSums& other);
   /// Solves for the plane. With fewer than 3 non-collinear points the least-norm solution is
