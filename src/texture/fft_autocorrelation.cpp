@@ -21,25 +21,24 @@ Autocorrelator::Autocorrelator(int rows, int cols)
   const std::size_t bins = static_cast<std::size_t>(rows) * static_cast<std::size_t>(cols / 2 + 1);
   spec_.reset(static_cast<fftw_complex*>(fftw_malloc(sizeof(fftw_complex) * bins)));
   // ESTIMATE plans cost no measuring time and do not overwrite the input while planning.
-  fwd_ = fftw_plan_dft_r2c_2d(rows, cols, data_.get(), spec_.get(), FFTW_ESTIMATE);
-  inv_ = fftw_plan_dft_c2r_2d(rows, cols, spec_.get(), data_.get(), FFTW_ESTIMATE);
-}
-
-Autocorrelator::~Autocorrelator() {
-  fftw_destroy_plan(fwd_);
-  fftw_destroy_plan(inv_);
+  fwd_ = FftwPlan([&] {
+    return fftw_plan_dft_r2c_2d(rows, cols, data_.get(), spec_.get(), FFTW_ESTIMATE);
+  });
+  inv_ = FftwPlan([&] {
+    return fftw_plan_dft_c2r_2d(rows, cols, spec_.get(), data_.get(), FFTW_ESTIMATE);
+  });
 }
 
 void Autocorrelator::run() {
   const std::size_t bins = static_cast<std::size_t>(rows_) * static_cast<std::size_t>(cols_ / 2 + 1);
-  fftw_execute(fwd_);
+  fftw_execute(fwd_.get());
   fftw_complex* spec = spec_.get();
   for (std::size_t k = 0; k < bins; ++k) {
     const double re = spec[k][0], im = spec[k][1];
     spec[k][0] = re * re + im * im;
     spec[k][1] = 0.0;
   }
-  fftw_execute(inv_);
+  fftw_execute(inv_.get());
 }
 
 }  // namespace cuspmap

@@ -9,6 +9,8 @@
 #include <cstddef>
 #include <memory>
 
+#include "texture/fftw_plan.h"
+
 namespace cuspmap {
 
 /// Frees memory from fftw_malloc.
@@ -23,13 +25,11 @@ FftwRealBuffer fftw_real_buffer(std::size_t count);
 
 /// Circular autocorrelation of rows x cols arrays of one size, planned once (FFTW's planning,
 /// even with FFTW_ESTIMATE, costs more than a transform of a profile: measured ~3 M
-/// instructions per plan against ~0.1 M per transform of 2400 samples). Not thread-safe.
+/// instructions per plan against ~0.1 M per transform of 2400 samples). One object is not
+/// thread-safe; several may be made and run on different threads (planner lock: fftw_plan.h).
 class Autocorrelator {
  public:
   Autocorrelator(int rows, int cols);
-  ~Autocorrelator();
-  Autocorrelator(const Autocorrelator&) = delete;
-  Autocorrelator& operator=(const Autocorrelator&) = delete;
 
   /// The rows x cols input, row-major (rows = 1 for a profile); zero after construction.
   double* data() { return data_.get(); }
@@ -44,7 +44,7 @@ class Autocorrelator {
   int rows_ = 0, cols_ = 0;
   FftwRealBuffer data_;
   std::unique_ptr<fftw_complex, FftwFree> spec_;
-  fftw_plan fwd_ = nullptr, inv_ = nullptr;
+  FftwPlan fwd_, inv_;
 };
 
 }  // namespace cuspmap

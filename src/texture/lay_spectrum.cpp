@@ -8,7 +8,6 @@
 #include <fftw3.h>
 
 #include <algorithm>
-#include <cassert>
 #include <cmath>
 #include <numbers>
 #include <utility>
@@ -16,6 +15,7 @@
 
 #include "core/large_buffer.h"
 #include "core/parallel_blocks.h"
+#include "texture/fftw_plan.h"
 
 namespace cuspmap {
 namespace {
@@ -25,12 +25,29 @@ constexpr int kColumnBlock = 8;
 // Rows per work item of the row transforms and the windowed fill.
 constexpr int kRowsPerTask = 16;
 
-struct Plan {
-  fftw_plan p = nullptr;
-  explicit Plan(fftw_plan q) : p(q) { assert(p != nullptr && "FFTW could not plan"); }
-  ~Plan() { fftw_destroy_plan(p); }
-  Plan(const Plan&) = delete;
-  Plan& operator=(const Plan&) = delete;
+// The transform's field: ny rows of `stride` complex bins (whole column blocks), in place.
+std::size_t complex_stride(int nx) {
+  const int blocks = (nx / 2 + 1 + kColumnBlock - 1) / kColumnBlock;
+  return static_cast<std::size_t>(blocks) * kColumnBlock;
+}
+
+// The two plans: rows windowed into a row beside the field (`model`, nx doubles) and transformed
+// out of place into it, FFTW planning an out-of-place real transform in about half the time of
+// an in-place one, a cost paid in every process (docs/performance.md, "Fourth pass"); then the
+// columns in blocks of kColumnBlock bins, in place.
+struct LayPlans {
+  FftwPlan rows_fwd, cols_fwd;
+  LayPlans(int nx, int ny, double* model, fftw_complex* spec0) {
+    const int cstride = static_cast<int>(complex_stride(nx));
+    rows_fwd = FftwPlan([&] {
+      return fftw_plan_many_dft_r2c(1, &nx, 1, model, nullptr, 1, 0, spec0, nullptr, 1, 0,
+                                    FFTW_ESTIMATE);
+    });
+    cols_fwd = FftwPlan([&] {
+      return fftw_plan_many_dft(1, &ny, kColumnBlock, spec0, nullptr, cstride, 1, spec0, nullptr,
+                                cstride, 1, FFTW_FORWARD, FFTW_ESTIMATE);
+    });
+  }
 };
 
 }  // namespace
@@ -38,23 +55,14 @@ struct Plan {
 LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, LargeBytes* spent) {
   const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
   const int blocks = (bins + kColumnBlock - 1) / kColumnBlock;
-  const std::size_t stride = static_cast<std::size_t>(blocks) * kColumnBlock;  // complex per row
+  const std::size_t stride = complex_stride(nx);  // complex per row
   LargeBuffer<double> field(static_cast<std::size_t>(ny) * 2 * stride);
   const auto row = [&](int j) { return field.data() + static_cast<std::size_t>(j) * 2 * stride; };
   const auto spec = [&](int j) { return reinterpret_cast<fftw_complex*>(row(j)); };
-  // Plans are made once on this thread (FFTW's planner is not thread-safe), then executed on
-  // every row or block.
-  // Rows are windowed into a row beside the field and transformed out of place into it: FFTW
-  // plans an out-of-place real transform in about half the time of an in-place one, a cost
-  // paid in every process (docs/performance.md, "Fourth pass").
+  // Plans are made once (under the planner lock), then executed on every row or block.
   const auto row_doubles = static_cast<std::size_t>(nx);
   LargeBuffer<double> model(row_doubles);  // planned for: its address and alignment only
-  const Plan rows_fwd(fftw_plan_many_dft_r2c(1, &nx, 1, model.data(), nullptr, 1, 0, spec(0),
-                                             nullptr, 1, 0, FFTW_ESTIMATE));
-  const int cstride = static_cast<int>(stride);
-  const Plan cols_fwd(fftw_plan_many_dft(1, &ny, kColumnBlock, spec(0), nullptr, cstride, 1,
-                                         spec(0), nullptr, cstride, 1, FFTW_FORWARD,
-                                         FFTW_ESTIMATE));
+  const LayPlans plans(nx, ny, model.data(), spec(0));
   // Hann weights per column and row, computed once.
   const double two_pi = 2.0 * std::numbers::pi;
   std::vector<double> wx(static_cast<std::size_t>(nx));
@@ -75,7 +83,7 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, La
         }
         r[i] = std::isnan(v) ? 0.0 : wx[static_cast<std::size_t>(i)] * wy * v;
       }
-      fftw_execute_dft_r2c(rows_fwd.p, r, spec(j));
+      fftw_execute_dft_r2c(plans.rows_fwd.get(), r, spec(j));
     }
   });
   // The doubled angle of k = (kx, ky) without trigonometry: cos 2phi = (kx^2 - ky^2) / |k|^2,
@@ -83,7 +91,7 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, La
   std::vector<LaySums> part(static_cast<std::size_t>(blocks));
   parallel_blocks(blocks, threads, [&](int b) {
     fftw_complex* d = spec(0) + static_cast<std::size_t>(b) * kColumnBlock;
-    fftw_execute_dft(cols_fwd.p, d, d);
+    fftw_execute_dft(plans.cols_fwd.get(), d, d);
     const int i0 = b * kColumnBlock, i1 = std::min(bins, i0 + kColumnBlock);
     LaySums sum;
     for (int j = 0; j < ny; ++j) {
@@ -111,6 +119,13 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, La
   }
   if (spent != nullptr) *spent = std::move(field).release();
   return out;
+}
+
+void warm_lay_spectrum_plans(int nx, int ny) {
+  // Mapped and never touched: FFTW_ESTIMATE plans read and write no data.
+  LargeBuffer<double> field(static_cast<std::size_t>(ny) * 2 * complex_stride(nx));
+  LargeBuffer<double> model(static_cast<std::size_t>(nx));
+  const LayPlans plans(nx, ny, model.data(), reinterpret_cast<fftw_complex*>(field.data()));
 }
 
 }  // namespace cuspmap

@@ -29,4 +29,8 @@ struct LaySums {
 LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove = nullptr,
                      LargeBytes* spent = nullptr);
 
+/// Makes and drops the plans lay_spectrum uses on an nx x ny field, so that its own planning
+/// later finds them in FFTW's planner cache. Thread-safe (fftw_plan.h).
+void warm_lay_spectrum_plans(int nx, int ny);
+
 }  // namespace cuspmap

@@ -7,10 +7,10 @@
 #include <fftw3.h>
 
 #include <algorithm>
-#include <cassert>
 #include <utility>
 
 #include "core/parallel_blocks.h"
+#include "texture/fftw_plan.h"
 
 namespace cuspmap {
 namespace {
@@ -18,23 +18,30 @@ namespace {
 // Rows per work item of the row transforms (enough to amortise the counter).
 constexpr int kRowsPerTask = 16;
 
-struct Plan {
-  fftwf_plan p = nullptr;
-  explicit Plan(fftwf_plan q) : p(q) { assert(p != nullptr && "FFTW could not plan"); }
-  ~Plan() { fftwf_destroy_plan(p); }
-  Plan(const Plan&) = delete;
-  Plan& operator=(const Plan&) = delete;
-};
-
 fftwf_complex* as_fftw(std::complex<float>* c) { return reinterpret_cast<fftwf_complex*>(c); }
 
 // Column transform of one block of kFftColumnBlock bins, in place, over every row.
-fftwf_plan column_plan(SpectrumField& f, int sign) {
-  const int n = f.rows();
-  const int stride = static_cast<int>(f.row_floats() / 2);
-  fftwf_complex* d = as_fftw(f.spectrum_row(0));
-  return fftwf_plan_many_dft(1, &n, kFftColumnBlock, d, nullptr, stride, 1, d, nullptr, stride,
-                             1, sign, FFTW_ESTIMATE);
+FftwfPlan column_plan(SpectrumField& f, int sign) {
+  return FftwfPlan([&] {
+    const int n = f.rows();
+    const int stride = static_cast<int>(f.row_floats() / 2);
+    fftwf_complex* d = as_fftw(f.spectrum_row(0));
+    return fftwf_plan_many_dft(1, &n, kFftColumnBlock, d, nullptr, stride, 1, d, nullptr,
+                               stride, 1, sign, FFTW_ESTIMATE);
+  });
+}
+
+// Row transform, out of place between the field's first row and `beside` (a row of cols
+// floats, 64-byte aligned like the field): forward real-to-complex or inverse.
+FftwfPlan row_plan(SpectrumField& f, float* beside, bool forward) {
+  return FftwfPlan([&] {
+    const int n = f.cols();
+    fftwf_complex* s = as_fftw(f.spectrum_row(0));
+    return forward ? fftwf_plan_many_dft_r2c(1, &n, 1, beside, nullptr, 1, 0, s, nullptr, 1, 0,
+                                             FFTW_ESTIMATE)
+                   : fftwf_plan_many_dft_c2r(1, &n, 1, s, nullptr, 1, 0, beside, nullptr, 1, 0,
+                                             FFTW_ESTIMATE);
+  });
 }
 
 // The row transforms run out of place through a row beside the field (LargeBuffer: 64-byte
@@ -44,7 +51,7 @@ fftwf_plan column_plan(SpectrumField& f, int sign) {
 // Forward: each row is copied beside and transformed into its own spectrum. Inverse: each
 // spectrum is transformed beside (c2r out of place may overwrite its input, which the row's
 // values then replace) and copied back.
-void transform_rows(SpectrumField& f, const Plan& plan, bool forward, int row_begin, int row_end,
+void transform_rows(SpectrumField& f, const FftwfPlan& plan, bool forward, int row_begin, int row_end,
                     int threads) {
   const int tasks = (row_end - row_begin + kRowsPerTask - 1) / kRowsPerTask;
   const int n = f.cols();
@@ -54,9 +61,9 @@ void transform_rows(SpectrumField& f, const Plan& plan, bool forward, int row_be
     for (int j = j0; j < j1; ++j) {
       if (forward) {
         std::copy_n(f.row(j), n, beside.data());
-        fftwf_execute_dft_r2c(plan.p, beside.data(), as_fftw(f.spectrum_row(j)));
+        fftwf_execute_dft_r2c(plan.get(), beside.data(), as_fftw(f.spectrum_row(j)));
       } else {
-        fftwf_execute_dft_c2r(plan.p, as_fftw(f.spectrum_row(j)), beside.data());
+        fftwf_execute_dft_c2r(plan.get(), as_fftw(f.spectrum_row(j)), beside.data());
         std::copy_n(beside.data(), n, f.row(j));
       }
     }
@@ -93,20 +100,18 @@ namespace {
 void run_columns(SpectrumField& f, int filled_rows, int threads, const SpectrumBlockVisit& visit,
                  bool inverse) {
   const int n = f.cols();
-  // Plans are made once on this thread (FFTW's planner is not thread-safe), then executed on
-  // every row or block: the same arithmetic whichever thread runs it.
+  // Plans are made once (under the planner lock), then executed on every row or block: the
+  // same arithmetic whichever thread runs it.
   LargeBuffer<float> model(static_cast<std::size_t>(n));  // planned for: address, alignment
-  const Plan rows_fwd(fftwf_plan_many_dft_r2c(1, &n, 1, model.data(), nullptr, 1, 0,
-                                              as_fftw(f.spectrum_row(0)), nullptr, 1, 0,
-                                              FFTW_ESTIMATE));
-  const Plan cols_fwd(column_plan(f, FFTW_FORWARD));
-  const Plan cols_inv(column_plan(f, FFTW_BACKWARD));
+  const FftwfPlan rows_fwd = row_plan(f, model.data(), true);
+  const FftwfPlan cols_fwd = column_plan(f, FFTW_FORWARD);
+  const FftwfPlan cols_inv = column_plan(f, FFTW_BACKWARD);
   transform_rows(f, rows_fwd, true, 0, filled_rows, threads);
   parallel_blocks(spectrum_blocks(f), threads, [&](int b) {
     fftwf_complex* d = as_fftw(f.spectrum_row(0)) + static_cast<std::size_t>(b) * kFftColumnBlock;
-    fftwf_execute_dft(cols_fwd.p, d, d);
+    fftwf_execute_dft(cols_fwd.get(), d, d);
     visit(b, b * kFftColumnBlock, std::min(f.bins(), (b + 1) * kFftColumnBlock));
-    if (inverse) fftwf_execute_dft(cols_inv.p, d, d);
+    if (inverse) fftwf_execute_dft(cols_inv.get(), d, d);
   });
 }
 
@@ -125,14 +130,21 @@ void autocorrelate_field(SpectrumField& field, int filled_rows, int lag_rows, in
       for (int k = bin0; k < bin1; ++k) s[k] = std::norm(s[k]);
     }
   }, true);
-  const int n = field.cols();
-  LargeBuffer<float> model(static_cast<std::size_t>(n));  // planned for: address, alignment
-  const Plan rows_inv(fftwf_plan_many_dft_c2r(1, &n, 1, as_fftw(field.spectrum_row(0)), nullptr,
-                                              1, 0, model.data(), nullptr, 1, 0, FFTW_ESTIMATE));
+  LargeBuffer<float> model(static_cast<std::size_t>(field.cols()));  // planned for: alignment
+  const FftwfPlan rows_inv = row_plan(field, model.data(), false);
   // Only rows holding lags |ty| <= lag_rows are brought back: 0..lag_rows and the wrapped ones.
   const int top = std::min(rows, lag_rows + 1);
   transform_rows(field, rows_inv, false, 0, top, threads);
   transform_rows(field, rows_inv, false, std::max(top, rows - lag_rows), rows, threads);
+}
+
+void warm_autocorrelation_plans(int rows, int cols) {
+  // Mapped and never touched: FFTW_ESTIMATE plans read and write no data, they only look at the
+  // addresses (alignment) and strides, which are the real field's.
+  SpectrumField f(rows, cols);
+  LargeBuffer<float> model(static_cast<std::size_t>(cols));
+  const FftwfPlan plans[] = {row_plan(f, model.data(), true), column_plan(f, FFTW_FORWARD),
+                             column_plan(f, FFTW_BACKWARD), row_plan(f, model.data(), false)};
 }
 
 }  // namespace cuspmap

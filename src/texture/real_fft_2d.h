@@ -79,4 +79,10 @@ void forward_spectrum(SpectrumField& field, int filled_rows, int threads,
 /// @param[in] threads      workers, 0 = all hardware threads
 void autocorrelate_field(SpectrumField& field, int filled_rows, int lag_rows, int threads);
 
+/// Makes and drops the plans forward_spectrum and autocorrelate_field use on a fresh rows x cols
+/// field, so that their own planning later finds them in FFTW's planner cache (planning the same
+/// problem again costs ~0.03 ms instead of 7-11 ms at 1920 columns, measured). Thread-safe
+/// (fftw_plan.h): meant to run beside other work before the transforms.
+void warm_autocorrelation_plans(int rows, int cols);
+
 }  // namespace cuspmap

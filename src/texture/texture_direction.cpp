@@ -37,6 +37,10 @@ int fft_size(int n) {
   }
 }
 
+// Lags up to half the field are used; padding to n + n/2 + 1 keeps them free of wrap-around (a
+// circular lag t mixes in t - p, beyond the data when p >= n + |t|), at half the cost of 2n.
+int padded_size(int n) { return fft_size(n + n / 2 + 1); }
+
 // Normalised ACF read straight from the transformed, padded field (no copy of the lag grid):
 // lags |tx| <= lim_x, |ty| <= lim_y are free of wrap-around; others read as 0.
 class Acf {
@@ -76,11 +80,8 @@ Acf::Acf(const Heightfield& hf, const Plane* remove, int threads, Heightfield* r
          LargeBytes spent)
     : nx_(hf.nx),
       ny_(hf.ny),
-      // Lags up to half the field are used; padding to n + n/2 + 1 keeps them free of
-      // wrap-around (a circular lag t mixes in t - p, beyond the data when p >= n + |t|), at
-      // half the cost of 2n.
-      px_(fft_size(hf.nx + hf.nx / 2 + 1)),
-      py_(fft_size(hf.ny + hf.ny / 2 + 1)),
+      px_(padded_size(hf.nx)),
+      py_(padded_size(hf.ny)),
       lim_x_(std::min(hf.nx - 1, px_ - hf.nx)),
       lim_y_(std::min(hf.ny - 1, py_ - hf.ny)),
       scale_(1.0 / (static_cast<double>(px_) * py_)),
@@ -188,6 +189,12 @@ TextureDirection direction_of(const Heightfield& residual, const Plane* remove, 
 }
 
 }  // namespace
+
+void warm_texture_direction_plans(int nx, int ny) {
+  if (nx < 2 || ny < 2) return;
+  warm_lay_spectrum_plans(nx, ny);
+  warm_autocorrelation_plans(padded_size(ny), padded_size(nx));
+}
 
 TextureDirection texture_direction(const Heightfield& residual, int threads) {
   return direction_of(residual, nullptr, threads, nullptr, nullptr, {});

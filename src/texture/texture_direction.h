@@ -52,4 +52,10 @@ TextureDirection texture_direction(const Heightfield& hf, const Plane* remove, i
                                    const LaySums* lay, LargeBytes spent,
                                    Heightfield* release = nullptr);
 
+/// Makes and drops the FFTW plans texture_direction (and lay_spectrum) will make for an
+/// nx x ny field, so that theirs are found in FFTW's planner cache: FFTW_ESTIMATE planning of
+/// the 12 x 12 mm floor's transforms costs ~125 M instructions, paid once per process. Run it
+/// beside other work (the sweep) once the grid's size is known. Thread-safe (fftw_plan.h).
+void warm_texture_direction_plans(int nx, int ny);
+
 }  // namespace cuspmap

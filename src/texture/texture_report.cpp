@@ -1,12 +1,13 @@
-// Texture report: areal side first (plane, filters, parameters, lay), then profiles traced
-// across or along that lay and evaluated at the ISO 4288 cut-off; undefined values become 0 with
-// a warning.
+// Texture report: the areal side (plane, filters, parameters, lay) and profiles traced across or
+// along the lay, evaluated at the ISO 4288 cut-off (beside the areal side when the lay is known,
+// after it when detected); undefined values become 0 with a warning.
 // Inputs: Heightfield, TextureOptions; output: TextureReport. Cost: see texture_report.h.
 // Method: ISO 25178-2:2012, ISO 4287:1997, ISO 4288:1996 (docs/texture.md).
 #include "texture/texture_report.h"
 
 #include <algorithm>
 #include <cmath>
+#include <future>
 #include <optional>
 #include <utility>
 
@@ -82,6 +83,11 @@ ArealReport areal_side(const Heightfield& hf, const TextureOptions& o,
   }
   note_areal_warnings(a, warnings);
   return a;
+}
+
+// Whether the traces' direction is known without the areal side: an angle, or a known lay.
+bool direction_given(const TextureOptions& o) {
+  return o.direction == ProfileDirection::Angle || o.lay_deg.has_value();
 }
 
 double trace_direction(const TextureOptions& o, const ArealReport& areal, ProfileReport& p,
@@ -176,21 +182,35 @@ TextureReport texture_report(const Heightfield& hf, const TextureOptions& option
                               std::to_string(report.cells) +
                               " cells are unreached (NaN) and left out");
   }
-  report.areal = areal_side(hf, options, report.warnings);
-
   ProfileReport& p = report.profile;
-  p.direction_deg = trace_direction(options, report.areal, p, report.warnings);
-  const double shortest_cutoff =
-      options.cutoff_mm > 0.0 ? options.cutoff_mm : kStandardCutoffsMm.front();
-  const std::vector<ProfileTrace> traces =
-      extract_profiles(hf, p.direction_deg, options.max_traces, 2.0 * shortest_cutoff);
-  if (traces.empty()) {
-    throw InputError("surface too short for a profile at " + format_number(p.direction_deg) +
-                     " deg: the longest trace is " +
-                     format_number(longest_chord_mm(hf, p.direction_deg)) + " mm, at least " +
-                     format_number(2.0 * shortest_cutoff) + " mm (two cut-offs) is needed");
+  std::vector<std::string> profile_warnings;
+  const auto profile_side = [&] {
+    const double shortest_cutoff =
+        options.cutoff_mm > 0.0 ? options.cutoff_mm : kStandardCutoffsMm.front();
+    const std::vector<ProfileTrace> traces =
+        extract_profiles(hf, p.direction_deg, options.max_traces, 2.0 * shortest_cutoff);
+    if (traces.empty()) {
+      throw InputError("surface too short for a profile at " + format_number(p.direction_deg) +
+                       " deg: the longest trace is " +
+                       format_number(longest_chord_mm(hf, p.direction_deg)) + " mm, at least " +
+                       format_number(2.0 * shortest_cutoff) + " mm (two cut-offs) is needed");
+    }
+    fill_profile_report(traces, options, p, profile_warnings);
+  };
+  if (direction_given(options)) {
+    // The traces' direction does not wait for the areal side: both sides run at once (they only
+    // read the floor; each keeps its own warnings, joined in the same order as below). An error
+    // of the areal side still comes first.
+    p.direction_deg = trace_direction(options, report.areal, p, report.warnings);
+    std::future<void> profiles = std::async(std::launch::async, profile_side);
+    report.areal = areal_side(hf, options, report.warnings);
+    profiles.get();
+  } else {
+    report.areal = areal_side(hf, options, report.warnings);
+    p.direction_deg = trace_direction(options, report.areal, p, report.warnings);
+    profile_side();
   }
-  fill_profile_report(traces, options, p, report.warnings);
+  report.warnings.insert(report.warnings.end(), profile_warnings.begin(), profile_warnings.end());
   // The waviness of a machined floor is often nil: its undefined Wsk/Wku/WSm are 0 without a
   // warning (docs/texture.md).
   return report;

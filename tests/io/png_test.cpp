@@ -69,3 +69,33 @@ TEST_CASE("encode_png: rejects empty images and unsupported channel counts", "[i
   two.pixels = {0, 0};
   REQUIRE_THROWS_AS(encode_png(two), std::invalid_argument);
 }
+
+TEST_CASE("encode_png: RGB images of few colours are written indexed, same pixels", "[io]") {
+  // IHDR fields after the signature, length and type: width 16..19, height 20..23, bit depth 24,
+  // colour type 25 (ISO/IEC 15948 s. 11.2.2: 2 = truecolour, 3 = indexed).
+  const auto ihdr_byte = [](const std::string& png, int at) {
+    return static_cast<int>(static_cast<unsigned char>(png[static_cast<std::size_t>(at)]));
+  };
+  struct Case {
+    int colours, depth, colour_type;
+  };
+  for (const Case c : {Case{2, 1, 3}, Case{3, 2, 3}, Case{6, 4, 3}, Case{17, 8, 3},
+                       Case{256, 8, 3}, Case{257, 8, 2}}) {
+    // 37 columns: rows end inside a packed byte at 1, 2 and 4 bits per pixel.
+    Image img = make_image(37, 9, 3, kWhite);
+    for (int y = 0; y < img.height; ++y) {
+      for (int x = 0; x < img.width; ++x) {
+        const int k = (x + y * 37) % c.colours;  // every colour used: 333 distinct x + 37 y
+        set_pixel(img, x, y,
+                  Color{static_cast<std::uint8_t>(k % 256), static_cast<std::uint8_t>(k / 256),
+                        static_cast<std::uint8_t>(255 - k % 256)});
+      }
+    }
+    const std::string png = encode_png(img);
+    CAPTURE(c.colours);
+    REQUIRE(ihdr_byte(png, 24) == c.depth);
+    REQUIRE(ihdr_byte(png, 25) == c.colour_type);
+    // stb_image expands an indexed image to its palette's RGB.
+    REQUIRE(decode(png, 3).pixels == img.pixels);
+  }
+}
