@@ -186,6 +186,12 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
     floor_pictures = render_floor_pictures(floor, /*streamed=*/false, units, range);
     npy_staged.get();
   };
+  // profile.png too, as soon as the report's profile side is done (beside its areal side).
+  std::optional<std::string> profile_png;
+  ropt.beside_profile = [&](const Heightfield& floor, const ProfileReport& profile) {
+    if (floor.cells() > kBesideTextureMaxCells) return;
+    profile_png = render_profile_png(floor, profile, units);
+  };
   JobRun run;
   {
     ProgressBar bar("sweep");
@@ -205,7 +211,12 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
   SimulationPictures pics = floor_pictures
                                 ? std::move(*floor_pictures)
                                 : render_floor_pictures(run.floor, run.streamed, units, range);
-  add_profile_picture(run, units, pics);
+  if (profile_png) {
+    pics.profile_png = std::move(*profile_png);
+    pics.profile_caption = kProfileCaption;
+  } else {
+    add_profile_picture(run, units, pics);
+  }
   // A streamed floor's pictures show the block-mean overview and its profile.png the centre
   // traces copied at full resolution from the bands; its height.npy (only with --npy) is
   // already on disk under a temp name and is published here.

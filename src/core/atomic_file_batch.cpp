@@ -1,5 +1,5 @@
-// Batched atomic files: temp files written as added; commit() = start write-back of all, fsync
-// each, rename each, fsync each folder once. Inputs: paths and bytes; output: the files, all
+// Batched atomic files: temp files written (and their write-back started) as added; commit() =
+// fsync each, rename each, fsync each folder once. Inputs: paths and bytes; output: the files, all
 // complete or (on failure before the renames) none. Method: POSIX fsync/rename, Linux
 // sync_file_range; the per-file steps of core/atomic_file_stream.
 #include "core/atomic_file_batch.h"
@@ -40,13 +40,15 @@ void AtomicFileBatch::add(const std::string& path, std::string_view bytes) {
 void AtomicFileBatch::add(const std::string& path, std::span<const std::string_view> parts) {
   auto file = std::make_unique<AtomicFileStream>(path);
   for (std::string_view part : parts) file->append(part);
+  // Write-back starts now, not at commit(): a file staged early (a floor's height.npy, beside
+  // its texture report) is mostly on disk by then and its fsync waits the less.
+  file->start_flush();
   files_.push_back(std::move(file));
 }
 
 void AtomicFileBatch::commit() {
-  // Write-back of every file starts before any fsync waits, so the first fsync's journal
-  // commit carries them all and the later ones find little left to do.
-  for (auto& f : files_) f->start_flush();
+  // Write-back of every file started when it was added, before any fsync waits, so the first
+  // fsync's journal commit carries them all and the later ones find little left to do.
   for (auto& f : files_) f->flush();
   std::set<std::string> folders;
   for (auto& f : files_) {

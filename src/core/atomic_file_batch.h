@@ -2,7 +2,7 @@
 // and commit() makes them all durable, then renames them, so the disk's journal commits about
 // once for the whole set instead of once per file; an abandoned batch leaves none of them.
 // Method: POSIX rename(2) atomicity as core/atomic_file_stream.h; Linux sync_file_range(2) to
-// start every file's write-back before the first fsync(2) waits.
+// start each file's write-back as soon as it is written, before any fsync(2) waits.
 #pragma once
 
 #include <memory>
@@ -18,7 +18,8 @@ namespace cuspmap {
 /// Files staged under temp names and published by one commit().
 class AtomicFileBatch {
  public:
-  /// Writes `bytes` to a temp name beside `path` now (not yet fsynced or renamed).
+  /// Writes `bytes` to a temp name beside `path` now and starts its write-back (not yet fsynced
+  /// or renamed).
   /// @param[in] path   destination file; its folder must exist
   /// @param[in] bytes  complete file contents
   /// @throws std::runtime_error as AtomicFileStream (the temp file is removed first)
@@ -26,7 +27,7 @@ class AtomicFileBatch {
   /// As add(path, bytes) for a file given in parts (written in order, never joined in memory).
   void add(const std::string& path, std::span<const std::string_view> parts);
 
-  /// Starts every file's write-back, waits for each (fsync), renames each over its
+  /// Waits for every file's write-back (fsync), renames each over its
   /// destination in the order added, then fsyncs their folders once each. Call once.
   /// @throws std::runtime_error as AtomicFileStream::commit(); files not yet renamed are removed
   void commit();

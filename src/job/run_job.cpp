@@ -193,7 +193,11 @@ JobRun run_job(const Job& job, const RunOptions& options) {
   }
   // Built-in lanes have a known lay: the pass direction. Others are detected from the surface.
   const TextureOptions texture = lay_options(job, options);
-  run.texture = texture_report(run.floor, texture);
+  std::function<void(const ProfileReport&)> profile_done;
+  if (options.beside_profile) {
+    profile_done = [&](const ProfileReport& p) { options.beside_profile(run.floor, p); };
+  }
+  run.texture = texture_report(run.floor, texture, profile_done);
   set_cusp(extract_profiles(run.floor, run.texture.areal.spatial.lay_deg + 90.0,
                             texture.max_traces, 0.0),
            run);

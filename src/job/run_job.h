@@ -38,6 +38,11 @@ struct RunOptions {
   /// is computed (the caller draws its pictures meanwhile); run_job waits for it before it
   /// returns and rethrows what it threw. The floor must only be read. May be empty.
   std::function<void(const Heightfield&)> beside_texture;
+  /// In-memory runs only: called with the swept floor and the texture report's profile side as
+  /// soon as that side is done (texture_report's profile_done: on its own thread when the lay
+  /// is known, beside the areal side and beside_texture), before run_job returns; exceptions
+  /// propagate as the report's. Read only. May be empty.
+  std::function<void(const Heightfield&, const ProfileReport&)> beside_profile;
   TextureOptions texture;                  ///< cut-off and direction overrides
   /// Streamed runs only (in-memory runs never call it): called once with the grid's columns and
   /// rows after the bands are planned and before any sweep; it may throw InputError to refuse

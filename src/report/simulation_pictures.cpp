@@ -45,14 +45,12 @@ std::optional<ProfilePlotData> centre_profile(const std::vector<ProfileTrace>& t
 
 }  // namespace
 
-std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
-  const ProfileReport& p = run.texture.profile;
+namespace {
+
+// The two centre traces' plots; `centre_runs(k, deg)` gives trace k (0 across, 1 along) at deg.
+template <class CentreRuns>
+std::vector<ProfilePlotData> centre_profiles(const ProfileReport& p, const CentreRuns& centre_runs) {
   const double along_deg = std::fmod(p.direction_deg + 90.0, 180.0);
-  // A streamed floor was never held: its centre traces were copied from the bands as they passed
-  // (the same samples extract_profiles reads from a whole floor); run.floor is only an overview.
-  const auto centre_runs = [&](int k, double deg) {
-    return run.streamed ? run.centre_traces[k] : extract_profiles(run.floor, deg, 1, 0.0);
-  };
   std::vector<ProfilePlotData> out;
   if (auto across = centre_profile(centre_runs(0, p.direction_deg), p.cutoff_mm, p.lambda_s_um,
                                    "Centre trace across, " + format_number(p.direction_deg) +
@@ -64,6 +62,32 @@ std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
     out.push_back(std::move(*along));
   }
   return out;
+}
+
+std::vector<ProfilePlotData> floor_profiles(const Heightfield& floor, const ProfileReport& p) {
+  return centre_profiles(p, [&](int, double deg) { return extract_profiles(floor, deg, 1, 0.0); });
+}
+
+std::string profile_png_of(const std::vector<ProfilePlotData>& profiles, LengthUnit units) {
+  if (profiles.empty()) return {};
+  ProfilePlotOptions popt;
+  popt.units = units;
+  return encode_png(render_profile_plot(profiles, popt).image);
+}
+
+}  // namespace
+
+std::vector<ProfilePlotData> simulation_profiles(const JobRun& run) {
+  // A streamed floor was never held: its centre traces were copied from the bands as they passed
+  // (the same samples extract_profiles reads from a whole floor); run.floor is only an overview.
+  if (!run.streamed) return floor_profiles(run.floor, run.texture.profile);
+  return centre_profiles(run.texture.profile,
+                         [&](int k, double) { return run.centre_traces[k]; });
+}
+
+std::string render_profile_png(const Heightfield& floor, const ProfileReport& profile,
+                               LengthUnit units) {
+  return profile_png_of(floor_profiles(floor, profile), units);
 }
 
 HeightPictures render_height_pictures(const Heightfield& floor, LengthUnit units,
@@ -154,17 +178,14 @@ SimulationPictures render_floor_pictures(const Heightfield& floor, bool streamed
   return pics;
 }
 
+const char* const kProfileCaption =
+    "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
+    "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
+    "the table gives the mean of several parallel traces across the lay.";
+
 void add_profile_picture(const JobRun& run, LengthUnit units, SimulationPictures& pics) {
-  ProfilePlotOptions popt;
-  popt.units = units;
-  const std::vector<ProfilePlotData> profiles = simulation_profiles(run);
-  if (!profiles.empty()) {
-    pics.profile_png = encode_png(render_profile_plot(profiles, popt).image);
-  }
-  pics.profile_caption =
-      "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
-      "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
-      "the table gives the mean of several parallel traces across the lay.";
+  pics.profile_png = profile_png_of(simulation_profiles(run), units);
+  pics.profile_caption = kProfileCaption;
 }
 
 SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,

@@ -67,6 +67,18 @@ SimulationPictures render_floor_pictures(const Heightfield& floor, bool streamed
                                          LengthUnit units, const std::optional<HeightRange>& range,
                                          int cells_per_pixel = 0, bool own_range_too = false);
 
+/// profile.png's caption.
+extern const char* const kProfileCaption;
+
+/// profile.png of an in-memory floor from its texture report's profile side alone (lay and
+/// cut-off), so it can be drawn as soon as that side is done; empty when no centre trace has
+/// two samples. The same bytes add_profile_picture makes from the finished run.
+/// @param[in] floor    the swept floor (um)
+/// @param[in] profile  the texture report's profile side of that floor
+/// @param[in] units    axis units
+std::string render_profile_png(const Heightfield& floor, const ProfileReport& profile,
+                               LengthUnit units);
+
 /// Adds profile.png (needs the texture report's lay and cut-off) and its caption.
 /// @param[in]  run    a finished simulation
 /// @param[in]  units  axis units

@@ -116,9 +116,10 @@ ArealParameters areal_parameters(const Heightfield& residual) {
 ArealParameters areal_parameters(const Heightfield& floor, const Plane& plane) {
   std::int64_t squares = 0;
   double sdr = 0.0;
+  const ResidualRows rows(floor, plane);
   return parameters_of(floor, true,
                        [&](int j, float* scratch) {
-                         residual_row(floor, plane, j, scratch);
+                         rows.row(j, scratch);
                          return static_cast<const float*>(scratch);
                        },
                        &squares, &sdr);

@@ -107,11 +107,21 @@ Plane fit_plane(const Heightfield& hf) {
   return sums.solve();
 }
 
-void residual_row(const Heightfield& hf, const Plane& plane, int j, float* out) {
-  const double y = hf.y_mm(j);
-  const float* z = &hf.z_um(j, 0);
+ResidualRows::ResidualRows(const Heightfield& hf, const Plane& plane)
+    : hf_(hf), plane_(plane), x_term_um_(static_cast<std::size_t>(std::max(hf.nx, 0))) {
   for (int i = 0; i < hf.nx; ++i) {
-    out[i] = std::isnan(z[i]) ? z[i] : static_cast<float>(z[i] - plane.at(hf.x_mm(i), y));
+    x_term_um_[static_cast<std::size_t>(i)] =
+        plane.z0_um + plane.gx_um_per_mm * (hf.x_mm(i) - plane.x0_mm);
+  }
+}
+
+void ResidualRows::row(int j, float* out) const {
+  const double y_term_um = plane_.gy_um_per_mm * (hf_.y_mm(j) - plane_.y0_mm);
+  const float* z = &hf_.z_um(j, 0);
+  const double* xt = x_term_um_.data();
+  for (int i = 0; i < hf_.nx; ++i) {
+    const float r = static_cast<float>(z[i] - (xt[i] + y_term_um));
+    out[i] = std::isnan(z[i]) ? z[i] : r;
   }
 }
 
@@ -125,7 +135,8 @@ Heightfield remove_plane(const Heightfield& hf, const Plane& plane) {
   out.origin_y_mm = hf.origin_y_mm;
   out.z_um.resize(hf.ny, hf.nx);
   advise_huge_pages(out.z_um.data(), static_cast<std::size_t>(out.z_um.size()) * sizeof(float));
-  if (hf.nx > 0) parallel_blocks(hf.ny, 0, [&](int j) { residual_row(hf, plane, j, &out.z_um(j, 0)); });
+  const ResidualRows rows(hf, plane);
+  if (hf.nx > 0) parallel_blocks(hf.ny, 0, [&](int j) { rows.row(j, &out.z_um(j, 0)); });
   return out;
 }
 

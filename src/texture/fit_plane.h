@@ -5,6 +5,8 @@
 // §3.1.8).
 #pragma once
 
+#include <vector>
+
 #include "core/heightfield.h"
 
 namespace cuspmap {
@@ -44,10 +46,22 @@ struct PlaneSums {
 /// @return the plane (z0 = mean height when the field is a single point or a line)
 Plane fit_plane(const Heightfield& hf);
 
-/// Row j of `hf` less `plane`, NaN cells staying NaN: the arithmetic of remove_plane, for
-/// callers that make residual rows as they go instead of holding a whole residual.
-/// @param[out] out  hf.nx floats
-void residual_row(const Heightfield& hf, const Plane& plane, int j, float* out);
+/// Rows of `hf` less `plane`, NaN cells staying NaN: the arithmetic of remove_plane, for
+/// callers that make residual rows as they go instead of holding a whole residual. The plane's
+/// X term is taken once per column (z0 + gx (x - x0), then + gy (y - y0) per row: Plane::at's
+/// operations in its order, so the same floats as evaluating Plane::at per cell).
+class ResidualRows {
+ public:
+  /// Keeps references to `hf` (which must outlive this) and a copy of `plane`.
+  ResidualRows(const Heightfield& hf, const Plane& plane);
+  /// Row j's residual into out[0, hf.nx). Thread-safe (reads only).
+  void row(int j, float* out) const;
+
+ private:
+  const Heightfield& hf_;
+  Plane plane_;
+  std::vector<double> x_term_um_;  ///< z0 + gx (x_i - x0) per column
+};
 
 /// Residual heights after subtracting `plane` from every finite cell; NaN cells stay NaN.
 /// @param[in] hf     heightfield

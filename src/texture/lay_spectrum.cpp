@@ -10,6 +10,7 @@
 #include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <optional>
 #include <utility>
 #include <vector>
 
@@ -70,17 +71,21 @@ LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, La
     wx[static_cast<std::size_t>(i)] = 0.5 - 0.5 * std::cos(two_pi * (i + 0.5) / nx);
   }
   const int row_tasks = (ny + kRowsPerTask - 1) / kRowsPerTask;
+  std::optional<ResidualRows> residual;  // as remove_plane
+  if (remove != nullptr) residual.emplace(hf, *remove);
   parallel_blocks(row_tasks, threads, [&](int t) {
     LargeBuffer<double> beside(row_doubles);
+    std::vector<float> residual_row(residual ? row_doubles : 0);
     for (int j = t * kRowsPerTask; j < std::min(ny, (t + 1) * kRowsPerTask); ++j) {
       const double wy = 0.5 - 0.5 * std::cos(two_pi * (j + 0.5) / ny);
       double* r = beside.data();
-      const double y = hf.y_mm(j);
+      const float* z = &hf.z_um(j, 0);
+      if (residual) {
+        residual->row(j, residual_row.data());
+        z = residual_row.data();
+      }
       for (int i = 0; i < nx; ++i) {
-        float v = hf.z_um(j, i);
-        if (remove != nullptr && !std::isnan(v)) {
-          v = static_cast<float>(v - remove->at(hf.x_mm(i), y));  // as remove_plane
-        }
+        const float v = z[i];
         r[i] = std::isnan(v) ? 0.0 : wx[static_cast<std::size_t>(i)] * wy * v;
       }
       fftw_execute_dft_r2c(plans.rows_fwd.get(), r, spec(j));

@@ -12,6 +12,7 @@
 #include <cmath>
 #include <memory>
 #include <numbers>
+#include <optional>
 #include <vector>
 
 #include "core/parallel_blocks.h"
@@ -89,10 +90,12 @@ Acf::Acf(const Heightfield& hf, const Plane* remove, int threads, Heightfield* r
   // A fresh field is zero: only the data cells are written (no zero-fill pass). Rows of a
   // reused one are written in full, padding included.
   std::atomic<bool> has_nan{false};
+  std::optional<ResidualRows> residual;
+  if (remove != nullptr) residual.emplace(hf, *remove);
   parallel_blocks(ny_, threads, [&](int j) {
     float* row = z_.row(j);
-    if (remove != nullptr) {
-      residual_row(hf, *remove, j, row);
+    if (residual) {
+      residual->row(j, row);
     } else {
       std::copy_n(&hf.z_um(j, 0), nx_, row);
     }

@@ -167,7 +167,8 @@ void fill_profile_report(const std::vector<ProfileTrace>& traces, const TextureO
   note_undefined("primary", p.primary, warnings);
 }
 
-TextureReport texture_report(const Heightfield& hf, const TextureOptions& options) {
+TextureReport texture_report(const Heightfield& hf, const TextureOptions& options,
+                             const std::function<void(const ProfileReport&)>& profile_done) {
   TextureReport report;
   report.cell_mm = hf.cell_mm;
   report.size_x_mm = hf.nx * hf.cell_mm;
@@ -196,6 +197,7 @@ TextureReport texture_report(const Heightfield& hf, const TextureOptions& option
                        format_number(2.0 * shortest_cutoff) + " mm (two cut-offs) is needed");
     }
     fill_profile_report(traces, options, p, profile_warnings);
+    if (profile_done) profile_done(p);
   };
   if (direction_given(options)) {
     // The traces' direction does not wait for the areal side: both sides run at once (they only

@@ -8,6 +8,7 @@
 #pragma once
 
 #include <cstdint>
+#include <functional>
 #include <optional>
 #include <string>
 #include <vector>
@@ -100,9 +101,13 @@ struct TextureReport {
 /// Sal that never decays) are set to 0 and named in `warnings`, so every number is finite.
 /// @param[in] hf       heightfield (um over mm cells); NaN cells are left out of every statistic
 /// @param[in] options  directions, cut-off and filters
+/// @param[in] profile_done  optional: called with the finished profile side as soon as it is
+///            done, on the thread that computed it (beside the areal side when the traces'
+///            direction is given: an angle or a known lay), before texture_report returns
 /// @throws InputError when no cell is finite, or the surface is too short for one sampling
 ///         length of the smallest cut-off (or of a fixed cut-off) in the trace direction
-TextureReport texture_report(const Heightfield& hf, const TextureOptions& options);
+TextureReport texture_report(const Heightfield& hf, const TextureOptions& options,
+                             const std::function<void(const ProfileReport&)>& profile_done = {});
 
 /// The profile side from traces already extracted along p.direction_deg (set by the caller with
 /// p.direction): ISO 4288 cut-off, R/P/W parameters, grade; notes appended to `warnings`.
