@@ -14,6 +14,26 @@ namespace {
 constexpr int kTileCols = 256;
 constexpr int kTileRows = 32;
 
+// Tiles along X whose cells a line move can reach within tile row ty: the part of the segment
+// whose y lies within the row's cell centres +- reach spans some x range, and a cell within reach
+// of the segment lies within reach of that part. The range is widened by a cell on each side
+// (rounding of the clip), so it never drops a tile the exact distance test keeps.
+void line_columns(const PreparedMove& m, int ty, const TileGrid& tiles, double cell_mm,
+                  double reach_mm, int& col0, int& col1) {
+  const double dy = m.b_mm.y() - m.a_mm.y();
+  if (dy == 0.0) return;
+  const int j0 = ty * tiles.tile_rows, j1 = std::min(tiles.ny, j0 + tiles.tile_rows);
+  const double y_lo = (j0 + 0.5) * cell_mm - reach_mm - cell_mm;
+  const double y_hi = (j1 - 0.5) * cell_mm + reach_mm + cell_mm;
+  const double t_a = std::clamp((y_lo - m.a_mm.y()) / dy, 0.0, 1.0);
+  const double t_b = std::clamp((y_hi - m.a_mm.y()) / dy, 0.0, 1.0);
+  const double dx = m.b_mm.x() - m.a_mm.x();
+  const double x_a = m.a_mm.x() + t_a * dx, x_b = m.a_mm.x() + t_b * dx;
+  const double tile_w = tiles.tile_cols * cell_mm, grow = reach_mm + cell_mm;
+  col0 = std::max(col0, static_cast<int>(std::floor((std::min(x_a, x_b) - grow) / tile_w)));
+  col1 = std::min(col1, static_cast<int>(std::floor((std::max(x_a, x_b) + grow) / tile_w)));
+}
+
 }  // namespace
 
 TileRect TileGrid::rect(int t) const {
@@ -54,7 +74,9 @@ std::vector<std::vector<int>> bin_moves_rows(const std::vector<PreparedMove>& mo
     const int row0 = tile_index(m.y_min_mm - reach_mm, tile_h, ty0, ty1 - 1);
     const int row1 = tile_index(m.y_max_mm + reach_mm, tile_h, ty0, ty1 - 1);
     for (int ty = row0; ty <= row1; ++ty) {
-      for (int tx = tx0; tx <= tx1; ++tx) {
+      int col0 = tx0, col1 = tx1;
+      if (m.kind == MoveKind::Line) line_columns(m, ty, tiles, cell_mm, reach_mm, col0, col1);
+      for (int tx = col0; tx <= col1; ++tx) {
         const TileRect r = tiles.rect(ty * tiles.tiles_x + tx);
         // Cell centres of the tile span this box.
         const double dist = m.distance_to_box((r.i0 + 0.5) * cell_mm, (r.i1 - 0.5) * cell_mm,

@@ -120,29 +120,56 @@ CUSPMAP_CLONES void profile_heights(const float* d2, int count, float base_um, f
   }
 }
 
-CUSPMAP_CLONES void pair_distances(float a, float b, float dw, int count, float* d) {
-  for (int n = 0; n < count; ++n) {
-    const float t = static_cast<float>(n) * dw;
-    d[n] = std::min(std::abs(a + t), std::abs(b + t));
+namespace {
+
+// Cells a piece other than the last runs on to a multiple of: the widest lane count (AVX-512
+// floats), so the vector loop needs no scalar tail; the extra cells belong to later pieces of
+// the row, which overwrite them.
+constexpr int kPieceRound = 16;
+
+// The row's distances into out (each piece's loop run on as above), then out[n] = height(out[n])
+// over the whole row: the height loop, the costly one, has one tail per row, not one per piece.
+template <class Height>
+inline void run_pieces(const RasterPiece* pieces, int count, float dw, Height height,
+                       float* out) {
+  const int width = pieces[count - 1].end;
+  for (int q = 0; q < count; ++q) {
+    const int s = pieces[q].start;
+    int cells = pieces[q].end - s;
+    if (q + 1 < count) cells = std::min((cells + kPieceRound - 1) / kPieceRound * kPieceRound,
+                                        width - s);
+    const float a = pieces[q].a, b = pieces[q].b;
+    float* o = out + s;
+    for (int n = 0; n < cells; ++n) {
+      const float t = static_cast<float>(n) * dw;
+      o[n] = std::min(std::abs(a + t), std::abs(b + t));
+    }
   }
+  for (int n = 0; n < width; ++n) out[n] = height(out[n]);
 }
 
-CUSPMAP_CLONES void distance_heights(const float* d, int count, const RowProfile& profile,
-                                     float* out) {
+}  // namespace
+
+CUSPMAP_CLONES void raster_row_heights(const RasterPiece* pieces, int count, float dw,
+                                       const RowProfile& profile, float* out) {
   const float base_um = profile.base_um, flat = profile.flat_mm, rc = profile.corner_mm;
   const float reach2 = profile.reach2;
   if (rc == 0.0f) {
-    for (int n = 0; n < count; ++n) out[n] = d[n] * d[n] <= reach2 ? base_um : kUnreachedF;
+    run_pieces(pieces, count, dw,
+               [=](float d) { return d * d <= reach2 ? base_um : kUnreachedF; }, out);
     return;
   }
   const float c2 = rc * rc;
   if (!profile.series) {
     // The cancellation-free form of profile_heights.
-    for (int n = 0; n < count; ++n) {
-      const float u = std::min(std::max(d[n] - flat, 0.0f), rc);
-      const float h = base_um + kUmPerMm * (u * u / (rc + std::sqrt(c2 - u * u)));
-      out[n] = d[n] * d[n] <= reach2 ? h : kUnreachedF;
-    }
+    run_pieces(
+        pieces, count, dw,
+        [=](float d) {
+          const float u = std::min(std::max(d - flat, 0.0f), rc);
+          const float h = base_um + kUmPerMm * (u * u / (rc + std::sqrt(c2 - u * u)));
+          return d * d <= reach2 ? h : kUnreachedF;
+        },
+        out);
     return;
   }
   // 1 - sqrt(1 - x) = sum_k C(2k, k) / ((2k - 1) 4^k) x^k (the binomial series of (1 - x)^(1/2)),
@@ -150,13 +177,30 @@ CUSPMAP_CLONES void distance_heights(const float* d, int count, const RowProfile
   constexpr float k1 = 1.0f / 2, k2 = 1.0f / 8, k3 = 1.0f / 16, k4 = 5.0f / 128, k5 = 7.0f / 256,
                   k6 = 21.0f / 1024;
   const float inv_c2 = 1.0f / c2, scale = kUmPerMm * rc;
-  for (int n = 0; n < count; ++n) {
-    const float u = std::min(std::max(d[n] - flat, 0.0f), rc);
-    const float x = u * u * inv_c2;
-    const float poly = ((((k6 * x + k5) * x + k4) * x + k3) * x + k2) * x + k1;
-    const float h = base_um + scale * (x * poly);
-    out[n] = d[n] * d[n] <= reach2 ? h : kUnreachedF;
+  if (profile.in_reach) {
+    // The same values without the reach test and the clamp at rc, which can then change none
+    // (u^2 <= rc^2 / 16 and d^2 < reach2 everywhere).
+    run_pieces(
+        pieces, count, dw,
+        [=](float d) {
+          const float u = std::max(d - flat, 0.0f);
+          const float x = u * u * inv_c2;
+          const float poly = ((((k6 * x + k5) * x + k4) * x + k3) * x + k2) * x + k1;
+          return base_um + scale * (x * poly);
+        },
+        out);
+    return;
   }
+  run_pieces(
+      pieces, count, dw,
+      [=](float d) {
+        const float u = std::min(std::max(d - flat, 0.0f), rc);
+        const float x = u * u * inv_c2;
+        const float poly = ((((k6 * x + k5) * x + k4) * x + k3) * x + k2) * x + k1;
+        const float h = base_um + scale * (x * poly);
+        return d * d <= reach2 ? h : kUnreachedF;
+      },
+      out);
 }
 
 }  // namespace cuspmap

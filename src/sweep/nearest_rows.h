@@ -86,31 +86,36 @@ void stream_fence();
 void profile_heights(const float* d2, int count, float base_um, float flat_mm, float corner_mm,
                      float reach2, float* out);
 
-/// d[n] = min(|a + n dw|, |b + n dw|), n in [0, count): the distance from cell n to the nearer of
-/// two parallel lines beside every one of the cells (a raster's passes on either side of it).
-/// @param[in] a       signed across-line offset of cell 0 from the first line, mm
-/// @param[in] b       the same from the second line (a for a single line), mm
-/// @param[in] dw      across-line step per cell, mm
-/// @param[in] count   cells in the run, >= 0
-/// @param[out] d      distances, mm
-void pair_distances(float a, float b, float dw, int count, float* d);
-
 /// The profile of an untilted ball or undished bull-nose/flat as one row kernel sees it.
 struct RowProfile {
   float base_um = 0.0f;    ///< tip height of the moves plus the lowest tooth, um
   float flat_mm = 0.0f;    ///< R - rc (0 for a ball)
   float corner_mm = 0.0f;  ///< rc (R for a ball, 0 for a flat end)
   float reach2 = 0.0f;     ///< R^2, mm^2
-  bool series = false;     ///< every u of the run has u^2 <= rc^2 / 16: the power series applies
+  bool series = false;     ///< every u of the row has u^2 <= rc^2 / 16: the power series applies
+  bool in_reach = false;   ///< with `series`: every d of the row has d^2 < reach2 (no NaN cell)
 };
 
-/// Heights at distances d from the nearest move: as profile_heights with d2 = d^2; where
-/// `profile.series` holds, rc (1 - sqrt(1 - x)), x = u^2 / rc^2, is summed as its binomial
-/// series to x^6 (no square root, no division; truncation below 2e-9 relative for x <= 1/16).
-/// @param[in] d         distances, mm, count entries
-/// @param[in] count     cells, >= 0
-/// @param[in] profile   the cutter's profile and reach
-/// @param[out] out      heights, um (NaN where d^2 > reach2)
-void distance_heights(const float* d, int count, const RowProfile& profile, float* out);
+/// One piece of a raster row: cells [start, end) lie between the same two parallel lines, each
+/// beside every one of the cells (a raster's passes on either side of them).
+struct RasterPiece {
+  int start = 0;   ///< first cell of the piece
+  int end = 0;     ///< one past its last cell, > start
+  float a = 0.0f;  ///< signed across-line offset of cell `start` from the first line, mm
+  float b = 0.0f;  ///< the same from the second line (a for a single line), mm
+};
+
+/// Heights of a raster row in one pass: cell n of piece q (start s) is at distance
+/// d = min(|a + (n - s) dw|, |b + (n - s) dw|) from its nearest line, and out[n] = base_um +
+/// 1000 (rc - sqrt(rc^2 - max(d - flat, 0)^2)) as in profile_heights; where `profile.series`
+/// holds, rc (1 - sqrt(1 - x)), x = u^2 / rc^2, is summed as its binomial series to x^6 (no
+/// square root, no division; truncation below 2e-9 relative for x <= 1/16).
+/// @param[in] pieces   `count` pieces, contiguous and ascending, covering [0, width)
+/// @param[in] count    pieces, >= 1
+/// @param[in] dw       across-line step per cell, mm
+/// @param[in] profile  the cutter's profile and reach
+/// @param[out] out     the row's width heights, um (NaN where d^2 > reach2)
+void raster_row_heights(const RasterPiece* pieces, int count, float dw, const RowProfile& profile,
+                        float* out);
 
 }  // namespace cuspmap

@@ -1,6 +1,7 @@
 // Raster tile of the level-distance sweep: checks that the tile's candidate moves are parallel
-// lines beside the whole tile, sorts their offsets, splits each row where it crosses one, and
-// runs the two-line distance and height kernels per row. Method: see raster_tile.h.
+// lines beside the whole tile, sorts their offsets, splits each row where it crosses one (the
+// first line followed from row to row, no search) and runs one row kernel per row (distances
+// and heights, raster_row_heights). Method: see raster_tile.h.
 #include "sweep/raster_tile.h"
 
 #include <algorithm>
@@ -23,9 +24,9 @@ constexpr double kSeriesMaxX = 1.0 / 16.0;
 constexpr double kInfMm = std::numeric_limits<double>::infinity();
 
 struct Scratch {
-  std::vector<double> offsets;  // c_k = n.(a_k - origin), ascending, mm
-  std::vector<float> d;         // one row's distances, mm
-  std::vector<float> h;         // one row's heights before a streamed copy, um
+  std::vector<double> offsets;       // c_k = n.(a_k - origin), ascending, mm
+  std::vector<RasterPiece> pieces;  // one row's pieces
+  std::vector<float> h;              // one row's heights before a streamed copy, um
 };
 
 Scratch& scratch() {
@@ -68,8 +69,7 @@ bool raster_tile(const SweepSetup& setup, const std::vector<const PreparedMove*>
   const int last = static_cast<int>(c.size()) - 1;
 
   const int width = tile.i1 - tile.i0;
-  sc.d.resize(width);
-  sc.h.resize(width);
+  if (stream) sc.h.resize(width);
   RowProfile profile;
   profile.base_um = static_cast<float>(base_um);
   profile.flat_mm = static_cast<float>(setup.flat_mm);
@@ -89,30 +89,39 @@ bool raster_tile(const SweepSetup& setup, const std::vector<const PreparedMove*>
   for (int k = 0; k < last; ++k) d_max = std::max(d_max, 0.5 * (c[k + 1] - c[k]));
   const double u_max = std::max(d_max - setup.flat_mm, 0.0);
   profile.series = u_max * u_max <= kSeriesMaxX * setup.corner_mm * setup.corner_mm;
+  // A cell's float distance exceeds d_max by rounding only (ulps of mm), far below a cell.
+  profile.in_reach = profile.series && d_max + cell < setup.envelope.reach_mm;
+  // First line above the row's first cell (cells with w < c[k] lie between lines k-1 and k),
+  // followed from row to row: w0 moves one way, by |n.y| cell per row.
+  int k_row = 0;
   for (int j = tile.j0; j < tile.j1; ++j) {
     const double w0 = n.y() * (j - tile.j0) * cell;
-    // First line above the row's first cell: cells with w < c[k] lie between lines k-1 and k.
-    int k = static_cast<int>(std::upper_bound(c.begin(), c.end(), w0) - c.begin());
-    for (int s = 0; s < width;) {
+    while (k_row > 0 && c[k_row - 1] > w0) --k_row;
+    while (k_row <= last && c[k_row] <= w0) ++k_row;
+    sc.pieces.clear();
+    for (int s = 0, k = k_row; s < width; ++k) {
       int e = width;
       if (k <= last && dw > 0.0) {
-        // First column with w >= c[k]; a column off by one from rounding has w within an ulp of
-        // c[k], where line k is nearest and a candidate of both pieces.
-        const double at = std::ceil((c[k] - w0) * inv_dw);
-        e = static_cast<int>(std::clamp(at, static_cast<double>(s), static_cast<double>(width)));
+        // First column with w >= c[k], clamped to [s, width] (a ceil on the clamped value: an
+        // integer conversion, no call); a column off by one from rounding has w within an ulp
+        // of c[k], where line k is nearest and a candidate of both pieces.
+        const double at = std::clamp((c[k] - w0) * inv_dw, static_cast<double>(s),
+                                     static_cast<double>(width));
+        e = static_cast<int>(at);
+        e += static_cast<double>(e) < at ? 1 : 0;
       }
       if (e > s) {
         const int lo = std::max(k - 1, 0), hi = std::min(k, last);
         const double ws = w0 + s * dw;
-        const float a = static_cast<float>(ws - c[lo]), b = static_cast<float>(ws - c[hi]);
-        pair_distances(a, b, dw_f, e - s, sc.d.data() + s);
+        sc.pieces.push_back(
+            {s, e, static_cast<float>(ws - c[lo]), static_cast<float>(ws - c[hi])});
         visits += static_cast<std::int64_t>(e - s) * (lo == hi ? 1 : 2);
       }
       s = e;
-      ++k;
     }
     float* row = grid + static_cast<std::int64_t>(j - grid_row0) * setup.nx + tile.i0;
-    distance_heights(sc.d.data(), width, profile, stream ? sc.h.data() : row);
+    raster_row_heights(sc.pieces.data(), static_cast<int>(sc.pieces.size()), dw_f, profile,
+                       stream ? sc.h.data() : row);
     if (stream) copy_cells_stream(sc.h.data(), width, row);
   }
   return true;
