@@ -249,6 +249,7 @@ void run_diagnose(const DiagnoseCliOptions& o) {
     SurfaceOptions sopt;
     if (!o.lay.empty()) sopt.lay_deg = parse_angle_deg(o.lay, "--lay");
     if (o.teeth > 0) sopt.teeth = o.teeth;
+    sopt.threads = o.threads;
     const std::optional<FloorFitOptions> fopt = fit_options(o, unit, sopt);
     SurfaceEstimates e = surface_estimates(file.field, sopt);
     print_stage(o.common.verbose, "estimate", timer.lap());

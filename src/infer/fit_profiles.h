@@ -14,8 +14,9 @@ namespace cuspmap {
 inline constexpr double kProfileSigmas = 3.0;
 
 /// Sets fit.tilt_profile_sigma_deg, direction_profile_sigma_deg and tilt_interval_deg from the
-/// profile over the tilt direction; adds its sweeps to fit.evaluations.
-void profile_direction(const FitResidual& res, double best_cost, FloorFit& fit);
+/// profile over the tilt direction; adds its sweeps to fit.evaluations. var: the residual
+/// variance (with the correlation factor: floor_fit's covariance), the cost limit's unit.
+void profile_direction(const FitResidual& res, double best_cost, double var, FloorFit& fit);
 
 /// One sigma of the stepover from the profile of the cost over it (var: the residual variance).
 double stepover_profile_sigma_mm(const FitResidual& res, double best_cost, double var,

@@ -7,7 +7,10 @@
 #include <algorithm>
 #include <cmath>
 #include <limits>
+#include <vector>
 #include <Eigen/Dense>
+
+#include "core/parallel_blocks.h"
 
 namespace cuspmap {
 namespace {
@@ -38,17 +41,19 @@ std::vector<FitStart> fit_starts(const FitModel& model, const Eigen::VectorXd& b
   // Offsets up to half a stepover either way shift the profile that far.
   const double v_max = v.cwiseAbs().maxCoeff() + stepover;
 
-  std::vector<FitStart> out;
-  Eigen::VectorXd sim(n), r(n);
-  for (const double along : alongs) {
-    for (const double across : acrosses) {
+  // Every tilt pair is independent: the alongs on parallel blocks, each filling its own row of
+  // starts (the order, and so the result, is the same for any thread count).
+  const size_t na = alongs.size(), nc = acrosses.size();
+  std::vector<FitStart> out(na * nc);
+  parallel_blocks(static_cast<int>(na), model.threads, [&](int ia) {
+    Eigen::VectorXd sim(n), r(n);
+    for (size_t ic = 0; ic < nc; ++ic) {
       Eigen::VectorXd p = base;
-      p[kTiltAlongDeg] = along;
-      p[kTiltAcrossDeg] = across;
+      p[kTiltAlongDeg] = alongs[static_cast<size_t>(ia)];
+      p[kTiltAcrossDeg] = acrosses[ic];
       p[kOffsetMm] = 0.0;
       const FitProfile prof = simulate_fit_profile(model, p, v_max);
-      ++sweeps;
-      FitStart best;
+      FitStart& best = out[static_cast<size_t>(ia) * nc + ic];
       best.cost = std::numeric_limits<double>::infinity();
       for (int s = 0; s < kOffsetSteps; ++s) {
         const double off = (s + 0.5) * stepover / kOffsetSteps - 0.5 * stepover;
@@ -67,9 +72,9 @@ std::vector<FitStart> fit_starts(const FitModel& model, const Eigen::VectorXd& b
           best.params[kOffsetMm] = off;
         }
       }
-      out.push_back(best);
     }
-  }
+  });
+  sweeps += static_cast<int>(na * nc);
   std::sort(out.begin(), out.end(),
             [](const FitStart& l, const FitStart& r2) { return l.cost < r2.cost; });
   return out;

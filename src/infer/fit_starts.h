@@ -2,7 +2,8 @@
 // pass offset, from one sweep of a thin strip across the passes per tilt. Inputs: FitModel,
 // sample positions (mm) and heights (um) of the window's finite samples (thinned to
 // kStartSamples);
-// output: the best starts (cost, parameters). Cost: one strip sweep per tilt (~1000 cells).
+// output: the best starts (cost, parameters). Cost: one strip sweep per tilt (~1000 cells),
+// the tilts on model.threads workers.
 // Method: straight passes leave a floor that is constant along the lay (derived: the envelope
 // of a revolving cutter moving along a line), so one profile across it, shifted, is the floor at
 // any offset; the plane is projected out of each residual (Golub & Pereyra 1973).

@@ -7,7 +7,10 @@
 #include <algorithm>
 #include <cmath>
 #include <map>
+#include <utility>
+#include <vector>
 
+#include "core/parallel_blocks.h"
 #include "texture/remove_least_squares_line.h"
 
 namespace cuspmap {
@@ -63,7 +66,7 @@ double best_over_shifts(const std::vector<std::pair<const Line*, const Line*>>& 
 }  // namespace
 
 PassSignatures pass_signatures(const std::vector<ProfileTrace>& along, double stepover_mm,
-                               double valley_mm, double max_shift_mm) {
+                               double valley_mm, double max_shift_mm, int threads) {
   PassSignatures p;
   if (along.empty() || stepover_mm <= 0.0) return p;
   const double dx = along.front().spacing_mm;
@@ -99,26 +102,46 @@ PassSignatures pass_signatures(const std::vector<ProfileTrace>& along, double st
     const auto it = lines.find(std::lround((key * dx + passes * stepover_mm) / dx));  // o0 cancels
     return it == lines.end() ? nullptr : &it->second;
   };
-  double sum1 = 0.0, sum2 = 0.0, summ = 0.0;
-  int n1 = 0, n2 = 0, nm = 0;
-  for (const auto& [band, keys] : bands) {
+  // Each band's three correlations are independent: parallel blocks, summed in band order
+  // afterwards (the same result for any thread count).
+  struct BandScore {
+    bool counted = false, has_one = false, has_two = false;
+    double one = 0.0, two = 0.0, mirror = 0.0;
+  };
+  std::vector<const std::vector<long>*> band_keys;
+  for (const auto& [band, keys] : bands) band_keys.push_back(&keys);
+  std::vector<BandScore> scores(band_keys.size());
+  parallel_blocks(static_cast<int>(band_keys.size()), threads, [&](int b) {
+    const std::vector<long>& keys = *band_keys[static_cast<size_t>(b)];
     // A band counts when it holds most of a stepover's traces (edge bands are partial).
-    if (static_cast<double>(keys.size()) < 0.8 * stepover_mm / dx) continue;
+    if (static_cast<double>(keys.size()) < 0.8 * stepover_mm / dx) return;
     std::vector<std::pair<const Line*, const Line*>> one, two, self;
     for (long key : keys) {
       const Line* a = &lines.at(key);
       self.emplace_back(a, a);
-      if (const Line* b = partner(key, 1)) one.emplace_back(a, b);
-      if (const Line* b = partner(key, 2)) two.emplace_back(a, b);
+      if (const Line* l = partner(key, 1)) one.emplace_back(a, l);
+      if (const Line* l = partner(key, 2)) two.emplace_back(a, l);
     }
-    summ += best_over_shifts(self, 2 * max_shift, dx, true);
+    BandScore& sc = scores[static_cast<size_t>(b)];
+    sc.counted = true;
+    sc.mirror = best_over_shifts(self, 2 * max_shift, dx, true);
+    sc.has_one = one.size() == keys.size();
+    if (sc.has_one) sc.one = best_over_shifts(one, max_shift, dx, false);
+    sc.has_two = two.size() == keys.size();
+    if (sc.has_two) sc.two = best_over_shifts(two, max_shift, dx, false);
+  });
+  double sum1 = 0.0, sum2 = 0.0, summ = 0.0;
+  int n1 = 0, n2 = 0, nm = 0;
+  for (const BandScore& sc : scores) {
+    if (!sc.counted) continue;
+    summ += sc.mirror;
     ++nm;
-    if (one.size() == keys.size()) {
-      sum1 += best_over_shifts(one, max_shift, dx, false);
+    if (sc.has_one) {
+      sum1 += sc.one;
       ++n1;
     }
-    if (two.size() == keys.size()) {
-      sum2 += best_over_shifts(two, max_shift, dx, false);
+    if (sc.has_two) {
+      sum2 += sc.two;
       ++n2;
     }
   }

@@ -29,7 +29,8 @@ struct PassSignatures {
 /// @param[in] stepover_mm  across-lay period
 /// @param[in] valley_mm    across position of a pass centre (the cusp valley), mm from the centre
 /// @param[in] max_shift_mm largest along-lay shift tried (e.g. one revolution's feed)
+/// @param[in] threads      workers for the bands (0 = all; the result does not depend on it)
 PassSignatures pass_signatures(const std::vector<ProfileTrace>& along, double stepover_mm,
-                               double valley_mm, double max_shift_mm);
+                               double valley_mm, double max_shift_mm, int threads = 1);
 
 }  // namespace cuspmap

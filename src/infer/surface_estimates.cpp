@@ -7,6 +7,7 @@
 #include <algorithm>
 #include <cmath>
 #include <numbers>
+#include <vector>
 
 #include "core/input_error.h"
 #include "core/units.h"
@@ -46,8 +47,9 @@ constexpr double kMinShareForDirection = 0.5;
 // a few cells apart; measured on 0.02 mm grids of 0.08 mm feed marks).
 constexpr int kBandSmoothCells = 5;
 // The traces' period is a multiple of the band means' when their ratio is within this of a
-// whole number (derived: two 1 % estimates); it needs this share of the band means' comb
-// score to replace theirs (derived: a false 1/m of the period keeps ~1/m; see repeat_period).
+// whole number, relative to the ratio (derived: two 1 % estimates); it needs this share of
+// the band means' comb score to replace theirs (derived: a false 1/m of the period keeps
+// ~1/m; see repeat_period).
 constexpr double kMultipleSlack = 0.05;
 constexpr double kMinTraceSupport = 0.5;
 // The smoothed band means' ACF peaks can lean by up to half a cell (bands rounded to whole
@@ -60,6 +62,59 @@ constexpr float kFlatFloorUm = 1e-4f;
 // The spectral and band-mean lays agree within this (the band-mean peak is ~1 deg wide on a
 // 600-cell field; derived).
 constexpr double kLayAgreementDeg = 2.0;
+
+// Peak-to-valley of a sinusoid over its rms (derived): the marks' depth from their rms.
+constexpr double kSinePeakToValleyPerRms = 2.0 * std::numbers::sqrt2;
+// A normal deviate's sd over its median absolute deviation (Hampel 1974, the MAD's consistency
+// constant 1 / 0.6745).
+constexpr double kMadToSigma = 1.4826;
+
+// Measurement noise and marks of a floor without a readable lay, um: the noise from the
+// differences of neighbouring cells (each carries 2 sigma^2 of independent noise and next to
+// none of mm-scale marks; their median absolute deviation about their median, which skips the
+// plane's constant slope and the odd step: Hampel 1974), the marks from the variance left above
+// it, as a sinusoid's peak-to-valley (derived).
+struct NoiseAndMarks {
+  double noise_um = 0.0;
+  double marks_um = 0.0;
+};
+
+NoiseAndMarks noise_and_marks(const Heightfield& residual) {
+  std::vector<double> d;
+  double sum2 = 0.0;
+  std::int64_t n = 0;
+  for (int b = 0; b < residual.ny; ++b) {
+    for (int a = 0; a < residual.nx; ++a) {
+      const float z = residual.z_um(b, a);
+      if (!std::isfinite(z)) continue;
+      sum2 += static_cast<double>(z) * z;
+      ++n;
+      const float right = a + 1 < residual.nx ? residual.z_um(b, a + 1) : NAN;
+      const float up = b + 1 < residual.ny ? residual.z_um(b + 1, a) : NAN;
+      if (std::isfinite(right)) d.push_back(right - z);
+      if (std::isfinite(up)) d.push_back(up - z);
+    }
+  }
+  NoiseAndMarks m;
+  if (d.empty() || n == 0) return m;
+  const auto median = [](std::vector<double>& v) {
+    std::nth_element(v.begin(), v.begin() + static_cast<std::ptrdiff_t>(v.size() / 2), v.end());
+    return v[v.size() / 2];
+  };
+  const double mid = median(d);
+  for (double& x : d) x = std::abs(x - mid);
+  m.noise_um = kMadToSigma * median(d) / std::numbers::sqrt2;
+  const double left = sum2 / static_cast<double>(n) - m.noise_um * m.noise_um;
+  m.marks_um = kSinePeakToValleyPerRms * std::sqrt(std::max(0.0, left));
+  return m;
+}
+
+// Three significant figures for a message (DESIGN.md: human output).
+double three_digits(double v) {
+  if (!(v > 0.0)) return v;
+  const double scale = std::pow(10.0, std::floor(std::log10(v)) - 2.0);
+  return std::round(v / scale) * scale;
+}
 
 FeedMarks feed_marks(const std::vector<ProfileTrace>& along, const SurfaceOptions& o) {
   FeedMarks f;
@@ -128,10 +183,17 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
     e.lay_strength = dir.lay_strength;
     const PassLay pl = pass_lay(residual, lay_wrap_deg(dir.lay_deg));
     if (pl.share < kMinPassLayShare) {
+      // Say whether the marks are below the noise (nothing to read) or the floor's texture
+      // has no direction (issue 17: a 4.4 mm flat at 0.0073 deg under 0.035 um noise).
+      const NoiseAndMarks nm = noise_and_marks(residual);
       throw InputError("no dominant lay: band means along no direction carry " +
                        format_number(100.0 * kMinPassLayShare) + " % of the height variance (best " +
                        format_number(100.0 * pl.share) + " % at " + format_number(pl.lay_deg) +
-                       " deg); pass --lay if the pass direction is known");
+                       " deg); the marks are ~" + format_number(three_digits(nm.marks_um)) +
+                       " um deep (2 sqrt 2 x the rms above the noise) against " +
+                       format_number(three_digits(nm.noise_um)) + " um rms cell-to-cell noise" +
+                       (nm.marks_um < nm.noise_um ? ": under the noise" : "") +
+                       "; pass --lay if the pass direction is known");
     }
     e.lay_deg = pl.lay_deg;
     if (std::abs(lay_wrap_deg(dir.lay_deg - pl.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
@@ -180,7 +242,10 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
       const double ratio = traces.period_mm / e.stepover.period_mm;
       const double support = comb_score(band_acf, traces.period_mm / bands.spacing_mm);
       const double best = comb_score(band_acf, e.stepover.period_mm / bands.spacing_mm);
-      if (std::abs(ratio - std::round(ratio)) > kMultipleSlack &&
+      // The slack grows with the ratio: the traces' repeat at k periods carries k times the
+      // absolute error of one (a bull-nose zigzag's noisy triple, 2.457 mm for 3 x 0.833 = 2.499
+      // under 0.02 um noise, ratio 2.948, replaced the band means' 0.833; derived).
+      if (std::abs(ratio - std::round(ratio)) > kMultipleSlack * std::max(1.0, ratio) &&
           support >= kMinTraceSupport * best) {
         e.stepover = traces;
       }
@@ -219,7 +284,7 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   }
   double max_shift = e.feed.revolution_mm > 0.0 ? e.feed.revolution_mm : e.feed.period_mm;
   if (max_shift <= 0.0) max_shift = 0.25 * span_mm;
-  e.passes = pass_signatures(along, e.stepover.period_mm, e.valley_mm, max_shift);
+  e.passes = pass_signatures(along, e.stepover.period_mm, e.valley_mm, max_shift, options.threads);
   const double ref = std::max(e.passes.next_pass, e.passes.second_pass);
   e.direction = "undetermined";
   e.heel = "undetermined";

@@ -34,6 +34,7 @@ inline constexpr double kMinPassCorrelation = 0.4;
 struct SurfaceOptions {
   std::optional<double> lay_deg;  ///< known pass direction, deg from +X (else detected)
   std::optional<int> teeth;       ///< flutes, to turn a revolution period into feed per tooth
+  int threads = 1;                ///< workers for the pass signatures (0 = all; same result)
 };
 
 /// Along-lay marks (feed per tooth, runout).

@@ -71,6 +71,16 @@ CASES = [
     # issue_17, heel lifted: tooth-resolved, 0.05 deg toward the feed (+X); the envelope fit
     # may only bound the along-feed tilt, and heel bound <= truth <= fit bound (derived).
     ("flat", 6.0, 1.0, 0.05, 0.0, "heel", 5.0, 0.005, (0.8, 0.3), 0.01, True),
+    # issue_17, the direction profile's 15 deg fan: a bull-nose in the ridge regime whose
+    # consistent directions end between two of the fan's; the interval ([0.0356, 0.0539] deg)
+    # missed the truth before the fan's edges were bisected.
+    ("bullnose", 6.0, 0.6, 0.03, 140.0, "one-way", 6.0, 0.01, (0.8, -0.4), 0.01, False,
+     {"corner_radius": 0.5}),
+    # issue_17, random round trips: a bull-nose zigzag whose marks are near the noise; the
+    # traces' noisy triple repeat (2.457 mm, ratio 2.948) replaced the band means' 0.833 mm and
+    # the floor was refused as too small for its period.
+    ("bullnose", 5.2, 0.833, 0.0246, 252.3, "zigzag", 6.0, 0.02, (-1.24, 0.92), 0.016, False,
+     {"corner_radius": 1.1, "lay_deg": 88.8}),
 ]
 
 
