@@ -202,7 +202,7 @@ void print_tooth_fit(const ToothFit& t) {
     return;
   }
   if (t.runout_not_read) {
-    std::printf("  %-13s not read (the fit does not yet recover it reliably)\n", "runout");
+    std::printf("  %-13s not read (the \"cannot tell\" lines say why)\n", "runout");
   } else {
     std::printf("  %-13s %.3g um (+-%.2g)%s\n", "runout", t.runout_um.value, t.runout_um.sigma,
                 t.runout_projection_only ? " (|e cos phase| only)" : "");

@@ -1,7 +1,7 @@
 // Tooth-resolved stage: window, start values, the search over the pass pattern's unknowns (the
-// along-feed sign, a zigzag's parity), per-pass shifts and tooth labels, the solver and the
-// covariance propagated to runout magnitude and phase. Inputs: Heightfield, ToothFitStart,
-// ToothFitOptions; output: ToothFit. Cost: a few hundred one-pass sweeps.
+// along-feed sign, a zigzag's parity), per-pass shifts, the runout scan, the valley walk, the
+// solver and the covariance propagated to runout magnitude and phase. Inputs: Heightfield,
+// ToothFitStart, ToothFitOptions; output: ToothFit. Cost: ~4 000-5 000 one-pass sweeps.
 // Method: Kline & DeVor 1983 (runout: tooth k cuts at R + e cos(psi - 2 pi k / Z)); Bates &
 // Watts 1988 (covariance, likelihood comparison); GUM §5.1.2 (propagation).
 #include "infer/tooth_fit.h"
@@ -15,6 +15,7 @@
 
 #include "infer/residual_correlation.h"
 #include "infer/tooth_fit_problem.h"
+#include "infer/tooth_runout_scan.h"
 
 namespace cuspmap {
 namespace {
@@ -30,9 +31,11 @@ constexpr int kStageIterations = 10;
 constexpr double kMinCellsPerTooth = 4.0;
 // Rms of an ideal cusp profile over its peak-to-valley height (DESIGN.md: Rq = 2h / (3 sqrt 5)).
 constexpr double kCuspRmsPerDepth = 0.298;
-// Dish factors of the restarts (runout divided by the same): 1.3 recovered a 1 deg dish from a
-// stall at 0.68 deg within 13 % (measured); 1.6 overshoots and measures the spread.
-constexpr double kRestartDish[] = {1.3, 1.6};
+// The valley walk's dish factor per step (runout divided by the same) and its most steps: 1.3
+// and 1.6 in turn recovered 0.84 deg from a stall at 0.36 deg (measured); 1.4 per step covers a
+// stall at a tenth of the dish in 7 steps (derived).
+constexpr double kValleyFactor = 1.4;
+constexpr int kValleySteps = 8, kValleyMisses = 2;
 // Cap of the along-feed tilt start, deg (a heel that recuts bounds it by the marks' depth:
 // 0.01-0.05 deg on the round trips; derived from the heel lift 2 R tan(tilt)).
 constexpr double kAlongStartMaxDeg = 0.02;
@@ -43,6 +46,15 @@ constexpr double kDishStartMin = 0.1, kDishStartMax = 3.0;
 constexpr double kDishModelSigma = 0.06;
 // The variance of a value the floor does not bound.
 constexpr double kUnbounded = std::numeric_limits<double>::infinity();
+// Least standard errors of the runout (relative) and its phase (deg): the spread of the
+// solver's stops on the round trips (measured, docs/diagnose.md), as kDishModelSigma.
+constexpr double kRunoutModelSigma = 0.05, kPhaseModelSigmaDeg = 5.0;
+// Starts the runout scan hands to the solver (distinct phases, best first).
+constexpr int kScanStarts = 3;
+// Stops whose phase differs from the best by more than this (modulo 360 / Z) lie in another
+// basin: the phase tolerance of issue 17 (the solver's stops from one basin came within 3 deg
+// of each other on the round trips, measured).
+constexpr double kBasinDeg = 15.0;
 
 // Dish start from the marks' depth: between two rim arcs fz apart the floor rises to
 // (fz / 2) tan(dish) (derived), and the along-lay rms of each window line is ~0.298 of it.
@@ -87,53 +99,90 @@ std::unique_ptr<ToothProblem> stage_one(const ToothWindow& w, ToothModel model, 
   return p;
 }
 
-// Runout free, then each pass's tooth label (shift + k fz) searched and the solve repeated.
-void stage_two(ToothProblem& p, int teeth, double fz_mm) {
-  p.free[kRunoutCos] = true;
-  p.free[kRunoutSin] = teeth >= 3;
+// One scan start solved: runout free with the dish held (measured: with the dish free the
+// solver slid down the dish-runout valley from the scan's points, to 0.5 deg and 8.3 um for 1 deg
+// and 5 um), labels searched again, then the dish freed.
+void solve_start(ToothProblem& p, const ToothState& start, int teeth, double fz_mm) {
+  p.set(start);
+  p.free[kDish] = false;
   p.solve(kStageIterations / 2);
-  for (int round = 0; round < 2; ++round) {
-    for (size_t k = 0; k < p.state().shift_mm.size(); ++k) {
-      double best = p.residual().squaredNorm(), best_shift = p.state().shift_mm[k];
-      if (!p.is_active(static_cast<int>(k))) continue;
-      for (int t = 1; t < teeth; ++t) {
-        const double s = std::fmod(p.state().shift_mm[k] + t * fz_mm, teeth * fz_mm);
-        const double c = p.cost_with_shift(static_cast<int>(k), s);
-        if (c < best) best = c, best_shift = s;
-      }
-      if (best_shift != p.state().shift_mm[k]) {
-        ToothState s = p.state();
-        s.shift_mm[k] = best_shift;
-        p.set(s);
-      }
-    }
-    p.update_active();
-    p.solve(kStageIterations / 2);
-    p.refine_shifts(fz_mm / kShiftTrials / 4);
-    p.solve(kStageIterations / 2);
-  }
+  search_labels(p, teeth, fz_mm);
+  p.update_active();
+  p.solve(kStageIterations / 2);
+  p.free[kDish] = true;
+  p.refine_shifts(fz_mm / kShiftTrials / 4);
+  p.solve(kStageIterations / 2);
 }
 
-// Restarts along the dish-runout valley (deeper dish, less runout): the solver stalls short of
-// the optimum there (measured: 0.68 deg for a 1 deg dish, 6.3 um for 5 um of runout). Returns
-// the states the solver stopped at: their spread widens the sigmas (the smoothed cost is still
-// rough at the scale of a cell).
+// Runout free: the scan's best starts (runout vector and labels) solved (the first `solved` of
+// them; the rest kept for later), the problem left at the best stop.
+struct RunoutStops {
+  std::vector<RunoutStart> starts;  // the scan's, best first
+  std::vector<ToothState> states;   // stops of the solved starts
+  std::vector<double> costs;
+};
+void keep_best(ToothProblem& p, const RunoutStops& stops) {
+  const size_t best = static_cast<size_t>(
+      std::min_element(stops.costs.begin(), stops.costs.end()) - stops.costs.begin());
+  p.set(stops.states[best]);
+}
+RunoutStops stage_two(ToothProblem& p, int teeth, double fz_mm, int solved) {
+  p.free[kRunoutCos] = true;
+  p.free[kRunoutSin] = teeth >= 3;
+  RunoutStops stops;
+  stops.starts = scan_runout(p, teeth, fz_mm, kScanStarts);
+  for (int k = 0; k < solved && k < static_cast<int>(stops.starts.size()); ++k) {
+    solve_start(p, stops.starts[static_cast<size_t>(k)].state, teeth, fz_mm);
+    stops.states.push_back(p.state());
+    stops.costs.push_back(p.residual().squaredNorm());
+  }
+  keep_best(p, stops);
+  return stops;
+}
+
+// The scan's other starts solved (for the likelihood ratio of the runout's phase basin).
+void solve_rest(ToothProblem& p, RunoutStops& stops, int teeth, double fz_mm) {
+  for (size_t k = stops.states.size(); k < stops.starts.size(); ++k) {
+    solve_start(p, stops.starts[k].state, teeth, fz_mm);
+    stops.states.push_back(p.state());
+    stops.costs.push_back(p.residual().squaredNorm());
+  }
+  keep_best(p, stops);
+}
+
+// Walk along the dish-runout valley (deeper dish, less runout): the solver stops short of the
+// optimum there (measured: 0.36 deg and 10 um for 1 deg and 5 um on the damaged round trip,
+// 0.09 deg and 17 um noise-free: the runout-free stage leaves the dish low and the smoothed cost
+// is rough along the valley, so the walk goes on past one step that does not improve, and stops
+// after kValleyMisses in a row). The problem is left at the best stop. Returns the walk's stops
+// next to the best one (their spread widens the sigmas; the stall it started from is not one of
+// them: its cost is hundreds of residual variances above).
 std::vector<ToothState> restart_dish(ToothProblem& p, double fz_mm) {
-  std::vector<ToothState> stops{p.state()};
-  for (const double factor : kRestartDish) {
-    const ToothState keep = p.state();
-    const double keep_cost = p.residual().squaredNorm();
-    ToothState s = keep;
-    s.g[kDish] *= factor;
-    s.g[kRunoutCos] /= factor;
-    s.g[kRunoutSin] /= factor;
+  std::vector<ToothState> walk{p.state()};
+  std::vector<double> cost{p.residual().squaredNorm()};
+  size_t best = 0;
+  for (int step = 0, misses = 0; step < kValleySteps && misses < kValleyMisses; ++step) {
+    ToothState s = p.state();
+    s.g[kDish] *= kValleyFactor;
+    s.g[kRunoutCos] /= kValleyFactor;
+    s.g[kRunoutSin] /= kValleyFactor;
     p.set(s);
     p.solve(kStageIterations / 2);
     p.refine_shifts(fz_mm / kShiftTrials / 4);
     p.solve(kStageIterations / 2);
-    stops.push_back(p.state());
-    if (p.residual().squaredNorm() >= keep_cost) p.set(keep);
+    walk.push_back(p.state());
+    cost.push_back(p.residual().squaredNorm());
+    if (cost.back() < cost[best]) {
+      best = walk.size() - 1;
+      misses = 0;
+    } else {
+      ++misses;
+    }
   }
+  p.set(walk[best]);
+  std::vector<ToothState> stops;
+  if (best > 1) stops.push_back(walk[best - 1]);
+  if (best + 1 < walk.size()) stops.push_back(walk[best + 1]);
   return stops;
 }
 
@@ -216,17 +265,20 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
       if (cost < best_cost[sign]) best_cost[sign] = cost, best[sign] = std::move(p);
     }
   }
-  // Both signs get the runout and labels (without runout the two fit about alike: measured,
-  // 0.1 residual variances apart); the restarts only the better one.
+  // Both signs get the runout scan (without runout the two fit about alike: measured, 0.1
+  // residual variances apart); the restarts only the better one.
+  RunoutStops runout_stops[2];
   for (int sign = 0; sign < 2; ++sign) {
     const int before = best[sign]->sweeps();
-    stage_two(*best[sign], c.teeth, o.feed_per_tooth_mm);
+    runout_stops[sign] = stage_two(*best[sign], c.teeth, o.feed_per_tooth_mm, 1);
     f.sweeps += best[sign]->sweeps() - before;
     best_cost[sign] = best[sign]->residual().squaredNorm();
   }
   const int win = best_cost[0] <= best_cost[1] ? 0 : 1;
   ToothProblem& p = *best[win];
   const int before = p.sweeps();
+  solve_rest(p, runout_stops[win], c.teeth, o.feed_per_tooth_mm);
+  best_cost[win] = p.residual().squaredNorm();
   const std::vector<ToothState> stops = restart_dish(p, o.feed_per_tooth_mm);
   f.sweeps += p.sweeps() - before;
   best_cost[win] = std::min(best_cost[win], p.residual().squaredNorm());
@@ -264,22 +316,55 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   f.tilt_along_deg = fitted_value(g[kTiltAlong], cov(ia, ia) + global(kTiltAlong), true);
   f.tilt_across_deg = fitted_value(g[kTiltAcross], cov(ix, ix) + global(kTiltAcross), true);
   f.runout_phase_period_deg = 360.0 / c.teeth;
-  // Honest sigmas from what the round trips measured (docs/diagnose.md "Tooth-resolved
-  // stage"): the solver's stops scatter more than (J^T J)^-1 says. Runout and phase came back
-  // 2.9-6.2 um for 5 um and up to 32 deg off, with sigmas of 0.2-0.4 um and 0.5-3 deg (many
-  // sigma off): their values are kept, not read, their sigma unbounded. The dish came back
-  // 0.84-1.16 deg for 1 deg from different starts: its sigma is at least kDishModelSigma of
-  // the value (measured).
-  f.runout_not_read = true;
+  const double period = f.runout_phase_period_deg;
+  const double ec = g[kRunoutCos], es = g[kRunoutSin], e = std::hypot(ec, es);
+  const double psi = std::atan2(es, ec) / kDegToRad;
+  // Phase difference modulo the period, deg (the nearest image).
+  auto phase_off = [&](const ToothState& t) {
+    const double a = std::atan2(t.g[kRunoutSin], t.g[kRunoutCos]) / kDegToRad - psi;
+    return a - std::round(a / period) * period;
+  };
+  // The runout's basin is known when the best stop of the scan's other phases fits worse by
+  // kSignSigmas^2 residual variances (likelihood ratio, Bates & Watts 1988 §6.1).
+  double other_basin = kUnbounded;
+  const RunoutStops& rs = runout_stops[win];
+  for (size_t k = 0; k < rs.states.size(); ++k) {
+    if (std::abs(phase_off(rs.states[k])) > kBasinDeg) other_basin = std::min(other_basin, rs.costs[k]);
+  }
+  f.runout_basin_sigmas = (other_basin - best_cost[win]) / var;
+  const int ic = col_of(kRunoutCos);
+  Eigen::Matrix2d c2 = Eigen::Matrix2d::Constant(kUnbounded);
+  if (is >= 0) c2 << cov(ic, ic), cov(ic, is), cov(is, ic), cov(is, is);
+  // Tested element by element: Eigen's allFinite() computes x - x, itself invalid for inf.
+  const bool bounded = std::all_of(c2.data(), c2.data() + c2.size(),
+                                   [](double v) { return std::isfinite(v); });
   if (is < 0) {
+    // Z <= 2: only |e cos psi| shows (Kline & DeVor 1983; derived); not measured: not read.
     f.runout_projection_only = true;
+    f.runout_not_read = true;
     f.runout_um = fitted_value(std::abs(g[kRunoutCos]), kUnbounded, true);
   } else {
-    const double ec = g[kRunoutCos], es = g[kRunoutSin];
-    const double psi = std::atan2(es, ec) / kDegToRad;
-    const double period = f.runout_phase_period_deg;
-    f.runout_um = fitted_value(std::hypot(ec, es), kUnbounded, true);
-    f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period, kUnbounded, true);
+    const Eigen::Vector2d de = e > 0.0 ? Eigen::Vector2d(ec / e, es / e) : Eigen::Vector2d(1, 0);
+    const Eigen::Vector2d dpsi =
+        e > 0.0 ? Eigen::Vector2d(-es, ec) / (e * e) / kDegToRad : Eigen::Vector2d(0, 0);
+    double e_var =
+        bounded ? de.dot(c2 * de) + spread([](const ToothState& t) {
+          return std::hypot(t.g[kRunoutCos], t.g[kRunoutSin]);
+        })
+                : kUnbounded;
+    double psi_var =
+        bounded && e > 0.0 ? dpsi.dot(c2 * dpsi) + spread([&](const ToothState& t) {
+          return psi + phase_off(t);
+        })
+                           : kUnbounded;
+    e_var = std::max(e_var, std::pow(kRunoutModelSigma * e, 2));
+    psi_var = std::max(psi_var, kPhaseModelSigmaDeg * kPhaseModelSigmaDeg);
+    f.runout_not_read = !bounded || !(f.runout_basin_sigmas > kSignSigmas * kSignSigmas);
+    f.runout_um = fitted_value(e, f.runout_not_read ? kUnbounded : e_var, true);
+    f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period,
+                                      f.runout_not_read ? kUnbounded : psi_var, true);
+    // A phase is resolved when its sigma is bounded (a value near 0 deg is as good as any).
+    f.runout_phase_deg.resolved = !f.runout_not_read;
   }
   f.dish_deg = fitted_value(f.dish_deg.value,
                             std::max(f.dish_deg.sigma * f.dish_deg.sigma,

@@ -68,13 +68,16 @@ struct ToothFit {
   FittedValue tilt_across_deg;   ///< + toward lay + 90 deg
   bool along_sign_known = false; ///< the other sign fits worse by kSignSigmas
   double along_sign_cost_sigmas = 0.0;  ///< (cost of the other sign - best) / variance, scaled
+  double runout_basin_sigmas = 0.0;  ///< (best cost of the runout scan's other phases - best) /
+                                     ///< variance, scaled; inf when no other phase was solved
   double residual_rms_um = 0.0;  ///< measured - simulated over the window, plane removed
                                  ///< (unsmoothed: the rim's steps a cell off count in full)
   double measured_rms_um = 0.0;  ///< measured window about its plane
   double correlation_factor = 1.0;  ///< m / m_eff of the residual
   double smoothed_residual_ratio = 0.0;  ///< smoothed residual rms / smoothed measured rms
-  bool runout_not_read = false;  ///< runout and phase not recovered reliably yet: unresolved,
-                                 ///< values for reference only (docs/diagnose.md)
+  bool runout_not_read = false;  ///< runout and phase not read: Z <= 2, an unbounded covariance
+                                 ///< or another phase fits within kSignSigmas^2 variances
+                                 ///< (values for reference only, docs/diagnose.md)
   bool marks_misfit = false;     ///< marks seen but smoothed_residual_ratio above
                                  ///< kToothFitMaxResidualRatio: runout, phase, dish and the
                                  ///< along-feed sign are then not resolved (no value given)

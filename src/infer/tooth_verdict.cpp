@@ -47,9 +47,16 @@ ToothVerdict tooth_verdict(const ToothFit& t) {
       "docs/diagnose.md): treat the runout, dish and along-feed sign below as leads to check");
   if (t.runout_not_read) {
     v.cannot_tell.push_back(
-        "runout and its phase: the tooth-resolved fit does not yet recover them reliably (round "
-        "trips gave 2.9-6.2 um for 5 um and phases up to 33 deg off: docs/diagnose.md); check "
-        "the runout with a dial indicator (spindle stopped and locked out)");
+        t.runout_projection_only
+            ? "runout: with " + std::to_string(t.teeth) +
+                  " teeth the floor shows only the part along the teeth and the fit does not "
+                  "read it reliably (docs/diagnose.md); check the runout with a dial indicator "
+                  "(spindle stopped and locked out)"
+            : "runout and its phase: the tooth-resolved fit cannot tell them (another phase "
+              "fits within " +
+                  n3(t.runout_basin_sigmas) +
+                  " residual variances, or the sigmas are unbounded: docs/diagnose.md); check "
+                  "the runout with a dial indicator (spindle stopped and locked out)");
   } else if (t.runout_um.resolved) {
     const std::string what =
         t.runout_projection_only

@@ -50,6 +50,7 @@ void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit) {
   j["smoothed_residual_ratio"] = t.smoothed_residual_ratio;
   j["marks_misfit"] = t.marks_misfit;
   j["runout_not_read"] = t.runout_not_read;
+  j["runout_basin_sigmas"] = t.runout_basin_sigmas;
   j["samples"] = t.samples;
   j["passes"] = t.passes;
   j["sweeps"] = t.sweeps;
