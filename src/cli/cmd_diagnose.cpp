@@ -333,7 +333,9 @@ void setup_diagnose(CLI::App& sub) {
   sub.add_flag("--tooth-fit", o->tooth_fit,
                "Also run the experimental tooth-resolved stage (runout, dish, along-feed sign; "
                "slow, unreliable on measured floors)");
-  sub.add_option("--threads", o->threads, "Threads of the fit's sweeps (0 = all)")
+  sub.add_option("--threads", o->threads,
+                 "Threads of the fit's sweeps and the pass signatures (0 = all; the same result "
+                 "for any count)")
       ->check(CLI::Range(0, 1024));
   add_common_flags(sub, o->common);
   sub.callback([o] { run_diagnose(*o); });
