@@ -212,8 +212,7 @@ void run_simulate(const SimulateOptions& o, bool units_flag_given) {
                                 ? std::move(*floor_pictures)
                                 : render_floor_pictures(run.floor, run.streamed, units, range);
   if (profile_png) {
-    pics.profile_png = std::move(*profile_png);
-    pics.profile_caption = kProfileCaption;
+    set_profile_picture(std::move(*profile_png), pics);
   } else {
     add_profile_picture(run, units, pics);
   }

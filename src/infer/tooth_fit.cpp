@@ -126,28 +126,23 @@ void keep_best(ToothProblem& p, const RunoutStops& stops) {
       std::min_element(stops.costs.begin(), stops.costs.end()) - stops.costs.begin());
   p.set(stops.states[best]);
 }
-RunoutStops stage_two(ToothProblem& p, int teeth, double fz_mm, int solved) {
-  p.free[kRunoutCos] = true;
-  p.free[kRunoutSin] = teeth >= 3;
-  RunoutStops stops;
-  stops.starts = scan_runout(p, teeth, fz_mm, kScanStarts);
-  for (int k = 0; k < solved && k < static_cast<int>(stops.starts.size()); ++k) {
-    solve_start(p, stops.starts[static_cast<size_t>(k)].state, teeth, fz_mm);
-    stops.states.push_back(p.state());
-    stops.costs.push_back(p.residual().squaredNorm());
-  }
-  keep_best(p, stops);
-  return stops;
-}
-
-// The scan's other starts solved (for the likelihood ratio of the runout's phase basin).
-void solve_rest(ToothProblem& p, RunoutStops& stops, int teeth, double fz_mm) {
-  for (size_t k = stops.states.size(); k < stops.starts.size(); ++k) {
+// The scan's starts after those already solved, up to the first `upto`, solved; the problem is
+// left at the best stop so far.
+void solve_starts(ToothProblem& p, RunoutStops& stops, size_t upto, int teeth, double fz_mm) {
+  for (size_t k = stops.states.size(); k < std::min(upto, stops.starts.size()); ++k) {
     solve_start(p, stops.starts[k].state, teeth, fz_mm);
     stops.states.push_back(p.state());
     stops.costs.push_back(p.residual().squaredNorm());
   }
   keep_best(p, stops);
+}
+RunoutStops stage_two(ToothProblem& p, int teeth, double fz_mm, int solved) {
+  p.free[kRunoutCos] = true;
+  p.free[kRunoutSin] = teeth >= 3;
+  RunoutStops stops;
+  stops.starts = scan_runout(p, teeth, fz_mm, kScanStarts);
+  solve_starts(p, stops, static_cast<size_t>(std::max(solved, 0)), teeth, fz_mm);
+  return stops;
 }
 
 // Walk along the dish-runout valley (deeper dish, less runout): the solver stops short of the
@@ -277,7 +272,9 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   const int win = best_cost[0] <= best_cost[1] ? 0 : 1;
   ToothProblem& p = *best[win];
   const int before = p.sweeps();
-  solve_rest(p, runout_stops[win], c.teeth, o.feed_per_tooth_mm);
+  // The scan's other starts too (the likelihood ratio of the runout's phase basin).
+  solve_starts(p, runout_stops[win], runout_stops[win].starts.size(), c.teeth,
+               o.feed_per_tooth_mm);
   best_cost[win] = p.residual().squaredNorm();
   const std::vector<ToothState> stops = restart_dish(p, o.feed_per_tooth_mm);
   f.sweeps += p.sweeps() - before;

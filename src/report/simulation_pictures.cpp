@@ -178,14 +178,16 @@ SimulationPictures render_floor_pictures(const Heightfield& floor, bool streamed
   return pics;
 }
 
-const char* const kProfileCaption =
-    "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
-    "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
-    "the table gives the mean of several parallel traces across the lay.";
+void set_profile_picture(std::string png, SimulationPictures& pics) {
+  pics.profile_png = std::move(png);
+  pics.profile_caption =
+      "The single centre trace across and along the lay; the smooth line is the ISO 16610-21 "
+      "Gaussian mean line at the cut-off used; the Ra and Rz marked are that one trace's, while "
+      "the table gives the mean of several parallel traces across the lay.";
+}
 
 void add_profile_picture(const JobRun& run, LengthUnit units, SimulationPictures& pics) {
-  pics.profile_png = profile_png_of(simulation_profiles(run), units);
-  pics.profile_caption = kProfileCaption;
+  set_profile_picture(profile_png_of(simulation_profiles(run), units), pics);
 }
 
 SimulationPictures render_simulation_pictures(const JobRun& run, LengthUnit units,

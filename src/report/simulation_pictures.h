@@ -67,8 +67,6 @@ SimulationPictures render_floor_pictures(const Heightfield& floor, bool streamed
                                          LengthUnit units, const std::optional<HeightRange>& range,
                                          int cells_per_pixel = 0, bool own_range_too = false);
 
-/// profile.png's caption.
-extern const char* const kProfileCaption;
 
 /// profile.png of an in-memory floor from its texture report's profile side alone (lay and
 /// cut-off), so it can be drawn as soon as that side is done; empty when no centre trace has
@@ -78,6 +76,9 @@ extern const char* const kProfileCaption;
 /// @param[in] units    axis units
 std::string render_profile_png(const Heightfield& floor, const ProfileReport& profile,
                                LengthUnit units);
+
+/// Sets profile.png (bytes from render_profile_png, may be empty) and its caption.
+void set_profile_picture(std::string png, SimulationPictures& pics);
 
 /// Adds profile.png (needs the texture report's lay and cut-off) and its caption.
 /// @param[in]  run    a finished simulation

@@ -55,8 +55,8 @@ struct LayPlans {
 
 LaySums lay_spectrum(const Heightfield& hf, int threads, const Plane* remove, LargeBytes* spent) {
   const int nx = hf.nx, ny = hf.ny, bins = nx / 2 + 1;
-  const int blocks = (bins + kColumnBlock - 1) / kColumnBlock;
   const std::size_t stride = complex_stride(nx);  // complex per row
+  const int blocks = static_cast<int>(stride / kColumnBlock);
   LargeBuffer<double> field(static_cast<std::size_t>(ny) * 2 * stride);
   const auto row = [&](int j) { return field.data() + static_cast<std::size_t>(j) * 2 * stride; };
   const auto spec = [&](int j) { return reinterpret_cast<fftw_complex*>(row(j)); };
