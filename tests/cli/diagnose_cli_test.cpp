@@ -11,6 +11,21 @@
 #include "test_support.h"
 
 namespace cuspmap {
+namespace {
+
+// A flat end mill's envelope floor (1 deg dish, no tooth marks) at 0.02 mm cells, tilted
+// `tilt_deg` toward `toward_deg`, cropped by `crop` cells at each edge.
+Heightfield tilted_flat_floor(double diameter_mm, double stepover_mm, double size_mm,
+                              double tilt_deg, double toward_deg, int crop) {
+  Job job = test::raster_job(CutterShape::Flat, diameter_mm, stepover_mm, size_mm, 0.02, 0.05, 2);
+  job.sim.tooth_marks = false;
+  job.cutter.dish_deg = 1.0;
+  job.cutter.tilt_deg = tilt_deg;
+  job.cutter.tilt_toward_deg = toward_deg;
+  return test::crop(test::simulate(job), crop);
+}
+
+}  // namespace
 
 TEST_CASE("diagnose: a simulated ball floor read back from .npy", "[cli]") {
   test::TempDir dir;
@@ -73,12 +88,7 @@ TEST_CASE("diagnose: too few cells is refused in one line", "[cli]") {
 TEST_CASE("diagnose: --tool and --diameter fit the tilt of a flat end mill", "[cli]") {
   test::TempDir dir;
   // 3 mm flat, 1 deg dish, tilted 0.04 deg toward 90 deg (across the passes), stepover 1 mm.
-  Job job = test::raster_job(CutterShape::Flat, 3.0, 1.0, 7.0, 0.02, 0.05, 2);
-  job.sim.tooth_marks = false;
-  job.cutter.dish_deg = 1.0;
-  job.cutter.tilt_deg = 0.04;
-  job.cutter.tilt_toward_deg = 90.0;
-  Heightfield hf = test::crop(test::simulate(job), 50);
+  Heightfield hf = tilted_flat_floor(3.0, 1.0, 7.0, 0.04, 90.0, 50);
   test::damage(hf, 0.01, 0.0, 0.5, 0.0, 7u);
   test::write_text(dir.file("floor.npy"), encode_npy(hf));
   const test::RunResult r =
@@ -134,12 +144,7 @@ TEST_CASE("diagnose: issue_17: marks under the noise are refused with their dept
   // under 0.035 um rms noise, and the band means carry no 3 % of the variance anywhere. The
   // refusal must say that the marks are under the noise, and name both.
   test::TempDir dir;
-  Job job = test::raster_job(CutterShape::Flat, 4.4, 1.0, 10.4, 0.02, 0.05, 2);
-  job.sim.tooth_marks = false;
-  job.cutter.dish_deg = 1.0;
-  job.cutter.tilt_deg = 0.0073;
-  job.cutter.tilt_toward_deg = 170.0;
-  Heightfield hf = test::crop(test::simulate(job), 110);
+  Heightfield hf = tilted_flat_floor(4.4, 1.0, 10.4, 0.0073, 170.0, 110);
   const double noise_um = 0.035;
   test::damage(hf, noise_um, 0.5, 0.2, 0.01, 3u);
   test::write_text(dir.file("floor.npy"), encode_npy(hf));
