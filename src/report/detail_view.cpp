@@ -4,6 +4,7 @@
 #include "report/detail_view.h"
 
 #include <algorithm>
+#include <cstdint>
 
 #include "core/display_quantity.h"
 
@@ -39,8 +40,24 @@ DetailView render_detail_view(const Heightfield& floor, const DetailWindow& w, L
 
 Image outline_detail_window(const Image& image, int map_x_px, int map_y_px, int map_height_px,
                             int cells_per_pixel, const DetailWindow& w) {
-  Image out = make_image(image.width, image.height, 3, kWhite);
-  blit(image, out, 0, 0);
+  // The picture in RGB (a gray level g as r = g = b, as blit does), built directly: make_image's
+  // fill and blit's per-pixel conversion were ~50 M instructions on the 12 mm job's two maps.
+  Image out;
+  if (image.channels == 3) {
+    out = image;
+  } else {
+    out.width = image.width;
+    out.height = image.height;
+    out.channels = 3;
+    out.pixels.resize(image.pixels.size() * 3);
+    std::uint8_t* rgb = out.pixels.data();
+    for (const std::uint8_t g : image.pixels) {
+      rgb[0] = g;
+      rgb[1] = g;
+      rgb[2] = g;
+      rgb += 3;
+    }
+  }
   const int k = std::max(cells_per_pixel, 1);
   const int x0 = w.i0 / k, x1 = (w.i0 + w.nx + k - 1) / k;  // pixel columns [x0, x1)
   const int top = map_height_px - (w.j0 + w.ny + k - 1) / k;  // rows flip: top = highest Y

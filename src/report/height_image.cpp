@@ -73,7 +73,12 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
     for (int bc = 0; bc < block_cols; ++bc) {
       const int level = height_gray_level(blocks(block_row, bc), out.lo_um, out.hi_um);
       if (level == kUnreachedLevel) ++out.unreached_pixels;  // counted per block
-      std::fill_n(first + static_cast<std::ptrdiff_t>(bc) * zoom, zoom, static_cast<std::uint8_t>(level));
+      const auto gray_level = static_cast<std::uint8_t>(level);
+      if (zoom == 1) {
+        first[bc] = gray_level;  // no fill_n: it was a memset call per pixel
+      } else {
+        std::fill_n(first + static_cast<std::ptrdiff_t>(bc) * zoom, zoom, gray_level);
+      }
     }
     for (int r = r0 + 1; r < r0 + zoom; ++r) {
       std::copy_n(first, out.map_width_px, &map.at(0, r));

@@ -5,12 +5,18 @@
 #include "report/reduce_blocks.h"
 
 #include <algorithm>
-#include <cstdint>
+#include <cassert>
 #include <cmath>
+#include <cstdint>
+#include <cstring>
 #include <limits>
 #include <vector>
 
-#include "core/large_buffer.h"
+#include "report/finite_row.h"
+
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
 
 namespace cuspmap {
 namespace {
@@ -41,6 +47,116 @@ std::vector<Taps> gaussian_taps(int n, int k) {
   return taps;
 }
 
+// Outputs summed together in registers (independent sums, each in its own order), as pairs of
+// doubles (GCC/Clang vector extension: plain IEEE lane-wise multiply and add, no fusing on the
+// x86-64 baseline), so the compiler cannot turn the sums across the taps instead.
+using Pair = double __attribute__((vector_size(16)));
+using FloatPair = float __attribute__((vector_size(8)));
+constexpr int kPairs = 4;
+constexpr int kLanes = 2 * kPairs;
+
+Pair load_pair(const double* p) {
+  Pair v;
+  std::memcpy(&v, p, sizeof v);
+  return v;
+}
+
+Pair load_pair(const float* p) {
+#if defined(__SSE2__)
+  // One cvtps2pd (GCC converts a float pair element by element).
+  return reinterpret_cast<Pair>(
+      _mm_cvtps_pd(_mm_castpd_ps(_mm_load_sd(reinterpret_cast<const double*>(p)))));
+#else
+  FloatPair v;
+  std::memcpy(&v, p, sizeof v);
+  return __builtin_convertvector(v, Pair);
+#endif
+}
+
+// acc[u] += w * p[u] for the kLanes values from p on.
+template <class T>
+void add_lanes(Pair (&acc)[kPairs], double w, const T* p) {
+  const Pair wp = {w, w};
+  for (int u = 0; u < kPairs; ++u) acc[u] += wp * load_pair(p + 2 * u);
+}
+
+// Splits a row into its k phases in double: phase r holds cells r, k + r, 2k + r, ... (K: k known
+// when compiling, so that the strided reads vectorise; 0: any k).
+template <int K>
+void split_phases(const float* row, int nx, int k_any, int per_phase, double* phases) {
+  const int k = K > 0 ? K : k_any;
+  const int whole = nx / k;  // rows of k cells with every phase present
+  for (int m = 0; m < whole; ++m) {
+    for (int r = 0; r < k; ++r) {
+      phases[static_cast<std::size_t>(r) * per_phase + m] = row[k * m + r];
+    }
+  }
+  for (int r = 0; whole * k + r < nx; ++r) {
+    phases[static_cast<std::size_t>(r) * per_phase + whole] = row[whole * k + r];
+  }
+}
+
+// The interior samples [lo, hi) of one all-finite row, whose taps are the middle block's weights
+// uw at first = first_lo + (bi - lo) k. The row is first split into its k phases, so that tap q
+// of kLanes neighbouring outputs reads kLanes consecutive doubles of one phase; each output's sum
+// takes the taps in order, from 0, as the direct loop does (the same results).
+// tap_base[q]: where output lo's tap q sits in `phases` (its phase's start plus its index).
+void interior_row_sums(const float* row, int nx, int k, const std::vector<double>& uw, int lo,
+                       int hi, int first_lo, const std::vector<std::size_t>& tap_base,
+                       std::vector<double>& phases, float* sum_row) {
+  const int per_phase = (nx + k - 1) / k;
+  phases.resize(static_cast<std::size_t>(k) * per_phase);
+  switch (k) {
+    case 2: split_phases<2>(row, nx, k, per_phase, phases.data()); break;
+    case 3: split_phases<3>(row, nx, k, per_phase, phases.data()); break;
+    case 4: split_phases<4>(row, nx, k, per_phase, phases.data()); break;
+    default: split_phases<0>(row, nx, k, per_phase, phases.data()); break;
+  }
+  const int taps = static_cast<int>(uw.size());
+  int bi = lo;
+  for (; bi + kLanes <= hi; bi += kLanes) {
+    Pair acc[kPairs] = {};
+    for (int q = 0; q < taps; ++q) add_lanes(acc, uw[q], phases.data() + tap_base[q] + (bi - lo));
+    for (int u = 0; u < kLanes; ++u) sum_row[bi + u] = static_cast<float>(acc[u / 2][u % 2]);
+  }
+  for (; bi < hi; ++bi) {
+    const float* v = row + first_lo + (bi - lo) * k;
+    double s = 0.0;
+    for (int q = 0; q < taps; ++q) s += uw[q] * v[q];
+    sum_row[bi] = static_cast<float>(s);
+  }
+}
+
+// Where output lo's taps sit in the phases of a row of nx cells: cell first_lo + q is
+// k m + r, phase r's start is r ceil(nx / k).
+std::vector<std::size_t> interior_tap_base(int nx, int k, int taps, int first_lo) {
+  const int per_phase = (nx + k - 1) / k;
+  std::vector<std::size_t> base(static_cast<std::size_t>(taps));
+  for (int q = 0; q < taps; ++q) {
+    const int cell = first_lo + q;
+    base[static_cast<std::size_t>(q)] =
+        static_cast<std::size_t>(cell % k) * per_phase + static_cast<std::size_t>(cell / k);
+  }
+  return base;
+}
+
+// One output row's weighted sums over the taps' rows (rows[q]: tap q's row of n floats),
+// kLanes outputs at a time in registers; each output takes the taps in order, from 0.
+void column_sums(const float* const* rows, const Taps& t, int n, std::vector<double>& out) {
+  const int taps = static_cast<int>(t.w.size());
+  int bi = 0;
+  for (; bi + kLanes <= n; bi += kLanes) {
+    Pair acc[kPairs] = {};
+    for (int q = 0; q < taps; ++q) add_lanes(acc, t.w[q], rows[q] + bi);
+    for (int u = 0; u < kLanes; ++u) out[bi + u] = acc[u / 2][u % 2];
+  }
+  for (; bi < n; ++bi) {
+    double s = 0.0;
+    for (int q = 0; q < taps; ++q) s += t.w[q] * rows[q][bi];
+    out[bi] = s;
+  }
+}
+
 // Separable Gaussian-weighted mean over the finite cells: rows first into (ny x out_nx) weighted
 // sums and weights, then columns. Separable because the weight of cell (j, i) is wy(j) wx(i) and
 // NaN cells drop out of both the sum and the weight.
@@ -48,12 +164,16 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
   const int ny = static_cast<int>(z.rows()), nx = static_cast<int>(z.cols());
   const std::vector<Taps> tx = gaussian_taps(nx, k), ty = gaussian_taps(ny, k);
   const int out_nx = static_cast<int>(tx.size()), out_ny = static_cast<int>(ty.size());
-  // Float intermediates keep memory at 2 x ny x out_nx x 4 bytes; each sum is formed in double.
-  HeightGrid sum(ny, out_nx), weight(ny, out_nx);
-  advise_huge_pages(sum.data(), static_cast<std::size_t>(sum.size()) * sizeof(float));
-  advise_huge_pages(weight.data(), static_cast<std::size_t>(weight.size()) * sizeof(float));
+  // Float intermediates (each sum formed in double), held only for the rows the current output
+  // row's taps reach: row j in slot j % ring of two ring x out_nx grids. The taps' first row
+  // never falls as the output row rises, so a row is made once and dropped when passed.
+  int ring = 1;
+  for (const Taps& t : ty) ring = std::max(ring, static_cast<int>(t.w.size()));
+  HeightGrid sum(ring, out_nx), weight(ring, out_nx);
   // Whether block (j / k, bi) has a finite cell: the same "not reached" rule as the other modes.
   std::vector<std::uint8_t> reached(static_cast<std::size_t>(out_ny) * out_nx, 0);
+  // Whether every cell of row j is finite (its weights are then the full ones).
+  std::vector<std::uint8_t> row_finite(static_cast<std::size_t>(ny), 0);
   // Each block's total weight when every cell is finite (summed in the same order as below).
   std::vector<double> full_weight(static_cast<std::size_t>(out_nx), 0.0);
   for (int bi = 0; bi < out_nx; ++bi) {
@@ -68,32 +188,21 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
   int uniform_lo = mid, uniform_hi = mid + 1;
   while (uniform_lo > 0 && uniform(uniform_lo - 1)) --uniform_lo;
   while (uniform_hi < out_nx && uniform(uniform_hi)) ++uniform_hi;
-  for (int j = 0; j < ny; ++j) {
+  std::vector<double> phases;
+  const std::vector<std::size_t> tap_base = interior_tap_base(
+      nx, k, static_cast<int>(tx[mid].w.size()), tx[uniform_lo].first);
+  // Rows of the input: weighted sums along the row into the ring, marks of reached blocks.
+  const auto row_pass = [&](int j) {
     const float* row = &z(j, 0);
-    bool all_finite = true;
-    for (int i = 0; i < nx; ++i) all_finite &= std::isfinite(row[i]);
+    const bool all_finite = row_all_finite(row, nx);
+    row_finite[static_cast<std::size_t>(j)] = all_finite ? 1 : 0;
+    float* sum_row = &sum(j % ring, 0);
+    float* weight_row = &weight(j % ring, 0);
     for (int bi = 0; bi < out_nx; ++bi) {
       if (all_finite && bi == uniform_lo) {
-        // Four interior samples at once: independent sums, each in the same order as alone
-        // (the same results; the four chains of additions overlap instead of waiting).
-        const std::vector<double>& uw = tx[mid].w;
-        const int taps = static_cast<int>(uw.size());
-        for (; bi + 4 <= uniform_hi; bi += 4) {
-          const float* v = row + tx[bi].first;
-          double s0 = 0.0, s1 = 0.0, s2 = 0.0, s3 = 0.0;
-          for (int q = 0; q < taps; ++q) {
-            const double wq = uw[q];
-            s0 += wq * v[q];
-            s1 += wq * v[k + q];
-            s2 += wq * v[2 * k + q];
-            s3 += wq * v[3 * k + q];
-          }
-          const double group[4] = {s0, s1, s2, s3};
-          for (int u = 0; u < 4; ++u) {
-            sum(j, bi + u) = static_cast<float>(group[u]);
-            weight(j, bi + u) = static_cast<float>(full_weight[bi + u]);
-          }
-        }
+        interior_row_sums(row, nx, k, tx[mid].w, uniform_lo, uniform_hi, tx[uniform_lo].first,
+                          tap_base, phases, sum_row);
+        for (; bi < uniform_hi; ++bi) weight_row[bi] = static_cast<float>(full_weight[bi]);
         if (bi >= out_nx) break;
       }
       const Taps& t = tx[bi];
@@ -111,8 +220,8 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
           w += t.w[q];
         }
       }
-      sum(j, bi) = static_cast<float>(s);
-      weight(j, bi) = static_cast<float>(w);
+      sum_row[bi] = static_cast<float>(s);
+      weight_row[bi] = static_cast<float>(w);
     }
     std::uint8_t* mark = &reached[static_cast<std::size_t>(j / k) * out_nx];
     if (all_finite) {
@@ -122,28 +231,46 @@ HeightGrid anti_alias_reduce(const HeightGrid& z, int k) {
         if (std::isfinite(row[i])) mark[i / k] = 1;
       }
     }
-  }
+  };
   HeightGrid out(out_ny, out_nx);
-  // Columns: each output's sums take the taps in order, accumulated a whole output row at a time
-  // (contiguous, so the loop over bi vectorises).
+  // Columns: each output's sums take the taps in order. Where every row under the taps is all
+  // finite, the weight row holds full_weight in each of them, so the weight sums depend on the
+  // taps' weights alone: made once for each such set of weights and reused (the same doubles).
   std::vector<double> s(static_cast<std::size_t>(out_nx)), w(static_cast<std::size_t>(out_nx));
+  std::vector<double> cached_w(static_cast<std::size_t>(out_nx));
+  const std::vector<double>* cached_key = nullptr;
+  std::vector<const float*> sum_rows(static_cast<std::size_t>(ring));
+  std::vector<const float*> weight_rows(static_cast<std::size_t>(ring));
+  int rows_done = 0;
   for (int bj = 0; bj < out_ny; ++bj) {
     const Taps& t = ty[bj];
-    std::fill(s.begin(), s.end(), 0.0);
-    std::fill(w.begin(), w.end(), 0.0);
-    for (std::size_t q = 0; q < t.w.size(); ++q) {
-      const int j = t.first + static_cast<int>(q);
-      const double tw = t.w[q];
-      const float* sr = &sum(j, 0);
-      const float* wr = &weight(j, 0);
-      for (int bi = 0; bi < out_nx; ++bi) {
-        s[bi] += tw * sr[bi];
-        w[bi] += tw * wr[bi];
+    const int taps = static_cast<int>(t.w.size());
+    // The taps' rows (and with them every row of block row bj, whose reached marks are read
+    // below: the taps reach past the block on both sides).
+    for (; rows_done < t.first + taps; ++rows_done) row_pass(rows_done);
+    assert(rows_done >= std::min(ny, (bj + 1) * k) && "the taps cover their own block");
+    bool full = true;
+    for (int q = 0; q < taps; ++q) {
+      const int j = t.first + q;
+      full &= row_finite[static_cast<std::size_t>(j)] != 0;
+      sum_rows[static_cast<std::size_t>(q)] = &sum(j % ring, 0);
+      weight_rows[static_cast<std::size_t>(q)] = &weight(j % ring, 0);
+    }
+    column_sums(sum_rows.data(), t, out_nx, s);
+    const std::vector<double>* wj = &w;
+    if (full && cached_key != nullptr && *cached_key == t.w) {
+      wj = &cached_w;
+    } else {
+      column_sums(weight_rows.data(), t, out_nx, w);
+      if (full) {
+        cached_w = w;
+        cached_key = &t.w;
       }
     }
     for (int bi = 0; bi < out_nx; ++bi) {
       const bool any = reached[static_cast<std::size_t>(bj) * out_nx + bi] != 0;
-      out(bj, bi) = any && w[bi] > 0.0 ? static_cast<float>(s[bi] / w[bi]) : kUnreached;
+      const double wb = (*wj)[bi];
+      out(bj, bi) = any && wb > 0.0 ? static_cast<float>(s[bi] / wb) : kUnreached;
     }
   }
   return out;

@@ -15,7 +15,12 @@
 #include "core/units.h"
 #include "report/legend.h"
 #include "report/nice_ticks.h"
+#include "report/finite_row.h"
 #include "report/reduce_blocks.h"
+
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
 
 namespace cuspmap {
 namespace {
@@ -42,6 +47,49 @@ double diff_um_per_cell(const HeightGrid& z, int j, int i, int dj, int di) {
   if (has_p) return double{z(jp, ip)} - c;
   if (has_m) return double{c} - z(jm, im);
   return 0.0;
+}
+
+#if defined(__SSE2__)
+// Two cells' brightness in double lanes: the operations of the scalar form below, one by one
+// (each IEEE-rounded the same way: the same floats).
+__m128 brightness_pair(__m128d left, __m128d right, __m128d down, __m128d up, double per_cell,
+                       double ex, const LightVector& l) {
+  const __m128d half = _mm_set1_pd(0.5), scale = _mm_set1_pd(per_cell), exv = _mm_set1_pd(ex);
+  // Slopes rounded to float, as slope_at keeps them.
+  const __m128 sx = _mm_cvtpd_ps(_mm_mul_pd(_mm_mul_pd(half, _mm_sub_pd(right, left)), scale));
+  const __m128 sy = _mm_cvtpd_ps(_mm_mul_pd(_mm_mul_pd(half, _mm_sub_pd(up, down)), scale));
+  const __m128d gx = _mm_mul_pd(exv, _mm_cvtps_pd(sx)), gy = _mm_mul_pd(exv, _mm_cvtps_pd(sy));
+  const __m128d neg_gx = _mm_xor_pd(gx, _mm_set1_pd(-0.0));
+  const __m128d num = _mm_add_pd(
+      _mm_sub_pd(_mm_mul_pd(neg_gx, _mm_set1_pd(l.x)), _mm_mul_pd(gy, _mm_set1_pd(l.y))),
+      _mm_set1_pd(l.z));
+  const __m128d den = _mm_sqrt_pd(
+      _mm_add_pd(_mm_add_pd(_mm_set1_pd(1.0), _mm_mul_pd(gx, gx)), _mm_mul_pd(gy, gy)));
+  // std::max(0.0, dot) = dot > 0 ? dot : 0 (and +0 for -0), as maxpd(dot, 0) gives.
+  return _mm_cvtpd_ps(_mm_max_pd(_mm_div_pd(num, den), _mm_setzero_pd()));
+}
+#endif
+
+// Brightness of cells 1 .. nx - 2 of a row whose own row and both neighbours are all reached:
+// central differences (slope_at's arithmetic without its tests), then lambert_brightness.
+void interior_brightness(const float* zm, const float* z, const float* zp, int nx,
+                         double per_cell_to_slope, double ex, const LightVector& light, float* b) {
+  int i = 1;
+#if defined(__SSE2__)
+  const auto two = [](const float* p) {
+    return _mm_cvtps_pd(_mm_castpd_ps(_mm_load_sd(reinterpret_cast<const double*>(p))));
+  };
+  for (; i + 2 < nx; i += 2) {
+    const __m128 v = brightness_pair(two(z + i - 1), two(z + i + 1), two(zm + i), two(zp + i),
+                                     per_cell_to_slope, ex, light);
+    _mm_store_sd(reinterpret_cast<double*>(b + i), _mm_castps_pd(v));
+  }
+#endif
+  for (; i + 1 < nx; ++i) {
+    const auto sx = static_cast<float>(0.5 * (double{z[i + 1]} - z[i - 1]) * per_cell_to_slope);
+    const auto sy = static_cast<float>(0.5 * (double{zp[i]} - zm[i]) * per_cell_to_slope);
+    b[i] = static_cast<float>(lambert_brightness(ex * sx, ex * sy, light));
+  }
 }
 
 }  // namespace
@@ -85,6 +133,18 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
     return true;
   };
 
+  // Rows whose cells are all reached: between two more such rows, every interior cell takes the
+  // central differences without a test per neighbour (the same arithmetic as slope_at).
+  std::vector<std::uint8_t> row_full(static_cast<std::size_t>(ny));
+  for (int j = 0; j < ny; ++j) {
+    row_full[static_cast<std::size_t>(j)] = row_all_finite(&hf.z_um(j, 0), nx) ? 1 : 0;
+  }
+  // Whether (j, i) and its four neighbours are reached (central differences on both axes).
+  const auto interior = [&](int j, int i) {
+    return j > 0 && j + 1 < ny && i > 0 && i + 1 < nx && row_full[static_cast<std::size_t>(j)] &&
+           row_full[static_cast<std::size_t>(j - 1)] && row_full[static_cast<std::size_t>(j + 1)];
+  };
+
   // 95th percentile of |grad z| (nearest rank) over an evenly strided sample of reached cells;
   // slopes are computed where sampled and again in the brightness pass (no slope grids).
   const std::int64_t cells = static_cast<std::int64_t>(nx) * ny;
@@ -93,7 +153,15 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
   slopes.reserve(static_cast<std::size_t>(std::min(cells, kMaxSlopeSamples + 1)));
   for (std::int64_t k = 0; k < cells; k += stride) {
     float sx = 0.0f, sy = 0.0f;
-    if (slope_at(static_cast<int>(k / nx), static_cast<int>(k % nx), sx, sy)) {
+    const int j = static_cast<int>(k / nx), i = static_cast<int>(k % nx);
+    if (interior(j, i)) {
+      // slope_at's central differences without its tests (the same floats).
+      sx = static_cast<float>(0.5 * (double{hf.z_um(j, i + 1)} - hf.z_um(j, i - 1)) *
+                              per_cell_to_slope);
+      sy = static_cast<float>(0.5 * (double{hf.z_um(j + 1, i)} - hf.z_um(j - 1, i)) *
+                              per_cell_to_slope);
+      slopes.push_back(std::sqrt(sx * sx + sy * sy));
+    } else if (slope_at(j, i, sx, sy)) {
       slopes.push_back(std::sqrt(sx * sx + sy * sy));  // slopes: no overflow for hypot to guard
     }
   }
@@ -112,15 +180,6 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
   const LightVector light = light_vector(options.light_azimuth_deg, options.light_elevation_deg);
   HeightGrid brightness(ny, nx);
   advise_huge_pages(brightness.data(), static_cast<std::size_t>(brightness.size()) * sizeof(float));
-  // Rows whose cells are all reached: between two more such rows, every interior cell takes the
-  // central differences without a test per neighbour (the same arithmetic as slope_at).
-  std::vector<std::uint8_t> row_full(static_cast<std::size_t>(ny));
-  for (int j = 0; j < ny; ++j) {
-    bool full = true;
-    const float* z = &hf.z_um(j, 0);
-    for (int i = 0; i < nx; ++i) full &= std::isfinite(z[i]);
-    row_full[static_cast<std::size_t>(j)] = full ? 1 : 0;
-  }
   const double ex = out.exaggeration;
   parallel_blocks((ny + kShadeRowsPerTask - 1) / kShadeRowsPerTask, 0, [&](int t) {
     for (int j = t * kShadeRowsPerTask; j < std::min(ny, (t + 1) * kShadeRowsPerTask); ++j) {
@@ -140,11 +199,7 @@ ShadedImage render_shaded_image(const Heightfield& hf, const ShadedImageOptions&
       }
       const float *zm = &hf.z_um(j - 1, 0), *z = &hf.z_um(j, 0), *zp = &hf.z_um(j + 1, 0);
       general(0);
-      for (int i = 1; i + 1 < nx; ++i) {
-        const auto sx = static_cast<float>(0.5 * (double{z[i + 1]} - z[i - 1]) * per_cell_to_slope);
-        const auto sy = static_cast<float>(0.5 * (double{zp[i]} - zm[i]) * per_cell_to_slope);
-        b[i] = static_cast<float>(lambert_brightness(ex * sx, ex * sy, light));
-      }
+      interior_brightness(zm, z, zp, nx, per_cell_to_slope, ex, light, b);
       general(nx - 1);
     }
   });

@@ -6,6 +6,7 @@
 #include <numbers>
 
 #include "core/input_error.h"
+#include "report/legend.h"
 #include "test_support.h"
 
 using namespace cuspmap;
@@ -192,5 +193,39 @@ TEST_CASE("render_shaded_image: zoom draws each cell as zoom x zoom pixels", "[r
   REQUIRE_NEAR(img.mm_per_px, 0.02 / 3, 1e-12);
   for (int y = 0; y < 21; ++y) {
     for (int x = 0; x < 30; ++x) REQUIRE(img.image.at(x, y) == one.image.at(x / 3, y / 3));
+  }
+}
+
+TEST_CASE("render_shaded_image: every interior cell takes the central-difference Lambert value",
+          "[report]") {
+  // Rows with all cells reached take a paired fast path; each pixel must still be the gray level
+  // of Lambert's law on the central differences (Foley, van Dam et al., sec. 16.1), with the
+  // slopes kept as floats as the general path keeps them (derived), on odd sizes and next to an
+  // unreached cell.
+  for (const int nx : {3, 4, 9, 40}) {
+    Heightfield hf = field(nx, 11, 0.01, [](int i, int j) {
+      return 0.8 * std::sin(0.9 * i) + 0.5 * std::cos(1.3 * j) + 0.02 * i * j;
+    });
+    hf.z_um(8, nx / 2) = kUnreached;
+    ShadedImageOptions opt;
+    opt.exaggeration = 3.0;
+    opt.cells_per_pixel = 1;
+    const ShadedImage img = render_shaded_image(hf, opt);
+    const LightVector light = light_vector(opt.light_azimuth_deg, opt.light_elevation_deg);
+    const double per_cell = 1.0 / (hf.cell_mm * 1000.0);
+    for (int j = 1; j + 1 < hf.ny; ++j) {
+      for (int i = 1; i + 1 < nx; ++i) {
+        if (j >= 7 && j <= 9) continue;  // rows at and beside the unreached cell: general path
+        const auto sx = static_cast<float>(
+            0.5 * (double{hf.z_um(j, i + 1)} - hf.z_um(j, i - 1)) * per_cell);
+        const auto sy = static_cast<float>(
+            0.5 * (double{hf.z_um(j + 1, i)} - hf.z_um(j - 1, i)) * per_cell);
+        const auto b = static_cast<float>(lambert_brightness(3.0 * sx, 3.0 * sy, light));
+        CAPTURE(nx, j, i);
+        // Top image row = highest Y.
+        REQUIRE(int{img.image.at(i, hf.ny - 1 - j)} ==
+                nearest_gray_level(kTopHeightLevel * std::clamp(b, 0.0f, 1.0f)));
+      }
+    }
   }
 }

@@ -130,3 +130,41 @@ TEST_CASE("areal_parameters: of a floor and its plane equals that of remove_plan
   CHECK(rows.squares == whole.squares);
   CHECK(whole.squares == 202 * 149 - 4 - 2);  // four squares touch (3, 4), two touch (64, 0)
 }
+
+TEST_CASE("developed_area_ratio: equals the per-square sum of its definition bit for bit",
+          "[texture]") {
+  // ISO 25178-2:2012 §4.3.2: Sdr = mean over the squares with four finite corners of
+  // sqrt(1 + gx^2 + gy^2) - 1, the slopes from the two edges of each square. Summed here one
+  // square at a time in row order (the function's paired lanes must give the same double;
+  // derived). At most 64 rows: one row block, summed in this order.
+  for (const int nx : {2, 3, 7, 64, 101}) {
+    Heightfield hf = grid(nx, 37, 0.01);
+    for (int j = 0; j < hf.ny; ++j) {
+      for (int i = 0; i < hf.nx; ++i) {
+        hf.z_um(j, i) = static_cast<float>(3.0 * std::sin(0.7 * i + 0.2 * j * j) + 0.01 * i * j);
+      }
+    }
+    hf.z_um(5, nx / 2) = kUnreached;
+    hf.z_um(20, nx - 1) = kUnreached;
+    const double k = 1.0 / (1000.0 * 2.0 * hf.cell_mm);  // um -> mm over 2 cells' run
+    double sum = 0.0;
+    std::int64_t count = 0;
+    for (int j = 0; j + 1 < hf.ny; ++j) {
+      for (int i = 0; i + 1 < hf.nx; ++i) {
+        const double z00 = hf.z_um(j, i), z10 = hf.z_um(j, i + 1);
+        const double z01 = hf.z_um(j + 1, i), z11 = hf.z_um(j + 1, i + 1);
+        const double gx = ((z10 - z00) + (z11 - z01)) * k;
+        const double gy = ((z01 - z00) + (z11 - z10)) * k;
+        const double g2 = gx * gx + gy * gy;
+        if (std::isnan(g2)) continue;
+        sum += g2 / (std::sqrt(1.0 + g2) + 1.0);  // = sqrt(1 + g2) - 1
+        ++count;
+      }
+    }
+    std::int64_t squares = 0;
+    const double sdr = developed_area_ratio(hf, squares);
+    CAPTURE(nx);
+    REQUIRE(squares == count);
+    REQUIRE(sdr == sum / static_cast<double>(count));
+  }
+}
