@@ -5,6 +5,7 @@
 
 #include <algorithm>
 #include <cmath>
+#include <cstddef>
 #include <limits>
 
 #include "core/input_error.h"
@@ -12,12 +13,71 @@
 #include "report/nice_ticks.h"
 #include "report/text_render.h"
 
+#if defined(__SSE2__)
+#include <emmintrin.h>
+#endif
+
 namespace cuspmap {
 namespace {
 
 constexpr int kFlatLevel = 127;  // a range of zero width: one mid gray, neither "low" nor "high"
 constexpr int kMarginPx = 8;     // white margin around the framed map when a legend is drawn
 constexpr int kMinLegendBarPx = 120;  // a ramp shorter than this cannot hold three labels
+
+// The lowest and highest finite value of a rows x cols row-major grid (+inf / -inf when none),
+// as the loop lo = std::min(lo, v), hi = std::max(hi, v) over the finite values in column-major
+// order (Eigen's reshaped()) gives them: four SSE2 lanes (non-finite values masked to +-inf),
+// then, where the answer is a zero, its sign from the first zero in that order (the loop keeps
+// the first of equal values; only +0 and -0 are equal values with different bits).
+void finite_range(const float* z, std::size_t rows, std::size_t cols, float& lo, float& hi) {
+  const std::size_t n = rows * cols;
+  constexpr float kInf = std::numeric_limits<float>::infinity();
+  lo = kInf;
+  hi = -kInf;
+  std::size_t k = 0;
+#if defined(__SSE2__)
+  __m128 lo4 = _mm_set1_ps(kInf), hi4 = _mm_set1_ps(-kInf);
+  const __m128i abs_bits = _mm_set1_epi32(0x7fffffff), inf_bits = _mm_set1_epi32(0x7f800000);
+  for (; k + 4 <= n; k += 4) {
+    const __m128 v = _mm_loadu_ps(z + k);
+    const __m128 finite = _mm_castsi128_ps(
+        _mm_cmplt_epi32(_mm_and_si128(_mm_castps_si128(v), abs_bits), inf_bits));
+    // minps(a, b) = a < b ? a : b: the loop's "replace only when lower" (and maxps alike).
+    lo4 = _mm_min_ps(_mm_or_ps(_mm_and_ps(finite, v), _mm_andnot_ps(finite, _mm_set1_ps(kInf))),
+                     lo4);
+    hi4 = _mm_max_ps(_mm_or_ps(_mm_and_ps(finite, v), _mm_andnot_ps(finite, _mm_set1_ps(-kInf))),
+                     hi4);
+  }
+  alignas(16) float los[4], his[4];
+  _mm_store_ps(los, lo4);
+  _mm_store_ps(his, hi4);
+  for (int u = 0; u < 4; ++u) {
+    lo = std::min(lo, los[u]);
+    hi = std::max(hi, his[u]);
+  }
+#endif
+  for (; k < n; ++k) {
+    if (!std::isfinite(z[k])) continue;
+    lo = std::min(lo, z[k]);
+    hi = std::max(hi, z[k]);
+  }
+  if (lo == 0.0f || hi == 0.0f) {
+    // The first zero in column-major order: the lowest column, then the lowest row.
+    std::size_t best_col = cols;
+    float first_zero = 0.0f;
+    for (std::size_t r = 0; r < rows; ++r) {
+      for (std::size_t c = 0; c < best_col; ++c) {
+        if (z[r * cols + c] == 0.0f) {
+          best_col = c;
+          first_zero = z[r * cols + c];
+          break;
+        }
+      }
+    }
+    if (lo == 0.0f) lo = first_zero;
+    if (hi == 0.0f) hi = first_zero;
+  }
+}
 
 }  // namespace
 
@@ -39,14 +99,11 @@ HeightImage render_height_image(const Heightfield& hf, const HeightImageOptions&
     out.lo_um = r.lo_um;
     out.hi_um = r.hi_um;
   } else {
-    double lo = std::numeric_limits<double>::infinity(), hi = -lo;
-    for (float v : hf.z_um.reshaped()) {
-      if (!std::isfinite(v)) continue;
-      lo = std::min(lo, double{v});
-      hi = std::max(hi, double{v});
-    }
-    out.lo_um = std::isfinite(lo) ? lo : 0.0;
-    out.hi_um = std::isfinite(hi) ? hi : 0.0;
+    float lo = 0.0f, hi = 0.0f;
+    finite_range(hf.z_um.data(), static_cast<std::size_t>(hf.z_um.rows()),
+                 static_cast<std::size_t>(hf.z_um.cols()), lo, hi);
+    out.lo_um = std::isfinite(lo) ? double{lo} : 0.0;
+    out.hi_um = std::isfinite(hi) ? double{hi} : 0.0;
   }
   out.um_per_level = (out.hi_um - out.lo_um) / kTopHeightLevel;
   if (options.range) {

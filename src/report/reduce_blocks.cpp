@@ -63,9 +63,10 @@ Pair load_pair(const double* p) {
 
 Pair load_pair(const float* p) {
 #if defined(__SSE2__)
-  // One cvtps2pd (GCC converts a float pair element by element).
+  // One cvtps2pd (GCC converts a float pair element by element); movq reads through a
+  // may_alias type.
   return reinterpret_cast<Pair>(
-      _mm_cvtps_pd(_mm_castpd_ps(_mm_load_sd(reinterpret_cast<const double*>(p)))));
+      _mm_cvtps_pd(_mm_castsi128_ps(_mm_loadl_epi64(reinterpret_cast<const __m128i*>(p)))));
 #else
   FloatPair v;
   std::memcpy(&v, p, sizeof v);

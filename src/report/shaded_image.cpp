@@ -76,13 +76,14 @@ void interior_brightness(const float* zm, const float* z, const float* zp, int n
                          double per_cell_to_slope, double ex, const LightVector& light, float* b) {
   int i = 1;
 #if defined(__SSE2__)
+  // Two floats widened to doubles (movq reads and writes through may_alias types).
   const auto two = [](const float* p) {
-    return _mm_cvtps_pd(_mm_castpd_ps(_mm_load_sd(reinterpret_cast<const double*>(p))));
+    return _mm_cvtps_pd(_mm_castsi128_ps(_mm_loadl_epi64(reinterpret_cast<const __m128i*>(p))));
   };
   for (; i + 2 < nx; i += 2) {
     const __m128 v = brightness_pair(two(z + i - 1), two(z + i + 1), two(zm + i), two(zp + i),
                                      per_cell_to_slope, ex, light);
-    _mm_store_sd(reinterpret_cast<double*>(b + i), _mm_castps_pd(v));
+    _mm_storel_epi64(reinterpret_cast<__m128i*>(b + i), _mm_castps_si128(v));
   }
 #endif
   for (; i + 1 < nx; ++i) {

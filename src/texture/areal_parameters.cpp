@@ -33,8 +33,9 @@ void sdr_row_pair(const float* a, const float* b, int nx, double k, double& sum,
                   std::int64_t& squares) {
   int i = 0;
 #if defined(__SSE2__)
+  // Two floats widened to doubles (movq reads through a may_alias type).
   const auto two = [](const float* p) {
-    return _mm_cvtps_pd(_mm_castpd_ps(_mm_load_sd(reinterpret_cast<const double*>(p))));
+    return _mm_cvtps_pd(_mm_castsi128_ps(_mm_loadl_epi64(reinterpret_cast<const __m128i*>(p))));
   };
   const __m128d kv = _mm_set1_pd(k), one = _mm_set1_pd(1.0);
   for (; i + 2 < nx; i += 2) {

@@ -2,6 +2,9 @@
 // range clamping, block downsampling, legend placement.
 #include "report/height_image.h"
 
+#include <cmath>
+#include <limits>
+
 #include "core/input_error.h"
 #include "report/legend.h"
 #include "test_support.h"
@@ -188,4 +191,44 @@ TEST_CASE("render_height_image: zoom draws each cell as zoom x zoom pixels; the 
   const std::string caption = height_image_caption(img, LengthUnit::Millimetre);
   INFO(caption);
   REQUIRE(caption.find("1 cell (0.01 mm) = 5 x 5 pixels.") != std::string::npos);
+}
+
+TEST_CASE("render_height_image: the auto range is the finite extremes, zeros' signs included",
+          "[report]") {
+  // The range is the lowest and highest finite height (NaN and infinities left out), taken in
+  // lanes; it must equal the plain loop lo = min(lo, v), hi = max(hi, v) over the grid in Eigen's
+  // reshaped() (column-major) order, which keeps the first of equal values: with +0 and -0 both
+  // lowest, the sign of the first in that order (derived).
+  const float inf = std::numeric_limits<float>::infinity();
+  for (const int nx : {1, 3, 4, 7, 33}) {
+    for (const int ny : {1, 2, 5}) {
+      Heightfield hf = field(nx, ny, [](int i, int j) { return 1.0 + 0.37 * i - 0.21 * j; });
+      hf.z_um(ny - 1, 0) = kUnreached;
+      if (nx * ny > 4) hf.z_um(0, nx - 1) = -inf;  // not finite: outside the range
+      double lo = inf, hi = -inf;
+      for (float v : hf.z_um.reshaped()) {
+        if (!std::isfinite(v)) continue;
+        lo = std::min(lo, double{v});
+        hi = std::max(hi, double{v});
+      }
+      const HeightImage img = render_height_image(hf, HeightImageOptions{});
+      CAPTURE(nx, ny);
+      REQUIRE(img.lo_um == (std::isfinite(lo) ? lo : 0.0));
+      REQUIRE(img.hi_um == (std::isfinite(hi) ? hi : 0.0));
+    }
+  }
+  // Zeros lowest: row-major order meets +0 first, column-major order -0 first.
+  Heightfield zeros = field(6, 3, [](int i, int j) { return 1.0 + i + j; });
+  zeros.z_um(0, 4) = 0.0f;   // row 0, column 4
+  zeros.z_um(2, 1) = -0.0f;  // row 2, column 1: first in column-major order
+  const HeightImage z = render_height_image(zeros, HeightImageOptions{});
+  REQUIRE(z.lo_um == 0.0);
+  REQUIRE(std::signbit(z.lo_um));
+  // Zeros highest: the same rule for the top of the range.
+  Heightfield below = field(6, 3, [](int i, int j) { return -1.0 - i - j; });
+  below.z_um(1, 2) = -0.0f;  // column 2
+  below.z_um(0, 3) = 0.0f;   // column 3: later in column-major order
+  const HeightImage b = render_height_image(below, HeightImageOptions{});
+  REQUIRE(b.hi_um == 0.0);
+  REQUIRE(std::signbit(b.hi_um));
 }
