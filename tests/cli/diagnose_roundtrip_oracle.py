@@ -235,4 +235,5 @@ def main():
         sys.exit(1)
 
 
-main()
+if __name__ == "__main__":  # tools/diagnose_campaign.py imports stylus_rows
+    main()
