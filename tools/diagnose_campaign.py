@@ -4,8 +4,8 @@
 tilt 0.005-0.15 deg toward any direction; 0-0.03 um noise, a setup plane, 0-3 % missing cells,
 5-20 um cells, some rows closed by an ISO 3274 stylus tip of 2, 5 or 10 um; one noise-free floor,
 one heel-lifted tooth-resolved floor) are simulated, damaged in numpy and diagnosed with the tool
-known; single stylus traces (two columns x mm, z um, as profilometers export) across and along
-the lay go through `diagnose` and `texture`. Every reading is judged against the truth: issue
+known; single stylus traces (two columns x mm, z um, as profilometers export, under a comment
+or a row of column names) across and along the lay go through `diagnose` and `texture`. Every reading is judged against the truth: issue
 17's tolerances (tilt within 10 % or 0.002 deg, direction within 10 deg, stepover within 1 %)
 and 3 of its own reported sigmas. Prints one markdown row per case (docs/diagnose.md keeps the
 table) and exits 1 when any case fails.
@@ -288,10 +288,14 @@ def run_trace(exe, rng, c, tmp):
     zt = zt + rng.normal(0.0, c["noise"], n) + c["plane"][0] * x
     zt[rng.random(n) < c["missing"]] = np.nan
     path = os.path.join(tmp, "trace%d.txt" % c["k"])
+    # Half the traces carry a '#' comment, half a row of column names with tabs, as
+    # profilometers write them.
+    tabbed = c["k"] % 2 == 1
     with open(path, "w") as f:
-        f.write("# x mm, z um (campaign trace %s the lay)\n" % c["trace"])
+        f.write("X [mm]\tZ [um]\n" if tabbed else "# x mm, z um (trace %s the lay)\n" % c["trace"])
         for xv, zv in zip(x, zt):
-            f.write("%.6f %s\n" % (xv, "nan" if np.isnan(zv) else "%.5f" % zv))
+            f.write("%.6f%s%s\n" % (xv, "\t" if tabbed else " ",
+                                    "nan" if np.isnan(zv) else "%.5f" % zv))
     fails = []
     r = subprocess.run([exe, "diagnose", path, "--stylus-tip", "%gum" % c["tip"], "--json"],
                        capture_output=True, text=True)
