@@ -34,28 +34,6 @@ _spec = importlib.util.spec_from_file_location(
 oracle = importlib.util.module_from_spec(_spec)
 _spec.loader.exec_module(oracle)
 
-JOB = """# Mould insert floor, random round trip (invented part).
-name = "campaign"
-units = "mm"
-[patch]
-size = [{size}, {size}]
-cell = {cell}
-[tool]
-shape = "{shape}"
-diameter = {d}
-teeth = {teeth}
-{tool_extra}
-[cut]
-rpm = 10000
-feed = {feed}
-[path]
-kind = "raster"
-stepover = {s}
-angle_deg = {lay}
-direction = "{direction}"
-[sim]
-tooth_marks = {tooth}
-"""
 
 CELLS = [0.005, 0.0075, 0.01, 0.015, 0.02]
 MAX_CELLS_PER_SIDE = 1500  # keeps a simulate run at a few seconds (common practice, no source)
@@ -124,10 +102,10 @@ def simulate(exe, c, tmp):
             c["rc"], c["tilt"], c["toward"])
     job = os.path.join(tmp, "job%d.toml" % c["k"])
     with open(job, "w") as f:
-        f.write(JOB.format(size=c["field"] + c["d"], cell=c["cell"], shape=c["shape"], d=c["d"],
-                           teeth=c["teeth"], tool_extra=extra, feed=c["feed"], s=c["s"],
-                           lay=c["lay"], direction=c["direction"],
-                           tooth="true" if c["tooth"] else "false"))
+        f.write(oracle.JOB.format(size=c["field"] + c["d"], cell=c["cell"], shape=c["shape"],
+                                  d=c["d"], teeth=c["teeth"], tool_extra=extra, feed=c["feed"],
+                                  s=c["s"], lay_deg=c["lay"], direction=c["direction"],
+                                  teeth_marks="true" if c["tooth"] else "false"))
     out = os.path.join(tmp, "sim%d" % c["k"])
     subprocess.run([exe, "simulate", job, "--out", out, "--threads", "2"], check=True,
                    stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
