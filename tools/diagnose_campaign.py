@@ -28,6 +28,7 @@ import tempfile
 
 import numpy as np
 
+sys.dont_write_bytecode = True  # no __pycache__ beside the oracle in tests/cli
 HERE = os.path.dirname(os.path.abspath(__file__))
 _spec = importlib.util.spec_from_file_location(
     "oracle", os.path.join(HERE, "..", "tests", "cli", "diagnose_roundtrip_oracle.py"))
@@ -147,6 +148,10 @@ def judge_floor(c, j, fails):
     if abs(so["value"] - s) > 3 * so["sigma"] + 1e-6:
         fails.append("stepover %.5f off by %.1f sigma" % (so["value"],
                                                           abs(so["value"] - s) / so["sigma"]))
+    # The surface-only estimate (autocorrelation of the band means) with its own sigma.
+    ss, ssig = j["stepover_mm"], j["stepover_sigma_mm"]
+    if abs(ss - s) > 0.01 * s or abs(ss - s) > 3 * ssig + 1e-6:
+        fails.append("surface stepover %.5f (sigma %.5f)" % (ss, ssig))
     lay_err = (j["lay_deg"] - c["lay"]) % 180.0
     if min(lay_err, 180.0 - lay_err) > 0.5:
         fails.append("lay %.3f" % j["lay_deg"])
