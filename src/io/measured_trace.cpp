@@ -7,6 +7,7 @@
 #include <algorithm>
 #include <cmath>
 #include <filesystem>
+#include <utility>
 
 #include "core/input_error.h"
 #include "core/units.h"
@@ -19,6 +20,18 @@ namespace {
 std::string_view data_part(std::string_view line) {
   while (!line.empty() && (line.front() == ' ' || line.front() == '\t')) line.remove_prefix(1);
   return line;
+}
+
+// A row of column names ("x_mm,z_um", "X [mm]<tab>Z [um]"), as profilometers write above their
+// data: no field reads as a number. Only the first data row may be one (a later one is an error
+// that names it); before this such a file was refused ("x 'x_mm' is not a finite number") or,
+// with spaces in the names, read as a grid ("4 values, expected 3 (X Y Z)").
+bool is_header_row(std::string_view line) {
+  for (const std::string_view field : split_fields(line)) {
+    double v = 0.0;
+    if (parse_height_value(field, v)) return false;
+  }
+  return true;
 }
 
 // Equally spaced heights from (x, z) rows, by linear interpolation between neighbours; a NaN
@@ -60,10 +73,11 @@ MeasuredTrace read_trace(const std::string& path, double x_mm_per_unit, double z
 }
 
 bool looks_like_trace(std::string_view text) {
-  bool any = false;
+  bool any = false, first = true;
   for (std::string_view line : split_lines(text)) {
     line = data_part(line);
     if (line.empty() || line.front() == '#') continue;
+    if (std::exchange(first, false) && is_header_row(line)) continue;
     if (split_fields(line).size() != 2) return false;
     any = true;
   }
@@ -74,9 +88,11 @@ MeasuredTrace decode_trace(std::string_view text, const std::string& name, doubl
                            double z_um_per_unit) {
   std::vector<double> x, z;
   const std::vector<std::string_view> lines = split_lines(text);
+  bool first = true;
   for (size_t l = 0; l < lines.size(); ++l) {
     const std::string_view line = data_part(lines[l]);
     if (line.empty() || line.front() == '#') continue;
+    if (std::exchange(first, false) && is_header_row(line)) continue;
     const std::string where = name + ":" + std::to_string(l + 1) + ": ";
     const std::vector<std::string_view> fields = split_fields(line);
     if (fields.size() != 2) {

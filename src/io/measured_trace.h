@@ -48,7 +48,8 @@ bool is_trace_file(const std::string& path, InputLayout layout);
 /// Reads `path` as a trace (see decode_trace).
 MeasuredTrace read_trace(const std::string& path, double x_mm_per_unit, double z_um_per_unit);
 
-/// True when `text` reads as a trace: every data row (not blank, not '#') holds exactly two
+/// True when `text` reads as a trace: every data row (not blank, not '#', a first row of
+/// column names, in which no field is a number, skipped) holds exactly two
 /// fields. This is the rule `texture` and `diagnose` apply to .csv/.txt/.xyz/.asc files.
 bool looks_like_trace(std::string_view text);
 

@@ -31,11 +31,11 @@ cell = {cell}
 [tool]
 shape = "{shape}"
 diameter = {d}
-teeth = 2
+teeth = {teeth}
 {tool_extra}
 [cut]
 rpm = 10000
-feed = 1000
+feed = {feed}
 [path]
 kind = "raster"
 stepover = {s}
@@ -139,7 +139,8 @@ def main():
                 direction = "one-way"
             job = os.path.join(tmp, "job%d.toml" % k)
             with open(job, "w") as f:
-                f.write(JOB.format(size=field + d, cell=cell, shape=shape, d=d, tool_extra=extra,
+                f.write(JOB.format(size=field + d, cell=cell, shape=shape, d=d, teeth=2, feed=1000,
+                                   tool_extra=extra,
                                    s=s, direction=direction, lay_deg=lay_deg,
                                    teeth_marks="true" if heel else "false"))
             out = os.path.join(tmp, "sim%d" % k)
@@ -235,4 +236,5 @@ def main():
         sys.exit(1)
 
 
-main()
+if __name__ == "__main__":  # tools/diagnose_campaign.py imports stylus_rows
+    main()

@@ -30,6 +30,22 @@ TEST_CASE("looks_like_trace: two numbers per data row, comments and blanks skipp
   CHECK_FALSE(looks_like_trace("# only a comment\n"));
 }
 
+TEST_CASE("issue_17: a first row of column names is skipped", "[io]") {
+  // Profilometers write column names above the data; with spaces in them ("X [mm]") the file
+  // was read as a grid ("4 values, expected 3 (X Y Z)"), with none it was refused (random round
+  // trips, tools/diagnose_campaign.py).
+  const std::string tab = "X [mm]\tZ [um]\n" + rows(20, 0.001, [](int i) { return 0.5 * i; }, "\t");
+  CHECK(looks_like_trace(tab));
+  CHECK(looks_like_trace("x_mm,z_um\n0,1\n0.1,2\n"));
+  CHECK_FALSE(looks_like_trace("x,y,z\n0,1,2\n0.1,2,3\n"));
+  const MeasuredTrace t = decode_trace(tab, "t.txt", 1.0, 1.0);
+  CHECK(t.points == 20);
+  REQUIRE_NEAR(t.runs[0].z_um[3], 1.5, 1e-9);  // derived: 0.5 um per row
+  // Only the first data row may name columns: a later word is still an error with its line.
+  CHECK_THROWS_WITH(decode_trace("x,z\n0,1\nabc,def\n", "bad.csv", 1.0, 1.0),
+                    "bad.csv:3: x 'abc' is not a finite number");
+}
+
 TEST_CASE("decode_trace: even steps keep every height, units scale x and z", "[io]") {
   const std::string text = rows(40, 0.002, [](int i) { return 0.001 * i; });
   const MeasuredTrace t = decode_trace(text, "t.csv", 25.4, 1000.0);  // x in inches, z in mm
