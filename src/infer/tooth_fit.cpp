@@ -223,6 +223,25 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   const ToothWindow w =
       tooth_window(hf, st.lay_deg, st.stepover_mm, rev, kToothFitRevolutions, kToothFitCells);
   f.samples = static_cast<int>(w.index.size());
+  f.runout_phase_period_deg = 360.0 / c.teeth;
+  // No marks, nothing to fit: the teeth cut alike whatever the runout (an undished, untilted
+  // flat). Decided before any sweep; the dish is bounded by the marks the window would show.
+  f.marks = tooth_marks(w, st.lay_deg, rev);
+  if (!f.marks.seen) {
+    const double depth_mm = f.marks.detection_rms_um / kCuspRmsPerDepth * 1e-3;
+    const double dish_bound_deg = std::atan(depth_mm / (0.5 * o.feed_per_tooth_mm)) / kDegToRad;
+    f.dish_deg = fitted_value(0.0, std::pow(dish_bound_deg / kBoundSigmas, 2), true);
+    f.runout_um = fitted_value(0.0, kUnbounded, true);
+    f.runout_phase_deg = fitted_value(0.0, kUnbounded, true);
+    f.runout_projection_only = c.teeth <= 2;
+    f.runout_not_read = true;
+    f.tilt_along_deg = fitted_value(st.tilt_along_deg, kUnbounded, true);
+    f.tilt_across_deg = fitted_value(st.tilt_across_deg, kUnbounded, true);
+    f.measured_rms_um = std::sqrt((w.values - w.q * (w.q.transpose() * w.values)).squaredNorm() /
+                                  std::max<double>(1.0, static_cast<double>(f.samples)));
+    f.ran = true;
+    return f;
+  }
   ToothModel model;
   model.cutter = c;
   model.cutter.tilt_deg = 0.0;

@@ -233,8 +233,13 @@ TEST_CASE("fit_teeth: an undished, untilted flat shows no runout", "[infer][toot
   const ToothFit f = fit_teeth(hf, s, case_options(job));
   REQUIRE(f.ran);
   CAPTURE(f.runout_um.value, f.runout_um.sigma, f.dish_deg.value, f.dish_deg.sigma);
-  // The flat bottom cuts the floor level whatever the runout (derived: no dish, no tilt).
+  // The flat bottom cuts the floor level whatever the runout (derived: no dish, no tilt): the
+  // window shows no marks (Fisher's F test, infer/tooth_marks) and the stage stops before any
+  // sweep (it ran the whole runout scan before: ~2 min of CI).
+  REQUIRE_FALSE(f.marks.seen);
+  REQUIRE(f.sweeps == 0);
   REQUIRE_FALSE(f.runout_um.resolved);
+  REQUIRE_FALSE(f.dish_deg.resolved);
   const ToothVerdict v = tooth_verdict(f);
   REQUIRE(v.lines.empty());
   REQUIRE(v.cannot_tell.size() == 1);
