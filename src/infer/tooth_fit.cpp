@@ -391,6 +391,10 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
                                                     std::tan(marks_dish * kDegToRad)),
                                      2));
     psi_var = std::max(psi_var, kPhaseModelSigmaDeg * kPhaseModelSigmaDeg);
+    // Every solved start stopped in one basin: no other phase was compared, and the phase is
+    // known only to the basin's width (measured: the zigzag round trip, 1.5 deg, 8 um at 75
+    // deg, stopped 26 deg off with its sigma at the 5 deg floor; docs/diagnose.md).
+    if (!std::isfinite(other_basin)) psi_var = std::max(psi_var, kBasinDeg * kBasinDeg);
     f.runout_not_read = !bounded || !(f.runout_basin_sigmas > kSignSigmas * kSignSigmas);
     f.runout_um = fitted_value(e, f.runout_not_read ? kUnbounded : e_var, true);
     f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period,
