@@ -79,6 +79,15 @@ double dish_start_deg(const ToothWindow& w, double lay_deg, double fz_mm) {
   return std::clamp(d, kDishStartMin, kDishStartMax);
 }
 
+// The dish the marks' depth alone gives (no model, no runout): between two rim arcs fz apart
+// the floor rises to (fz / 2) tan(dish) (derived), the rms of what repeats each revolution
+// (infer/tooth_marks: noise and the setup plane not counted) ~0.298 of it. Measured 1.025 deg
+// for 1 deg on the noise-free round trip (runout 5 um).
+double marks_dish_deg(const ToothMarks& marks, double fz_mm) {
+  const double depth_mm = marks.marks_rms_um / kCuspRmsPerDepth * 1e-3;
+  return std::atan(depth_mm / (0.5 * fz_mm)) / kDegToRad;
+}
+
 // One candidate of the pass pattern, fitted without runout: shifts searched, then solved.
 std::unique_ptr<ToothProblem> stage_one(const ToothWindow& w, ToothModel model, int parity,
                                         RasterDirection dir, const ToothState& start,
@@ -223,6 +232,25 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   const ToothWindow w =
       tooth_window(hf, st.lay_deg, st.stepover_mm, rev, kToothFitRevolutions, kToothFitCells);
   f.samples = static_cast<int>(w.index.size());
+  f.runout_phase_period_deg = 360.0 / c.teeth;
+  // No marks, nothing to fit: the teeth cut alike whatever the runout (an undished, untilted
+  // flat). Decided before any sweep; the dish is bounded by the marks the window would show.
+  f.marks = tooth_marks(w, st.lay_deg, rev);
+  if (!f.marks.seen) {
+    const double depth_mm = f.marks.detection_rms_um / kCuspRmsPerDepth * 1e-3;
+    const double dish_bound_deg = std::atan(depth_mm / (0.5 * o.feed_per_tooth_mm)) / kDegToRad;
+    f.dish_deg = fitted_value(0.0, std::pow(dish_bound_deg / kBoundSigmas, 2), true);
+    f.runout_um = fitted_value(0.0, kUnbounded, true);
+    f.runout_phase_deg = fitted_value(0.0, kUnbounded, true);
+    f.runout_projection_only = c.teeth <= 2;
+    f.runout_not_read = true;
+    f.tilt_along_deg = fitted_value(st.tilt_along_deg, kUnbounded, true);
+    f.tilt_across_deg = fitted_value(st.tilt_across_deg, kUnbounded, true);
+    f.measured_rms_um = std::sqrt((w.values - w.q * (w.q.transpose() * w.values)).squaredNorm() /
+                                  std::max<double>(1.0, static_cast<double>(f.samples)));
+    f.ran = true;
+    return f;
+  }
   ToothModel model;
   model.cutter = c;
   model.cutter.tilt_deg = 0.0;
@@ -315,6 +343,7 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   f.runout_phase_period_deg = 360.0 / c.teeth;
   const double period = f.runout_phase_period_deg;
   const double ec = g[kRunoutCos], es = g[kRunoutSin], e = std::hypot(ec, es);
+  const double marks_dish = marks_dish_deg(f.marks, o.feed_per_tooth_mm);
   const double psi = std::atan2(es, ec) / kDegToRad;
   // Phase difference modulo the period, deg (the nearest image).
   auto phase_off = [&](const ToothState& t) {
@@ -355,7 +384,17 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
         })
                            : kUnbounded;
     e_var = std::max(e_var, std::pow(kRunoutModelSigma * e, 2));
+    // Along the dish-runout valley e tan(dish) is kept (a tooth e further out deepens its mark
+    // by ~(e / 2) tan(dish), derived): at the marks' dish the runout would be e tan(dish) /
+    // tan(marks' dish); the difference is in its sigma (see the dish below).
+    e_var = std::max(e_var, std::pow(e * (1.0 - std::tan(g[kDish] * kDegToRad) /
+                                                    std::tan(marks_dish * kDegToRad)),
+                                     2));
     psi_var = std::max(psi_var, kPhaseModelSigmaDeg * kPhaseModelSigmaDeg);
+    // Every solved start stopped in one basin: no other phase was compared, and the phase is
+    // known only to the basin's width (measured: the zigzag round trip, 1.5 deg, 8 um at 75
+    // deg, stopped 26 deg off with its sigma at the 5 deg floor; docs/diagnose.md).
+    if (!std::isfinite(other_basin)) psi_var = std::max(psi_var, kBasinDeg * kBasinDeg);
     f.runout_not_read = !bounded || !(f.runout_basin_sigmas > kSignSigmas * kSignSigmas);
     f.runout_um = fitted_value(e, f.runout_not_read ? kUnbounded : e_var, true);
     f.runout_phase_deg = fitted_value(psi - std::floor(psi / period) * period,
@@ -363,9 +402,13 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
     // A phase is resolved when its sigma is bounded (a value near 0 deg is as good as any).
     f.runout_phase_deg.resolved = !f.runout_not_read;
   }
+  // Two estimators of the dish, the fit's and the marks' depth: where the fit stopped away from
+  // the marks' dish along the valley (noise-free round trip: 0.45 deg against 1.03, truth 1),
+  // their difference is its sigma: a wide sigma, never a confident wrong dish.
   f.dish_deg = fitted_value(f.dish_deg.value,
-                            std::max(f.dish_deg.sigma * f.dish_deg.sigma,
-                                     std::pow(kDishModelSigma * f.dish_deg.value, 2)),
+                            std::max({f.dish_deg.sigma * f.dish_deg.sigma,
+                                      std::pow(kDishModelSigma * f.dish_deg.value, 2),
+                                      std::pow(f.dish_deg.value - marks_dish, 2)}),
                             true);
   const double other = best_cost[1 - win], mine = best_cost[win];
   f.along_sign_cost_sigmas = (other - mine) / var;

@@ -13,6 +13,7 @@
 #include "core/heightfield.h"
 #include "infer/fit_uncertainty.h"
 #include "infer/floor_fit.h"
+#include "infer/tooth_marks.h"
 #include "path/path_spec.h"
 #include "tool/cutter.h"
 
@@ -81,6 +82,9 @@ struct ToothFit {
   bool marks_misfit = false;     ///< marks seen but smoothed_residual_ratio above
                                  ///< kToothFitMaxResidualRatio: runout, phase, dish and the
                                  ///< along-feed sign are then not resolved (no value given)
+  ToothMarks marks;              ///< the window's feed marks before any sweep: when not seen
+                                 ///< the stage stops there (no sweep; an undished, untilted
+                                 ///< flat), dish bounded by the marks' detection limit
   int samples = 0;               ///< finite samples in the window
   int passes = 0;                ///< passes that cut the window
   int sweeps = 0;                ///< one-pass sweeps run

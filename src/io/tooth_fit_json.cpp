@@ -51,6 +51,9 @@ void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit) {
   j["marks_misfit"] = t.marks_misfit;
   j["runout_not_read"] = t.runout_not_read;
   j["runout_basin_sigmas"] = t.runout_basin_sigmas;
+  j["marks_seen"] = t.marks.seen;
+  j["marks_rms_um"] = t.marks.marks_rms_um;
+  j["marks_variance_ratio"] = t.marks.variance_ratio;
   j["samples"] = t.samples;
   j["passes"] = t.passes;
   j["sweeps"] = t.sweeps;
