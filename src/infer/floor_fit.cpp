@@ -122,7 +122,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       meas[static_cast<int>(k)] = w.measured.z_um(w.index[k] / w.measured.nx, w.index[k] % w.measured.nx);
     }
     const double scale = residual_rms(meas - w.q * (w.q.transpose() * meas));
-    res.prior_weight = scale / std::max(e.stepover.sigma_mm, 1e-6 * stepover);
+    res.prior_weight = scale / std::max(e.stepover_prior_sigma_mm, 1e-6 * stepover);
   }
   for (int k = 0; k < kFitParams; ++k) {
     if (fit.free[static_cast<size_t>(k)]) res.free_index.push_back(k);
@@ -211,7 +211,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       for (int i = 0; i < trial.inputs(); ++i) xb[i] = best_x[trial.free_index[static_cast<size_t>(i)]];
       trial(xb, fb);
       res.prior_weight = std::min(res.prior_weight, residual_rms(fb.head(trial.samples())) /
-                                                        std::max(e.stepover.sigma_mm, 1e-6 * stepover));
+                                                        std::max(e.stepover_prior_sigma_mm, 1e-6 * stepover));
       trial.prior_weight = res.prior_weight;
       trial(xb, fb);
       best_cost = fb.squaredNorm();

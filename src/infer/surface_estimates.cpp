@@ -56,6 +56,11 @@ constexpr double kMinTraceSupport = 0.5;
 // cells, the box, a saw-tooth profile): the period's standard error is at least this over the
 // repeats (derived; measured 0.16 cell over 3 repeats on a tilted flat's 60-cell period).
 constexpr double kBandPeakBiasSamples = 0.5;
+// The reported stepover's floor is wider: on short random round trips (4-6 periods, noise, 2-3 %
+// missing) the band means' period leaned by up to 1.1 samples over the repeats per 3 sigma
+// (measured, docs/diagnose.md second campaign: rs1 0.7 %, rs5 0.6 %, rs10 0.2 % at 3-6.7 of
+// the 0.5-sample sigmas). The fit's prior keeps the 0.5-sample sigma it was validated with.
+constexpr double kReportedPeakBiasSamples = 1.5;
 // Heights within this of their plane everywhere: a floor with nothing to read (float um
 // rounding of a level floor; derived).
 constexpr float kFlatFloorUm = 1e-4f;
@@ -250,14 +255,16 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
         e.stepover = traces;
       }
     }
-    e.stepover.sigma_mm = std::max(e.stepover.sigma_mm, kBandPeakBiasSamples *
-                                                            bands.spacing_mm /
-                                                            std::max(1, e.stepover.repeats));
+    const double per_sample_mm = bands.spacing_mm / std::max(1, e.stepover.repeats);
+    e.stepover_prior_sigma_mm =
+        std::max(e.stepover.sigma_mm, kBandPeakBiasSamples * per_sample_mm);
+    e.stepover.sigma_mm = std::max(e.stepover.sigma_mm, kReportedPeakBiasSamples * per_sample_mm);
     span_mm = nb * bands.spacing_mm;
   }
   // Without a repeat in the band means, the traces' mean ACF (its first clear repeat).
   if (!e.stepover.found) {
     e.stepover = repeat_period(mean_autocorrelation(across, static_cast<int>(longest / 2)), dx);
+    e.stepover_prior_sigma_mm = e.stepover.sigma_mm;
   }
   if (!e.stepover.found) {
     throw InputError("no across-lay period: traces across the lay (" + format_number(span_mm) +

@@ -58,6 +58,8 @@ struct SurfaceEstimates {
   double lay_pass_share = 0.0;         ///< share of the variance the band means along the
                                        ///< lay carry (band_means: the passes' profile)
   RepeatPeriod stepover;               ///< across-lay period (stepover) and its standard error
+  double stepover_prior_sigma_mm = 0.0;  ///< the sigma the envelope fit weighs this stepover
+                                         ///< with as a prior (narrower than the reported one)
   CuspShape cusp;                      ///< folded cusp, effective radius
   double valley_mm = 0.0;              ///< across position of a cusp valley from the field centre
   FeedMarks feed;                      ///< along-lay repeats
