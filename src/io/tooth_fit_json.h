@@ -15,7 +15,9 @@ namespace cuspmap {
 /// stage ran) and tooth_fit{ran, skipped?, teeth, feed_per_tooth_mm, runout_um{...},
 /// runout_phase_deg{...}, dish_deg{...}, tilt_along_deg{...}, tilt_across_deg{...},
 /// along_sign_known, along_sign_cost_sigmas, residual_rms_um, measured_rms_um,
-/// correlation_factor, samples, passes, sweeps}; objects {value, sigma, fitted, resolved, bound}
+/// correlation_factor, samples, passes, sweeps, smoothed_residual_ratio, marks_misfit,
+/// runout_not_read, runout_basin_sigmas, marks_seen, marks_rms_um, marks_variance_ratio};
+/// objects {value, sigma, fitted, resolved, bound}
 /// as the envelope stage's (sigma/bound left out when infinite).
 void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit);
 
