@@ -8,25 +8,14 @@
 
 #include "infer/cusp_shape.h"
 #include "infer/repeat_period.h"
+#include "texture/bridge_trace_gaps.h"
 #include "texture/extract_profiles.h"
 
 namespace cuspmap {
 
-/// Longest dropout (missing points in a row) a trace's estimates bridge by linear interpolation;
-/// longer gaps keep the runs apart (common practice, no source: instrument software interpolates
-/// dropouts; a chord over 4 samples is a quarter of the shortest run a trace may hold,
-/// kMinTracePoints, and each filled sample is one of the many a fold bin averages).
-inline constexpr int kMaxBridgedTracePoints = 4;
-
 /// Least standard error of a trace's repeat, in samples over its repeats: the band means' floor
 /// (docs/diagnose.md), measured on traces of a few periods (trace_estimates.cpp).
 inline constexpr double kTracePeakSamples = 0.5;
-
-/// Joins runs separated by at most `max_gap_points` missing samples, filling the gap linearly.
-/// @param[in] runs  finite runs of one spacing, in order along the trace (start_mm increasing)
-/// @return the runs with short gaps filled (a run's start_mm kept)
-std::vector<ProfileTrace> bridge_trace_gaps(const std::vector<ProfileTrace>& runs,
-                                            int max_gap_points);
 
 /// Estimates from one trace.
 struct TraceEstimates {

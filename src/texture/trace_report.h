@@ -19,7 +19,9 @@ struct TraceReport {
   std::vector<std::string> warnings;  ///< one line each
 };
 
-/// Evaluates a trace. Runs shorter than two of the shortest cut-offs are left out.
+/// Evaluates a trace. Runs apart by at most kMaxBridgedTracePoints missing points are first
+/// joined by straight lines (texture/bridge_trace_gaps.h, with a warning); runs still shorter
+/// than two of the shortest cut-offs are left out.
 /// @param[in] runs     finite runs of one spacing (e.g. a trace split at missing points)
 /// @param[in] options  cut-off, lambda-s and stylus tip (directions and areal filters unused)
 /// @throws InputError when no run is two cut-offs long (naming the longest and the need)
