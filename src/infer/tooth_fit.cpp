@@ -56,6 +56,15 @@ constexpr int kScanStarts = 3;
 // of each other on the round trips, measured).
 constexpr double kBasinDeg = 15.0;
 
+// The dish a marks rms gives (no model, no runout): between two rim arcs fz apart
+// the floor rises to (fz / 2) tan(dish) (derived), the rms of what repeats each revolution
+// (infer/tooth_marks: noise and the setup plane not counted) ~0.298 of it. Measured 1.025 deg
+// for 1 deg on the noise-free round trip (runout 5 um).
+double marks_dish_deg(double marks_rms_um, double fz_mm) {
+  const double depth_mm = marks_rms_um / kCuspRmsPerDepth * 1e-3;
+  return std::atan(depth_mm / (0.5 * fz_mm)) / kDegToRad;
+}
+
 // Dish start from the marks' depth: between two rim arcs fz apart the floor rises to
 // (fz / 2) tan(dish) (derived), and the along-lay rms of each window line is ~0.298 of it.
 double dish_start_deg(const ToothWindow& w, double lay_deg, double fz_mm) {
@@ -74,18 +83,7 @@ double dish_start_deg(const ToothWindow& w, double lay_deg, double fz_mm) {
     if (k > 1) ss += sq - sum * sum / k, n += k;
   }
   const double rms_um = n > 0 ? std::sqrt(ss / static_cast<double>(n)) : 0.0;
-  const double depth_mm = rms_um / kCuspRmsPerDepth * 1e-3;
-  const double d = std::atan(depth_mm / (0.5 * fz_mm)) / kDegToRad;
-  return std::clamp(d, kDishStartMin, kDishStartMax);
-}
-
-// The dish the marks' depth alone gives (no model, no runout): between two rim arcs fz apart
-// the floor rises to (fz / 2) tan(dish) (derived), the rms of what repeats each revolution
-// (infer/tooth_marks: noise and the setup plane not counted) ~0.298 of it. Measured 1.025 deg
-// for 1 deg on the noise-free round trip (runout 5 um).
-double marks_dish_deg(const ToothMarks& marks, double fz_mm) {
-  const double depth_mm = marks.marks_rms_um / kCuspRmsPerDepth * 1e-3;
-  return std::atan(depth_mm / (0.5 * fz_mm)) / kDegToRad;
+  return std::clamp(marks_dish_deg(rms_um, fz_mm), kDishStartMin, kDishStartMax);
 }
 
 // One candidate of the pass pattern, fitted without runout: shifts searched, then solved.
@@ -237,8 +235,7 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   // flat). Decided before any sweep; the dish is bounded by the marks the window would show.
   f.marks = tooth_marks(w, st.lay_deg, rev);
   if (!f.marks.seen) {
-    const double depth_mm = f.marks.detection_rms_um / kCuspRmsPerDepth * 1e-3;
-    const double dish_bound_deg = std::atan(depth_mm / (0.5 * o.feed_per_tooth_mm)) / kDegToRad;
+    const double dish_bound_deg = marks_dish_deg(f.marks.detection_rms_um, o.feed_per_tooth_mm);
     f.dish_deg = fitted_value(0.0, std::pow(dish_bound_deg / kBoundSigmas, 2), true);
     f.runout_um = fitted_value(0.0, kUnbounded, true);
     f.runout_phase_deg = fitted_value(0.0, kUnbounded, true);
@@ -340,10 +337,9 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   f.dish_deg = fitted_value(g[kDish], cov(id, id) + global(kDish), true);
   f.tilt_along_deg = fitted_value(g[kTiltAlong], cov(ia, ia) + global(kTiltAlong), true);
   f.tilt_across_deg = fitted_value(g[kTiltAcross], cov(ix, ix) + global(kTiltAcross), true);
-  f.runout_phase_period_deg = 360.0 / c.teeth;
   const double period = f.runout_phase_period_deg;
   const double ec = g[kRunoutCos], es = g[kRunoutSin], e = std::hypot(ec, es);
-  const double marks_dish = marks_dish_deg(f.marks, o.feed_per_tooth_mm);
+  const double marks_dish = marks_dish_deg(f.marks.marks_rms_um, o.feed_per_tooth_mm);
   const double psi = std::atan2(es, ec) / kDegToRad;
   // Phase difference modulo the period, deg (the nearest image).
   auto phase_off = [&](const ToothState& t) {
