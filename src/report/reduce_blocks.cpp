@@ -12,6 +12,7 @@
 #include <limits>
 #include <vector>
 
+#include "core/widen_floats.h"
 #include "report/finite_row.h"
 
 #if defined(__SSE2__)
@@ -63,10 +64,8 @@ Pair load_pair(const double* p) {
 
 Pair load_pair(const float* p) {
 #if defined(__SSE2__)
-  // One cvtps2pd (GCC converts a float pair element by element); movq reads through a
-  // may_alias type.
-  return reinterpret_cast<Pair>(
-      _mm_cvtps_pd(_mm_castsi128_ps(_mm_loadl_epi64(reinterpret_cast<const __m128i*>(p)))));
+  // One cvtps2pd (GCC converts a float pair element by element).
+  return reinterpret_cast<Pair>(widen_two_floats(p));
 #else
   FloatPair v;
   std::memcpy(&v, p, sizeof v);

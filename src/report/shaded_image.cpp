@@ -13,6 +13,7 @@
 #include "core/large_buffer.h"
 #include "core/parallel_blocks.h"
 #include "core/units.h"
+#include "core/widen_floats.h"
 #include "report/legend.h"
 #include "report/nice_ticks.h"
 #include "report/finite_row.h"
@@ -76,10 +77,7 @@ void interior_brightness(const float* zm, const float* z, const float* zp, int n
                          double per_cell_to_slope, double ex, const LightVector& light, float* b) {
   int i = 1;
 #if defined(__SSE2__)
-  // Two floats widened to doubles (movq reads and writes through may_alias types).
-  const auto two = [](const float* p) {
-    return _mm_cvtps_pd(_mm_castsi128_ps(_mm_loadl_epi64(reinterpret_cast<const __m128i*>(p))));
-  };
+  const auto two = [](const float* p) { return widen_two_floats(p); };
   for (; i + 2 < nx; i += 2) {
     const __m128 v = brightness_pair(two(z + i - 1), two(z + i + 1), two(zm + i), two(zp + i),
                                      per_cell_to_slope, ex, light);

@@ -11,6 +11,7 @@
 
 #include "core/parallel_blocks.h"
 #include "core/units.h"
+#include "core/widen_floats.h"
 #include "texture/areal_moments.h"
 
 #if defined(__SSE2__)
@@ -33,10 +34,7 @@ void sdr_row_pair(const float* a, const float* b, int nx, double k, double& sum,
                   std::int64_t& squares) {
   int i = 0;
 #if defined(__SSE2__)
-  // Two floats widened to doubles (movq reads through a may_alias type).
-  const auto two = [](const float* p) {
-    return _mm_cvtps_pd(_mm_castsi128_ps(_mm_loadl_epi64(reinterpret_cast<const __m128i*>(p))));
-  };
+  const auto two = [](const float* p) { return widen_two_floats(p); };
   const __m128d kv = _mm_set1_pd(k), one = _mm_set1_pd(1.0);
   for (; i + 2 < nx; i += 2) {
     const __m128d z00 = two(a + i), z10 = two(a + i + 1);
