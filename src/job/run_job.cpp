@@ -7,6 +7,7 @@
 #include <future>
 #include <limits>
 #include <string>
+#include <utility>
 
 #include "core/input_error.h"
 #include "core/stage_timer.h"
@@ -20,6 +21,13 @@
 
 namespace cuspmap {
 namespace {
+
+// A single straight groove's texture figures are its cross-section's: said beside them.
+void add_single_groove_note(JobRun& run) {
+  if (std::string n = single_groove_note(run.built.path); !n.empty()) {
+    run.texture.warnings.push_back(std::move(n));
+  }
+}
 
 // Texture options with the lay of built-in lanes (the pass direction); others are detected.
 TextureOptions lay_options(const Job& job, const RunOptions& options) {
@@ -116,6 +124,7 @@ void run_streamed(const Job& job, const CutSpec& cut, const SimSpec& sim,
   run.highest_point_um = texture.max_um();
   run.lowest_point_um = texture.min_um();
   run.texture = texture.report();
+  add_single_groove_note(run);
   set_cusp(run.centre_traces[0], run);
   run.texture_s = timer.lap();
 }
@@ -198,6 +207,7 @@ JobRun run_job(const Job& job, const RunOptions& options) {
     profile_done = [&](const ProfileReport& p) { options.beside_profile(run.floor, p); };
   }
   run.texture = texture_report(run.floor, texture, profile_done);
+  add_single_groove_note(run);
   set_cusp(extract_profiles(run.floor, run.texture.areal.spatial.lay_deg + 90.0,
                             texture.max_traces, 0.0),
            run);

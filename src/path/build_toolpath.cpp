@@ -4,6 +4,8 @@
 #include "path/build_toolpath.h"
 
 #include <cassert>
+#include <cmath>
+#include <vector>
 
 #include "path/gcode_reader.h"
 #include "path/offset_path.h"
@@ -43,6 +45,38 @@ std::string margin_passes_note(const BuiltPath& built) {
          " passes added on each side across the lay: the cutter's lowest point is off its axis "
          "(tilt, dish or runout), so passes beyond the patch cut its edge cells; simulated as "
          "inside a larger floor, not counted in path length or cycle time";
+}
+
+std::string single_groove_note(const Toolpath& path) {
+  // Derived: a point set is collinear when every point lies within tol of the line through its
+  // two farthest-apart points (their span is the set's diameter, found here as the farthest
+  // point from the first and then the farthest from that one).
+  constexpr double kTolMm = 1e-3;  // passes closer than 1 um leave one groove (derived)
+  std::vector<Eigen::Vector2d> xy;
+  for (const Move& m : path.moves) {
+    if (m.rapid) continue;
+    if (m.kind == MoveKind::Arc) return {};
+    xy.push_back(m.start_mm.head<2>());
+    xy.push_back(m.end_mm.head<2>());
+  }
+  if (xy.empty()) return {};
+  const auto farthest = [&xy](const Eigen::Vector2d& from) {
+    Eigen::Vector2d best = from;
+    for (const Eigen::Vector2d& p : xy) {
+      if ((p - from).squaredNorm() > (best - from).squaredNorm()) best = p;
+    }
+    return best;
+  };
+  const Eigen::Vector2d a = farthest(xy.front()), b = farthest(a);
+  const double span = (b - a).norm();
+  if (span <= kTolMm) return {};
+  const Eigen::Vector2d u = (b - a) / span;
+  for (const Eigen::Vector2d& p : xy) {
+    const Eigen::Vector2d d = p - a;
+    if (std::abs(d.x() * u.y() - d.y() * u.x()) > kTolMm) return {};
+  }
+  return "one straight pass: Ra, Rz and Sa describe a single groove's cross-section, not the "
+         "finish neighbouring passes leave (a stepover narrower than the tool gives that)";
 }
 
 const Toolpath& program_moves(const BuiltPath& built) {

@@ -34,6 +34,11 @@ struct BuiltPath {
   Toolpath program;
 };
 
+/// One line saying that the path cuts a single straight groove (every feed move's XY ends within
+/// 1 um of one line; no arcs), so the texture figures describe that groove's cross-section, not a
+/// finish left by neighbouring passes; empty otherwise.
+std::string single_groove_note(const Toolpath& path);
+
 /// The moves a shop runs: `program` when margin passes were added, else `path`.
 const Toolpath& program_moves(const BuiltPath& built);
 

@@ -72,4 +72,53 @@ TEST_CASE("read_gcode_file: the example bracket pocket program", "[path]") {
   REQUIRE_NEAR(p.size_y_mm, 14.0, 1e-12);
 }
 
+namespace {
+Move feed_line(double x0, double y0, double x1, double y1) {
+  Move m;
+  m.start_mm = {x0, y0, 0.0};
+  m.end_mm = {x1, y1, 0.0};
+  m.feed_mm_per_min = 500.0;
+  return m;
+}
+}  // namespace
+
+// Collinearity by distance from the line through the farthest pair (derived, see the function).
+TEST_CASE("single_groove_note: one straight groove only", "[path]") {
+  Toolpath one;
+  Move plunge = feed_line(1.0, 1.0, 1.0, 1.0);
+  plunge.start_mm.z() = 2.0;  // straight down: no spread in XY
+  Move rapid = feed_line(9.0, 9.0, 1.0, 1.0);
+  rapid.rapid = true;  // rapids cut nothing the note counts
+  one.moves = {rapid, plunge, feed_line(1.0, 1.0, 4.0, 5.0), feed_line(4.0, 5.0, 7.0, 9.0)};
+  CHECK_FALSE(single_groove_note(one).empty());
+
+  Toolpath two = one;  // a second pass 0.5 mm to the side (off the line by 0.4 mm)
+  two.moves.push_back(feed_line(1.4, 0.7, 7.4, 8.7));
+  CHECK(single_groove_note(two).empty());
+
+  Toolpath arc = one;
+  arc.moves[2].kind = MoveKind::Arc;
+  CHECK(single_groove_note(arc).empty());
+
+  Toolpath only_rapids;
+  only_rapids.moves = {rapid};
+  CHECK(single_groove_note(only_rapids).empty());
+  CHECK(single_groove_note(Toolpath{}).empty());
+}
+
+TEST_CASE("single_groove_note: a one-line program is one groove, a raster is not", "[path]") {
+  test::TempDir dir;
+  test::write_text(dir.file("one.nc"), "G21 G90 M3 S10000\nG0 X-4 Y2.5 Z5\nG1 Z0 F300\nG1 X9 F600\nG0 Z5\n");
+  PathSpec spec;
+  spec.kind = PathKind::Gcode;
+  spec.file = dir.file("one.nc");
+  const BuiltPath one = build_toolpath(spec, CutSpec{}, test::test_patch(), test::test_ball());
+  CHECK_FALSE(single_groove_note(one.path).empty());
+  spec = PathSpec{};
+  spec.kind = PathKind::Raster;
+  spec.stepover_mm = 0.5;
+  const BuiltPath many = build_toolpath(spec, CutSpec{}, test::test_patch(), test::test_ball());
+  CHECK(single_groove_note(many.path).empty());
+}
+
 }  // namespace cuspmap
