@@ -6,6 +6,8 @@
 #include <Eigen/Dense>
 #include <algorithm>
 #include <cmath>
+#include <utility>
+#include <vector>
 
 #include "core/units.h"
 #include "texture/remove_least_squares_line.h"
@@ -26,7 +28,9 @@ CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, 
   const int bins = std::max(4, static_cast<int>(std::lround(period_mm / dx)));
   c.bin_mm = period_mm / bins;
   std::vector<double> sum(bins, 0.0), count(bins, 0.0);
-  std::vector<std::vector<double>> values(bins);
+  // Each bin's samples as (height, phase): the valley is fitted at the phases of the samples
+  // it keeps, not at the bin centres (see below).
+  std::vector<std::vector<std::pair<double, double>>> values(bins);
   std::vector<double> z;
   for (const ProfileTrace& t : traces) {
     z = t.z_um;
@@ -39,7 +43,7 @@ CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, 
       const int b = std::min(bins - 1, static_cast<int>(phase / c.bin_mm));
       sum[b] += z[i];
       count[b] += 1.0;
-      values[b].push_back(z[i]);
+      values[b].emplace_back(z[i], phase);
     }
   }
   std::vector<double> mean(bins, 0.0);
@@ -51,23 +55,32 @@ CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, 
   c.cusp_um = *std::max_element(mean.begin(), mean.end()) - mean[low];
   // The valley's shape is the cutter's where the marks along the lay are deepest: a low quantile
   // per bin follows the tool's swept circle under the feed marks (their bottoms lie on it).
-  std::vector<double> low_q(bins, 0.0);
+  // The quantile's sample keeps its own phase: a bin's samples lie anywhere across its width,
+  // and its lowest ones are those nearest the valley, so placing them at the bin centre reads
+  // (|u| - bin / 2)^2 for u^2, a valley flatter by up to 1.875 (bin / 2) / window (derived:
+  // regression of |u| on u^2 over |u| <= w, 15 / 16w); a 4.7 mm ball's trace read 4.96 mm
+  // (random round trips, tools/diagnose_campaign.py seed 2028 rs17).
+  std::vector<std::pair<double, double>> low_q(bins, {0.0, 0.0});  // (height, phase)
   for (int b = 0; b < bins; ++b) {
-    std::vector<double>& v = values[(low + b) % bins];
-    if (v.empty()) continue;
+    std::vector<std::pair<double, double>>& v = values[b];
+    if (v.empty()) {
+      low_q[b] = {0.0, (b + 0.5) * c.bin_mm};
+      continue;
+    }
     const size_t k = static_cast<size_t>(kValleyQuantile * static_cast<double>(v.size() - 1));
     std::nth_element(v.begin(), v.begin() + static_cast<std::ptrdiff_t>(k), v.end());
     low_q[b] = v[k];
   }
-  // Parabola over the valley window, positions u from the lowest bin (mm), heights in mm.
+  // Parabola over the valley window, positions u from the lowest bin's centre (mm), heights mm.
   const int half = std::max(2, static_cast<int>(kValleyWindow * bins));
   const int m = 2 * half + 1;
   Eigen::MatrixXd a(m, 3);
   Eigen::VectorXd h(m);
   for (int k = -half; k <= half; ++k) {
-    const double u = k * c.bin_mm;
+    const int b = (((low + k) % bins) + bins) % bins;
+    const double u = k * c.bin_mm + (low_q[b].second - (b + 0.5) * c.bin_mm);
     a.row(k + half) << 1.0, u, u * u;
-    h(k + half) = low_q[((k % bins) + bins) % bins] / kUmPerMm;
+    h(k + half) = low_q[b].first / kUmPerMm;
   }
   const Eigen::Vector3d coef = a.colPivHouseholderQr().solve(h);
   if (coef(2) <= 0.0) return c;

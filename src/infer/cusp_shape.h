@@ -3,9 +3,9 @@
 // cutting radius (a ball's radius, or the much larger radius of a tilted or dished flat rim).
 // Inputs: across-lay traces um (spacing mm), period mm; output: CuspShape (mm, um).
 // Cost O(samples). Method: phase folding (epoch folding of periodic signals); least-squares
-// parabola z = c0 + c1 u + c2 u^2 through the low quantile of each phase bin, R = 1 / (2 c2), whose
-// circle has the same curvature at the valley (derived; for a ball cusp the parabola differs from
-// the circle by u^4 / (8 R^3)).
+// parabola z = c0 + c1 u + c2 u^2 through the low quantile of each phase bin, each at its own
+// sample's phase, R = 1 / (2 c2), whose circle has the same curvature at the valley (derived;
+// for a ball cusp the parabola differs from the circle by u^4 / (8 R^3)).
 #pragma once
 
 #include <vector>

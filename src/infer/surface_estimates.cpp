@@ -269,7 +269,7 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   if (!e.stepover.found) {
     throw InputError("no across-lay period: traces across the lay (" + format_number(span_mm) +
                      " mm) show no repeat within half their length; the field must span at "
-                     "least 4 passes");
+                     "least 4 passes whose marks stand above the feed marks and the noise");
   }
   if (e.stepover.period_mm * kMinPeriodsInField > span_mm) {
     throw InputError(
