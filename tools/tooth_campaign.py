@@ -68,9 +68,9 @@ def draw_case(rng, k, shape, teeth):
     c["plane"] = (round(float(rng.uniform(-2, 2)), 2), round(float(rng.uniform(-2, 2)), 2))
     c["missing"] = round(float(rng.uniform(0.0, 0.02)), 3)
     c["cell"] = float(rng.choice([x for x in CELLS if c["fz"] / x >= MIN_CELLS_PER_FZ]))
-    # The envelope stage needs 4 passes across the field (it refuses fewer: "the field must span
-    # at least 4 passes"), so wide stepovers get a wider field.
-    c["field"] = max(FIELD_MM, math.ceil(40.0 * c["s"]) / 10.0)
+    # The envelope stage needs 4 stepovers across the field, as the surface reads them (it
+    # refuses fewer; a field of exactly 4 was refused for a stepover read 1.2 % long): 4.5.
+    c["field"] = max(FIELD_MM, math.ceil(45.0 * c["s"]) / 10.0)
     c["margin_mm"] = MARGIN_MM
     # Lines campaign.simulate adds to the job's [tool] (the bull-nose's dish, the runout).
     c["tool_more"] = ("\ndish_deg = %g" % c["dish"] if shape == "bullnose" else "") + \
@@ -162,8 +162,10 @@ def judge_tooth(c, j, fails, notread):
                                                  notread)
         if psg is not None:
             cols["phase"] += ", %.1f off" % dpsi
-        if t["runout_basin_sigmas"] is not None:
+        if t.get("runout_basin_sigmas") is not None:
             cols["note"] += "basin %.3g var." % t["runout_basin_sigmas"]
+        else:
+            cols["note"] += "one phase basin solved"
     dv, dsg = read(t["dish_deg"])
     cols["dish"] = judge("dish", dv, dsg, abs(dv - c["dish"]), TOL * c["dish"], fails, notread)
     # The along-feed tilt in the reported lay's frame (derived: tilt cos(toward - lay)).
