@@ -101,9 +101,13 @@ def simulate(exe, c, tmp):
     if c["shape"] == "bullnose":
         extra = "corner_radius = %g\ntilt_deg = %g\ntilt_toward_deg = %g" % (
             c["rc"], c["tilt"], c["toward"])
+    extra += c.get("tool_more", "")  # more [tool] lines (tools/tooth_campaign.py: dish, runout)
+    # The rim a tool radius around the field is cropped (a measurement lies inside its part);
+    # the raster runs its passes a reach past the patch, so a narrower rim may be asked for.
+    margin = c.get("margin_mm", 0.5 * c["d"])
     job = os.path.join(tmp, "job%d.toml" % c["k"])
     with open(job, "w") as f:
-        f.write(oracle.JOB.format(size=c["field"] + c["d"], cell=c["cell"], shape=c["shape"],
+        f.write(oracle.JOB.format(size=c["field"] + 2 * margin, cell=c["cell"], shape=c["shape"],
                                   d=c["d"], teeth=c["teeth"], tool_extra=extra, feed=c["feed"],
                                   s=c["s"], lay_deg=c["lay"], direction=c["direction"],
                                   teeth_marks="true" if c["tooth"] else "false"))
@@ -111,7 +115,7 @@ def simulate(exe, c, tmp):
     subprocess.run([exe, "simulate", job, "--out", out, "--threads", "2"], check=True,
                    stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
     z = np.load(os.path.join(out, "height.npy")).astype(np.float64)
-    m = int(round(0.5 * c["d"] / c["cell"]))
+    m = int(round(margin / c["cell"]))
     return z[m:-m, m:-m]
 
 

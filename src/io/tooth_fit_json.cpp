@@ -50,7 +50,11 @@ void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit) {
   j["smoothed_residual_ratio"] = t.smoothed_residual_ratio;
   j["marks_misfit"] = t.marks_misfit;
   j["runout_not_read"] = t.runout_not_read;
-  j["runout_basin_sigmas"] = t.runout_basin_sigmas;
+  // Infinite when every solved start stopped in one phase basin (no other phase to compare):
+  // written as null (docs/output-keys.md), never as a non-finite number (CONVENTIONS.md 8).
+  j["runout_basin_sigmas"] = std::isfinite(t.runout_basin_sigmas)
+                                 ? nlohmann::json(t.runout_basin_sigmas)
+                                 : nlohmann::json(nullptr);
   j["marks_seen"] = t.marks.seen;
   j["marks_rms_um"] = t.marks.marks_rms_um;
   j["marks_variance_ratio"] = t.marks.variance_ratio;
