@@ -52,6 +52,9 @@ struct ToothFitStart {
   double pass_centre_mm = 0.0;   ///< a pass centre's position across the lay (x,y) . n, mm
   double tilt_along_deg = 0.0;   ///< magnitude (the envelope folds its sign), deg
   double tilt_across_deg = 0.0;  ///< + toward lay + 90 deg
+  /// The envelope's own along-feed magnitude, deg (uncapped): a second estimator; the tooth
+  /// stage's along magnitude takes their difference into its sigma. Negative: not known.
+  double envelope_along_deg = -1.0;
 };
 
 /// The tooth stage's result.
