@@ -427,8 +427,8 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   f.smoothed_residual_ratio = std::sqrt(r.squaredNorm() / std::max(p.measured_norm2(), 1e-30));
   // Whether or not the fit claims a dish or runout: a random round trip (tools/tooth_campaign.py,
   // seed 2030 tc4) left 0.99 of the marks unexplained with neither resolved, and its phase and
-  // along-feed sign were still reported. The stage runs only on a window whose marks were seen.
-  f.marks_misfit = f.marks.seen && !(f.smoothed_residual_ratio <= kToothFitMaxResidualRatio);
+  // along-feed sign were still reported. (Marks were seen: the stage stopped above otherwise.)
+  f.marks_misfit = !(f.smoothed_residual_ratio <= kToothFitMaxResidualRatio);
   if (f.marks_misfit) {
     for (FittedValue* v : {&f.runout_um, &f.runout_phase_deg, &f.dish_deg, &f.tilt_along_deg}) {
       *v = fitted_value(v->value, kUnbounded, true);
