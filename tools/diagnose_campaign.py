@@ -147,6 +147,16 @@ def judge_floor(c, j, fails):
     fit = j["fit"]
     s = c["s"]
     so = fit["stepover_mm"]
+    if fit.get("arc_beat"):
+        # Stepover and tilt withheld: the repeat may be the tooth arcs' beat (infer/arc_beat).
+        # Honest when the read repeat is not the stepover; a lost reading when it is.
+        partner = fit["arc_beat_stepover_mm"]
+        if abs(so["value"] - s) <= 0.01 * s:
+            fails.append("stepover %.5f right but withheld as an arc beat" % so["value"])
+        return {"lay": "%.3f" % j["lay_deg"], "s": "not read (%.5f)" % so["value"],
+                "tilt": "not read", "toward": "-", "derr": "-",
+                "verdict": "arc beat: passes ~%.3f mm apart would beat at %.4f mm" % (
+                    partner, so["value"])}
     if abs(so["value"] - s) > 0.01 * s:
         fails.append("stepover %.5f outside 1 %%" % so["value"])
     if abs(so["value"] - s) > 3 * so["sigma"] + 1e-6:
@@ -247,6 +257,18 @@ def run_floor(exe, rng, c, tmp):
         # diagnose's own measure) are under the noise (derived).
         marks = 2.0 * math.sqrt(2.0) * plane_rms(clean)
         right = r.returncode == 2 and "noise" in r.stderr and marks < 3.0 * c["noise"]
+        if c["kind"] == "heel" and r.returncode == 2 and "feed marks" in r.stderr:
+            # A heel floor's passes: a cusp tan(along) (a - sqrt(a^2 - s^2/4)) and a step
+            # s tan(across) (DESIGN.md first-order tilt) against the feed marks' rise
+            # (fz / 2) tan(dish) (derived); refusing is right when the passes are under them.
+            a, s = 0.5 * c["d"], c["s"]
+            rel = math.radians(c["toward"] - c["lay"])
+            t = math.radians(c["tilt"])
+            passes = 1e3 * (math.tan(t * abs(math.cos(rel))) * (a - math.sqrt(a * a - s * s / 4))
+                            + s * math.tan(t * abs(math.sin(rel))))
+            fz = c["feed"] / (10000.0 * c["teeth"])
+            rise = 1e3 * 0.5 * fz * math.tan(math.radians(c["dish"]))
+            right = right or passes < rise
         if not right:
             fails.append("exit %d: %s (marks %.3g um)" % (r.returncode, r.stderr.strip(), marks))
         return {"lay": "-", "s": "-", "tilt": "-", "toward": "-", "derr": "-",

@@ -2,6 +2,7 @@
 // or a two-column x, z trace) back to how it was cut: lay, stepover, effective cutting radius,
 // feed marks, pass signatures, setup plane. cli/ holds no computation: flags -> io/ readers ->
 // infer/ estimates -> print (table or one JSON object) and diagnose.json under --out.
+#include <cmath>
 #include <cstdio>
 #include <memory>
 #include <optional>
@@ -20,6 +21,7 @@
 #include "infer/tooth_fit.h"
 #include "infer/tooth_verdict.h"
 #include "infer/floor_fit.h"
+#include "infer/pass_visibility.h"
 #include "infer/surface_estimates.h"
 #include "infer/trace_estimates.h"
 #include "io/diagnose_json.h"
@@ -121,6 +123,8 @@ void print_fit(const FloorFit& fit, const FittedErrors& f, const FitVerdict& v) 
     if (!x.fitted) return;
     if (x.resolved) {
       std::printf("  %-13s %.3g %s (+-%.2g)\n", name, x.value, unit, x.sigma);
+    } else if (!std::isfinite(x.bound)) {
+      std::printf("  %-13s not read (best fit %.3g %s; see cannot tell)\n", name, x.value, unit);
     } else {
       std::printf("  %-13s under %.3g %s (not resolved: %.3g +-%.2g)\n", name, x.bound, unit,
                   x.value, x.sigma);
@@ -263,12 +267,26 @@ void run_diagnose(const DiagnoseCliOptions& o) {
     doc["cautions"] = {kMachineCaution};
     if (fopt) {
       const FloorFit fit = fit_floor(file.field, e, *fopt);
-      const FittedErrors f = fitted_errors(fit);
+      FittedErrors f = fitted_errors(fit);
       print_stage(o.common.verbose, "fit", timer.lap());
+      const PassVisibility passes = pass_visibility(fit);
+      widen_for_faint_passes(passes, f);
+      FitVerdict v = fit_verdict(f, fit, e);
+      withhold_arc_beat(v, f);
+      if (!passes.visible && !v.arc_beat) {
+        v.lines.insert(v.lines.begin() + (v.weak ? 1 : 0), faint_passes_sentence(passes, f));
+      }
       // Tooth-resolved stage (issue 17): runout, dish and the along-feed sign. Experimental and
-      // slow (docs/diagnose.md "Tooth-resolved stage"): run only when asked for.
+      // slow (docs/diagnose.md "Tooth-resolved stage"): run only when asked for, and only on
+      // passes the envelope fit has read.
       ToothFit tooth;
-      if (o.tooth_fit) {
+      if (v.arc_beat) {
+        e.notes.push_back("the across-lay repeat may be the beat of neighbouring passes' tooth "
+                          "arcs, not the stepover (see the fit's cannot-tell lines)");
+        doc["notes"].push_back(e.notes.back());
+        tooth.skipped =
+            "the stepover is not read (the across-lay repeat may be a beat of tooth arcs)";
+      } else if (o.tooth_fit) {
         tooth = fit_teeth(file.field, tooth_fit_start(fit), tooth_options(o, unit, *fopt, e));
         print_stage(o.common.verbose, "tooth fit", timer.lap());
       } else {
@@ -276,9 +294,11 @@ void run_diagnose(const DiagnoseCliOptions& o) {
             "the tooth-resolved stage is experimental (unreliable on measured floors, tens of "
             "seconds); --tooth-fit runs it";
       }
-      FitVerdict v = fit_verdict(f, fit, e);
       merge_tooth_verdict(tooth, tooth_verdict(tooth), v);
       doc["fit"] = floor_fit_json(fit, f, v);
+      doc["fit"]["passes_visible"] = passes.visible;
+      doc["fit"]["pass_profile_rms_um"] = passes.model_rms_um;
+      doc["fit"]["line_residual_rms_um"] = passes.line_residual_rms_um;
       add_tooth_fit_json(tooth, doc["fit"]);
       if (!o.out.empty()) fit_png = encode_png(render_fit_pictures(fit, unit));
       if (!o.common.json) {

@@ -6,11 +6,13 @@
 
 #include <algorithm>
 #include <cmath>
+#include <limits>
 #include <numbers>
 #include <string>
 
 #include "core/display_quantity.h"
 #include "core/units.h"
+#include "infer/arc_beat.h"
 
 namespace cuspmap {
 namespace {
@@ -33,6 +35,17 @@ std::string direction_words(double deg) {
   return n3(a) + " deg from +X";
 }
 
+// What the revolving-envelope model never fits.
+void add_not_fitted(const Cutter& c, FitVerdict& v) {
+  if (c.shape != CutterShape::Ball) {
+    v.cannot_tell.push_back(
+        "dish angle: not fitted; the revolving cutter's floor is set by the rim, not the dish");
+  }
+  v.cannot_tell.push_back(
+      "runout and its phase: not fitted (the revolving-envelope model has no teeth); a "
+      "once-per-revolution repeat above is the surface's sign of runout");
+}
+
 }  // namespace
 
 FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e) {
@@ -51,6 +64,23 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
                       " % of this floor's variance: the marks are faint against noise or carry "
                       "what the model lacks (see fit.png); other tilts may fit nearly as well, "
                       "treat the values below as rough and their +- as too small");
+  }
+  // A weak fit at a repeat short enough to be the beat of neighbouring passes' tooth arcs
+  // (seed 2028's heel floor: 0.175 mm read for 0.841 under 0.46 um feed marks) reads nothing.
+  const ArcBeat beat = arc_beat(stepover, e.feed.found ? e.feed.period_mm : 0.0, c);
+  if (v.weak && beat.possible) {
+    v.arc_beat = true;
+    v.arc_beat_stepover_mm = beat.partner_stepover_mm;
+    v.cannot_tell.push_back(
+        "stepover and spindle tilt: the across-lay repeat (" + n3(stepover) +
+        " mm) is shorter than sqrt(rim radius x feed mark spacing) = " + n3(beat.limit_mm) +
+        " mm and may be the beat of neighbouring passes' tooth arcs, as from passes about " +
+        n3(beat.partner_stepover_mm) +
+        " mm apart (rim radius x mark spacing / repeat, derived): the passes' own marks do not "
+        "stand out from the feed marks on this floor; take the stepover from the program, and "
+        "the tram from an indicator or a floor whose passes show");
+    add_not_fitted(c, v);
+    return v;
   }
   v.lines.push_back("stepover " + n3(stepover) + " mm (+-" + n3(f.stepover_mm.sigma) +
                     "), passes along " + n3(fit.model.lay_deg) + " deg from +X");
@@ -123,14 +153,18 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
     v.lines.push_back("tilt along the feed does not show on this floor: at most " +
                       n3(f.tilt_along_deg.bound) + " deg (2 sigma)");
   }
-  if (c.shape != CutterShape::Ball) {
-    v.cannot_tell.push_back(
-        "dish angle: not fitted; the revolving cutter's floor is set by the rim, not the dish");
-  }
-  v.cannot_tell.push_back(
-      "runout and its phase: not fitted (the revolving-envelope model has no teeth); a "
-      "once-per-revolution repeat above is the surface's sign of runout");
+  add_not_fitted(c, v);
   return v;
+}
+
+void withhold_arc_beat(const FitVerdict& v, FittedErrors& f) {
+  if (!v.arc_beat) return;
+  for (FittedValue* x : {&f.tilt_deg, &f.tilt_toward_deg, &f.tilt_along_deg, &f.tilt_across_deg,
+                         &f.stepover_mm, &f.offset_mm}) {
+    x->resolved = false;
+    x->sigma = std::numeric_limits<double>::infinity();
+    x->bound = std::numeric_limits<double>::infinity();
+  }
 }
 
 }  // namespace cuspmap

@@ -35,6 +35,10 @@ struct FitVerdict {
   bool tilt_interval_only = false;  ///< the tilt is known only as tilt_interval_deg (the ridge)
   double ridge_tilt_deg = 0.0;     ///< atan(tan(tilt) / cos^2(direction from the lay)), the
                                    ///< combination the overlapping passes' cusps fix, deg
+  /// A weak fit whose stepover may be the beat of neighbouring passes' tooth arcs
+  /// (infer/arc_beat): the stepover and the tilt are not read (withhold_arc_beat).
+  bool arc_beat = false;
+  double arc_beat_stepover_mm = 0.0;  ///< passes this far apart would beat at the read stepover
 };
 
 /// Words for the fit.
@@ -42,5 +46,9 @@ struct FitVerdict {
 /// @param[in] fit     the fit (cutter, lay)
 /// @param[in] e       surface estimates (heel, marks along the lay)
 FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e);
+
+/// Marks the stepover and the tilt not read (sigma and bound infinite, not resolved) when the
+/// verdict found the stepover may be a beat of tooth arcs (v.arc_beat); else leaves f alone.
+void withhold_arc_beat(const FitVerdict& v, FittedErrors& f);
 
 }  // namespace cuspmap

@@ -49,6 +49,9 @@ nlohmann::json floor_fit_json(const FloorFit& fit, const FittedErrors& f, const 
   j["weak"] = v.weak;
   j["tilt_interval_only"] = v.tilt_interval_only;
   j["ridge_tilt_deg"] = v.ridge_tilt_deg;
+  j["arc_beat"] = v.arc_beat;
+  j["arc_beat_stepover_mm"] =
+      v.arc_beat ? nlohmann::json(v.arc_beat_stepover_mm) : nlohmann::json(nullptr);
   j["verdict"] = v.lines;
   j["cannot_tell"] = v.cannot_tell;
   return j;

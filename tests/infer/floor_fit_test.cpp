@@ -111,6 +111,9 @@ TEST_CASE("fit_floor: heel lifted, tilt along the feed bounded, not measured", "
           f.tilt_across_deg.value, f.tilt_across_deg.sigma, v.heel_min_tilt_deg,
           fit.residual_rms_um);
   REQUIRE(v.heel_lifted);
+  // Passes 1 mm apart are over the beat crossing sqrt(3 x 0.1) = 0.548 mm (infer/arc_beat,
+  // derived): the stepover is read.
+  REQUIRE_FALSE(v.arc_beat);
   // The true 0.05 deg lies between the heel's lower bound and the fit's upper bound (or, when
   // the fit resolves it, within its uncertainty and issue 17's 10 % / 0.002 deg).
   REQUIRE(v.heel_min_tilt_deg <= 0.05);
