@@ -271,11 +271,8 @@ void run_diagnose(const DiagnoseCliOptions& o) {
       print_stage(o.common.verbose, "fit", timer.lap());
       const PassVisibility passes = pass_visibility(fit);
       widen_for_faint_passes(passes, f);
-      FitVerdict v = fit_verdict(f, fit, e);
+      FitVerdict v = fit_verdict(f, fit, e, passes);
       withhold_arc_beat(v, f);
-      if (!passes.visible && !v.arc_beat) {
-        v.lines.insert(v.lines.begin() + (v.weak ? 1 : 0), faint_passes_sentence(passes, f));
-      }
       // Tooth-resolved stage (issue 17): runout, dish and the along-feed sign. Experimental and
       // slow (docs/diagnose.md "Tooth-resolved stage"): run only when asked for, and only on
       // passes the envelope fit has read.

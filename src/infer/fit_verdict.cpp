@@ -49,6 +49,11 @@ void add_not_fitted(const Cutter& c, FitVerdict& v) {
 }  // namespace
 
 FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e) {
+  return fit_verdict(f, fit, e, pass_visibility(fit));
+}
+
+FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e,
+                       const PassVisibility& passes) {
   FitVerdict v;
   const Cutter& c = fit.model.cutter;
   const double diameter = c.diameter_mm;
@@ -65,10 +70,12 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
                       "what the model lacks (see fit.png); other tilts may fit nearly as well, "
                       "treat the values below as rough and their +- as too small");
   }
-  // A weak fit at a repeat short enough to be the beat of neighbouring passes' tooth arcs
-  // (seed 2028's heel floor: 0.175 mm read for 0.841 under 0.46 um feed marks) reads nothing.
+  // Passes that do not stand out at a repeat short enough to be the beat of neighbouring
+  // passes' tooth arcs (seed 2028's heel floor: 0.175 mm read for 0.841 under 0.46 um feed
+  // marks) read nothing. (Weakness alone is no sign: the random tooth round trip seed 2030 tc3
+  // read its true 0.503 mm, under sqrt(a f) = 0.572, with 6 % explained and visible passes.)
   const ArcBeat beat = arc_beat(stepover, e.feed.found ? e.feed.period_mm : 0.0, c);
-  if (v.weak && beat.possible) {
+  if (!passes.visible && beat.possible) {
     v.arc_beat = true;
     v.arc_beat_stepover_mm = beat.partner_stepover_mm;
     v.cannot_tell.push_back(
@@ -82,6 +89,7 @@ FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const Surface
     add_not_fitted(c, v);
     return v;
   }
+  if (!passes.visible) v.lines.push_back(faint_passes_sentence(passes, f));
   v.lines.push_back("stepover " + n3(stepover) + " mm (+-" + n3(f.stepover_mm.sigma) +
                     "), passes along " + n3(fit.model.lay_deg) + " deg from +X");
   if (!f.tilt_deg.fitted) {

@@ -10,6 +10,7 @@
 #include <vector>
 
 #include "infer/fit_uncertainty.h"
+#include "infer/pass_visibility.h"
 #include "infer/surface_estimates.h"
 
 namespace cuspmap {
@@ -35,8 +36,9 @@ struct FitVerdict {
   bool tilt_interval_only = false;  ///< the tilt is known only as tilt_interval_deg (the ridge)
   double ridge_tilt_deg = 0.0;     ///< atan(tan(tilt) / cos^2(direction from the lay)), the
                                    ///< combination the overlapping passes' cusps fix, deg
-  /// A weak fit whose stepover may be the beat of neighbouring passes' tooth arcs
-  /// (infer/arc_beat): the stepover and the tilt are not read (withhold_arc_beat).
+  /// Passes that do not stand out (infer/pass_visibility) at a repeat that may be the beat of
+  /// neighbouring passes' tooth arcs (infer/arc_beat): stepover and tilt not read
+  /// (withhold_arc_beat).
   bool arc_beat = false;
   double arc_beat_stepover_mm = 0.0;  ///< passes this far apart would beat at the read stepover
 };
@@ -45,6 +47,11 @@ struct FitVerdict {
 /// @param[in] f       fitted values with standard errors
 /// @param[in] fit     the fit (cutter, lay)
 /// @param[in] e       surface estimates (heel, marks along the lay)
+/// @param[in] passes  the passes' visibility on the fit window (infer/pass_visibility; f already
+///                    widened by it)
+FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e,
+                       const PassVisibility& passes);
+/// As above with the visibility measured on `fit` here.
 FitVerdict fit_verdict(const FittedErrors& f, const FloorFit& fit, const SurfaceEstimates& e);
 
 /// Marks the stepover and the tilt not read (sigma and bound infinite, not resolved) when the

@@ -87,7 +87,7 @@ TEST_CASE("issue_17: a heel floor whose across-lay repeat is the tooth arcs' bea
   FittedErrors f = fitted_errors(fit);
   const FitVerdict v = fit_verdict(f, fit, e);
   CAPTURE(f.stepover_mm.value, v.explained, v.arc_beat_stepover_mm);
-  REQUIRE(v.weak);
+  REQUIRE_FALSE(pass_visibility(fit).visible);
   REQUIRE(v.arc_beat);
   // The partner names the passes to the beat's accuracy (measured 3-14 % on 0.6-1.1 mm
   // stepovers of this tool and fz).
@@ -100,7 +100,14 @@ TEST_CASE("issue_17: a heel floor whose across-lay repeat is the tooth arcs' bea
   bool said = false;
   for (const std::string& line : v.cannot_tell) said |= line.find("beat") != std::string::npos;
   REQUIRE(said);
-  REQUIRE_FALSE(pass_visibility(fit).visible);
+  // A short repeat with weak but visible passes is read (random tooth round trip seed 2030 tc3:
+  // its true 0.503 mm, under sqrt(a f) = 0.572 mm, 6 % explained, passes 0.047 um against
+  // 0.027 um of residual line means): the beat needs the passes not to stand out.
+  PassVisibility shown = pass_visibility(fit);
+  shown.visible = true;
+  const FitVerdict read = fit_verdict(fitted_errors(fit), fit, e, shown);
+  REQUIRE(read.weak);
+  REQUIRE_FALSE(read.arc_beat);
 }
 
 TEST_CASE("issue_17: a heel floor's faint passes widen the stepover to one cycle over the window",
