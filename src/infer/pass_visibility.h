@@ -18,6 +18,8 @@ struct PassVisibility {
   double model_rms_um = 0.0;     ///< rms of the best-fit envelope's line means (the passes)
   double line_residual_rms_um = 0.0;  ///< rms of the residual's line means (what it lacks)
   double span_mm = 0.0;          ///< the window's extent across the lay (L)
+  double rim_sagitta_mm = 0.0;   ///< a - sqrt(a^2 - s^2/4): a tilt t leaves tan(t) x this of
+                                 ///< cusp (a the flat part's radius; DESIGN.md first-order tilt)
   bool visible = true;           ///< model_rms_um >= line_residual_rms_um
 };
 
@@ -25,9 +27,10 @@ struct PassVisibility {
 PassVisibility pass_visibility(const FloorFit& fit);
 
 /// Where the passes do not stand out: the stepover's sigma is at least s^2 / L (one cycle of
-/// ambiguity over the window: frequencies closer than 1 / L are not told apart, derived) and the
-/// tilt across the feed's at least the tilt whose step s tan(a) equals the lines' residual rms;
-/// resolved flags and bounds follow the widened sigmas.
+/// ambiguity over the window: frequencies closer than 1 / L are not told apart, derived); the
+/// tilt's and its components' at least the larger of the tilts whose step s tan(t) and whose
+/// cusp tan(t) (a - sqrt(a^2 - s^2/4)) equal the lines' residual as a peak-to-valley (2 sqrt 2
+/// x its rms, a sinusoid's); resolved flags and bounds follow.
 void widen_for_faint_passes(const PassVisibility& p, FittedErrors& f);
 
 /// The verdict's sentence for faint passes (empty when they are visible).

@@ -8,6 +8,7 @@
 
 #include <catch2/catch.hpp>
 #include <cmath>
+#include <numbers>
 
 #include "infer/diagnose_floors.h"
 #include "infer/fit_uncertainty.h"
@@ -135,6 +136,16 @@ TEST_CASE("issue_17: a heel floor's faint passes widen the stepover to one cycle
   REQUIRE((f.tilt_across_deg.resolved ? std::abs(f.tilt_across_deg.value - 0.0058) <=
                                             3.0 * f.tilt_across_deg.sigma
                                       : f.tilt_across_deg.bound >= 0.0058));
+  // The tilt (0.0556 deg) lies under its bound: its sigma is at least the tilt whose cusp
+  // tan(t) (a - sqrt(a^2 - s^2/4)) equals 2 sqrt 2 x the lines' residual rms (derived).
+  const double half = 0.5 * s;
+  const double cusp_deg = std::atan(2.0 * std::sqrt(2.0) * p.line_residual_rms_um * 1e-3 /
+                                    (3.0 - std::sqrt(9.0 - half * half))) *
+                        180.0 / std::numbers::pi;
+  REQUIRE(f.tilt_deg.sigma >= cusp_deg * (1.0 - 1e-9));
+  REQUIRE((f.tilt_deg.resolved
+               ? std::abs(f.tilt_deg.value - 0.0556) <= 3.0 * f.tilt_deg.sigma
+               : f.tilt_deg.bound >= 0.0556));
   REQUIRE_FALSE(faint_passes_sentence(p, f).empty());
 }
 
