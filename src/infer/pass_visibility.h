@@ -27,7 +27,8 @@ struct PassVisibility {
 PassVisibility pass_visibility(const FloorFit& fit);
 
 /// Where the passes do not stand out: the stepover's sigma is at least s^2 / L (one cycle of
-/// ambiguity over the window: frequencies closer than 1 / L are not told apart, derived); the
+/// ambiguity over the window: frequencies closer than 1 / L are not told apart, derived), the
+/// pass offset's at least s / sqrt(12) (anywhere within a stepover, derived); the
 /// tilt's and its components' at least the larger of the tilts whose step s tan(t) and whose
 /// cusp tan(t) (a - sqrt(a^2 - s^2/4)) equal the lines' residual as a peak-to-valley (2 sqrt 2
 /// x its rms, a sinusoid's); resolved flags and bounds follow.

@@ -130,6 +130,7 @@ TEST_CASE("issue_17: a heel floor's faint passes widen the stepover to one cycle
   widen_for_faint_passes(p, f);
   const double s = f.stepover_mm.value;
   REQUIRE(f.stepover_mm.sigma >= s * s / p.span_mm * (1.0 - 1e-12));
+  REQUIRE(f.offset_mm.sigma >= s / std::sqrt(12.0) * (1.0 - 1e-12));  // uniform over s (derived)
   REQUIRE(std::abs(s - 0.841) <= 3.0 * f.stepover_mm.sigma);
   // The across-feed step under the lines' residual: the true 0.0058 deg (0.0556 x sin 6 deg)
   // is under the bound (derived).
