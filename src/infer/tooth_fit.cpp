@@ -15,6 +15,7 @@
 
 #include "infer/residual_correlation.h"
 #include "infer/tooth_fit_problem.h"
+#include "infer/tooth_pass_offset.h"
 #include "infer/tooth_runout_scan.h"
 
 namespace cuspmap {
@@ -49,6 +50,10 @@ constexpr double kUnbounded = std::numeric_limits<double>::infinity();
 // Least standard errors of the runout (relative) and its phase (deg): the spread of the
 // solver's stops on the round trips (measured, docs/diagnose.md), as kDishModelSigma.
 constexpr double kRunoutModelSigma = 0.05, kPhaseModelSigmaDeg = 5.0;
+// The envelope's pass centre is kept when the marks' pass axis lies within this many stepovers
+// of it (the marks' estimate was 14-24 um off on the campaign floors, the envelope's is finer
+// where it holds; measured); beyond it the marks' axis is the start.
+constexpr double kMarksOffsetAgree = 1.0 / 16.0;
 // Starts the runout scan hands to the solver (distinct phases, best first).
 constexpr int kScanStarts = 3;
 // Stops whose phase differs from the best by more than this (modulo 360 / Z) lie in another
@@ -259,11 +264,25 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
   model.spindle = o.spindle;
   model.window = w.patch;
   model.threads = o.threads;
+  // The envelope's pass centre can lie a fraction of a stepover off on a floor whose tooth
+  // marks it lacks (random tooth round trips, seed 2030 tc4-tc6: 0.21-0.40 stepover, one of
+  // them "resolved" at 5 sigma; docs/diagnose.md), beyond the solver's reach (from 0.21
+  // stepover off it moved 0.04 mm and stopped at 0.99 of the marks unexplained): the marks'
+  // own pass axis replaces it when the two differ by more than kMarksOffsetAgree stepovers.
+  double pass_centre = st.pass_centre_mm;
+  f.marks_offset = marks_pass_offset(hf, st.lay_deg, st.stepover_mm, c.flat_radius_mm(),
+                                     o.feed_per_tooth_mm, c.teeth);
+  if (f.marks_offset.contrast >= kMarksOffsetMinContrast &&
+      std::abs(std::remainder(f.marks_offset.axis_mm - pass_centre, st.stepover_mm)) >
+          kMarksOffsetAgree * st.stepover_mm) {
+    pass_centre = f.marks_offset.axis_mm;
+    f.offset_from_marks = true;
+  }
   // The pass centre in the window's frame, wrapped to within half a stepover of its centre.
   const Eigen::Vector2d n(-std::sin(st.lay_deg * kDegToRad), std::cos(st.lay_deg * kDegToRad));
   const Eigen::Vector2d centre(w.patch.origin_x_mm + 0.5 * w.patch.size_x_mm,
                                w.patch.origin_y_mm + 0.5 * w.patch.size_y_mm);
-  double off = st.pass_centre_mm - centre.dot(n);
+  double off = pass_centre - centre.dot(n);
   off -= std::round(off / st.stepover_mm) * st.stepover_mm;
   model.offset_mm = off;
 

@@ -14,6 +14,7 @@
 #include "infer/fit_uncertainty.h"
 #include "infer/floor_fit.h"
 #include "infer/tooth_marks.h"
+#include "infer/tooth_pass_offset.h"
 #include "path/path_spec.h"
 #include "tool/cutter.h"
 
@@ -88,6 +89,9 @@ struct ToothFit {
   ToothMarks marks;              ///< the window's feed marks before any sweep: when not seen
                                  ///< the stage stops there (no sweep; an undished, untilted
                                  ///< flat), dish bounded by the marks' detection limit
+  MarksPassOffset marks_offset;  ///< the marks' own pass axis (infer/tooth_pass_offset)
+  bool offset_from_marks = false;  ///< the start's pass centre is the marks' (the envelope's
+                                   ///< lay more than 1/16 stepover off it)
   int samples = 0;               ///< finite samples in the window
   int passes = 0;                ///< passes that cut the window
   int sweeps = 0;                ///< one-pass sweeps run

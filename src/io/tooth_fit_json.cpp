@@ -58,6 +58,8 @@ void add_tooth_fit_json(const ToothFit& t, nlohmann::json& fit) {
   j["marks_seen"] = t.marks.seen;
   j["marks_rms_um"] = t.marks.marks_rms_um;
   j["marks_variance_ratio"] = t.marks.variance_ratio;
+  j["offset_from_marks"] = t.offset_from_marks;
+  j["marks_offset_contrast"] = t.marks_offset.contrast;
   j["samples"] = t.samples;
   j["passes"] = t.passes;
   j["sweeps"] = t.sweeps;
