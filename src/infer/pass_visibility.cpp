@@ -89,7 +89,9 @@ std::string faint_passes_sentence(const PassVisibility& p, const FittedErrors& f
          n3(p.line_residual_rms_um) +
          " um rms: feed marks' beat, faint passes): the stepover is known only to +-" +
          n3(f.stepover_mm.sigma) + " mm (one cycle over the " + n3(p.span_mm) +
-         " mm window) and the tilt across the feed only above the step it would leave";
+         " mm window), the passes' offset to a stepover, and the tilt only above the step or rim "
+         "cusp it would leave (+-" +
+         n3(f.tilt_deg.sigma) + " deg)";
 }
 
 }  // namespace cuspmap
