@@ -18,8 +18,6 @@ namespace cuspmap {
 namespace {
 
 constexpr double kDegToRad = std::numbers::pi / 180.0;
-// Peak-to-valley of a sinusoidal mark from its rms: 2 sqrt(2) (derived).
-constexpr double kPeakToValleyPerRms = 2.0 * std::numbers::sqrt2;
 
 // Human output at 3 significant figures (DESIGN.md); nothing below 1e-9 is shown.
 std::string n3(double v) { return display_number(v, 1e-9); }

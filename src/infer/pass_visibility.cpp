@@ -19,8 +19,6 @@ namespace cuspmap {
 namespace {
 
 constexpr double kDegToRad = std::numbers::pi / 180.0;
-// Peak-to-valley of a sinusoidal mark from its rms: 2 sqrt(2) (derived).
-constexpr double kPeakToValleyPerRms = 2.0 * std::numbers::sqrt2;
 
 // Rms of the band means about their mean, and their extent (mm); {0, 0} when none qualify.
 std::pair<double, double> line_means_rms(const Heightfield& hf, double lay_deg) {

@@ -6,12 +6,17 @@
 // Method: band means (Radon projection, infer/band_means); Fourier resolution 1/L (derived).
 #pragma once
 
+#include <numbers>
 #include <string>
 
 #include "infer/fit_uncertainty.h"
 #include "infer/floor_fit.h"
 
 namespace cuspmap {
+
+/// Peak-to-valley of a sinusoidal mark from its rms: 2 sqrt(2) (derived); the depth the fit's
+/// verdicts give a residual rms as marks.
+inline constexpr double kPeakToValleyPerRms = 2.0 * std::numbers::sqrt2;
 
 /// The passes' profile against what the lines along the lay carry beyond it.
 struct PassVisibility {
