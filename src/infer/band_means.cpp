@@ -97,40 +97,66 @@ BandMeans band_means(const Heightfield& hf, double direction_deg, int stride) {
   return b;
 }
 
-PassLay pass_lay(const Heightfield& hf, std::optional<double> hint_deg) {
+std::vector<PassLay> lay_peaks(const Heightfield& hf, int count) {
   const int side = std::max(hf.nx, hf.ny);
   const int coarse = std::max(1, side / kCoarseSamples);
-  const int fine = std::max(1, (side + kFineSamples - 1) / kFineSamples);
-  // Coarse: every direction; local maxima of the share are the candidates.
+  // Every direction; local maxima of the share are the candidates.
   const int steps = static_cast<int>(std::lround(180.0 / kCoarseStepDeg));
   std::vector<double> share(static_cast<size_t>(steps));
   for (int a = 0; a < steps; ++a) share[a] = band_means(hf, a * kCoarseStepDeg, coarse).share;
-  std::vector<std::pair<double, double>> peaks;  // (share, deg)
+  std::vector<PassLay> peaks;
   for (int a = 0; a < steps; ++a) {
     const double l = share[(a + steps - 1) % steps], r = share[(a + 1) % steps];
-    if (share[a] >= l && share[a] >= r) peaks.emplace_back(share[a], a * kCoarseStepDeg);
+    if (share[a] >= l && share[a] >= r) peaks.push_back({a * kCoarseStepDeg, share[a]});
   }
-  std::sort(peaks.begin(), peaks.end(), [](const auto& p, const auto& q) { return p.first > q.first; });
-  if (peaks.size() > static_cast<size_t>(kCandidates)) peaks.resize(kCandidates);
-  if (hint_deg) peaks.emplace_back(0.0, *hint_deg);
-  PassLay best;
-  best.share = -1.0;
-  for (const auto& [unused, deg0] : peaks) {
-    (void)unused;
-    double at = deg0, at_share = band_means(hf, at, fine).share;
-    for (const double step : {0.1, 0.01}) {
-      const double centre = at;
-      for (int k = -10; k <= 10; ++k) {
-        if (k == 0) continue;
-        const double d = centre + k * step;
-        const double s = band_means(hf, d, fine).share;
-        if (s > at_share) at = d, at_share = s;
-      }
+  std::sort(peaks.begin(), peaks.end(),
+            [](const PassLay& p, const PassLay& q) { return p.share > q.share; });
+  if (peaks.size() > static_cast<size_t>(std::max(count, 0))) peaks.resize(std::max(count, 0));
+  return peaks;
+}
+
+PassLay refine_lay(const Heightfield& hf, double deg) {
+  const int side = std::max(hf.nx, hf.ny);
+  const int fine = std::max(1, (side + kFineSamples - 1) / kFineSamples);
+  double at = deg, at_share = band_means(hf, at, fine).share;
+  for (const double step : {0.1, 0.01}) {
+    const double centre = at;
+    for (int k = -10; k <= 10; ++k) {
+      if (k == 0) continue;
+      const double d = centre + k * step;
+      const double s = band_means(hf, d, fine).share;
+      if (s > at_share) at = d, at_share = s;
     }
-    if (at_share > best.share) best = {lay_wrap_deg(at), at_share};
+  }
+  return {lay_wrap_deg(at), std::max(at_share, 0.0)};
+}
+
+PassLay pass_lay(const Heightfield& hf, const std::vector<PassLay>& peaks,
+                 std::optional<double> hint_deg) {
+  std::vector<double> starts;
+  for (size_t k = 0; k < peaks.size() && k < static_cast<size_t>(kCandidates); ++k) {
+    starts.push_back(peaks[k].lay_deg);
+  }
+  if (hint_deg) starts.push_back(*hint_deg);
+  PassLay best{0.0, -1.0};
+  for (const double deg : starts) {
+    const PassLay r = refine_lay(hf, deg);
+    if (r.share > best.share) best = r;
   }
   best.share = std::max(best.share, 0.0);
   return best;
+}
+
+ProfileTrace smoothed_band_profile(const BandMeans& bands) {
+  ProfileTrace profile;
+  profile.spacing_mm = bands.spacing_mm;
+  const int nb = static_cast<int>(bands.z_um.size());
+  for (int i = 0; i + kBandSmoothCells <= nb; ++i) {
+    double sum = 0.0;
+    for (int k = 0; k < kBandSmoothCells; ++k) sum += bands.z_um[i + k];
+    profile.z_um.push_back(sum / kBandSmoothCells);
+  }
+  return profile;
 }
 
 }  // namespace cuspmap

@@ -11,6 +11,7 @@
 #include <vector>
 
 #include "core/heightfield.h"
+#include "texture/extract_profiles.h"
 
 namespace cuspmap {
 
@@ -44,10 +45,28 @@ struct PassLay {
   double share = 0.0;    ///< BandMeans::share at that direction
 };
 
-/// Searches every direction (1 deg on a thinned grid, then refined to 0.05 deg at full
-/// resolution around the best candidates and around `hint_deg`, e.g. the spectral lay).
+/// Local maxima of the share over every direction on a thinned grid (0.5 deg steps), strongest
+/// first, at most `count`.
+std::vector<PassLay> lay_peaks(const Heightfield& hf, int count);
+
+/// A direction refined to 0.01 deg at full resolution (0.1 then 0.01 deg steps around `deg`).
+PassLay refine_lay(const Heightfield& hf, double deg);
+
+/// The direction of largest share: the three strongest of `peaks` and `hint_deg` (e.g. the
+/// spectral lay), each refined (refine_lay).
 /// @param[in] hf        heights um (NaN = missing), plane removed
+/// @param[in] peaks     lay_peaks of `hf`, strongest first
 /// @param[in] hint_deg  an extra candidate direction, deg
-PassLay pass_lay(const Heightfield& hf, std::optional<double> hint_deg);
+PassLay pass_lay(const Heightfield& hf, const std::vector<PassLay>& peaks,
+                 std::optional<double> hint_deg);
+
+/// Band means are smoothed over this many cells before their period is sought (derived: the
+/// box keeps 64 % of a fundamental 10 cells long, and removes the grid's aliasing of tooth arcs
+/// a few cells apart; measured on 0.02 mm grids of 0.08 mm feed marks).
+inline constexpr int kBandSmoothCells = 5;
+
+/// The band means under a moving average of kBandSmoothCells (the tooth arcs sampled by the
+/// grid leave cell-scale spikes in them whose ACF hides the passes' repeat), as one trace.
+ProfileTrace smoothed_band_profile(const BandMeans& bands);
 
 }  // namespace cuspmap

@@ -12,6 +12,7 @@
 #include "core/input_error.h"
 #include "core/units.h"
 #include "infer/band_means.h"
+#include "infer/lay_lattice.h"
 #include "texture/extract_profiles.h"
 #include "texture/texture_direction.h"
 #include "texture/texture_report.h"
@@ -42,10 +43,6 @@ constexpr double kRevolutionMargin = 0.1;
 // from one-way (common practice, no source: ball floors give 0.96-1, dished flat floors
 // 0.1-0.35, where one-way floors were read as zigzag).
 constexpr double kMinShareForDirection = 0.5;
-// Band means are smoothed over this many cells before their period is sought (derived: the
-// box keeps 64 % of a fundamental 10 cells long, and removes the grid's aliasing of tooth arcs
-// a few cells apart; measured on 0.02 mm grids of 0.08 mm feed marks).
-constexpr int kBandSmoothCells = 5;
 // The traces' period is a multiple of the band means' when their ratio is within this of a
 // whole number, relative to the ratio (derived: two 1 % estimates); it needs this share of
 // the band means' comb score to replace theirs (derived: a false 1/m of the period keeps
@@ -186,7 +183,8 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
     // mean direction is only a candidate: on a flat end mill's floor the tooth arcs dominate it.
     const TextureDirection dir = texture_direction(residual);
     e.lay_strength = dir.lay_strength;
-    const PassLay pl = pass_lay(residual, lay_wrap_deg(dir.lay_deg));
+    const std::vector<PassLay> peaks = lay_peaks(residual, kRowPeaks);
+    const PassLay pl = pass_lay(residual, peaks, lay_wrap_deg(dir.lay_deg));
     if (pl.share < kMinPassLayShare) {
       // Say whether the marks are below the noise (nothing to read) or the floor's texture
       // has no direction (issue 17: a 4.4 mm flat at 0.0073 deg under 0.035 um noise).
@@ -201,7 +199,15 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
                        "; pass --lay if the pass direction is known");
     }
     e.lay_deg = pl.lay_deg;
-    if (std::abs(lay_wrap_deg(dir.lay_deg - pl.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
+    // The largest share can fall on a row of the tooth marks' lattice instead of the passes.
+    if (const std::optional<PassLay> rows = passes_among_rows(residual, pl, peaks)) {
+      e.notes.push_back("the largest band-mean share (" + format_number(pl.lay_deg) +
+                        " deg) lies along a row of the feed marks, not the passes (the marks "
+                        "repeat along it no shorter than across it): the passes' " +
+                        format_number(rows->lay_deg) + " deg is used");
+      e.lay_deg = rows->lay_deg;
+    }
+    if (std::abs(lay_wrap_deg(dir.lay_deg - e.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
         dir.lay_strength >= kMinLayStrength) {
       e.notes.push_back("the spectrum's lay (" + format_number(lay_wrap_deg(dir.lay_deg)) +
                         " deg, the tooth arcs) differs from the passes' (" +
@@ -220,16 +226,8 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   const double dx = hf.cell_mm;
   double span_mm = static_cast<double>(longest) * dx;
   if (!bands.z_um.empty()) {
-    // A moving average over kBandSmoothCells: the tooth arcs sampled by the grid leave
-    // cell-scale spikes in the band means whose ACF hides the passes' repeat.
-    ProfileTrace profile;
-    profile.spacing_mm = bands.spacing_mm;
+    const ProfileTrace profile = smoothed_band_profile(bands);
     const int nb = static_cast<int>(bands.z_um.size());
-    for (int i = 0; i + kBandSmoothCells <= nb; ++i) {
-      double sum = 0.0;
-      for (int k = 0; k < kBandSmoothCells; ++k) sum += bands.z_um[i + k];
-      profile.z_um.push_back(sum / kBandSmoothCells);
-    }
     const int n = static_cast<int>(profile.z_um.size());
     // Lags to 3/4 of the profile: one clean profile (not a trace among noisy ones) keeps a
     // quarter of its length in pairs there, and the extra repeats sharpen the slope fit.
