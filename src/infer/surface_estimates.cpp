@@ -286,6 +286,15 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   e.feed = feed_marks(along, options);
   if (!e.feed.found) {
     e.notes.push_back("no repeat along the lay: no feed marks to read (feed per tooth unknown)");
+  } else if (!options.teeth || (*options.teeth > 1 &&
+                                  e.feed.marks_per_revolution != *options.teeth)) {
+    // Under runout one tooth's marks can cover the others': the repeat is then a revolution,
+    // Z fz, and the ACF shows nothing at fz (measured on simulated runout floors, docs). Only a
+    // revolution of exactly the given teeth's marks settles it.
+    e.notes.push_back("the along-lay repeat (" + format_number(three_digits(e.feed.period_mm)) +
+                      " mm) is taken for the feed per tooth; where runout lets one tooth's marks "
+                      "cover the others' it is a whole revolution (teeth x feed per tooth), which "
+                      "the surface cannot tell apart: give --feed-per-tooth or --job to be sure");
   }
   double max_shift = e.feed.revolution_mm > 0.0 ? e.feed.revolution_mm : e.feed.period_mm;
   if (max_shift <= 0.0) max_shift = 0.25 * span_mm;

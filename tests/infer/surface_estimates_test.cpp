@@ -67,6 +67,46 @@ TEST_CASE("surface_estimates: runout shows a once-per-revolution repeat", "[infe
   REQUIRE_NEAR(e.feed.feed_per_tooth_mm, 0.08, 0.0016);
 }
 
+TEST_CASE("surface_estimates: a revolution's repeat is not passed off as the feed per tooth",
+          "[infer]") {
+  // Seed 2030 tc0 of tools/tooth_campaign.py: 6.4 mm flat, 3 teeth, 1.71 deg dish, 8.69 um
+  // runout at 134.5 deg, fz 0.0375, s 0.904, tilted 0.0621 deg toward 115.9. The deepest
+  // tooth's marks cover the other two: the along-lay repeat is the revolution, 3 fz = 0.1125
+  // mm (Kline & DeVor 1983: tooth k's edge at R + e cos(psi - 2 pi k / Z); measured 0.1125).
+  Job job = test::raster_job(CutterShape::Flat, 6.4, 0.904, 6.1, 0.005, 0.0375, 3);
+  job.cutter.dish_deg = 1.71;
+  job.cutter.runout_mm = 0.00869;
+  job.cutter.runout_phase_deg = 134.5;
+  job.cutter.tilt_deg = 0.0621;
+  job.cutter.tilt_toward_deg = 115.9;
+  Heightfield hf = test::crop(test::simulate(job), 200);  // 1 mm margin, as the campaign
+  test::damage(hf, 0.017, 0.99, -0.88, 0.007, 2030u);
+  SurfaceOptions o;
+  o.lay_deg = 0.0;
+  o.teeth = 3;
+  const SurfaceEstimates e = surface_estimates(hf, o);
+  CAPTURE(e.feed.period_mm, e.feed.revolution_mm, e.notes);
+  REQUIRE(e.feed.found);
+  // Derived: the floor repeats once per revolution, Z fz (within 2 %, as the feed marks above).
+  REQUIRE_NEAR(e.feed.period_mm, 3 * 0.0375, 0.02 * 3 * 0.0375);
+  // No revolution of 3 marks stands out (a later ACF peak may pass for one: 0.675 mm, 6
+  // marks, here), so the report must say the repeat may be a revolution (not claim fz).
+  REQUIRE(e.feed.marks_per_revolution != 3);
+  bool said = false;
+  for (const std::string& n : e.notes) said = said || n.find("whole revolution") != n.npos;
+  REQUIRE(said);
+  // With a revolution shown (2 teeth, 4 um runout on a ball, the case above) no such note.
+  Job ball = test::raster_job(CutterShape::Ball, 6.0, 0.3, 3.0, 0.01, 0.08, 2);
+  ball.cutter.runout_mm = 0.004;
+  Heightfield hb = test::simulate(ball);
+  test::damage(hb, 0.01, 0.0, 0.0, 0.0, 5u);
+  SurfaceOptions ob;
+  ob.teeth = 2;
+  const SurfaceEstimates eb = surface_estimates(hb, ob);
+  REQUIRE(eb.feed.revolution_mm > 0.0);
+  for (const std::string& n : eb.notes) CHECK(n.find("whole revolution") == n.npos);
+}
+
 TEST_CASE("surface_estimates: refuses what it cannot tell", "[infer]") {
   Heightfield tiny;
   tiny.nx = tiny.ny = 20;
