@@ -35,6 +35,10 @@ double lay_wrap_deg(double deg) {
   return a >= 180.0 ? 0.0 : a;  // -1e-15 wraps to 180.0 in double
 }
 
+double lay_gap_deg(double a_deg, double b_deg) {
+  return std::abs(lay_wrap_deg(a_deg - b_deg + 90.0) - 90.0);
+}
+
 BandMeans band_means(const Heightfield& hf, double direction_deg, int stride) {
   BandMeans b;
   stride = std::max(stride, 1);

@@ -23,6 +23,9 @@ inline constexpr double kMinPassLayShare = 0.03;
 /// A line direction in [0, 180) deg (a lay has no sense).
 double lay_wrap_deg(double deg);
 
+/// Angle between two line directions, deg in [0, 90].
+double lay_gap_deg(double a_deg, double b_deg);
+
 /// Band means across a direction.
 struct BandMeans {
   std::vector<double> z_um;   ///< mean height of each band, in order across (+90 deg side last)

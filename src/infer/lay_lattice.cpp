@@ -22,8 +22,6 @@ constexpr int kRowTraces = 64;
 // a 600-cell field; derived).
 constexpr double kSamePeakDeg = 2.0;
 
-double lay_gap_deg(double a, double b) { return std::abs(lay_wrap_deg(a - b + 90.0) - 90.0); }
-
 }  // namespace
 
 LayRepeats lay_repeats(const Heightfield& residual, double lay_deg) {

@@ -207,7 +207,7 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
                         format_number(rows->lay_deg) + " deg is used");
       e.lay_deg = rows->lay_deg;
     }
-    if (std::abs(lay_wrap_deg(dir.lay_deg - e.lay_deg + 90.0) - 90.0) > kLayAgreementDeg &&
+    if (lay_gap_deg(dir.lay_deg, e.lay_deg) > kLayAgreementDeg &&
         dir.lay_strength >= kMinLayStrength) {
       e.notes.push_back("the spectrum's lay (" + format_number(lay_wrap_deg(dir.lay_deg)) +
                         " deg, the tooth arcs) differs from the passes' (" +

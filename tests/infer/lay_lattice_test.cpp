@@ -83,13 +83,11 @@ TEST_CASE("issue_17: a dished flat floor whose marks' row out-shares its passes 
   // runout, tilted 0.0573 deg toward 24.3 deg, fz 0.0511, s 1.264 at 0.3 deg, one-way): the band
   // means along a row of its runout marks (108.8 deg) carried 4.7 % of the variance, the passes'
   // 2.7 %; the lay was read 108.8 deg and the stepover 0.145 mm (measured, docs/diagnose.md).
-  Job job = test::raster_job(CutterShape::Flat, 8.3, 1.264, 7.7, 0.01, 0.0511, 3);
-  job.cutter.dish_deg = 0.87;
-  job.cutter.runout_mm = 0.00746;
-  job.cutter.runout_phase_deg = 144.1;
-  job.cutter.tilt_deg = 0.0573;
-  job.cutter.tilt_toward_deg = 24.3;
-  job.path.angle_deg = 0.3;
+  const Job job = test::tooth_cut_job({.diameter_mm = 8.3, .stepover_mm = 1.264, .size_mm = 7.7,
+                                        .cell_mm = 0.01, .fz_mm = 0.0511, .teeth = 3,
+                                        .dish_deg = 0.87, .runout_mm = 0.00746,
+                                        .runout_phase_deg = 144.1, .tilt_deg = 0.0573,
+                                        .tilt_toward_deg = 24.3, .angle_deg = 0.3});
   Heightfield hf = test::crop(test::simulate(job), 100);  // 1 mm margin, as the campaign
   test::damage(hf, 0.01, 0.5, -0.3, 0.01, 2030u);
   const SurfaceEstimates e = surface_estimates(hf, {});
