@@ -1,7 +1,7 @@
 // Tooth-resolved stage: window, start values, the search over the pass pattern's unknowns (the
 // along-feed sign, a zigzag's parity), per-pass shifts, the runout scan, the valley walk, the
-// solver and the covariance propagated to runout magnitude and phase. Inputs: Heightfield,
-// ToothFitStart, ToothFitOptions; output: ToothFit. Cost: ~4 000-5 000 one-pass sweeps.
+// phase profile search, the solver and the covariance propagated to runout magnitude and phase.
+// Inputs: Heightfield, ToothFitStart, ToothFitOptions; output: ToothFit. Cost: ~6 000 sweeps.
 // Method: Kline & DeVor 1983 (runout: tooth k cuts at R + e cos(psi - 2 pi k / Z)); Bates &
 // Watts 1988 (covariance, likelihood comparison); GUM §5.1.2 (propagation).
 #include "infer/tooth_fit.h"
@@ -16,6 +16,7 @@
 #include "infer/residual_correlation.h"
 #include "infer/tooth_fit_problem.h"
 #include "infer/tooth_pass_offset.h"
+#include "infer/tooth_phase_search.h"
 #include "infer/tooth_runout_scan.h"
 
 namespace cuspmap {
@@ -322,6 +323,10 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
                o.feed_per_tooth_mm);
   best_cost[win] = p.residual().squaredNorm();
   const std::vector<ToothState> stops = restart_dish(p, o.feed_per_tooth_mm);
+  // The solver moves the phase only a few degrees from where it starts (the smoothed cost is
+  // rough along it): a profile search along the phase, then the runout freed again.
+  const PhaseProfile profile = search_phase(p, c.teeth, o.feed_per_tooth_mm);
+  p.solve(kStageIterations / 2);
   f.sweeps += p.sweeps() - before;
   best_cost[win] = std::min(best_cost[win], p.residual().squaredNorm());
 
@@ -406,7 +411,8 @@ ToothFit fit_teeth(const Heightfield& hf, const ToothFitStart& st, const ToothFi
     e_var = std::max(e_var, std::pow(e * (1.0 - std::tan(g[kDish] * kDegToRad) /
                                                     std::tan(marks_dish * kDegToRad)),
                                      2));
-    psi_var = std::max(psi_var, kPhaseModelSigmaDeg * kPhaseModelSigmaDeg);
+    psi_var = std::max({psi_var, kPhaseModelSigmaDeg * kPhaseModelSigmaDeg,
+                        phase_profile_variance(profile, var)});
     // Every solved start stopped in one basin: no other phase was compared, and the phase is
     // known only to the basin's width (measured: the zigzag round trip, 1.5 deg, 8 um at 75
     // deg, stopped 26 deg off with its sigma at the 5 deg floor; docs/diagnose.md).

@@ -12,10 +12,9 @@
 #include "infer/floor_fit.h"
 #include "infer/surface_estimates.h"
 #include "infer/tooth_model.h"
+#include "infer/tooth_truth.h"
 #include "infer/tooth_verdict.h"
 #include "infer/tooth_window.h"
-#include "path/build_toolpath.h"
-#include "path/move.h"
 
 namespace cuspmap {
 namespace {
@@ -83,49 +82,17 @@ void require_runout(const ToothFit& f, const Case& c) {
 
 TEST_CASE("simulate_tooth_pass: the job's floor to the bit with the true per-pass shifts",
           "[infer][tooth]") {
-  // The clock of sweep/prepare_moves: every move with a length and a feed adds length / feed;
-  // a pass starting at time t has tooth 0 at rpm/60 t turns, so the model's pass (tooth 0 at 0
-  // when it starts `shift` behind its usual start) matches it at shift = (model start - job
-  // start) + turns x Z fz modulo Z fz (derived).
+  // The clock of sweep/prepare_moves gives each pass's shift (test::tooth_truth, derived).
   const Case c;
   const Job job = case_job(c);
   const Heightfield hf = test::simulate(job);
-  const BuiltPath built = build_toolpath(job.path, job.cut, job.patch, job.cutter);
-  const double rev = 0.15;
-  const ToothWindow w = tooth_window(hf, 0.0, 0.8, rev);
-  ToothModel m;
-  m.cutter = job.cutter;
-  m.stepover_mm = 0.8;
-  m.feed_per_tooth_mm = 0.05;
-  m.window = w.patch;
-  m.threads = 2;
-  const double cy = w.patch.origin_y_mm + 0.5 * w.patch.size_y_mm;
-  const double cx = w.patch.origin_x_mm + 0.5 * w.patch.size_x_mm;
-  m.offset_mm = std::round(cy / 0.8) * 0.8 - cy;
-  place_passes(m, RasterDirection::OneWay, 0);
-  const double reach = 0.5 * std::hypot(w.patch.size_x_mm, w.patch.size_y_mm) + 3.0;
-  double clock_s = 0.0;
-  std::vector<double> t0, ys, xs;
-  for (const Move& mv : built.path.moves) {
-    const double len = move_length_mm(mv);
-    if (!(len > 0.0) || !(mv.feed_mm_per_min > 0.0)) continue;
-    if (!mv.rapid) {
-      t0.push_back(clock_s);
-      ys.push_back(mv.start_mm.y());
-      xs.push_back(mv.start_mm.x());
-    }
-    clock_s += len / mv.feed_mm_per_min * 60.0;
-  }
+  const ToothWindow w = tooth_window(hf, 0.0, 0.8, 0.15);
+  const test::ToothTruth t = test::tooth_truth(job, w);
+  REQUIRE(t.shift_mm.size() == t.model.pass_index.size());
   Heightfield floor = w.measured;
   floor.z_um.setConstant(kUnreached);
-  for (size_t p = 0; p < m.pass_index.size(); ++p) {
-    const double y = cy + m.offset_mm + m.pass_index[p] * 0.8;
-    size_t q = 0;
-    while (q < ys.size() && std::abs(ys[q] - y) > 1e-6) ++q;
-    REQUIRE(q < ys.size());
-    double shift = cx - reach - xs[q] + job.cut.rpm / 60.0 * t0[q] * rev;
-    shift -= std::floor(shift / rev) * rev;
-    min_into(simulate_tooth_pass(m, job.cutter, static_cast<int>(p), shift), floor);
+  for (size_t p = 0; p < t.shift_mm.size(); ++p) {
+    min_into(simulate_tooth_pass(t.model, job.cutter, static_cast<int>(p), t.shift_mm[p]), floor);
   }
   double worst = 0.0;
   for (Eigen::Index k = 0; k < floor.z_um.size(); ++k) {
