@@ -36,6 +36,9 @@ struct FitModel {
   bool tooth_marks = false;     ///< tooth-resolved (true) or revolving envelope (false)
   Patch window;                 ///< sample grid: cell centres at the measured sample points
   int threads = 0;              ///< sweep threads (0 = all)
+  /// Stylus tip radius the floor was measured with, mm (0: none): its closing fills the low
+  /// side of a rim's step over up to this width (FitProfile::band_mm).
+  double stylus_tip_mm = 0.0;
 };
 
 /// The cutter of the model with the trial tilt applied (magnitude and direction from the two
@@ -64,6 +67,11 @@ struct FitProfile {
   double reach_mm = 0.0;     ///< the pass's profile ends at |w| = reach (the cutter's radius)
   double offset_mm = 0.0;    ///< pass k's centre at offset + k stepover across the lay
   double stepover_mm = 0.0;  ///< distance between passes
+  /// Half-width about a pass's reach within which at() reports both sides of its step: a
+  /// strip cell, or the stylus tip's radius when larger (FitModel::stylus_tip_mm).
+  double band_mm = 0.0;
+  double reach_phase_mm = 0.0;  ///< the reach modulo the stepover
+  double node_mm = 0.0;         ///< spacing of `lowest`'s nodes (stepover / (nodes - 1))
   /// The two lowest passes (index relative to the period's) at nodes spread evenly over one
   /// period from the offset, at most a strip cell apart: at() weighs only these at the nodes
   /// either side of v (and a pass ending within a cell), not every pass in reach (40 for a
@@ -74,7 +82,7 @@ struct FitProfile {
   /// from the last two cells up to the reach; NaN beyond it.
   double pass_at(double w_mm) const;
   /// Height at across-lay coordinate v (mm; as across_lay_mm): the lowest pass there; NaN where
-  /// no pass reached. Where v lies within a strip cell of a pass's reach and that pass's end
+  /// no pass reached. Where v lies within band_mm of a pass's reach and that pass's end
   /// steps the floor, `other` (when given) receives the floor's height on the step's other side
   /// (NaN elsewhere): a point sample that near a step lies on either side as far as the fit's
   /// parameters tell (FitResidual::raw matches it to the nearer).

@@ -17,6 +17,7 @@
 #include <unsupported/Eigen/NonLinearOptimization>
 
 #include "core/parallel_blocks.h"
+#include "core/units.h"
 #include "infer/band_means.h"
 #include "infer/compass_search.h"
 #include "infer/fit_profiles.h"
@@ -88,6 +89,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   fit.model.direction = o.direction;
   fit.model.window = w.patch;
   fit.model.threads = o.threads;
+  fit.model.stylus_tip_mm = o.stylus_tip_um / kUmPerMm;
   // The samples' across-lay coordinates for a lay (refined below).
   const auto set_lay = [&](double lay_deg) {
     fit.model.lay_deg = lay_deg;
@@ -332,7 +334,8 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
     // Samples within a strip cell of a rim step take the side they fit (FitResidual::raw), a
     // band 4 times narrower on the finer strip: a sample matched on one strip and not on the
     // other (a stylus tip's closing lies between the sides) would count a step as model error
-    // (seed 2029 rs10, 10 um tip: 0.0166 deg instead of 0.0002). They are left out of delta.
+    // (seed 2029 rs10, 10 um tip: 0.0166 deg instead of 0.0002). They are left out of delta
+    // (under a given stylus tip the band is the tip's radius on both strips, FitProfile).
     Eigen::VectorXd diff = f_fine - f;
     const FitProfile coarse = simulate_fit_profile(fit.model, fit.params);
     for (int k = 0; k < res.samples(); ++k) {
