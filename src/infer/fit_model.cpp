@@ -91,7 +91,7 @@ double FitProfile::at(double v_mm, double* other) const {
   const double q = std::floor(u / stepover_mm);
   const double phase = u - q * stepover_mm;
   const auto wrapped = [&](double d) {
-    return std::abs(d - stepover_mm * std::floor(d / stepover_mm + 0.5));
+    return std::abs(d - stepover_mm * std::floor(d * per_stepover + 0.5));
   };
   const bool near_edge =
       wrapped(phase - reach_phase_mm) < band_mm || wrapped(phase + reach_phase_mm) < band_mm;
@@ -187,6 +187,7 @@ FitProfile simulate_fit_profile(const FitModel& model, const Eigen::VectorXd& p)
   f.offset_mm = p[kOffsetMm];
   f.stepover_mm = p[kStepoverMm];
   f.reach_phase_mm = reach - std::floor(reach / f.stepover_mm) * f.stepover_mm;
+  f.per_stepover = 1.0 / f.stepover_mm;
   // The two lowest passes at each node over one period (phase phi from the offset).
   const int nodes = std::max(2, static_cast<int>(std::ceil(f.stepover_mm / h))) + 1;
   f.lowest.resize(static_cast<size_t>(nodes));

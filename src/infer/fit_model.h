@@ -71,6 +71,7 @@ struct FitProfile {
   /// strip cell, or the stylus tip's radius when larger (FitModel::stylus_tip_mm).
   double band_mm = 0.0;
   double reach_phase_mm = 0.0;  ///< the reach modulo the stepover
+  double per_stepover = 0.0;    ///< 1 / stepover, 1/mm (at() multiplies: 2 of 7 quotients)
   double node_mm = 0.0;         ///< spacing of `lowest`'s nodes (stepover / (nodes - 1))
   /// The two lowest passes (index relative to the period's) at nodes spread evenly over one
   /// period from the offset, at most a strip cell apart: at() weighs only these at the nodes
