@@ -9,25 +9,75 @@
 #include <numbers>
 
 namespace cuspmap {
+namespace {
 
-TEST_CASE("issue_17: the pass-profile model matches a window sweep, steps included", "[infer]") {
-  // Random round trip (tools/diagnose_campaign.py seed 2029 rs14): 9.4 mm undished flat,
-  // 2.724 mm stepover, 0.0637 deg toward 278.9 deg from the passes (a 2.26 um step per pass
-  // where each pass's rim ends), one-way, passes at 39.5 deg, 0.1 mm samples.
+// Random round trip (tools/diagnose_campaign.py seed 2029 rs14): 9.4 mm undished flat,
+// 2.724 mm stepover, 0.0637 deg toward 278.9 deg from the passes (a 2.26 um step per pass
+// where each pass's rim ends), one-way, passes at 39.5 deg.
+FitModel rs14_model(double sample_mm) {
   FitModel m;
   m.cutter.shape = CutterShape::Flat;
   m.cutter.diameter_mm = 9.4;
   m.cutter.dish_deg = 0.0;
   m.lay_deg = 39.5;
-  m.window.cell_mm = 0.1;
+  m.window.cell_mm = sample_mm;
   m.window.origin_x_mm = -3.0;
   m.window.origin_y_mm = -3.0;
-  m.window.size_x_mm = 5.95;  // 60 x 60 samples
-  m.window.size_y_mm = 5.95;
+  m.window.size_x_mm = 60 * sample_mm - 0.5 * sample_mm;  // 60 x 60 samples
+  m.window.size_y_mm = m.window.size_x_mm;
   m.threads = 1;
+  return m;
+}
+
+Eigen::VectorXd rs14_params() {
   Eigen::VectorXd p(kFitParams);
   const double dir = 278.9 * std::numbers::pi / 180.0;
   p << 0.0637 * std::cos(dir), 0.0637 * std::sin(dir), 2.724, 0.3;
+  return p;
+}
+
+}  // namespace
+
+TEST_CASE("issue_17: a stylus tip widens the band about each rim step to its radius", "[infer]") {
+  // 0.04 mm samples: strip cells of 5 um; a 10 um tip (ISO 3274 nominal).
+  FitModel m = rs14_model(0.04);
+  const Eigen::VectorXd p = rs14_params();
+  const Heightfield sweep = simulate_fit_window(m, p);
+  const FitProfile bare = simulate_fit_profile(m, p);
+  m.stylus_tip_mm = 0.010;
+  const FitProfile tip = simulate_fit_profile(m, p);
+  int near_bare = 0, near_tip = 0;
+  double worst = 0.0;
+  for (int b = 0; b < sweep.ny; ++b) {
+    for (int a = 0; a < sweep.nx; ++a) {
+      const double want = sweep.z_um(b, a);
+      if (!std::isfinite(want)) continue;
+      const double v = across_lay_mm(m, sweep.x_mm(a), sweep.y_mm(b));
+      double o_bare = 0.0, o_tip = 0.0;
+      bare.at(v, &o_bare);
+      const double got = tip.at(v, &o_tip);
+      near_bare += std::isfinite(o_bare) ? 1 : 0;
+      if (!std::isfinite(o_tip)) continue;
+      ++near_tip;
+      // Either side of the step, one of them is the floor there (derived: the floor is the
+      // lowest pass; the strip's interpolation errs under 0.005 um, as below).
+      worst = std::max(worst, std::min(std::abs(got - want), std::abs(o_tip - want)));
+    }
+  }
+  CAPTURE(near_bare, near_tip, worst);
+  // Derived: the band is max(strip cell, tip radius), 5 um -> 10 um, so about twice the samples
+  // (each step's band holds samples in proportion to its width; 60 x 60 samples give tens).
+  CHECK(near_bare > 0);
+  CHECK(near_tip >= near_bare + near_bare / 2);
+  CHECK(worst < 0.005);
+}
+
+TEST_CASE("issue_17: the pass-profile model matches a window sweep, steps included", "[infer]") {
+  // Random round trip (tools/diagnose_campaign.py seed 2029 rs14): 9.4 mm undished flat,
+  // 2.724 mm stepover, 0.0637 deg toward 278.9 deg from the passes (a 2.26 um step per pass
+  // where each pass's rim ends), one-way, passes at 39.5 deg, 0.1 mm samples.
+  const FitModel m = rs14_model(0.1);
+  const Eigen::VectorXd p = rs14_params();
   const Heightfield sweep = simulate_fit_window(m, p);
   const FitProfile prof = simulate_fit_profile(m, p);
   int compared = 0, near_step = 0;
