@@ -36,6 +36,17 @@ Eigen::VectorXd rs14_params() {
   return p;
 }
 
+// Calls f(swept height, across-lay coordinate) at every sample the window sweep reached.
+template <class F>
+void each_swept_sample(const FitModel& m, const Heightfield& sweep, F&& f) {
+  for (int b = 0; b < sweep.ny; ++b) {
+    for (int a = 0; a < sweep.nx; ++a) {
+      const double want = sweep.z_um(b, a);
+      if (std::isfinite(want)) f(want, across_lay_mm(m, sweep.x_mm(a), sweep.y_mm(b)));
+    }
+  }
+}
+
 }  // namespace
 
 TEST_CASE("issue_17: a stylus tip widens the band about each rim step to its radius", "[infer]") {
@@ -48,22 +59,17 @@ TEST_CASE("issue_17: a stylus tip widens the band about each rim step to its rad
   const FitProfile tip = simulate_fit_profile(m, p);
   int near_bare = 0, near_tip = 0;
   double worst = 0.0;
-  for (int b = 0; b < sweep.ny; ++b) {
-    for (int a = 0; a < sweep.nx; ++a) {
-      const double want = sweep.z_um(b, a);
-      if (!std::isfinite(want)) continue;
-      const double v = across_lay_mm(m, sweep.x_mm(a), sweep.y_mm(b));
-      double o_bare = 0.0, o_tip = 0.0;
-      bare.at(v, &o_bare);
-      const double got = tip.at(v, &o_tip);
-      near_bare += std::isfinite(o_bare) ? 1 : 0;
-      if (!std::isfinite(o_tip)) continue;
-      ++near_tip;
-      // Either side of the step, one of them is the floor there (derived: the floor is the
-      // lowest pass; the strip's interpolation errs under 0.005 um, as below).
-      worst = std::max(worst, std::min(std::abs(got - want), std::abs(o_tip - want)));
-    }
-  }
+  each_swept_sample(m, sweep, [&](double want, double v) {
+    double o_bare = 0.0, o_tip = 0.0;
+    bare.at(v, &o_bare);
+    const double got = tip.at(v, &o_tip);
+    near_bare += std::isfinite(o_bare) ? 1 : 0;
+    if (!std::isfinite(o_tip)) return;
+    ++near_tip;
+    // Either side of the step, one of them is the floor there (derived: the floor is the
+    // lowest pass; the strip's interpolation errs under 0.005 um, as below).
+    worst = std::max(worst, std::min(std::abs(got - want), std::abs(o_tip - want)));
+  });
   CAPTURE(near_bare, near_tip, worst);
   // Derived: the band is max(strip cell, tip radius), 5 um -> 10 um, so about twice the samples
   // (each step's band holds samples in proportion to its width; 60 x 60 samples give tens).
@@ -82,31 +88,26 @@ TEST_CASE("issue_17: the pass-profile model matches a window sweep, steps includ
   const FitProfile prof = simulate_fit_profile(m, p);
   int compared = 0, near_step = 0;
   double worst = 0.0;
-  for (int b = 0; b < sweep.ny; ++b) {
-    for (int a = 0; a < sweep.nx; ++a) {
-      const double want = sweep.z_um(b, a);
-      if (!std::isfinite(want)) continue;
-      double other = 0.0;
-      const double got = prof.at(across_lay_mm(m, sweep.x_mm(a), sweep.y_mm(b)), &other);
-      REQUIRE(std::isfinite(got));
-      // The candidate passes at() weighs hold the lowest of all passes in reach (derived).
-      const double v = across_lay_mm(m, sweep.x_mm(a), sweep.y_mm(b));
-      double all = std::numeric_limits<double>::infinity();
-      for (long k = -10; k <= 10; ++k) {
-        const double z = prof.pass_at(v - prof.offset_mm - static_cast<double>(k) * 2.724);
-        if (std::isfinite(z)) all = std::min(all, z);
-      }
-      if (!std::isfinite(other)) CHECK(got == all);
-      double err = std::abs(got - want);
-      if (std::isfinite(other)) {
-        // Within a strip cell of a step: one of the two sides is the sweep's.
-        ++near_step;
-        err = std::min(err, std::abs(other - want));
-      }
-      worst = std::max(worst, err);
-      ++compared;
+  each_swept_sample(m, sweep, [&](double want, double v) {
+    double other = 0.0;
+    const double got = prof.at(v, &other);
+    REQUIRE(std::isfinite(got));
+    // The candidate passes at() weighs hold the lowest of all passes in reach (derived).
+    double all = std::numeric_limits<double>::infinity();
+    for (long k = -10; k <= 10; ++k) {
+      const double z = prof.pass_at(v - prof.offset_mm - static_cast<double>(k) * 2.724);
+      if (std::isfinite(z)) all = std::min(all, z);
     }
-  }
+    if (!std::isfinite(other)) CHECK(got == all);
+    double err = std::abs(got - want);
+    if (std::isfinite(other)) {
+      // Within a strip cell of a step: one of the two sides is the sweep's.
+      ++near_step;
+      err = std::min(err, std::abs(other - want));
+    }
+    worst = std::max(worst, err);
+    ++compared;
+  });
   CAPTURE(compared, near_step, worst);
   // Derived: the floor is the lowest of the passes' swept profiles, the same profile shifted
   // (the swept volume of a line move); the strip's linear interpolation errs by under 0.005 um
