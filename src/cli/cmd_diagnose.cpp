@@ -254,7 +254,8 @@ void run_diagnose(const DiagnoseCliOptions& o) {
     if (!o.lay.empty()) sopt.lay_deg = parse_angle_deg(o.lay, "--lay");
     if (o.teeth > 0) sopt.teeth = o.teeth;
     sopt.threads = o.threads;
-    const std::optional<FloorFitOptions> fopt = fit_options(o, unit, sopt);
+    std::optional<FloorFitOptions> fopt = fit_options(o, unit, sopt);
+    if (fopt) fopt->stylus_tip_um = tip_um;
     SurfaceEstimates e = surface_estimates(file.field, sopt);
     print_stage(o.common.verbose, "estimate", timer.lap());
     if (tip_um > 0.0 && e.cusp.curved && e.cusp.radius_mm * kUmPerMm <= 2.0 * tip_um) {

@@ -10,14 +10,15 @@
 #include <vector>
 
 #include "core/units.h"
-#include "texture/remove_least_squares_line.h"
+#include "infer/periodic_trend.h"
 
 namespace cuspmap {
 namespace {
 
-// Relative curvature error of a parabola fitted to a circle, per (window / R)^2 (derived where
-// the radius's sigma is set).
-constexpr double kParabolaBias = 0.214;
+// Iterations of the circle correction below (each multiplies the radius by the ratio of the
+// parabola's curvature on the trial circle to the measured one: the error falls by ~(w / R)^2
+// per step, derived; 8 leave it under 1e-12 for w < R / 2).
+constexpr int kCircleIterations = 8;
 
 }  // namespace
 
@@ -27,15 +28,19 @@ CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, 
   const double dx = traces.front().spacing_mm;
   const int bins = std::max(4, static_cast<int>(std::lround(period_mm / dx)));
   c.bin_mm = period_mm / bins;
+  c.period_mm = period_mm;
   std::vector<double> sum(bins, 0.0), count(bins, 0.0);
   // Each bin's samples as (height, phase): the valley is fitted at the phases of the samples
   // it keeps, not at the bin centres (see below).
   std::vector<std::vector<std::pair<double, double>>> values(bins);
   std::vector<double> z;
   for (const ProfileTrace& t : traces) {
-    z = t.z_um;
-    if (z.size() < 3) continue;
-    if (detrend) remove_least_squares_line(z);
+    if (t.z_um.size() < 3) continue;
+    // A measured trace's own slope: the line plus the periodic cusps (periodic_trend), not a
+    // least-squares line, which the cusps tilt when the trace is no whole number of periods.
+    ProfileTrace level = t;
+    if (detrend) remove_periodic_trend(level, period_mm, bins);
+    z = level.z_um;
     for (size_t i = 0; i < z.size(); ++i) {
       const double x = t.start_mm + static_cast<double>(i) * t.spacing_mm;
       double phase = std::fmod(x, period_mm);
@@ -92,12 +97,27 @@ CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, 
   // dR/dc2 = -1 / (2 c2^2).
   c.radius_sigma_mm = std::sqrt(std::max(0.0, cov(2, 2))) / (2.0 * coef(2) * coef(2));
   // The parabola's own error on a circular valley: least squares of c0 + c2 u^2 against
-  // u^2 / 2R + u^4 / 8R^3 over |u| <= w (uniform) give c2 = (1 + 0.214 (w / R)^2) / 2R, so the
-  // radius reads short by 0.214 (w / R)^2 R (derived; regression of u^4 on u^2: 6 w^2 / 7).
-  // Noise-free traces of 5.7 and 5.2 mm balls read 0.3 % and 0.6 % short at sigmas of 0.01 %
-  // (random round trips, tools/diagnose_campaign.py rs16, rs17).
-  const double w = half * c.bin_mm;
-  c.radius_sigma_mm = std::hypot(c.radius_sigma_mm, kParabolaBias * w * w / c.radius_mm);
+  // u^2 / 2R + u^4 / 8R^3 over |u| <= w (uniform) give c2 = (1 + 0.214 (w / R)^2) / 2R, so
+  // 1 / 2 c2 reads the radius short by 0.214 (w / R)^2 R (derived; regression of u^4 on u^2:
+  // 6 w^2 / 7), a bias of the estimator, not a scatter: a noise-free 8.5 mm ball's trace read
+  // 0.14 % short at a fit sigma of 0.001 % (random round trips, tools/diagnose_campaign.py
+  // seed 2029 rs17). The radius reported is the circle whose parabola, fitted at these same
+  // phases, has the measured curvature: R <- R c2(R) / c2 until it settles, c2(R) the fit's
+  // curvature on R - sqrt(R^2 - u^2) (exact for a circle at every order; derived).
+  const Eigen::MatrixXd solve = a.colPivHouseholderQr().solve(Eigen::MatrixXd::Identity(m, m));
+  const double u_max = a.col(1).cwiseAbs().maxCoeff();
+  double r = c.radius_mm;
+  for (int it = 0; it < kCircleIterations && u_max < r; ++it) {
+    Eigen::VectorXd circle(m);
+    for (int k = 0; k < m; ++k) circle(k) = r - std::sqrt(r * r - a(k, 1) * a(k, 1));
+    const double c2 = solve.row(2).dot(circle);
+    if (!(c2 > 0.0)) break;
+    r *= c2 / coef(2);
+  }
+  if (u_max < r && std::isfinite(r)) {
+    c.radius_sigma_mm *= r / c.radius_mm;  // the correction scales the radius (to first order)
+    c.radius_mm = r;
+  }
   return c;
 }
 

@@ -4,8 +4,8 @@
 // Inputs: across-lay traces um (spacing mm), period mm; output: CuspShape (mm, um).
 // Cost O(samples). Method: phase folding (epoch folding of periodic signals); least-squares
 // parabola z = c0 + c1 u + c2 u^2 through the low quantile of each phase bin, each at its own
-// sample's phase, R = 1 / (2 c2), whose circle has the same curvature at the valley (derived;
-// for a ball cusp the parabola differs from the circle by u^4 / (8 R^3)).
+// sample's phase; the radius is the circle's whose parabola at those phases has curvature c2
+// (derived: 1 / 2 c2 alone reads a circle short by 0.214 (w / R)^2 R over +-w).
 #pragma once
 
 #include <vector>
@@ -32,14 +32,18 @@ struct CuspShape {
   double valley_phase_mm = 0.0;  ///< across position of a valley, mm from the field centre,
                                  ///< modulo the period
   double radius_mm = 0.0;        ///< effective cutting radius from the valley curvature
-  double radius_sigma_mm = 0.0;  ///< its standard error from the fit (residual variance)
+  double radius_sigma_mm = 0.0;  ///< its standard error from the fit (residual variance; a
+                                 ///< trace adds its period's, trace_estimates)
   bool curved = false;           ///< the valley curves upwards (c2 > 0): radius_mm exists
+  double period_mm = 0.0;        ///< period folded on (a trace: the valleys' repeat when
+                                 ///< more precise than the autocorrelation's; infer/valley_period)
+  double period_sigma_mm = 0.0;  ///< its standard error (0 when not estimated here)
 };
 
 /// Folds the traces on `period_mm` and fits the valley.
 /// @param[in] traces     traces across the lay, positions start_mm + i * spacing from the centre
 /// @param[in] period_mm  the across-lay period (> 2 samples)
-/// @param[in] detrend    remove each trace's least-squares line first (a raw measured trace);
+/// @param[in] detrend    remove each trace's slope first (a raw measured trace; periodic_trend);
 ///                       false for traces of a field whose plane is already removed, where
 ///                       short runs between missing points would each be shifted differently
 CuspShape cusp_shape(const std::vector<ProfileTrace>& traces, double period_mm, bool detrend);

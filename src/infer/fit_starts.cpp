@@ -38,9 +38,6 @@ std::vector<FitStart> fit_starts(const FitModel& model, const Eigen::VectorXd& b
   }
   Eigen::HouseholderQR<Eigen::MatrixXd> qr(basis);
   const Eigen::MatrixXd q = qr.householderQ() * Eigen::MatrixXd::Identity(n, 3);
-  // Offsets up to half a stepover either way shift the profile that far.
-  const double v_max = v.cwiseAbs().maxCoeff() + stepover;
-
   // Every tilt pair is independent: the alongs on parallel blocks, each filling its own row of
   // starts (the order, and so the result, is the same for any thread count).
   const size_t na = alongs.size(), nc = acrosses.size();
@@ -52,7 +49,7 @@ std::vector<FitStart> fit_starts(const FitModel& model, const Eigen::VectorXd& b
       p[kTiltAlongDeg] = alongs[static_cast<size_t>(ia)];
       p[kTiltAcrossDeg] = acrosses[ic];
       p[kOffsetMm] = 0.0;
-      const FitProfile prof = simulate_fit_profile(model, p, v_max);
+      const FitProfile prof = simulate_fit_profile(model, p);
       FitStart& best = out[static_cast<size_t>(ia) * nc + ic];
       best.cost = std::numeric_limits<double>::infinity();
       for (int s = 0; s < kOffsetSteps; ++s) {

@@ -17,6 +17,7 @@
 #include <unsupported/Eigen/NonLinearOptimization>
 
 #include "core/parallel_blocks.h"
+#include "core/units.h"
 #include "infer/band_means.h"
 #include "infer/compass_search.h"
 #include "infer/fit_profiles.h"
@@ -57,6 +58,9 @@ constexpr double kCompassFinalPeriod = 1e-6;
 // (a pass drifts 0.02 um across a 10 mm window).
 constexpr double kCompassLayStepDeg = 0.02;
 constexpr double kCompassFinalLayDeg = 1e-4;
+// The model check's strip: this many times finer than the fit's (the interpolation error falls
+// as the cell squared, so the shift to it is ~15/16 of the shift to the exact profile; derived).
+constexpr double kModelCheckRefinement = 4.0;
 
 // Start for the tilt across the feed, deg: inside each pass band the floor is the tilted end
 // face, so the band means across the lay rise at -tan(across) (+ = toward lay + 90 deg, where
@@ -85,6 +89,7 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
   fit.model.direction = o.direction;
   fit.model.window = w.patch;
   fit.model.threads = o.threads;
+  fit.model.stylus_tip_mm = o.stylus_tip_um / kUmPerMm;
   // The samples' across-lay coordinates for a lay (refined below).
   const auto set_lay = [&](double lay_deg) {
     fit.model.lay_deg = lay_deg;
@@ -310,16 +315,64 @@ FloorFit fit_floor(const Heightfield& hf, const SurfaceEstimates& e, const Floor
       fit.covariance(res.free_index[a], res.free_index[b]) = var * inv(a, b);
     }
   }
+  // The model's own discretisation error at the optimum: the profile swept on strip cells
+  // kModelCheckRefinement times finer moves the optimum by one Gauss-Newton step, delta =
+  // -(J^T J)^-1 J^T (r_fine - r) (derived: J^T r = 0 at the optimum), and delta delta^T joins
+  // the covariance (a systematic error of the parameters, added in quadrature; GUM, JCGM
+  // 100:2008 §5.1.2). Noise hides it on most floors; on noise-free ones the residual's own
+  // variance goes to zero with the model's error while the parameters keep a part of it
+  // (random round trips: a noise-free 3.1 mm dished flat read 0.02303 +- 0.00001 deg for
+  // 0.023, tools/diagnose_campaign.py seed 2027 rs0). Envelope model only.
+  if (!fit.model.tooth_marks) {
+    FitModel fine_model = fit.model;
+    fine_model.window.cell_mm /= kModelCheckRefinement;
+    FitResidual fine = res;
+    fine.model = &fine_model;
+    Eigen::VectorXd f_fine;
+    fine(x, f_fine);
+    res.sweeps += 2;
+    // Samples within a strip cell of a rim step take the side they fit (FitResidual::raw), a
+    // band 4 times narrower on the finer strip: a sample matched on one strip and not on the
+    // other (a stylus tip's closing lies between the sides) would count a step as model error
+    // (seed 2029 rs10, 10 um tip: 0.0166 deg instead of 0.0002). They are left out of delta
+    // (under a given stylus tip the band is the tip's radius on both strips, FitProfile).
+    Eigen::VectorXd diff = f_fine - f;
+    const FitProfile coarse = simulate_fit_profile(fit.model, fit.params);
+    for (int k = 0; k < res.samples(); ++k) {
+      double other = 0.0;
+      coarse.at(w.v[static_cast<size_t>(k)], &other);
+      if (std::isfinite(other)) diff[k] = 0.0;
+    }
+    const Eigen::VectorXd delta = -(inv * (jac.transpose() * diff));
+    for (int a = 0; a < res.inputs(); ++a) {
+      for (int b = 0; b < res.inputs(); ++b) {
+        fit.covariance(res.free_index[a], res.free_index[b]) += delta[a] * delta[b];
+      }
+      // The compass search stops when no move of its final step lowers the cost: the optimum
+      // is placed only to within that step in each parameter (Kolda, Lewis & Torczon 2003,
+      // §3.6: stationarity bounded by the step), its square added. Below every noisy floor's
+      // sigma; on a noise-free floor in the ridge regime, where the cost barely changes along
+      // the ridge, it is the sigma (seed 2028 rs0: 0.08768 for 0.0877 at a residual of 1e-5 um).
+      const int which = res.free_index[static_cast<size_t>(a)];
+      const double step = which == kTiltAlongDeg || which == kTiltAcrossDeg
+                              ? kCompassFinalTiltDeg
+                              : kCompassFinalPeriod * fit.params[kStepoverMm];
+      fit.covariance(which, which) += step * step;
+    }
+  }
   if (!fit.model.tooth_marks) {
     int profile_evaluations = 0;
     fit.stepover_profile_sigma_mm = stepover_profile_sigma_mm(
         res, f.squaredNorm(), var, profile_evaluations);
     fit.evaluations += profile_evaluations;
-    // The profile model's own error: linear interpolation between strip cells h apart moves a
+    // The profile model's own error: linear interpolation between strip cells h apart moved a
     // sharp feature (a rim's step) by up to h / 2, a uniform error of sd h / sqrt(12) on every
     // pass position, which the stepover (a slope through N passes) sees as that over
     // sqrt(N (N^2 - 1) / 12) (derived; least-squares slope). A 5 mm flat at 1.455 mm stepover
-    // read 0.02 % long at 3 profile sigmas; with 32 strip cells per sample, 0.012 %.
+    // read 0.02 % long at 3 profile sigmas; with 32 strip cells per sample, 0.012 %. The model
+    // now places crests and rim steps where they are (fit_model: the lowest of one pass's
+    // profile), so this bounds rather than estimates its error; kept, as the campaigns that
+    // validated the stepover's sigma ran with it (docs/diagnose.md, issue 17).
     const double h = fit.model.window.cell_mm / kProfileCellsPerSample;
     const double passes = std::max(2.0, 2.0 * (w.v_max_mm - stepover) / fit.params[kStepoverMm]);
     const double model_sigma =

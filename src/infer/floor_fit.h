@@ -32,6 +32,7 @@ struct FloorFitOptions {
   Cutter cutter;  ///< shape, diameter, corner radius, dish; tilt and runout are ignored (fitted)
   RasterDirection direction = RasterDirection::OneWay;  ///< pass direction pattern
   int threads = 0;                                      ///< sweep threads (0 = all)
+  double stylus_tip_um = 0.0;  ///< tip radius of the measurement, um (0: none; FitModel)
 };
 
 /// The fit at its optimum.

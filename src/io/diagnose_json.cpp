@@ -14,6 +14,8 @@ nlohmann::json cusp_json(const CuspShape& c) {
   j["effective_radius_sigma_mm"] = c.radius_sigma_mm;
   j["valley_mm"] = c.valley_phase_mm;
   j["bin_mm"] = c.bin_mm;
+  j["period_mm"] = c.period_mm;
+  j["period_sigma_mm"] = c.period_sigma_mm;
   j["mean_profile_um"] = c.mean_um;
   return j;
 }
