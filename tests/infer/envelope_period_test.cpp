@@ -121,15 +121,12 @@ TEST_CASE("surface_estimates: a bull-nose floor under runout reads its stepover 
   // teeth, 1.05 deg dish, 5.45 um runout at 101.3 deg, tilt 0.0388 deg toward 207.7 deg, fz
   // 0.0618 mm, s 0.907 mm at 2.4 deg, one-way; 1 mm rim cropped): the band means repeated at
   // 0.878 mm (-3.2 %, measured on main, as on the campaign's 0.0075 mm floor).
-  Job job = test::raster_job(CutterShape::BullNose, 8.8, 0.907, 6.1, 0.01, 0.0618, 3);
-  job.cutter.corner_radius_mm = 1.04;
-  job.cutter.dish_deg = 1.05;
-  job.cutter.runout_mm = 0.00545;
-  job.cutter.runout_phase_deg = 101.3;
-  job.cutter.tilt_deg = 0.0388;
-  job.cutter.tilt_toward_deg = 207.7;
-  job.cut.feed_mm_per_min = 1854.0;
-  job.path.angle_deg = 2.4;
+  const Job job = test::tooth_cut_job({.diameter_mm = 8.8, .stepover_mm = 0.907, .size_mm = 6.1,
+                                        .cell_mm = 0.01, .fz_mm = 0.0618, .teeth = 3,
+                                        .dish_deg = 1.05, .runout_mm = 0.00545,
+                                        .runout_phase_deg = 101.3, .tilt_deg = 0.0388,
+                                        .tilt_toward_deg = 207.7, .angle_deg = 2.4,
+                                        .corner_radius_mm = 1.04});
   Heightfield hf = test::crop(test::simulate(job), 100);
   test::damage(hf, 0.005, 1.68, -0.2, 0.016, 2031u);
   const SurfaceEstimates e = surface_estimates(hf, {});
