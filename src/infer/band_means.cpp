@@ -1,5 +1,6 @@
-// Band means across a direction and the pass lay that maximises their share of the variance.
-// Inputs: Heightfield (um, mm), direction deg; output: BandMeans / PassLay. Cost: see header.
+// Band means (or a quantile of each band) across a direction and the pass lay that maximises the
+// means' share of the variance. Inputs: Heightfield (um, mm), direction deg; output: BandMeans /
+// PassLay. Cost: see header.
 // Method: projection along lines (Bracewell 1995, ch. 14); between-band share (Fisher 1925).
 #include "infer/band_means.h"
 
@@ -27,6 +28,60 @@ constexpr double kCoarseStepDeg = 0.5;
 constexpr int kFineSamples = 600;
 constexpr int kCandidates = 3;
 
+// Bands on either side of the first cell, enough for any direction.
+int half_bands(const Heightfield& hf, int stride) {
+  const double reach = std::hypot(hf.nx, hf.ny) * hf.cell_mm;
+  return static_cast<int>(std::ceil(reach / (stride * hf.cell_mm))) + 1;
+}
+
+// Visits every `stride`-th cell of every `stride`-th row with a height, with the index of its
+// band (one band `stride` cells wide across `direction_deg`; 2 half_bands + 1 of them).
+// Positions from the first cell: along the grid axes every cell then falls on a whole band
+// (from the centre, an even grid puts them on half bands, split by rounding).
+template <typename Visit>
+void visit_bands(const Heightfield& hf, double direction_deg, int stride, Visit visit) {
+  const double t = direction_deg * std::numbers::pi / 180.0;
+  const double ax = -std::sin(t), ay = std::cos(t);  // unit vector across the direction
+  const double w = stride * hf.cell_mm;
+  const double xc = hf.x_mm(0), yc = hf.y_mm(0);
+  const int half = half_bands(hf, stride);
+  for (int j = 0; j < hf.ny; j += stride) {
+    const double dy = ay * (hf.y_mm(j) - yc);
+    for (int i = 0; i < hf.nx; i += stride) {
+      const float z = hf.z_um(j, i);
+      if (!std::isfinite(z)) continue;
+      visit(static_cast<size_t>(half + std::lround((ax * (hf.x_mm(i) - xc) + dy) / w)), z);
+    }
+  }
+}
+
+// Bands holding kMinBandFill of the fullest band's cells, and the longest run of them.
+struct FullBands {
+  std::vector<bool> full;
+  size_t lo = 0, len = 0;
+};
+
+FullBands full_bands(const std::vector<long>& count) {
+  FullBands f;
+  const long fullest = count.empty() ? 0 : *std::max_element(count.begin(), count.end());
+  f.full.assign(count.size(), false);
+  if (fullest == 0) return f;
+  for (size_t k = 0; k < count.size(); ++k) {
+    f.full[k] = count[k] > 0 && static_cast<double>(count[k]) >= kMinBandFill * fullest;
+  }
+  for (size_t k = 0; k < count.size();) {
+    if (!f.full[k]) {
+      ++k;
+      continue;
+    }
+    size_t e = k;
+    while (e < count.size() && f.full[e]) ++e;
+    if (e - k > f.len) f.lo = k, f.len = e - k;
+    k = e;
+  }
+  return f;
+}
+
 }  // namespace
 
 double lay_wrap_deg(double deg) {
@@ -41,63 +96,57 @@ double lay_gap_deg(double a_deg, double b_deg) {
 
 BandMeans band_means(const Heightfield& hf, double direction_deg, int stride) {
   BandMeans b;
+  if (hf.nx <= 0 || hf.ny <= 0 || !(hf.cell_mm > 0.0)) return b;  // no cells (an empty fit)
   stride = std::max(stride, 1);
-  const double t = direction_deg * std::numbers::pi / 180.0;
-  const double ax = -std::sin(t), ay = std::cos(t);  // unit vector across the direction
-  const double w = stride * hf.cell_mm;
-  // Positions from the first cell: along the grid axes every cell then falls on a whole band
-  // (from the centre, an even grid puts them on half bands, split by rounding).
-  const double xc = hf.x_mm(0), yc = hf.y_mm(0);
-  const double reach = std::hypot(hf.nx, hf.ny) * hf.cell_mm;
-  const int half = static_cast<int>(std::ceil(reach / w)) + 1;
-  std::vector<double> sum(static_cast<size_t>(2 * half + 1), 0.0), sq(sum.size(), 0.0);
-  std::vector<long> count(sum.size(), 0);
-  for (int j = 0; j < hf.ny; j += stride) {
-    const double dy = ay * (hf.y_mm(j) - yc);
-    for (int i = 0; i < hf.nx; i += stride) {
-      const float z = hf.z_um(j, i);
-      if (!std::isfinite(z)) continue;
-      const int k = half + static_cast<int>(std::lround((ax * (hf.x_mm(i) - xc) + dy) / w));
-      sum[static_cast<size_t>(k)] += z;
-      sq[static_cast<size_t>(k)] += static_cast<double>(z) * z;
-      ++count[static_cast<size_t>(k)];
-    }
-  }
-  const long fullest = *std::max_element(count.begin(), count.end());
-  if (fullest == 0) return b;
-  const auto full_enough = [&](size_t k) {
-    return count[k] > 0 && static_cast<double>(count[k]) >= kMinBandFill * fullest;
-  };
+  const size_t bands = 2 * static_cast<size_t>(half_bands(hf, stride)) + 1;
+  std::vector<double> sum(bands, 0.0), sq(bands, 0.0);
+  std::vector<long> count(bands, 0);
+  visit_bands(hf, direction_deg, stride, [&](size_t k, float z) {
+    sum[k] += z;
+    sq[k] += static_cast<double>(z) * z;
+    ++count[k];
+  });
+  const FullBands f = full_bands(count);
+  if (f.len == 0) return b;
   // Share over the qualifying bands: between-band sum of squares / total sum of squares.
   double n = 0.0, s = 0.0, ss = 0.0, between = 0.0;
   for (size_t k = 0; k < sum.size(); ++k) {
-    if (!full_enough(k)) continue;
+    if (!f.full[k]) continue;
     n += count[k];
     s += sum[k];
     ss += sq[k];
   }
   const double grand = s / n, total = ss - n * grand * grand;
   for (size_t k = 0; k < sum.size(); ++k) {
-    if (!full_enough(k)) continue;
+    if (!f.full[k]) continue;
     const double m = sum[k] / count[k] - grand;
     between += count[k] * m * m;
   }
   b.share = total > 0.0 ? std::clamp(between / total, 0.0, 1.0) : 0.0;
   // The profile: the longest run of qualifying bands.
-  size_t best_lo = 0, best_len = 0;
-  for (size_t k = 0; k < sum.size();) {
-    if (!full_enough(k)) {
-      ++k;
-      continue;
-    }
-    size_t e = k;
-    while (e < sum.size() && full_enough(e)) ++e;
-    if (e - k > best_len) best_lo = k, best_len = e - k;
-    k = e;
+  if (static_cast<int>(f.len) < kMinBands) return b;
+  b.spacing_mm = stride * hf.cell_mm;
+  for (size_t k = f.lo; k < f.lo + f.len; ++k) b.z_um.push_back(sum[k] / count[k]);
+  return b;
+}
+
+BandMeans band_quantiles(const Heightfield& hf, double direction_deg, double quantile) {
+  BandMeans b;
+  if (hf.nx <= 0 || hf.ny <= 0 || !(hf.cell_mm > 0.0)) return b;
+  const size_t bands = 2 * static_cast<size_t>(half_bands(hf, 1)) + 1;
+  std::vector<std::vector<float>> cells(bands);
+  visit_bands(hf, direction_deg, 1, [&](size_t k, float z) { cells[k].push_back(z); });
+  std::vector<long> count(bands);
+  for (size_t k = 0; k < bands; ++k) count[k] = static_cast<long>(cells[k].size());
+  const FullBands f = full_bands(count);
+  if (static_cast<int>(f.len) < kMinBands) return b;
+  b.spacing_mm = hf.cell_mm;
+  for (size_t k = f.lo; k < f.lo + f.len; ++k) {
+    std::vector<float>& v = cells[k];
+    const auto at = static_cast<std::ptrdiff_t>(std::lround(quantile * (v.size() - 1)));
+    std::nth_element(v.begin(), v.begin() + at, v.end());
+    b.z_um.push_back(v[static_cast<size_t>(at)]);
   }
-  if (static_cast<int>(best_len) < kMinBands) return b;
-  b.spacing_mm = w;
-  for (size_t k = best_lo; k < best_lo + best_len; ++k) b.z_um.push_back(sum[k] / count[k]);
   return b;
 }
 

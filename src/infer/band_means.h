@@ -1,8 +1,10 @@
 // The floor projected along a direction: the mean height of every band one cell wide across it
-// (the across-lay profile of the passes with the feed marks averaged out), the share of the
-// height variance those band means carry, and the direction that maximises it (the pass lay).
+// (the across-lay profile of the passes with the feed marks averaged out; or each band's low
+// quantile, the marks' bottoms), the share of the height variance those band means carry, and the
+// direction that maximises it (the pass lay).
 // Inputs: Heightfield um over mm cells (NaN = missing, plane removed); output: BandMeans, PassLay.
-// Cost O(cells) per direction, O(cells * ~120) for the lay search (coarse grid, then refined).
+// Cost O(cells) per direction (a quantile: nth_element per band), O(cells * ~120) for the lay
+// search (coarse grid, then refined).
 // Method: projection along lines (Radon transform, Bracewell, Two-Dimensional Imaging, 1995,
 // ch. 14) scored by the between-band share of the variance (one-way ANOVA, Fisher 1925).
 #pragma once
@@ -41,6 +43,14 @@ struct BandMeans {
 /// @param[in] stride         sampling step in cells (>= 1)
 /// @return empty z_um when fewer than 8 bands qualify
 BandMeans band_means(const Heightfield& hf, double direction_deg, int stride = 1);
+
+/// The same bands one cell wide, each given the `quantile` of its heights instead of their mean
+/// (share left 0): a low quantile follows the bottoms of the feed marks, which lie on the
+/// cutter's swept envelope whatever the spindle phase of each pass, where the mean also carries
+/// how neighbouring passes' marks overlap (a phase that changes from pass to pass).
+/// @param[in] quantile  0..1 (0 = the lowest height of each band)
+/// @return empty z_um when fewer than 8 bands qualify
+BandMeans band_quantiles(const Heightfield& hf, double direction_deg, double quantile);
 
 /// The direction whose band means carry the largest share of the variance.
 struct PassLay {

@@ -58,6 +58,14 @@ constexpr double kBandPeakBiasSamples = 0.5;
 // (measured, docs/diagnose.md second campaign: rs1 0.7 %, rs5 0.6 %, rs10 0.2 % at 3-6.7 of
 // the 0.5-sample sigmas). The fit's prior keeps the 0.5-sample sigma it was validated with.
 constexpr double kReportedPeakBiasSamples = 1.5;
+// The bands' quantile that follows the feed marks' bottoms (the swept envelope), and the margin
+// by which its profile's comb score must beat the band means' to replace their period (measured
+// on the 66 campaign floors, docs/diagnose.md: on floors without marks the quantile's score beat
+// theirs by at most 0.001, on tooth floors left alone by up to 0.098, on the floors it corrects
+// by 0.106-1.13. The 1 % quantile read seed 2028 rs5 and seed 2031 tc3 0.35 % and 0.36 % off,
+// the 2 % one 0.78 % and 0.75 %, the 5 % one 3.0 % and 0.15 %).
+constexpr double kEnvelopeQuantile = 0.01;
+constexpr double kEnvelopeCombMargin = 0.1;
 // Heights within this of their plane everywhere: a floor with nothing to read (float um
 // rounding of a level floor; derived).
 constexpr float kFlatFloorUm = 1e-4f;
@@ -150,6 +158,27 @@ FeedMarks feed_marks(const std::vector<ProfileTrace>& along, const SurfaceOption
   f.feed_per_tooth_mm = f.period_mm;
   if (o.teeth && f.revolution_mm > 0.0) f.feed_per_tooth_mm = f.revolution_mm / *o.teeth;
   return f;
+}
+
+// The comb score of `acf` (band means' autocorrelation) at a period found, else 0.
+double comb_score_at(const std::vector<double>& acf, const RepeatPeriod& p, const BandMeans& b) {
+  return p.found ? comb_score(acf, p.period_mm / b.spacing_mm) : 0.0;
+}
+
+// The across-lay period of the bands' low quantile (band_quantiles) when its comb beats
+// `mean_score`, the band means' comb score at their period, by kEnvelopeCombMargin.
+std::optional<RepeatPeriod> envelope_period(const Heightfield& residual, double lay_deg,
+                                            double mean_score) {
+  const BandMeans low = band_quantiles(residual, lay_deg, kEnvelopeQuantile);
+  if (low.z_um.empty()) return std::nullopt;
+  const ProfileTrace profile = smoothed_band_profile(low);
+  const int n = static_cast<int>(profile.z_um.size());
+  const std::vector<double> acf = mean_autocorrelation({profile}, 3 * n / 4);
+  const RepeatPeriod p = comb_period(acf, low.spacing_mm, kBandSmoothCells, n / kMinPeriodsInField);
+  if (!p.found || comb_score_at(acf, p, low) < mean_score + kEnvelopeCombMargin) {
+    return std::nullopt;
+  }
+  return p;
 }
 
 }  // namespace
@@ -252,6 +281,21 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
           support >= kMinTraceSupport * best) {
         e.stepover = traces;
       }
+    }
+    // The bands' low quantile follows the feed marks' bottoms, the swept envelope, whatever
+    // each pass's spindle phase; the means also carry how neighbouring passes' marks overlap,
+    // which changes from pass to pass. Where that profile repeats clearly better, it is read.
+    const std::optional<RepeatPeriod> low =
+        envelope_period(residual, e.lay_deg, comb_score_at(band_acf, e.stepover, bands));
+    if (low) {
+      e.notes.push_back(
+          "the band means' repeat across the lay (" +
+          (e.stepover.found ? format_number(three_digits(e.stepover.period_mm)) + " mm"
+                            : std::string("none")) +
+          ") is less clear than that of the marks' bottoms (the lowest " +
+          format_number(100.0 * kEnvelopeQuantile) + " % of each band): " +
+          format_number(three_digits(low->period_mm)) + " mm is used");
+      e.stepover = *low;
     }
     const double per_sample_mm = bands.spacing_mm / std::max(1, e.stepover.repeats);
     e.stepover_prior_sigma_mm =

@@ -31,19 +31,20 @@ inline Job raster_job(CutterShape shape, double diameter_mm, double stepover_mm,
   return job;
 }
 
-/// A tooth-resolved raster of a flat end mill with a dished end, runout and a tram tilt (the
-/// floors of tools/tooth_campaign.py).
+/// A tooth-resolved raster of a flat end mill (or a bull-nose: corner_radius_mm > 0) with a
+/// dished end, runout and a tram tilt (the floors of tools/tooth_campaign.py).
 struct ToothCut {
   double diameter_mm = 6.0, stepover_mm = 1.0, size_mm = 5.0, cell_mm = 0.01, fz_mm = 0.05;
   int teeth = 2;
   double dish_deg = 1.0, runout_mm = 0.0, runout_phase_deg = 0.0, tilt_deg = 0.0,
-         tilt_toward_deg = 0.0, angle_deg = 0.0;
+         tilt_toward_deg = 0.0, angle_deg = 0.0, corner_radius_mm = 0.0;
 };
 
 /// The job of a ToothCut.
 inline Job tooth_cut_job(const ToothCut& c) {
-  Job job = raster_job(CutterShape::Flat, c.diameter_mm, c.stepover_mm, c.size_mm, c.cell_mm,
-                       c.fz_mm, c.teeth);
+  Job job = raster_job(c.corner_radius_mm > 0.0 ? CutterShape::BullNose : CutterShape::Flat,
+                       c.diameter_mm, c.stepover_mm, c.size_mm, c.cell_mm, c.fz_mm, c.teeth);
+  job.cutter.corner_radius_mm = c.corner_radius_mm;
   job.cutter.dish_deg = c.dish_deg;
   job.cutter.runout_mm = c.runout_mm;
   job.cutter.runout_phase_deg = c.runout_phase_deg;

@@ -10,12 +10,14 @@
 #include <cmath>
 #include <numbers>
 
+#include "infer/band_means.h"
 #include "infer/diagnose_floors.h"
 #include "infer/fit_uncertainty.h"
 #include "infer/fit_verdict.h"
 #include "infer/floor_fit.h"
 #include "infer/surface_estimates.h"
 #include "test_support.h"
+#include "texture/fit_plane.h"
 
 namespace cuspmap {
 namespace {
@@ -81,9 +83,27 @@ TEST_CASE("issue_17: a heel floor whose across-lay repeat is the tooth arcs' bea
   // arcs with random pass phases gives 0.190).
   Heightfield hf = test::crop(test::simulate(heel_job(11.0)), 300);  // interior 5 x 5 mm
   test::damage(hf, 0.022, 0.23, 1.27, 0.005, 2028u);
-  const SurfaceEstimates e = surface_estimates(hf, SurfaceOptions{});
-  CAPTURE(e.stepover.period_mm, e.feed.period_mm, e.lay_deg, e.lay_pass_share);
-  REQUIRE(e.feed.found);
+  const SurfaceEstimates surface = surface_estimates(hf, SurfaceOptions{});
+  CAPTURE(surface.stepover.period_mm, surface.feed.period_mm, surface.lay_deg,
+          surface.lay_pass_share);
+  REQUIRE(surface.feed.found);
+  // The surface now reads the passes from the marks' bottoms (the lowest 1 % of each band, on
+  // the envelope whatever the arcs' beat; docs/diagnose.md): within 1 % (derived: path.stepover).
+  REQUIRE(std::abs(surface.stepover.period_mm - 0.841) <= 0.01 * 0.841);
+  // A fit started from the band means' own repeat (the beat, as before) must still say so.
+  SurfaceEstimates e = surface;
+  const BandMeans bands = band_means(remove_plane(hf, surface.setup_plane), surface.lay_deg);
+  const ProfileTrace profile = smoothed_band_profile(bands);
+  const int n = static_cast<int>(profile.z_um.size());
+  e.stepover = comb_period(mean_autocorrelation({profile}, 3 * n / 4), bands.spacing_mm,
+                           kBandSmoothCells, n / kMinPeriodsInField);
+  REQUIRE(e.stepover.found);
+  // surface_estimates' floors on the sigmas (0.5 and 1.5 cells over the repeats).
+  const double per_sample_mm = bands.spacing_mm / std::max(1, e.stepover.repeats);
+  e.stepover_prior_sigma_mm = std::max(e.stepover.sigma_mm, 0.5 * per_sample_mm);
+  e.stepover.sigma_mm = std::max(e.stepover.sigma_mm, 1.5 * per_sample_mm);
+  CAPTURE(e.stepover.period_mm);
+  REQUIRE(e.stepover.period_mm < 0.25);  // the beat (measured 0.178; the truth 0.841)
   const FloorFit fit = fit_with(hf, e, heel_job(11.0).cutter);
   FittedErrors f = fitted_errors(fit);
   const FitVerdict v = fit_verdict(f, fit, e);

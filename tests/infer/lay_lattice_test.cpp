@@ -51,8 +51,6 @@ TEST_CASE("lay_repeats: along the passes the feed, along another lattice row the
   // Derived (a 2-D lattice with basis (f, 0) and (d, s)): along the passes (0 deg) the traces
   // repeat every f and the rows of marks lie s apart; along the row v = (d, s) the traces
   // repeat every |v| and the rows lie f s / |v| apart (the cell's area over |v|).
-  // (The comb reads a row a few samples apart as a far multiple: rows here are 19 cells apart;
-  // 18 cells apart read 11 x, docs/diagnose.md.)
   const double f = 0.2, s = 0.8, d = 0.3, cell = 0.01;
   const Heightfield hf = mark_lattice(f, s, d, 5.0, cell);
   const LayRepeats passes = lay_repeats(hf, 0.0);
@@ -68,6 +66,19 @@ TEST_CASE("lay_repeats: along the passes the feed, along another lattice row the
   REQUIRE(row.across_mm == Approx(f * s / v).margin(cell));
   REQUIRE(row.along_mm == Approx(v).margin(2.0 * cell));
   REQUIRE_FALSE(row.passes_like());
+}
+
+TEST_CASE("lay_repeats: rows a few samples apart are not read as a far multiple", "[infer]") {
+  // Derived as above: along the row v = (d, s) of a lattice with f 0.1, s 0.6, d 0.25 mm the
+  // rows lie f s / |v| = 0.0923 mm apart, 18.46 cells of 0.005 mm. The comb's quarter-sample
+  // grid put its candidate at 18.5, whose far multiples miss the narrow peaks, and 11 rows
+  // (203 samples) combed best: 0.978 mm was read (measured, docs/diagnose.md).
+  const double f = 0.1, s = 0.6, d = 0.25, cell = 0.005;
+  const Heightfield hf = mark_lattice(f, s, d, 4.0, cell);
+  const double v = std::hypot(d, s);
+  const LayRepeats row = lay_repeats(hf, std::atan2(s, d) * 180.0 / std::numbers::pi);
+  CAPTURE(row.across_mm, row.along_mm);
+  REQUIRE(row.across_mm == Approx(f * s / v).margin(cell));
 }
 
 TEST_CASE("passes_among_rows: a lay that looks like passes is kept", "[infer]") {
