@@ -17,10 +17,9 @@ namespace {
 // submultiple keeps to be the period (derived: a false 1/m of the period combs the ACF at
 // lags where only every m-th is a repeat, ~1/m of the score plus scatter, measured up to 0.67
 // for m = 3 on a dished flat floor; the true period of a floor whose comb peaks at twice it
-// keeps 0.99 on ball floors). Up to 1/16: rows of marks 18.46 samples apart combed best as 11 of
-// them (the quarter-sample grid's 18.5 misses their far peaks; measured, docs/diagnose.md).
+// keeps 0.99 on ball floors).
 constexpr double kCombStepSamples = 0.25;
-constexpr int kMaxSubmultiple = 16;
+constexpr int kMaxSubmultiple = 4;
 constexpr double kSubmultipleSlack = 0.03;
 constexpr double kMinSubmultipleScore = 0.8;
 // A comb scoring below this is no repeat (as kMinRepeatPeak, for a mean over the multiples).
@@ -169,9 +168,6 @@ RepeatPeriod comb_period(const std::vector<double>& acf, double spacing_mm, int 
     for (int m = 2; m <= kMaxSubmultiple; ++m) {
       const double centre = best_p / m;
       if (centre < std::max(min_lag, 2)) break;
-      // The exact fraction too: 1/m of a far multiple is known to a fraction of a sample,
-      // where the quarter-sample grid misses narrow peaks at its far repeats.
-      if (const double s = score(centre); s > sub) sub = s, sub_p = centre;
       for (double p = centre * (1.0 - kSubmultipleSlack);
            p <= centre * (1.0 + kSubmultipleSlack); p += kCombStepSamples) {
         const double s = score(p);

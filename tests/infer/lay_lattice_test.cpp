@@ -68,19 +68,6 @@ TEST_CASE("lay_repeats: along the passes the feed, along another lattice row the
   REQUIRE_FALSE(row.passes_like());
 }
 
-TEST_CASE("lay_repeats: rows a few samples apart are not read as a far multiple", "[infer]") {
-  // Derived as above: along the row v = (d, s) of a lattice with f 0.1, s 0.6, d 0.25 mm the
-  // rows lie f s / |v| = 0.0923 mm apart, 18.46 cells of 0.005 mm. The comb's quarter-sample
-  // grid put its candidate at 18.5, whose far multiples miss the narrow peaks, and 11 rows
-  // (203 samples) combed best: 0.978 mm was read (measured, docs/diagnose.md).
-  const double f = 0.1, s = 0.6, d = 0.25, cell = 0.005;
-  const Heightfield hf = mark_lattice(f, s, d, 4.0, cell);
-  const double v = std::hypot(d, s);
-  const LayRepeats row = lay_repeats(hf, std::atan2(s, d) * 180.0 / std::numbers::pi);
-  CAPTURE(row.across_mm, row.along_mm);
-  REQUIRE(row.across_mm == Approx(f * s / v).margin(cell));
-}
-
 TEST_CASE("passes_among_rows: a lay that looks like passes is kept", "[infer]") {
   // The same lattice: its passes (0 deg) repeat along shorter than across (derived above), so
   // no other share peak is sought whichever peak is largest.
