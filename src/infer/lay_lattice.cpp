@@ -24,17 +24,22 @@ constexpr double kSamePeakDeg = 2.0;
 
 }  // namespace
 
+BandRepeat band_repeat(const BandMeans& bands) {
+  BandRepeat r;
+  const ProfileTrace profile = smoothed_band_profile(bands);
+  r.samples = static_cast<int>(profile.z_um.size());
+  r.acf = mean_autocorrelation({profile}, 3 * r.samples / 4);
+  r.period = comb_period(r.acf, bands.spacing_mm, kBandSmoothCells, r.samples / kMinPeriodsInField);
+  return r;
+}
+
 LayRepeats lay_repeats(const Heightfield& residual, double lay_deg) {
   LayRepeats r;
   const BandMeans bands = band_means(residual, lay_deg);
   if (!bands.z_um.empty()) {
-    const ProfileTrace profile = smoothed_band_profile(bands);
-    const int n = static_cast<int>(profile.z_um.size());
-    if (n > 2 * kBandSmoothCells) {
-      const RepeatPeriod p = comb_period(mean_autocorrelation({profile}, 3 * n / 4),
-                                         bands.spacing_mm, kBandSmoothCells,
-                                         n / kMinPeriodsInField);
-      if (p.found) r.across_mm = p.period_mm;
+    const BandRepeat across = band_repeat(bands);
+    if (across.samples > 2 * kBandSmoothCells && across.period.found) {
+      r.across_mm = across.period.period_mm;
     }
   }
   const std::vector<ProfileTrace> along = extract_profiles(residual, lay_deg, kRowTraces, 0.0);

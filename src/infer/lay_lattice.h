@@ -11,6 +11,7 @@
 
 #include "core/heightfield.h"
 #include "infer/band_means.h"
+#include "infer/repeat_period.h"
 
 namespace cuspmap {
 
@@ -18,6 +19,16 @@ namespace cuspmap {
 /// (common practice, no source: the passes of seed 2030 tc4's floor keep 0.57 of a mark row's
 /// share; a ball floor's rows off the lay keep under 0.02 of the passes').
 inline constexpr double kMinRowShareRatio = 0.25;
+
+/// The across-lay repeat of a band profile (band means or quantiles): the profile smoothed over
+/// kBandSmoothCells, its mean ACF to 3/4 of its length (one clean profile keeps a quarter of its
+/// pairs there), combed for periods up to 1 / kMinPeriodsInField of it (the stepover's reading).
+struct BandRepeat {
+  std::vector<double> acf;  ///< of the smoothed profile, lag in band spacings
+  RepeatPeriod period;      ///< the comb's
+  int samples = 0;          ///< length of the smoothed profile
+};
+BandRepeat band_repeat(const BandMeans& bands);
 
 /// Repeats across and along one direction.
 struct LayRepeats {

@@ -171,14 +171,11 @@ std::optional<RepeatPeriod> envelope_period(const Heightfield& residual, double 
                                             double mean_score) {
   const BandMeans low = band_quantiles(residual, lay_deg, kEnvelopeQuantile);
   if (low.z_um.empty()) return std::nullopt;
-  const ProfileTrace profile = smoothed_band_profile(low);
-  const int n = static_cast<int>(profile.z_um.size());
-  const std::vector<double> acf = mean_autocorrelation({profile}, 3 * n / 4);
-  const RepeatPeriod p = comb_period(acf, low.spacing_mm, kBandSmoothCells, n / kMinPeriodsInField);
-  if (!p.found || comb_score_at(acf, p, low) < mean_score + kEnvelopeCombMargin) {
+  const BandRepeat r = band_repeat(low);
+  if (!r.period.found || comb_score_at(r.acf, r.period, low) < mean_score + kEnvelopeCombMargin) {
     return std::nullopt;
   }
-  return p;
+  return r.period;
 }
 
 }  // namespace
@@ -255,16 +252,13 @@ SurfaceEstimates surface_estimates(const Heightfield& hf, const SurfaceOptions& 
   const double dx = hf.cell_mm;
   double span_mm = static_cast<double>(longest) * dx;
   if (!bands.z_um.empty()) {
-    const ProfileTrace profile = smoothed_band_profile(bands);
     const int nb = static_cast<int>(bands.z_um.size());
-    const int n = static_cast<int>(profile.z_um.size());
-    // Lags to 3/4 of the profile: one clean profile (not a trace among noisy ones) keeps a
-    // quarter of its length in pairs there, and the extra repeats sharpen the slope fit.
-    // Periods beyond n / kMinPeriodsInField are refused below anyway: not searched (a zigzag's
-    // two-pass repeat would otherwise comb better than its stepover on a short field).
-    const std::vector<double> band_acf = mean_autocorrelation({profile}, 3 * n / 4);
-    e.stepover =
-        comb_period(band_acf, bands.spacing_mm, kBandSmoothCells, n / kMinPeriodsInField);
+    // Lags to 3/4 of the profile: the extra repeats sharpen the slope fit. Periods beyond
+    // n / kMinPeriodsInField are refused below anyway: not searched (a zigzag's two-pass repeat
+    // would otherwise comb better than its stepover on a short field).
+    const BandRepeat band_rep = band_repeat(bands);
+    const std::vector<double>& band_acf = band_rep.acf;
+    e.stepover = band_rep.period;
     // The traces' first clear repeat, when it is no multiple of the band means' period and the
     // band means support it (their comb keeps half the best score there), is taken instead: a
     // comb can lock onto a fraction like 2/3 of the period when the profile's repeats differ.

@@ -58,8 +58,7 @@ PhaseProfile search_phase(ToothProblem& p, int teeth, double fz_mm) {
   PhaseProfile out;
   const ToothState start = p.state();
   const double e = std::hypot(start.g[kRunoutCos], start.g[kRunoutSin]);
-  out.start_psi_deg = std::atan2(start.g[kRunoutSin], start.g[kRunoutCos]) / kDegToRad;
-  out.psi_deg.push_back(out.start_psi_deg);
+  out.psi_deg.push_back(std::atan2(start.g[kRunoutSin], start.g[kRunoutCos]) / kDegToRad);
   out.cost.push_back(p.residual().squaredNorm());
   if (teeth < 3 || !(e > 0.0)) return out;
   std::vector<ToothState> states{start};

@@ -14,8 +14,7 @@ namespace cuspmap {
 /// Points of the phase profile: phase (deg, unwrapped about the start) and profile cost (um^2).
 struct PhaseProfile {
   std::vector<double> psi_deg, cost;
-  double start_psi_deg = 0.0;  ///< the stop the search began from
-  int best = 0;                ///< index of the lowest cost
+  int best = 0;  ///< index of the lowest cost (0: the stop the search began from)
 };
 
 /// From the problem's stop (runout free, Z >= 3): profile costs at +-step, the search moving to
